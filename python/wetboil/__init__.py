@@ -1,0 +1,52 @@
+"""wetboil: how a heated surface's wettability changes boiling.
+
+Vectorised, source-checked kernels from contact angles to critical heat flux,
+with a Rust core. Every public function takes SI units (angles in degrees,
+contact angles through the liquid), broadcasts like NumPy, keeps xarray labels
+and dask laziness, and reports impossible or out-of-range elements by NaN plus
+one warning per call (see `errstate`).
+
+.. warning::
+   Critical heat flux and burnout predictions carry correlation uncertainty
+   of tens of percent and hold only inside their published validity ranges.
+   Apply safety margins and defer to local codes and licensed engineering
+   practice.
+"""
+
+from . import _core
+from ._api import get_num_threads, models, set_num_threads
+from ._errors import (
+    InvalidValueError,
+    InvalidValueWarning,
+    OutOfRangeError,
+    RangeWarning,
+    WetboilError,
+    WetboilTypeError,
+    WetboilValueError,
+    WetboilWarning,
+    errstate,
+    geterr,
+)
+from . import fluids, nucleation, departure, chf  # noqa: E402  (topic modules)
+
+__version__ = "0.1.0"
+
+__all__ = [
+    "fluids",
+    "nucleation",
+    "departure",
+    "chf",
+    "errstate",
+    "geterr",
+    "models",
+    "set_num_threads",
+    "get_num_threads",
+    "WetboilError",
+    "WetboilTypeError",
+    "WetboilValueError",
+    "InvalidValueError",
+    "OutOfRangeError",
+    "WetboilWarning",
+    "InvalidValueWarning",
+    "RangeWarning",
+]

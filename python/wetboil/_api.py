@@ -1,0 +1,307 @@
+"""The one generic front door that turns a registered Rust kernel into a public
+function.
+
+A public function is written once in its topic module as a *template*: its
+signature (argument names, defaults) and its numpy-style docstring. The
+`kernel` decorator checks the template against the kernel's facts declared in
+Rust (`wetboil._core.models_json()`) and returns a real Python function with
+the same signature and docstring that
+
+* sends plain numbers and scalar fluid states straight to the Rust scalar path
+  (`_core.Caller`), returning a `float` (or a named tuple);
+* sends ndarrays, lists and scalars to the NumPy ufunc, with one warning per
+  call for impossible or out-of-range elements (see `wetboil.errstate`);
+* sends xarray objects through `xarray.apply_ufunc`, so they broadcast by
+  dimension name, and dask arrays through `dask.array.apply_gufunc` (or
+  ``apply_ufunc(dask="parallelized")``), so they stay lazy, multi-output
+  kernels included.
+"""
+
+from __future__ import annotations
+
+import functools
+import inspect
+import json
+import os
+import sys
+from typing import Any, Callable, Dict, NamedTuple, Optional, Sequence, Tuple
+
+import numpy as np
+
+from . import _core
+from ._errors import WetboilTypeError, WetboilValueError, report
+
+__all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads"]
+
+
+class Arg(NamedTuple):
+    name: str
+    unit: str
+
+
+class Model(NamedTuple):
+    """The facts of one published model, as declared next to its Rust kernel."""
+
+    name: str
+    summary: str
+    equation: str
+    inputs: Tuple[Arg, ...]
+    outputs: Tuple[Arg, ...]
+    domain: str
+    validity: str
+    reference: str
+    doi: str
+    verification: str
+
+
+def _load_models() -> Dict[str, Model]:
+    out = {}
+    for m in json.loads(_core.models_json()):
+        m["inputs"] = tuple(Arg(**a) for a in m["inputs"])
+        m["outputs"] = tuple(Arg(**a) for a in m["outputs"])
+        out[m["name"]] = Model(**m)
+    return out
+
+
+MODELS: Dict[str, Model] = _load_models()
+
+
+def models() -> list:
+    """Every registered kernel's facts (name, equation, units, domain, validity
+    range, reference, DOI, verification status) as a list of `Model` tuples."""
+    return list(MODELS.values())
+
+
+def get_num_threads() -> int:
+    """Number of threads that large array calls use."""
+    return _core.get_num_threads()
+
+
+def set_num_threads(n: int) -> None:
+    """Set the number of threads large array calls use (default: the
+    ``WETBOIL_NUM_THREADS`` environment variable, else all cores)."""
+    if isinstance(n, bool) or not isinstance(n, (int, np.integer)) or n < 1:
+        raise WetboilValueError(f"set_num_threads: n must be a positive integer, got {n!r}")
+    _core.set_num_threads(int(n))
+
+
+if hasattr(os, "register_at_fork"):
+    # A fork()ed child must not reuse the parent's worker threads (they do not
+    # exist there); see src/python/threads.rs.
+    os.register_at_fork(after_in_child=_core._after_fork_child)
+
+
+# ----------------------------------------------------------------------------
+# argument classification
+
+
+def _is_xarray(x: Any) -> bool:
+    xr = sys.modules.get("xarray")
+    return xr is not None and isinstance(x, (xr.DataArray, xr.Variable))
+
+
+def _is_dask(x: Any) -> bool:
+    da = sys.modules.get("dask.array")
+    if da is not None and isinstance(x, da.Array):
+        return True
+    if _is_xarray(x):
+        return da is not None and isinstance(x.data, da.Array)
+    return False
+
+
+_NUMERIC_KINDS = "fiu"
+
+
+def _coerce(function: str, label: str, value: Any) -> Any:
+    """Check one kernel input and bring it to a form the ufunc takes."""
+    if isinstance(value, float) or (isinstance(value, int) and not isinstance(value, bool)):
+        return value
+    if value is None or isinstance(value, (str, bytes, bool, np.bool_)):
+        raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got {type(value).__name__}")
+    if _is_xarray(value) or _is_dask(value):
+        kind = value.dtype.kind
+        if kind not in _NUMERIC_KINDS:
+            raise WetboilTypeError(f"{function}: {label} must hold numbers, got dtype {value.dtype}")
+        return value
+    if isinstance(value, complex):
+        raise WetboilTypeError(f"{function}: {label} must be real, got complex")
+    try:
+        arr = np.asarray(value)
+    except (ValueError, TypeError) as exc:
+        raise WetboilValueError(f"{function}: {label} is not a rectangular array of numbers ({exc})") from None
+    kind = arr.dtype.kind
+    if kind in _NUMERIC_KINDS:
+        return arr
+    if kind == "O":
+        try:
+            return arr.astype(np.float64)
+        except (TypeError, ValueError):
+            pass
+    raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {arr.dtype}")
+
+
+# ----------------------------------------------------------------------------
+# evaluation
+
+
+def _as_result(outs: Any, result_type: Optional[type]) -> Any:
+    if result_type is None:
+        return outs
+    return result_type(*outs)
+
+
+def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
+    """Evaluate kernel `name` on NumPy-compatible arrays through its ufunc and
+    apply the element policy. Module-level and picklable (used by dask)."""
+    uf = getattr(_core, name)
+    _core.take_counts()  # discard counts of direct ufunc calls made earlier
+    with np.errstate(all="ignore"):  # our own policy reports NaNs, not NumPy's FP flags
+        outs = uf(*arrays)
+    invalid, out_of_range = _core.take_counts()
+    if invalid or out_of_range:
+        size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
+        report(function, size, invalid, out_of_range)
+    return outs
+
+
+def _scalarise(x: Any) -> Any:
+    if isinstance(x, np.ndarray) and x.ndim == 0:
+        return float(x)
+    if isinstance(x, np.floating):
+        return float(x)
+    return x
+
+
+class _Spec(NamedTuple):
+    model: Model
+    function: str  # public qualified name, e.g. "departure.fritz"
+    plan: Tuple[Tuple[int, str], ...]  # per kernel input: (argument index, fluid field or "")
+    labels: Tuple[str, ...]  # per kernel input: how to name it in messages
+    params: Tuple[str, ...]
+    result_type: Optional[type]
+
+
+def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
+    """The array path: gather the kernel inputs, check them, dispatch."""
+    from .fluids import Saturation
+
+    inputs = []
+    for (ai, field), label in zip(spec.plan, spec.labels):
+        a = args[ai]
+        if field:
+            if not isinstance(a, Saturation):
+                raise WetboilTypeError(
+                    f"{spec.function}: {spec.params[ai]} must be a wetboil.fluids.Saturation "
+                    f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
+                )
+            a = getattr(a, field)
+        inputs.append(_coerce(spec.function, label, a))
+
+    name, n_out = spec.model.name, len(spec.model.outputs)
+    func = functools.partial(evaluate_arrays, name, spec.function)
+    if any(_is_xarray(x) for x in inputs):
+        import xarray as xr
+
+        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=[np.float64] * n_out)
+        if n_out > 1:
+            kwargs["output_core_dims"] = [[] for _ in range(n_out)]
+        outs = xr.apply_ufunc(func, *inputs, **kwargs)
+        names = [o.name for o in spec.model.outputs]
+        if n_out == 1:
+            return outs.rename(names[0])
+        return _as_result(tuple(o.rename(nm) for o, nm in zip(outs, names)), spec.result_type)
+    if any(_is_dask(x) for x in inputs):
+        import dask.array as da
+
+        signature = ",".join(["()"] * len(inputs)) + "->" + ",".join(["()"] * n_out)
+        outs = da.apply_gufunc(
+            func, signature, *inputs, output_dtypes=(np.float64 if n_out == 1 else [np.float64] * n_out)
+        )
+        return outs if n_out == 1 else _as_result(tuple(outs), spec.result_type)
+
+    shapes = [np.shape(x) for x in inputs]
+    try:
+        np.broadcast_shapes(*shapes)
+    except ValueError:
+        described = ", ".join(f"{lab} {shp}" for lab, shp in zip(spec.labels, shapes))
+        raise WetboilValueError(f"{spec.function}: argument shapes do not broadcast: {described}") from None
+    outs = evaluate_arrays(name, spec.function, *inputs)
+    if n_out == 1:
+        return _scalarise(outs)
+    return _as_result(tuple(_scalarise(o) for o in outs), spec.result_type)
+
+
+# ----------------------------------------------------------------------------
+# the decorator
+
+
+def kernel(name: str, *, result: Optional[type] = None) -> Callable[[Callable], Callable]:
+    """Make a public function from kernel `name` and a template.
+
+    The template supplies the public signature and docstring; it is never
+    called. Every kernel input must be a template argument (``"radius"``) or a
+    field of one (``"fluid.sigma"``), and every template argument must feed the
+    kernel, so the two cannot drift apart: a mismatch fails at import.
+    `result` is the named tuple type of a multi-output kernel.
+    """
+    from .fluids import FIELDS
+
+    model = MODELS[name]
+
+    def build(template: Callable) -> Callable:
+        sig = inspect.signature(template)
+        params = tuple(sig.parameters)
+        function = f"{template.__module__.rpartition('.')[2]}.{template.__name__}"
+        plan, labels, used = [], [], set()
+        for inp in model.inputs:
+            arg, _, field = inp.name.partition(".")
+            if arg not in sig.parameters:
+                raise RuntimeError(f"{function}: kernel {name} needs argument {arg!r}, template has {params}")
+            if field and field not in FIELDS:
+                raise RuntimeError(f"{function}: {field!r} is not a Saturation field")
+            plan.append((params.index(arg), field))
+            labels.append(inp.name)
+            used.add(arg)
+        unused = set(params) - used
+        if unused:
+            raise RuntimeError(f"{function}: template arguments {sorted(unused)} feed no kernel input")
+        if len(model.outputs) > 1 and result is None:
+            raise RuntimeError(f"{function}: a multi-output kernel needs a result type")
+        spec = _Spec(model, function, tuple(plan), tuple(labels), params, result)
+        caller = _core.Caller(
+            name, [(ai, FIELDS.index(f) if f else -1) for ai, f in plan], len(params), result
+        )
+
+        # Generate a function with exactly the template's parameters so that
+        # positional and keyword calls, defaults and inspect.signature behave
+        # like any Python function, then copy the template's metadata onto it.
+        pieces, star_done = [], False
+        for p in sig.parameters.values():
+            if p.kind is p.KEYWORD_ONLY and not star_done:
+                pieces.append("*")
+                star_done = True
+            if p.kind not in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY):
+                raise RuntimeError(f"{function}: only plain or keyword-only arguments are supported")
+            pieces.append(p.name if p.default is p.empty else f"{p.name}=None")
+        arglist = ", ".join(params)
+        src = (
+            f"def {template.__name__}({', '.join(pieces)}):\n"
+            f"    r = _caller({arglist})\n"
+            f"    if r is None:\n"
+            f"        r = _evaluate(_spec, ({arglist}{',' if len(params) == 1 else ''}))\n"
+            f"    return r\n"
+        )
+        namespace: Dict[str, Any] = {"__name__": template.__module__, "_caller": caller, "_evaluate": _evaluate, "_spec": spec}
+        exec(compile(src, f"<wetboil front door {function}>", "exec"), namespace)
+        f = namespace[template.__name__]
+        f.__defaults__ = template.__defaults__
+        f.__kwdefaults__ = template.__kwdefaults__
+        f.__doc__ = template.__doc__
+        f.__module__ = template.__module__
+        f.__qualname__ = template.__qualname__
+        f.__annotations__ = dict(getattr(template, "__annotations__", {}))
+        f.ufunc = getattr(_core, name)  # type: ignore[attr-defined]
+        f.model = model  # type: ignore[attr-defined]
+        return f
+
+    return build

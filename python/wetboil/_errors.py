@@ -1,0 +1,142 @@
+"""Exceptions, warning categories and the element-error policy (`errstate`)."""
+
+from __future__ import annotations
+
+import contextvars
+import sys
+import warnings
+from typing import Literal, NamedTuple, Optional
+
+__all__ = [
+    "WetboilError",
+    "WetboilTypeError",
+    "WetboilValueError",
+    "InvalidValueError",
+    "OutOfRangeError",
+    "WetboilWarning",
+    "InvalidValueWarning",
+    "RangeWarning",
+    "errstate",
+    "geterr",
+]
+
+Action = Literal["ignore", "warn", "raise"]
+_ACTIONS = ("ignore", "warn", "raise")
+
+
+class WetboilError(Exception):
+    """Base class of every exception wetboil raises."""
+
+
+class WetboilTypeError(WetboilError, TypeError):
+    """An argument has the wrong type (a string or None where a number belongs...)."""
+
+
+class WetboilValueError(WetboilError, ValueError):
+    """A structural problem: shapes that do not broadcast, a missing or
+    contradictory input, an unknown method name."""
+
+
+class InvalidValueError(WetboilError, ValueError):
+    """Raised instead of `InvalidValueWarning` under ``errstate(invalid="raise")``."""
+
+
+class OutOfRangeError(WetboilError, ValueError):
+    """Raised instead of `RangeWarning` under ``errstate(out_of_range="raise")``."""
+
+
+class WetboilWarning(UserWarning):
+    """Base class of wetboil's warnings."""
+
+
+class InvalidValueWarning(WetboilWarning, RuntimeWarning):
+    """Some elements were physically impossible and became NaN."""
+
+
+class RangeWarning(WetboilWarning):
+    """Some elements lie outside the published validity range of the correlation
+    (they were computed; treat them as extrapolation)."""
+
+
+class _State(NamedTuple):
+    invalid: Action
+    out_of_range: Action
+
+
+_STATE: contextvars.ContextVar[_State] = contextvars.ContextVar("wetboil_errstate", default=_State("warn", "warn"))
+
+
+def geterr() -> dict:
+    """The current element-error policy as ``{"invalid": ..., "out_of_range": ...}``."""
+    s = _STATE.get()
+    return {"invalid": s.invalid, "out_of_range": s.out_of_range}
+
+
+class errstate:
+    """Context manager setting how element problems are reported.
+
+    Parameters
+    ----------
+    invalid : {"ignore", "warn", "raise"}, optional
+        Physically impossible elements (they become NaN): ignore silently, emit
+        one `InvalidValueWarning` per call (default), or raise `InvalidValueError`.
+    out_of_range : {"ignore", "warn", "raise"}, optional
+        Elements outside a correlation's published validity range (they are
+        computed): ignore, emit one `RangeWarning` per call (default), or raise
+        `OutOfRangeError`.
+
+    The setting is per thread and per asyncio task (a context variable).
+
+    Examples
+    --------
+    >>> import wetboil
+    >>> from wetboil.departure import fritz
+    >>> water = wetboil.fluids.Saturation(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.598, h_lv=2.2564e6, sigma=0.0589)
+    >>> with wetboil.errstate(invalid="ignore"):
+    ...     fritz(200.0, water)   # an impossible angle, silently NaN
+    nan
+    """
+
+    def __init__(self, invalid: Optional[Action] = None, out_of_range: Optional[Action] = None) -> None:
+        for label, value in (("invalid", invalid), ("out_of_range", out_of_range)):
+            if value is not None and value not in _ACTIONS:
+                raise WetboilValueError(f"errstate: {label} must be one of {_ACTIONS}, got {value!r}")
+        self._invalid = invalid
+        self._out_of_range = out_of_range
+        self._tokens: list = []
+
+    def __enter__(self) -> "errstate":
+        old = _STATE.get()
+        new = _State(self._invalid or old.invalid, self._out_of_range or old.out_of_range)
+        self._tokens.append(_STATE.set(new))
+        return self
+
+    def __exit__(self, *exc) -> None:
+        _STATE.reset(self._tokens.pop())
+
+
+def _stacklevel() -> int:
+    """Stack level of the first frame outside the wetboil package."""
+    frame = sys._getframe(1)
+    level = 1
+    while frame is not None and frame.f_globals.get("__name__", "").startswith("wetboil"):
+        frame = frame.f_back
+        level += 1
+    return level
+
+
+def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
+    """Apply the current policy to the counts of one call."""
+    if not (invalid or out_of_range):
+        return
+    state = _STATE.get()
+    if invalid and state.invalid != "ignore":
+        msg = f"{function}: {invalid} of {size} element(s) physically impossible, set to NaN"
+        if state.invalid == "raise":
+            raise InvalidValueError(msg)
+        warnings.warn(msg, InvalidValueWarning, stacklevel=_stacklevel())
+    if out_of_range and state.out_of_range != "ignore":
+        msg = f"{function}: {out_of_range} of {size} element(s) outside the published validity range"
+        if state.out_of_range == "raise":
+            raise OutOfRangeError(msg)
+        warnings.warn(msg, RangeWarning, stacklevel=_stacklevel())

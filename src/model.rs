@@ -1,0 +1,181 @@
+//! What every published model declares once: its scalar kernel, its physical
+//! domain, its published validity range and its bibliographic facts.
+//!
+//! A model is a zero-sized type implementing [`Kernel`]. The binding layer
+//! (`src/python/`, behind the `python` feature) turns any `Kernel` into a NumPy
+//! ufunc and a fast scalar entry point through one generic mechanism; the
+//! Python front door reads [`Model`] to build signatures, checks and warnings.
+//! Nothing here knows about Python.
+
+use serde::Serialize;
+
+/// One input or output of a kernel.
+#[derive(Debug, Clone, Copy, Serialize)]
+pub struct Arg {
+    /// Where the value comes from at the public API: a plain argument name
+    /// (`"contact_angle_deg"`) or a field of a fluid-state argument
+    /// (`"fluid.sigma"`). Outputs use a plain name.
+    pub name: &'static str,
+    /// SI unit, written plainly (`"m"`, `"N/m"`, `"kg/m3"`, `"deg"`, `"-"`).
+    pub unit: &'static str,
+}
+
+/// Shorthand constructor used in the model tables.
+pub const fn arg(name: &'static str, unit: &'static str) -> Arg {
+    Arg { name, unit }
+}
+
+/// The facts of one published model. Declared next to its kernel, exported to
+/// Python as JSON, and read by the front door, the docs and `wetboil.models()`.
+#[derive(Debug, Clone, Copy, Serialize)]
+pub struct Model {
+    /// Unique kernel name; also the name of the NumPy ufunc and of the
+    /// attribute it is exported under in `wetboil._core`.
+    pub name: &'static str,
+    /// One line: what it computes.
+    pub summary: &'static str,
+    /// The equation as plain text.
+    pub equation: &'static str,
+    /// Inputs in kernel (ufunc) order.
+    pub inputs: &'static [Arg],
+    /// Outputs in kernel (ufunc) order.
+    pub outputs: &'static [Arg],
+    /// Which inputs are physically possible (outside: NaN, counted as invalid).
+    pub domain: &'static str,
+    /// The published validity range (outside: computed, counted as out of range).
+    pub validity: &'static str,
+    /// Original reference(s).
+    pub reference: &'static str,
+    /// DOI of the original, or "" when it has none.
+    pub doi: &'static str,
+    /// What was checked against which source, and what was not.
+    pub verification: &'static str,
+}
+
+/// A published model as a pure scalar function of `N` float inputs giving `M`
+/// float outputs.
+///
+/// Contract for implementors:
+/// * [`Kernel::eval`] is pure, allocation-free and never panics. It returns NaN
+///   outputs where [`Kernel::possible`] is false, and propagates NaN inputs.
+/// * A NaN output for a *possible* input is a legitimate "no answer" of the
+///   model (for example no active cavity); it is not counted as invalid.
+/// * [`Kernel::in_range`] is only consulted for possible, NaN-free inputs.
+pub trait Kernel<const N: usize, const M: usize> {
+    /// The model's facts.
+    const MODEL: Model;
+    /// The outputs for one element.
+    fn eval(x: &[f64; N]) -> [f64; M];
+    /// Whether the inputs are physically possible.
+    fn possible(x: &[f64; N]) -> bool;
+    /// Whether possible inputs lie inside the published validity range.
+    fn in_range(_x: &[f64; N]) -> bool {
+        true
+    }
+}
+
+/// Outcome of one element, as the generic loops count it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Status {
+    /// Computed, inputs possible and in range (or a NaN input propagated).
+    Ok,
+    /// Physically impossible input: outputs are NaN.
+    Invalid,
+    /// Computed, but outside the published validity range.
+    OutOfRange,
+}
+
+/// Evaluate one element and classify it. Generic over every kernel; the ufunc
+/// loop and the scalar entry point both go through here, so they agree to the
+/// last bit.
+///
+/// The common case (all outputs numbers) costs one range check: a kernel
+/// returns NaN for impossible input, so a NaN-free result came from a possible
+/// one. Only NaN results take the slower classification.
+#[inline(always)]
+pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> ([f64; M], Status) {
+    let y = K::eval(x);
+    if !y.iter().any(|v| v.is_nan()) {
+        let status = if K::in_range(x) { Status::Ok } else { Status::OutOfRange };
+        return (y, status);
+    }
+    if x.iter().any(|v| v.is_nan()) {
+        (y, Status::Ok)
+    } else if !K::possible(x) {
+        ([f64::NAN; M], Status::Invalid)
+    } else if !K::in_range(x) {
+        (y, Status::OutOfRange)
+    } else {
+        (y, Status::Ok)
+    }
+}
+
+/// True when `x` is a finite number strictly above zero.
+#[inline(always)]
+pub fn positive(x: f64) -> bool {
+    x > 0.0 && x.is_finite()
+}
+
+/// True when `x` is finite and not negative.
+#[inline(always)]
+pub fn non_negative(x: f64) -> bool {
+    x >= 0.0 && x.is_finite()
+}
+
+/// True for a contact angle in degrees inside [0, 180].
+#[inline(always)]
+pub fn angle_deg(x: f64) -> bool {
+    (0.0..=180.0).contains(&x)
+}
+
+/// True when the densities describe a liquid denser than its vapour.
+#[inline(always)]
+pub fn densities(rho_l: f64, rho_v: f64) -> bool {
+    positive(rho_l) && non_negative(rho_v) && rho_l > rho_v
+}
+
+/// Standard acceleration of gravity [m/s2] (CGPM 1901, exact by definition).
+pub const G_STANDARD: f64 = 9.80665;
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    struct Half;
+    impl Kernel<1, 1> for Half {
+        const MODEL: Model = Model {
+            name: "half",
+            summary: "",
+            equation: "y = x/2",
+            inputs: &[arg("x", "-")],
+            outputs: &[arg("y", "-")],
+            domain: "x >= 0",
+            validity: "x <= 10",
+            reference: "",
+            doi: "",
+            verification: "",
+        };
+        fn eval(x: &[f64; 1]) -> [f64; 1] {
+            [if x[0] >= 0.0 { x[0] / 2.0 } else { f64::NAN }]
+        }
+        fn possible(x: &[f64; 1]) -> bool {
+            x[0] >= 0.0
+        }
+        fn in_range(x: &[f64; 1]) -> bool {
+            x[0] <= 10.0
+        }
+    }
+
+    #[test]
+    fn classification() {
+        assert_eq!(evaluate::<Half, 1, 1>(&[4.0]), ([2.0], Status::Ok));
+        assert_eq!(evaluate::<Half, 1, 1>(&[20.0]), ([10.0], Status::OutOfRange));
+        let (y, s) = evaluate::<Half, 1, 1>(&[-1.0]);
+        assert!(y[0].is_nan());
+        assert_eq!(s, Status::Invalid);
+        // NaN input is missing data: propagated, not counted.
+        let (y, s) = evaluate::<Half, 1, 1>(&[f64::NAN]);
+        assert!(y[0].is_nan());
+        assert_eq!(s, Status::Ok);
+    }
+}

@@ -1,0 +1,212 @@
+//! The one generic mechanism: any [`Kernel`] becomes a NumPy ufunc (float64
+//! loop, `N` inputs, `M` outputs) and a scalar entry point.
+//!
+//! The loop is written once, generically over the kernel type, so each kernel's
+//! scalar function is inlined into its own monomorphised loop. The unsafe code
+//! is confined to this file: reading and writing the raw strided buffers NumPy
+//! hands over, and building the ufunc object from `'static` tables.
+
+use std::cell::Cell;
+use std::ffi::{c_char, c_int, c_void, CString};
+use std::panic::{catch_unwind, AssertUnwindSafe};
+
+use numpy::npyffi::{npy_intp, PyUFuncGenericFunction, NPY_TYPES, PY_UFUNC_API};
+use pyo3::prelude::*;
+use rayon::prelude::*;
+
+use super::threads;
+use crate::model::{evaluate, Kernel, Model, Status};
+
+/// Inputs per kernel that the scalar entry point can take (and the registry
+/// allows): ufunc loops themselves have no such limit.
+pub const MAX_IN: usize = 24;
+/// Outputs per kernel that the scalar entry point can return.
+pub const MAX_OUT: usize = 16;
+
+// Element counts of the last calls on this thread: `[invalid, out_of_range]`.
+//
+// NumPy runs a ufunc's inner loop on the thread that called the ufunc, so a
+// thread-local keeps concurrent Python threads apart; rayon workers report
+// their counts back through the join, never through this cell.
+thread_local! {
+    static COUNTS: Cell<[u64; 2]> = const { Cell::new([0, 0]) };
+}
+
+/// Return and reset this thread's counts.
+pub fn take_counts() -> [u64; 2] {
+    COUNTS.with(|c| c.replace([0, 0]))
+}
+
+fn add_counts(n: [u64; 2]) {
+    COUNTS.with(|c| {
+        let o = c.get();
+        c.set([o[0] + n[0], o[1] + n[1]]);
+    });
+}
+
+/// A registered kernel, type-erased.
+pub struct Entry {
+    pub model: Model,
+    pub nin: usize,
+    pub nout: usize,
+    loop_fn: unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void),
+    /// Evaluate one element: `x.len() == nin`, `y.len() >= nout`.
+    pub scalar: fn(&[f64], &mut [f64]) -> Status,
+}
+
+/// Build the registry entry of a kernel: the only thing a new model adds to
+/// the binding is one call of this function in `registry.rs`.
+pub fn entry<K: Kernel<N, M>, const N: usize, const M: usize>() -> Entry {
+    const { assert!(N >= 1 && N <= MAX_IN && M >= 1 && M <= MAX_OUT) };
+    Entry { model: K::MODEL, nin: N, nout: M, loop_fn: ufunc_loop::<K, N, M>, scalar: scalar::<K, N, M> }
+}
+
+fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64], y: &mut [f64]) -> Status {
+    let mut xa = [f64::NAN; N];
+    xa.copy_from_slice(&x[..N]);
+    let (out, status) = evaluate::<K, N, M>(&xa);
+    y[..M].copy_from_slice(&out);
+    status
+}
+
+/// The raw operands of one inner-loop call: base pointers and byte strides.
+#[derive(Clone, Copy)]
+struct Operands<const N: usize, const M: usize> {
+    ins: [*const u8; N],
+    in_steps: [isize; N],
+    outs: [*mut u8; M],
+    out_steps: [isize; M],
+}
+
+// SAFETY: the pointers refer to buffers NumPy keeps alive for the duration of
+// the inner-loop call, and threads only ever touch disjoint index ranges of
+// the outputs (see `run_parallel`), so sharing the descriptor is sound.
+unsafe impl<const N: usize, const M: usize> Send for Operands<N, M> {}
+unsafe impl<const N: usize, const M: usize> Sync for Operands<N, M> {}
+
+impl<const N: usize, const M: usize> Operands<N, M> {
+    /// Evaluate elements `start..end` and return their counts.
+    ///
+    /// # Safety
+    /// `start..end` must lie within the `n` elements NumPy passed, and no other
+    /// thread may write the same output elements.
+    #[inline(always)]
+    unsafe fn run<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
+        let mut counts = [0u64; 2];
+        for i in start..end {
+            let mut x = [0.0f64; N];
+            for k in 0..N {
+                // Unaligned reads cost nothing on the targets we build for and
+                // keep us safe should NumPy ever hand over an unaligned view.
+                x[k] = unsafe { (self.ins[k].offset(i * self.in_steps[k]) as *const f64).read_unaligned() };
+            }
+            let (y, status) = evaluate::<K, N, M>(&x);
+            for k in 0..M {
+                unsafe { (self.outs[k].offset(i * self.out_steps[k]) as *mut f64).write_unaligned(y[k]) };
+            }
+            match status {
+                Status::Ok => {}
+                Status::Invalid => counts[0] += 1,
+                Status::OutOfRange => counts[1] += 1,
+            }
+        }
+        counts
+    }
+}
+
+/// Below this many elements a call runs on the calling thread only.
+const PARALLEL_MIN: isize = 1 << 15;
+
+/// The ufunc inner loop, generic over the kernel.
+///
+/// # Safety
+/// Called by NumPy only, with `args` holding `N + M` data pointers to float64
+/// elements, `dimensions[0]` the element count and `steps` the `N + M` byte
+/// strides. NumPy may pass an output aliasing an input (`out=`): each element
+/// is read completely before it is written, so exact aliasing is safe, and
+/// NumPy resolves partial overlap by copying before the call.
+unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>(
+    args: *mut *mut c_char,
+    dimensions: *mut npy_intp,
+    steps: *mut npy_intp,
+    _data: *mut c_void,
+) {
+    // Nothing may unwind into NumPy's C code: a panic (none is expected, the
+    // kernels are panic-free) is caught, its elements counted as invalid.
+    let result = catch_unwind(AssertUnwindSafe(|| unsafe {
+        let n = *dimensions as isize;
+        let mut op = Operands::<N, M> { ins: [std::ptr::null(); N], in_steps: [0; N], outs: [std::ptr::null_mut(); M], out_steps: [0; M] };
+        for k in 0..N {
+            op.ins[k] = *args.add(k) as *const u8;
+            op.in_steps[k] = *steps.add(k) as isize;
+        }
+        for k in 0..M {
+            op.outs[k] = *args.add(N + k) as *mut u8;
+            op.out_steps[k] = *steps.add(N + k) as isize;
+        }
+        let counts = if n >= PARALLEL_MIN { run_parallel::<K, N, M>(op, n) } else { op.run::<K>(0, n) };
+        add_counts(counts);
+    }));
+    if result.is_err() {
+        add_counts([unsafe { *dimensions } as u64, 0]);
+    }
+}
+
+/// Split `0..n` into chunks evaluated on the wetboil thread pool.
+fn run_parallel<K: Kernel<N, M>, const N: usize, const M: usize>(op: Operands<N, M>, n: isize) -> [u64; 2] {
+    let Some(pool) = threads::pool() else {
+        // SAFETY: the whole range on this thread.
+        return unsafe { op.run::<K>(0, n) };
+    };
+    let workers = pool.current_num_threads() as isize;
+    let chunk = (n / (4 * workers)).max(PARALLEL_MIN / 4);
+    let chunks = (n + chunk - 1) / chunk;
+    pool.install(|| {
+        (0..chunks)
+            .into_par_iter()
+            // SAFETY: chunks are disjoint and within 0..n.
+            .map(|c| unsafe { op.run::<K>(c * chunk, ((c + 1) * chunk).min(n)) })
+            .reduce(|| [0, 0], |a, b| [a[0] + b[0], a[1] + b[1]])
+    })
+}
+
+/// Create the NumPy ufunc of an entry. Every pointer handed to NumPy is leaked
+/// on purpose: NumPy keeps them for the life of the ufunc, i.e. the process.
+pub fn make_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>> {
+    let funcs: &'static mut [PyUFuncGenericFunction] = Box::leak(Box::new([Some(e.loop_fn)]));
+    let data: &'static mut [*mut c_void] = Box::leak(Box::new([std::ptr::null_mut()]));
+    let types: &'static mut [c_char] =
+        Box::leak(vec![NPY_TYPES::NPY_DOUBLE as c_char; e.nin + e.nout].into_boxed_slice());
+    let m = &e.model;
+    let doc = format!(
+        "{}\n\n{}\n\nInputs: {}\nOutputs: {}\nDomain: {}\nValidity: {}\nReference: {}{}\n",
+        m.summary,
+        m.equation,
+        m.inputs.iter().map(|a| format!("{} [{}]", a.name, a.unit)).collect::<Vec<_>>().join(", "),
+        m.outputs.iter().map(|a| format!("{} [{}]", a.name, a.unit)).collect::<Vec<_>>().join(", "),
+        m.domain,
+        m.validity,
+        m.reference,
+        if m.doi.is_empty() { String::new() } else { format!(", doi:{}", m.doi) },
+    );
+    let name: &'static CString = Box::leak(Box::new(CString::new(m.name).expect("kernel names have no NUL")));
+    let doc: &'static CString = Box::leak(Box::new(CString::new(doc.replace('\0', " ")).expect("no NUL left")));
+    // SAFETY: all pointers are 'static, `types` holds nin + nout entries for
+    // the single loop, and NumPy copies nothing it does not own.
+    unsafe {
+        let ptr = PY_UFUNC_API.PyUFunc_FromFuncAndData(
+            py,
+            funcs.as_mut_ptr(),
+            data.as_mut_ptr(),
+            types.as_mut_ptr(),
+            1,
+            e.nin as c_int,
+            e.nout as c_int,
+            -1, // PyUFunc_None: no identity
+            name.as_ptr(),
+            doc.as_ptr(),
+            0,
+        );
+        Bound::from_owned_ptr_or_err(py, ptr)
+    }
+}

@@ -1,0 +1,295 @@
+"""The binding contract: the one ufunc mechanism and the one front door.
+
+These tests check behaviour (dtypes, layouts, broadcasting, errors), not
+physics; reference values live in test_references.py. The expected values
+here are the same formula evaluated by NumPy, an independent implementation.
+"""
+
+import inspect
+import math
+import pickle
+import subprocess
+import sys
+import warnings
+
+import numpy as np
+import pytest
+
+import wetboil
+from wetboil import _core
+from wetboil.chf import kandlikar, zuber
+from wetboil.departure import fritz
+from wetboil.fluids import Saturation
+from wetboil.nucleation import embryo_radius, embryo_superheat
+
+WATER = Saturation(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.59817, h_lv=2.2564e6, sigma=0.058912)
+G = 9.80665
+
+
+def np_fritz(theta, s=WATER, g=G):
+    theta = np.asarray(theta, dtype=float)
+    return 0.0208 * theta * np.sqrt(s.sigma / (g * (s.rho_l - s.rho_v)))
+
+
+def np_kandlikar(beta, phi=0.0, s=WATER, g=G):
+    c = 1 + np.cos(np.radians(beta))
+    return s.h_lv * np.sqrt(s.rho_v) * c / 16 * np.sqrt(2 / np.pi + np.pi / 4 * c * np.cos(np.radians(phi))) * (
+        s.sigma * g * (s.rho_l - s.rho_v)
+    ) ** 0.25
+
+
+# --------------------------------------------------------------------------- signatures
+
+
+def test_real_signatures_and_keywords():
+    assert list(inspect.signature(fritz).parameters) == ["contact_angle_deg", "fluid", "g"]
+    assert inspect.signature(kandlikar).parameters["orientation_deg"].default == 0.0
+    assert inspect.signature(zuber).parameters["K"].default == pytest.approx(math.pi / 24)
+    assert fritz(contact_angle_deg=30.0, fluid=WATER) == fritz(30.0, WATER)
+    assert kandlikar(30.0, WATER, orientation_deg=45.0) == kandlikar(30.0, WATER, 45.0)
+    with pytest.raises(TypeError):
+        fritz(30.0)  # missing fluid
+    with pytest.raises(TypeError):
+        fritz(30.0, WATER, nonsense=1)
+    assert "Fritz" in fritz.__doc__ and fritz.__module__ == "wetboil.departure"
+
+
+def test_models_catalogue_declares_every_kernel():
+    names = {m.name for m in wetboil.models()}
+    assert {"fritz_departure", "zuber_chf", "kandlikar_chf", "embryo_superheat_linear"} <= names
+    for m in wetboil.models():
+        assert m.validity and m.reference and m.domain and m.equation, m.name
+        assert callable(getattr(_core, m.name))
+
+
+# --------------------------------------------------------------------------- scalars
+
+
+def test_scalar_call_returns_python_float():
+    for f, args in [(fritz, (45.0, WATER)), (zuber, (WATER,)), (kandlikar, (30.0, WATER)),
+                    (embryo_superheat, (1e-5, WATER)), (embryo_radius, (2.0, WATER))]:
+        r = f(*args)
+        assert type(r) is float, f
+    # ints and NumPy scalars are numbers too
+    assert fritz(45, WATER) == fritz(45.0, WATER)
+    assert fritz(np.float64(45.0), WATER) == fritz(45.0, WATER)
+    assert type(fritz(np.float32(45.0), WATER)) is float
+    assert type(fritz(np.array(45.0), WATER)) is float
+
+
+def test_scalar_and_array_paths_agree_to_the_last_bit():
+    theta = np.linspace(0, 90, 1001)
+    arr = fritz(theta, WATER)
+    assert all(fritz(float(t), WATER) == a for t, a in zip(theta, arr))
+    beta = np.linspace(0, 180, 181)
+    arr = kandlikar(beta, WATER, 30.0)
+    assert all(kandlikar(float(b), WATER, 30.0) == a for b, a in zip(beta, arr))
+
+
+# --------------------------------------------------------------------------- dtypes & layouts
+
+LAYOUTS = {
+    "list": lambda a: a.tolist(),
+    "float32": lambda a: a.astype(np.float32),
+    "int": lambda a: a.round().astype(np.int64),
+    "uint8": lambda a: a.round().astype(np.uint8),
+    "non-contiguous": lambda a: np.repeat(a, 2)[::2],
+    "negative-stride": lambda a: a[::-1].copy()[::-1],
+    "big-endian": lambda a: a.astype(">f8"),
+    "read-only": lambda a: _readonly(a),
+    "object": lambda a: a.astype(object),
+}
+
+
+def _readonly(a):
+    a = a.copy()
+    a.flags.writeable = False
+    return a
+
+
+@pytest.mark.parametrize("layout", sorted(LAYOUTS))
+def test_layouts_and_dtypes(layout):
+    base = np.linspace(0.0, 90.0, 37)
+    x = LAYOUTS[layout](base)
+    expect = np_fritz(np.asarray(x, dtype=float))
+    np.testing.assert_allclose(fritz(x, WATER), expect, rtol=1e-15, atol=0)
+
+
+def test_fortran_order_and_2d():
+    a = np.asfortranarray(np.linspace(0, 90, 60).reshape(6, 10))
+    out = fritz(a, WATER)
+    assert out.shape == (6, 10)
+    np.testing.assert_allclose(out, np_fritz(a), rtol=1e-15)
+
+
+def test_zero_d_and_empty():
+    assert fritz(np.array(30.0), WATER) == pytest.approx(np_fritz(30.0))
+    e = fritz(np.array([]), WATER)
+    assert isinstance(e, np.ndarray) and e.shape == (0,)
+    assert fritz(np.empty((0, 3)), WATER).shape == (0, 3)
+
+
+def test_broadcasting_against_fluid_fields():
+    sat = WATER.replace(sigma=np.array([0.05, 0.06]))
+    theta = np.array([[10.0], [20.0], [30.0]])
+    out = fritz(theta, sat)
+    assert out.shape == (3, 2)
+    np.testing.assert_allclose(out, np_fritz(theta, s=sat), rtol=1e-15)
+
+
+def test_large_arrays_use_threads_and_match_serial():
+    x = np.random.default_rng(1).uniform(0, 90, 300_000)
+    expect = np_kandlikar(x, 30.0)
+    old = wetboil.get_num_threads()
+    try:
+        wetboil.set_num_threads(1)
+        serial = kandlikar(x, WATER, 30.0)
+        wetboil.set_num_threads(2)
+        parallel = kandlikar(x, WATER, 30.0)
+    finally:
+        wetboil.set_num_threads(old)
+    np.testing.assert_array_equal(serial, parallel)
+    np.testing.assert_allclose(parallel, expect, rtol=1e-13)
+
+
+def test_set_num_threads_rejects_nonsense():
+    for bad in (0, -1, 1.5, "2", True):
+        with pytest.raises(wetboil.WetboilValueError):
+            wetboil.set_num_threads(bad)
+
+
+def test_ufunc_out_and_aliasing():
+    uf = fritz.ufunc
+    assert isinstance(uf, np.ufunc) and uf.nin == 5 and uf.nout == 1
+    assert uf.__name__ == "fritz_departure"
+    x = np.linspace(0, 90, 50)
+    out = np.empty_like(x)
+    r = uf(x, WATER.sigma, WATER.rho_l, WATER.rho_v, G, out=out)
+    assert r is out
+    np.testing.assert_allclose(out, np_fritz(x), rtol=1e-15)
+    # out aliasing an input (in place)
+    y = x.copy()
+    uf(y, WATER.sigma, WATER.rho_l, WATER.rho_v, G, out=y)
+    np.testing.assert_allclose(y, np_fritz(x), rtol=1e-15)
+    # partial overlap: NumPy copies, results stay right
+    z = np.linspace(0, 90, 51)
+    expect = np_fritz(z[:-1])
+    uf(z[:-1], WATER.sigma, WATER.rho_l, WATER.rho_v, G, out=z[1:])
+    np.testing.assert_allclose(z[1:], expect, rtol=1e-15)
+
+
+def test_ufunc_pickles_by_name():
+    uf = fritz.ufunc
+    assert pickle.loads(pickle.dumps(uf)) is uf
+    assert pickle.loads(pickle.dumps(fritz)) is fritz
+    s = pickle.loads(pickle.dumps(WATER))
+    assert s.sigma == WATER.sigma and np.array_equal(s._scalars, WATER._scalars, equal_nan=True)
+
+
+# --------------------------------------------------------------------------- element policy
+
+
+def test_nan_propagates_silently():
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        out = fritz(np.array([np.nan, 30.0]), WATER)
+        assert math.isnan(fritz(math.nan, WATER))
+    assert np.isnan(out[0]) and out[1] == pytest.approx(np_fritz(30.0))
+
+
+def test_impossible_elements_nan_and_one_counted_warning():
+    with pytest.warns(wetboil.InvalidValueWarning, match=r"departure\.fritz: 2 of 5 element") as rec:
+        out = fritz(np.array([-5.0, 0.0, 45.0, 181.0, 90.0]), WATER)
+    assert len([w for w in rec if issubclass(w.category, wetboil.InvalidValueWarning)]) == 1
+    assert np.isnan(out[[0, 3]]).all() and np.isfinite(out[[1, 2, 4]]).all()
+    # the warning points at the caller, not at wetboil's internals
+    assert rec[0].filename == __file__
+    with pytest.warns(wetboil.InvalidValueWarning):
+        assert math.isnan(fritz(-1.0, WATER))
+    bad = WATER.replace(rho_v=2000.0)
+    with pytest.warns(wetboil.InvalidValueWarning, match="1 of 1"):
+        assert math.isnan(zuber(bad))
+    with pytest.warns(wetboil.InvalidValueWarning):
+        assert math.isnan(fritz(45.0, WATER.replace(sigma=-0.01)))
+
+
+def test_out_of_range_warns_but_computes():
+    with pytest.warns(wetboil.RangeWarning, match=r"chf\.kandlikar: 2 of 3"):
+        out = kandlikar(60.0, WATER, np.array([0.0, 100.0, 110.0]))
+    assert np.isfinite(out).all()
+    np.testing.assert_allclose(out, np_kandlikar(60.0, np.array([0.0, 100.0, 110.0])), rtol=1e-13)
+    # facing down on a well-wetted wall the model has no answer: NaN, flagged as out of range only
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        assert math.isnan(kandlikar(30.0, WATER, 150.0))
+    assert [w.category for w in rec] == [wetboil.RangeWarning]
+
+
+def test_errstate_controls_both_categories():
+    with wetboil.errstate(invalid="raise"):
+        with pytest.raises(wetboil.WetboilError):
+            fritz(np.array([200.0]), WATER)
+        with pytest.raises(wetboil.InvalidValueError):
+            fritz(200.0, WATER)
+    with wetboil.errstate(out_of_range="raise"):
+        with pytest.raises(wetboil.OutOfRangeError):
+            kandlikar(30.0, WATER, 120.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        with wetboil.errstate(invalid="ignore", out_of_range="ignore"):
+            assert math.isnan(fritz(200.0, WATER))
+            kandlikar(30.0, WATER, 120.0)
+    assert wetboil.geterr() == {"invalid": "warn", "out_of_range": "warn"}
+    with pytest.raises(wetboil.WetboilValueError):
+        wetboil.errstate(invalid="loud")
+
+
+# --------------------------------------------------------------------------- structural errors
+
+
+@pytest.mark.parametrize("bad", ["30", None, b"x", [1, "a"], {"a": 1}, True, 1 + 2j])
+def test_wrong_types_raise_type_error_naming_argument(bad):
+    with pytest.raises(TypeError, match="contact_angle_deg") as exc:
+        fritz(bad, WATER)
+    assert isinstance(exc.value, wetboil.WetboilError)
+
+
+def test_fluid_must_be_a_saturation():
+    with pytest.raises(wetboil.WetboilTypeError, match="Saturation"):
+        fritz(30.0, {"sigma": 0.06})
+    with pytest.raises(TypeError):
+        Saturation(T="hot", p=1e5, rho_l=1000, rho_v=1, h_lv=2e6, sigma=0.06)
+
+
+def test_shapes_that_do_not_broadcast_name_the_shapes():
+    sat = WATER.replace(sigma=np.array([0.05, 0.06, 0.07]))
+    with pytest.raises(ValueError, match=r"contact_angle_deg \(4,\).*fluid\.sigma \(3,\)") as exc:
+        fritz(np.zeros(4), sat)
+    assert isinstance(exc.value, wetboil.WetboilError)
+
+
+def test_interpreter_survives_hostile_input():
+    # Run in a subprocess so that a crash would show as a failed exit code.
+    code = r"""
+import numpy as np, warnings, wetboil
+from wetboil.departure import fritz
+from wetboil.fluids import Saturation
+warnings.simplefilter("ignore")
+W = Saturation(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.59817, h_lv=2.2564e6, sigma=0.058912)
+cases = [np.inf, -np.inf, -0.0, 1e308, 5e-324, np.array([np.inf, -np.inf, np.nan]),
+         np.zeros((3, 0)), np.ones(10**6)[::-3], np.float16(3), np.arange(10, dtype=np.int8)]
+for c in cases:
+    fritz(c, W)
+for c in ["x", None, object(), [[1, 2], [3]]]:
+    try:
+        fritz(c, W)
+    except (TypeError, ValueError):
+        pass
+uf = fritz.ufunc
+for args in [(1.0,) * 5, (np.ones(3),) * 5]:
+    uf(*args)
+print("survived")
+"""
+    r = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
+    assert r.returncode == 0, r.stderr
+    assert "survived" in r.stdout
