@@ -14,7 +14,7 @@ one warning per call (see `errstate`).
 """
 
 from . import _core
-from ._api import get_num_threads, models, set_num_threads
+from ._api import get_num_threads, model_of, models, set_num_threads, ufunc_of
 from ._errors import (
     InvalidValueError,
     InvalidValueWarning,
@@ -39,6 +39,8 @@ __all__ = [
     "errstate",
     "geterr",
     "models",
+    "model_of",
+    "ufunc_of",
     "set_num_threads",
     "get_num_threads",
     "WetboilError",

@@ -24,14 +24,14 @@ import inspect
 import json
 import os
 import sys
-from typing import Any, Callable, Dict, NamedTuple, Optional, Sequence, Tuple
+from typing import Any, Callable, Dict, NamedTuple, Optional, Sequence, Tuple, TypeVar
 
 import numpy as np
 
 from . import _core
 from ._errors import WetboilTypeError, WetboilValueError, report
 
-__all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads"]
+__all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads", "ufunc_of", "model_of"]
 
 
 class Arg(NamedTuple):
@@ -235,20 +235,28 @@ def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
 # the decorator
 
 
-def kernel(name: str, *, result: Optional[type] = None) -> Callable[[Callable], Callable]:
+F = TypeVar("F", bound=Callable[..., Any])
+
+
+def kernel(name: str, *, result: Optional[type] = None) -> Callable[[F], F]:
     """Make a public function from kernel `name` and a template.
 
-    The template supplies the public signature and docstring; it is never
-    called. Every kernel input must be a template argument (``"radius"``) or a
-    field of one (``"fluid.sigma"``), and every template argument must feed the
-    kernel, so the two cannot drift apart: a mismatch fails at import.
+    The template supplies the public signature and docstring; its body is
+    never run. Every kernel input must be a template argument (``"radius"``)
+    or a field of one (``"fluid.sigma"``), and every template argument must
+    feed the kernel, so the two cannot drift apart: a mismatch fails at import.
     `result` is the named tuple type of a multi-output kernel.
+
+    The result is a builtin function (no Python frame on the scalar path) with
+    the template's signature, docstring and module; it pickles by name. Calls
+    that are not plain scalars are forwarded to a Python fallback with the
+    same signature, which handles arrays, xarray, dask and the error policy.
     """
     from .fluids import FIELDS
 
     model = MODELS[name]
 
-    def build(template: Callable) -> Callable:
+    def build(template: F) -> F:
         sig = inspect.signature(template)
         params = tuple(sig.parameters)
         function = f"{template.__module__.rpartition('.')[2]}.{template.__name__}"
@@ -267,41 +275,75 @@ def kernel(name: str, *, result: Optional[type] = None) -> Callable[[Callable], 
             raise RuntimeError(f"{function}: template arguments {sorted(unused)} feed no kernel input")
         if len(model.outputs) > 1 and result is None:
             raise RuntimeError(f"{function}: a multi-output kernel needs a result type")
+        if len(params) > _core.MAX_ARGS:
+            raise RuntimeError(f"{function}: at most {_core.MAX_ARGS} parameters")
+        for p in sig.parameters.values():
+            if p.kind not in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY):
+                raise RuntimeError(f"{function}: only plain or keyword-only parameters are supported")
         spec = _Spec(model, function, tuple(plan), tuple(labels), params, result)
-        caller = _core.Caller(
-            name, [(ai, FIELDS.index(f) if f else -1) for ai, f in plan], len(params), result
-        )
 
-        # Generate a function with exactly the template's parameters so that
-        # positional and keyword calls, defaults and inspect.signature behave
-        # like any Python function, then copy the template's metadata onto it.
+        # The fallback: a Python function with exactly the template's
+        # parameters (so binding errors read like any Python function's),
+        # handling every call the builtin's fast path passes on.
         pieces, star_done = [], False
         for p in sig.parameters.values():
             if p.kind is p.KEYWORD_ONLY and not star_done:
                 pieces.append("*")
                 star_done = True
-            if p.kind not in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY):
-                raise RuntimeError(f"{function}: only plain or keyword-only arguments are supported")
             pieces.append(p.name if p.default is p.empty else f"{p.name}=None")
-        arglist = ", ".join(params)
-        src = (
-            f"def {template.__name__}({', '.join(pieces)}):\n"
-            f"    r = _caller({arglist})\n"
-            f"    if r is None:\n"
-            f"        r = _evaluate(_spec, ({arglist}{',' if len(params) == 1 else ''}))\n"
-            f"    return r\n"
-        )
-        namespace: Dict[str, Any] = {"__name__": template.__module__, "_caller": caller, "_evaluate": _evaluate, "_spec": spec}
+        arglist = ", ".join(params) + ("," if len(params) == 1 else "")
+        src = f"def {template.__name__}({', '.join(pieces)}):\n    return _evaluate(_spec, ({arglist}))\n"
+        namespace: Dict[str, Any] = {"__name__": template.__module__, "_evaluate": _evaluate, "_spec": spec}
         exec(compile(src, f"<wetboil front door {function}>", "exec"), namespace)
-        f = namespace[template.__name__]
-        f.__defaults__ = template.__defaults__
-        f.__kwdefaults__ = template.__kwdefaults__
-        f.__doc__ = template.__doc__
-        f.__module__ = template.__module__
-        f.__qualname__ = template.__qualname__
-        f.__annotations__ = dict(getattr(template, "__annotations__", {}))
-        f.ufunc = getattr(_core, name)  # type: ignore[attr-defined]
-        f.model = model  # type: ignore[attr-defined]
-        return f
+        fallback = namespace[template.__name__]
+        fallback.__defaults__ = template.__defaults__
+        fallback.__kwdefaults__ = template.__kwdefaults__
+        fallback.__module__ = template.__module__
+        fallback.__qualname__ = template.__qualname__
+
+        bare = sig.replace(
+            parameters=[p.replace(annotation=p.empty) for p in sig.parameters.values()],
+            return_annotation=sig.empty,
+        )
+        doc = f"{template.__name__}{bare}\n--\n\n{inspect.cleandoc(template.__doc__ or '')}\n"
+        f = _core.make_function(
+            name,
+            [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan],
+            list(params),
+            [None if p.default is p.empty else p.default for p in sig.parameters.values()],
+            fallback,
+            result,
+            template.__module__,
+            template.__name__,
+            doc,
+        )
+        _FUNCTIONS[f] = spec
+        return f  # type: ignore[no-any-return]
 
     return build
+
+
+_FUNCTIONS: Dict[Any, _Spec] = {}
+
+
+def ufunc_of(function: Callable[..., Any]) -> np.ufunc:
+    """The NumPy ufunc behind a public kernel function (inputs in kernel
+    order, fluid fields expanded; see ``model_of(function).inputs``).
+
+    >>> import wetboil
+    >>> from wetboil.departure import fritz
+    >>> wetboil.ufunc_of(fritz).nin
+    5
+    """
+    spec = _FUNCTIONS.get(function)
+    if spec is None:
+        raise WetboilTypeError(f"{function!r} is not a wetboil kernel function")
+    return getattr(_core, spec.model.name)
+
+
+def model_of(function: Callable[..., Any]) -> Model:
+    """The published model's facts behind a public kernel function."""
+    spec = _FUNCTIONS.get(function)
+    if spec is None:
+        raise WetboilTypeError(f"{function!r} is not a wetboil kernel function")
+    return spec.model

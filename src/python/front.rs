@@ -1,0 +1,324 @@
+//! Public functions as builtin callables with a fast scalar path.
+//!
+//! The Python front door (`wetboil/_api.py`) builds, for every public
+//! function, a plain Python *fallback* with the real signature that handles
+//! arrays, xarray, dask, warnings and every error message. This file wraps it
+//! in a builtin function object (`builtin_function_or_method`, METH_FASTCALL)
+//! whose C-level entry point handles the common case on its own: every argument
+//! a plain number or a scalar fluid state, and a clean result. Anything else,
+//! including every argument-binding error, is forwarded unchanged to the
+//! fallback, so both paths have one behaviour.
+//!
+//! A builtin carries a real `inspect.signature` (through `__text_signature__`,
+//! the first line of its docstring), its own `__module__`, pickles by name, and
+//! costs no Python frame, which is what a scalar call from a user's loop needs.
+
+use std::ffi::{c_int, CString};
+use std::panic::{catch_unwind, AssertUnwindSafe};
+
+use pyo3::exceptions::{PyRuntimeError, PyValueError};
+use pyo3::ffi;
+use pyo3::prelude::*;
+use pyo3::types::{PyDict, PyFloat, PyInt, PyString, PyTuple};
+use pyo3::{intern, Borrowed};
+
+use super::entries;
+use super::ufunc::{MAX_IN, MAX_OUT};
+use crate::model::Status;
+
+/// Most parameters a public function may have.
+pub const MAX_ARGS: usize = 16;
+
+/// The state behind one public function (the builtin's `__self__`).
+#[pyclass(frozen, module = "wetboil._core")]
+pub struct Front {
+    entry: usize,
+    /// Per kernel input: (parameter index, field index in `_scalars` or -1).
+    plan: Vec<(usize, isize)>,
+    /// Parameter names, interned so keyword lookup is a pointer comparison.
+    names: Vec<Py<PyString>>,
+    /// Per parameter: its default, or None when it is required.
+    defaults: Vec<Option<Py<PyAny>>>,
+    /// The Python function with the same signature that does everything else.
+    fallback: Py<PyAny>,
+    result_type: Option<Py<PyAny>>,
+    module: String,
+    /// The last scalar fluid state seen and its fields. Holding a strong
+    /// reference keeps the object alive, so identity means same values
+    /// (`Saturation` is immutable).
+    cache: GilCell<Option<(Py<PyAny>, [f64; FLUID_FIELDS])>>,
+}
+
+/// A cell only ever touched by a thread attached to the interpreter (holding
+/// the GIL). abi3 extension modules cannot load into free-threaded CPython,
+/// so the GIL serialises every access; no reference into the cell is held
+/// across a call into Python (see `Front::fluid`).
+struct GilCell<T>(std::cell::UnsafeCell<T>);
+// SAFETY: see above; every access happens under the GIL.
+unsafe impl<T: Send> Sync for GilCell<T> {}
+
+/// Number of fields of a scalar fluid state's `_scalars` tuple.
+const FLUID_FIELDS: usize = 15;
+
+/// The fields of a scalar fluid state, or None when it is not one.
+fn fluid_values(obj: Borrowed<'_, '_, PyAny>) -> Option<[f64; FLUID_FIELDS]> {
+    let py = obj.py();
+    let t = obj.getattr(intern!(py, "_scalars")).ok()?;
+    let t = t.cast_into::<PyTuple>().ok()?;
+    if t.len() != FLUID_FIELDS {
+        return None;
+    }
+    let mut v = [0.0; FLUID_FIELDS];
+    for (i, item) in t.iter().enumerate() {
+        v[i] = plain_number(item.as_borrowed())?;
+    }
+    Some(v)
+}
+
+/// A plain Python number (float and its subclasses such as numpy.float64, or
+/// an exact int; bool is not a number here) as f64.
+#[inline]
+fn plain_number(a: Borrowed<'_, '_, PyAny>) -> Option<f64> {
+    if let Ok(f) = a.cast::<PyFloat>() {
+        return Some(f.value());
+    }
+    if let Ok(i) = a.cast_exact::<PyInt>() {
+        return i.extract::<f64>().ok();
+    }
+    None
+}
+
+impl Front {
+    /// The fast path. `None` means: let the fallback handle this call.
+    ///
+    /// # Safety
+    /// `args` holds `nargs` positional arguments followed by one value per
+    /// entry of `kwnames` (a tuple of str, or null), as CPython's METH_FASTCALL
+    /// convention guarantees; all are borrowed references.
+    unsafe fn fast<'py>(
+        &self,
+        py: Python<'py>,
+        args: *const *mut ffi::PyObject,
+        nargs: usize,
+        kwnames: *mut ffi::PyObject,
+    ) -> Option<Bound<'py, PyAny>> {
+        let np = self.names.len();
+        if nargs > np {
+            return None;
+        }
+        let mut slots: [*mut ffi::PyObject; MAX_ARGS] = [std::ptr::null_mut(); MAX_ARGS];
+        for (i, slot) in slots.iter_mut().enumerate().take(nargs) {
+            *slot = unsafe { *args.add(i) };
+        }
+        if !kwnames.is_null() {
+            let kw = unsafe { Borrowed::from_ptr(py, kwnames) }.cast::<PyTuple>().ok()?;
+            for (j, key) in kw.iter().enumerate() {
+                let idx = match self.names.iter().position(|n| n.as_ptr() == key.as_ptr()) {
+                    Some(i) => i,
+                    None => self.names.iter().position(|n| n.bind(py).as_any().eq(&key).unwrap_or(false))?,
+                };
+                if !slots[idx].is_null() {
+                    return None; // given twice: the fallback raises the TypeError
+                }
+                slots[idx] = unsafe { *args.add(nargs + j) };
+            }
+        }
+        for (i, slot) in slots.iter_mut().enumerate().take(np) {
+            if slot.is_null() {
+                *slot = self.defaults[i].as_ref()?.as_ptr();
+            }
+        }
+
+        let e = &entries()[self.entry];
+        let mut x = [0.0f64; MAX_IN];
+        // The fields of the (single, in every kernel so far) fluid argument.
+        let mut fluid: Option<(usize, [f64; FLUID_FIELDS])> = None;
+        for (k, &(ai, field)) in self.plan.iter().enumerate() {
+            // SAFETY: every slot up to np is a live borrowed reference (argument or default).
+            let obj = unsafe { Borrowed::from_ptr(py, slots[ai]) };
+            x[k] = if field < 0 {
+                plain_number(obj)?
+            } else {
+                match fluid {
+                    Some((a, v)) if a == ai => v[field as usize],
+                    _ => {
+                        let v = self.fluid(obj)?;
+                        fluid = Some((ai, v));
+                        v[field as usize]
+                    }
+                }
+            };
+        }
+        let mut y = [0.0f64; MAX_OUT];
+        let status = (e.scalar)(&x[..e.nin], &mut y[..e.nout]);
+        if status != Status::Ok || y[..e.nout].iter().any(|v| v.is_nan()) {
+            return None; // the fallback applies the element policy
+        }
+        if e.nout == 1 {
+            return Some(PyFloat::new(py, y[0]).into_any());
+        }
+        let values = PyTuple::new(py, y[..e.nout].iter().copied()).ok()?;
+        match &self.result_type {
+            Some(t) => t.bind(py).call1(values).ok(),
+            None => Some(values.into_any()),
+        }
+    }
+
+    /// The fields of a fluid argument, through the one-entry identity cache.
+    fn fluid(&self, obj: Borrowed<'_, '_, PyAny>) -> Option<[f64; FLUID_FIELDS]> {
+        // SAFETY: GIL held (we are inside a call from Python); the shared
+        // borrow ends before any Python code can run.
+        let hit = unsafe { &*self.cache.0.get() }
+            .as_ref()
+            .filter(|(o, _)| o.as_ptr() == obj.as_ptr())
+            .map(|(_, v)| *v);
+        if hit.is_some() {
+            return hit;
+        }
+        let v = fluid_values(obj)?; // may run Python code (and re-enter)
+        // Swap without running Python code, then drop the old entry (its
+        // decref may run a finalizer) once the cell is consistent again.
+        let old = std::mem::replace(unsafe { &mut *self.cache.0.get() }, Some((obj.to_owned().unbind(), v)));
+        drop(old);
+        Some(v)
+    }
+
+    /// Forward the call unchanged to the Python fallback.
+    ///
+    /// # Safety
+    /// As for [`Front::fast`].
+    unsafe fn slow<'py>(
+        &self,
+        py: Python<'py>,
+        args: *const *mut ffi::PyObject,
+        nargs: usize,
+        kwnames: *mut ffi::PyObject,
+    ) -> PyResult<Bound<'py, PyAny>> {
+        let positional =
+            PyTuple::new(py, (0..nargs).map(|i| unsafe { Borrowed::from_ptr(py, *args.add(i)) }))?;
+        if kwnames.is_null() {
+            return self.fallback.bind(py).call1(positional);
+        }
+        let kw = unsafe { Borrowed::from_ptr(py, kwnames) }.cast::<PyTuple>()?;
+        let dict = PyDict::new(py);
+        for (j, key) in kw.iter().enumerate() {
+            dict.set_item(key, unsafe { Borrowed::from_ptr(py, *args.add(nargs + j)) })?;
+        }
+        self.fallback.bind(py).call(positional, Some(&dict))
+    }
+}
+
+/// The METH_FASTCALL | METH_KEYWORDS entry point of every public function.
+unsafe extern "C" fn front_call(
+    slf: *mut ffi::PyObject,
+    args: *const *mut ffi::PyObject,
+    nargs: ffi::Py_ssize_t,
+    kwnames: *mut ffi::PyObject,
+) -> *mut ffi::PyObject {
+    // SAFETY: CPython calls this with the GIL held (attached thread state).
+    let py = unsafe { Python::assume_attached() };
+    let result = catch_unwind(AssertUnwindSafe(|| {
+        // SAFETY: `slf` is the Front this builtin was created with (make_function).
+        let front = unsafe { Borrowed::from_ptr(py, slf).cast_unchecked::<Front>() };
+        let front = front.get();
+        let n = nargs.max(0) as usize;
+        match unsafe { front.fast(py, args, n, kwnames) } {
+            Some(v) => Ok(v),
+            None => unsafe { front.slow(py, args, n, kwnames) },
+        }
+    }));
+    match result {
+        Ok(Ok(v)) => v.into_ptr(),
+        Ok(Err(err)) => {
+            err.restore(py);
+            std::ptr::null_mut()
+        }
+        Err(_) => {
+            PyRuntimeError::new_err("wetboil: internal error (panic) in a front-door call").restore(py);
+            std::ptr::null_mut()
+        }
+    }
+}
+
+#[pymethods]
+impl Front {
+    /// Pickling a builtin bound to this object pickles `getattr(obj, name)`:
+    /// rebuild `obj` as the public module, whose attribute is the function.
+    fn __reduce__(&self, py: Python<'_>) -> PyResult<(Py<PyAny>, (String,))> {
+        let import = py.import("importlib")?.getattr("import_module")?;
+        Ok((import.unbind(), (self.module.clone(),)))
+    }
+
+    /// Name of the Rust kernel behind the function.
+    #[getter]
+    fn kernel(&self) -> &'static str {
+        entries()[self.entry].model.name
+    }
+
+    /// The Python function that handles every call the fast path does not.
+    #[getter]
+    fn fallback(&self, py: Python<'_>) -> Py<PyAny> {
+        self.fallback.clone_ref(py)
+    }
+}
+
+/// Build the public builtin function `module.name`.
+///
+/// `doc` must start with the text signature line (`name(a, b=1.0)\n--\n\n`).
+#[pyfunction]
+#[allow(clippy::too_many_arguments)]
+#[pyo3(signature = (kernel, plan, names, defaults, fallback, result_type, module, name, doc))]
+pub fn make_function<'py>(
+    py: Python<'py>,
+    kernel: &str,
+    plan: Vec<(usize, isize)>,
+    names: Vec<String>,
+    defaults: Vec<Option<Py<PyAny>>>,
+    fallback: Py<PyAny>,
+    result_type: Option<Py<PyAny>>,
+    module: String,
+    name: &str,
+    doc: &str,
+) -> PyResult<Bound<'py, PyAny>> {
+    let entry = entries()
+        .iter()
+        .position(|e| e.model.name == kernel)
+        .ok_or_else(|| PyValueError::new_err(format!("unknown kernel {kernel:?}")))?;
+    let e = &entries()[entry];
+    if plan.len() != e.nin {
+        return Err(PyValueError::new_err(format!("kernel {kernel} takes {} inputs, plan has {}", e.nin, plan.len())));
+    }
+    if names.len() > MAX_ARGS || names.len() != defaults.len() || plan.iter().any(|&(a, _)| a >= names.len()) {
+        return Err(PyValueError::new_err("inconsistent parameters for a front-door function"));
+    }
+    let front = Bound::new(
+        py,
+        Front {
+            entry,
+            plan,
+            names: names.iter().map(|n| PyString::intern(py, n).unbind()).collect(),
+            defaults,
+            fallback,
+            result_type,
+            module: module.clone(),
+            cache: GilCell(std::cell::UnsafeCell::new(None)),
+        },
+    )?;
+    let name_c: &'static CString = Box::leak(Box::new(CString::new(name)?));
+    let doc_c: &'static CString = Box::leak(Box::new(CString::new(doc.replace('\0', " "))?));
+    // NumPy and CPython keep the method definition for the life of the
+    // function object; leak it so it is 'static.
+    let def: &'static mut ffi::PyMethodDef = Box::leak(Box::new(ffi::PyMethodDef {
+        ml_name: name_c.as_ptr(),
+        ml_meth: ffi::PyMethodDefPointer { PyCFunctionFastWithKeywords: front_call },
+        ml_flags: (ffi::METH_FASTCALL | ffi::METH_KEYWORDS) as c_int,
+        ml_doc: doc_c.as_ptr(),
+    }));
+    let module_name = PyString::new(py, &module);
+    // SAFETY: `def` is 'static; `front` and `module_name` are live objects
+    // (CPython takes its own references to both).
+    unsafe {
+        let f = ffi::PyCFunction_NewEx(def, front.as_ptr(), module_name.as_ptr());
+        Bound::from_owned_ptr_or_err(py, f)
+    }
+}
