@@ -1,6 +1,7 @@
 //! Critical heat flux (maximum of the nucleate boiling curve).
 
 use crate::model::{angle_deg, arg, densities, positive, Kernel, Model};
+use crate::trig::cos_deg;
 use std::f64::consts::PI;
 
 /// Zuber's constant π/24 of the hydrodynamic CHF [-].
@@ -101,8 +102,8 @@ pub fn kandlikar(
     {
         return f64::NAN;
     }
-    let c = 1.0 + receding_angle_deg.to_radians().cos();
-    let bracket = 2.0 / PI + PI / 4.0 * c * orientation_deg.to_radians().cos();
+    let c = 1.0 + cos_deg(receding_angle_deg);
+    let bracket = 2.0 / PI + PI / 4.0 * c * cos_deg(orientation_deg);
     if bracket <= 0.0 {
         return f64::NAN;
     }

@@ -19,7 +19,7 @@ if [ ! -f "$stamp" ] || [ pyproject.toml -nt "$stamp" ]; then
 import re, subprocess, sys
 text = open("pyproject.toml").read()
 def block(name):
-    m = re.search(rf"^{name}\s*=\s*\[(.*?)\]", text, re.S | re.M)
+    m = re.search(rf"^{name}\s*=\s*\[(.*?)\]\s*$", text, re.S | re.M)
     return re.findall(r'"([^"]+)"', m.group(1))
 pkgs = ["maturin>=1.5,<2"] + block("dependencies") + block("test")
 subprocess.check_call([sys.executable, "-m", "pip", "install", "--quiet", *pkgs])

@@ -318,7 +318,7 @@ def kernel(name: str, *, result: Optional[type] = None) -> Callable[[F], F]:
             doc,
         )
         _FUNCTIONS[f] = spec
-        return f  # type: ignore[no-any-return]
+        return f  # type: ignore[return-value]
 
     return build
 

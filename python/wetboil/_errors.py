@@ -5,6 +5,7 @@ from __future__ import annotations
 import contextvars
 import sys
 import warnings
+from types import FrameType
 from typing import Literal, NamedTuple, Optional
 
 __all__ = [
@@ -117,7 +118,7 @@ class errstate:
 
 def _stacklevel() -> int:
     """Stack level of the first frame outside the wetboil package."""
-    frame = sys._getframe(1)
+    frame: Optional[FrameType] = sys._getframe(1)
     level = 1
     while frame is not None and frame.f_globals.get("__name__", "").startswith("wetboil"):
         frame = frame.f_back

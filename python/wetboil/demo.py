@@ -23,7 +23,7 @@ from .fluids import Saturation
 try:  # Python >= 3.11
     import tomllib as _toml
 except ModuleNotFoundError:  # pragma: no cover
-    import tomli as _toml  # type: ignore[no-redef]
+    import tomli as _toml  # type: ignore[no-redef,import-not-found]
 
 
 def load_scenario() -> Dict[str, Any]:

@@ -144,6 +144,24 @@ class Saturation:
 
     __slots__ = FIELDS + ("name", "_scalars")
 
+    T: Any
+    p: Any
+    rho_l: Any
+    rho_v: Any
+    h_lv: Any
+    sigma: Any
+    cp_l: Any
+    k_l: Any
+    mu_l: Any
+    mu_v: Any
+    cp_v: Any
+    k_v: Any
+    molar_mass: Any
+    T_crit: Any
+    p_crit: Any
+    name: Optional[str]
+    _scalars: Optional[tuple]
+
     def __init__(
         self,
         T: Any,
@@ -200,7 +218,9 @@ class Saturation:
                 return v.isel(index)
             return v[index]
 
-        return Saturation(**{f: pick(getattr(self, f)) for f in FIELDS}, name=self.name)
+        fields: dict = {f: pick(getattr(self, f)) for f in FIELDS}
+        fields["name"] = self.name
+        return Saturation(**fields)
 
     @property
     def shape(self) -> tuple:
@@ -289,4 +309,6 @@ class Saturation:
 
 
 def _rebuild(values: tuple, name: Optional[str]) -> Saturation:
-    return Saturation(*values, name=name)
+    kw: dict = dict(zip(FIELDS, values))
+    kw["name"] = name
+    return Saturation(**kw)
