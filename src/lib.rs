@@ -14,6 +14,7 @@ pub mod chf;
 pub mod departure;
 pub mod model;
 pub mod nucleation;
+pub mod trig;
 
 #[cfg(feature = "python")]
 mod python;
