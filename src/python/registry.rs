@@ -2,7 +2,7 @@
 //! package adds exactly one line here.
 
 use super::ufunc::{entry, Entry};
-use crate::{chf, departure, nucleation};
+use crate::{chf, departure, nucleation, wetting};
 
 pub fn entries() -> Vec<Entry> {
     vec![
@@ -11,5 +11,18 @@ pub fn entries() -> Vec<Entry> {
         entry::<departure::Fritz, 5, 1>(),
         entry::<chf::Zuber, 6, 1>(),
         entry::<chf::Kandlikar, 7, 1>(),
+        entry::<wetting::YoungAngle, 3, 1>(),
+        entry::<wetting::SpreadingCoefficient, 3, 1>(),
+        entry::<wetting::AdhesionWork, 2, 1>(),
+        entry::<wetting::GirifalcoGood, 3, 1>(),
+        entry::<wetting::OwrkAngle, 4, 1>(),
+        entry::<wetting::Wenzel, 2, 1>(),
+        entry::<wetting::CassieBaxter, 3, 1>(),
+        entry::<wetting::RetentionForce, 5, 1>(),
+        entry::<wetting::SlidingAngle, 7, 1>(),
+        entry::<wetting::VdwDisjoiningPressure, 2, 1>(),
+        entry::<wetting::PowerLawDisjoiningPressure, 3, 1>(),
+        entry::<wetting::VdwFilmThickness, 5, 1>(),
+        entry::<wetting::EffectiveHamaker, 2, 1>(),
     ]
 }
