@@ -3,11 +3,13 @@
 from typing import Any, Callable, List, Optional, Sequence, Tuple
 
 import numpy as np
+from typing_extensions import final
 
 MAX_INPUTS: int
 MAX_OUTPUTS: int
 MAX_ARGS: int
 
+@final
 class Front:
     """State behind one public builtin function (its ``__self__``)."""
 

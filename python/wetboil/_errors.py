@@ -21,7 +21,7 @@ __all__ = [
     "geterr",
 ]
 
-Action = Literal["ignore", "warn", "raise"]
+_Action = Literal["ignore", "warn", "raise"]
 _ACTIONS = ("ignore", "warn", "raise")
 
 
@@ -60,8 +60,8 @@ class RangeWarning(WetboilWarning):
 
 
 class _State(NamedTuple):
-    invalid: Action
-    out_of_range: Action
+    invalid: _Action
+    out_of_range: _Action
 
 
 _STATE: contextvars.ContextVar[_State] = contextvars.ContextVar("wetboil_errstate", default=_State("warn", "warn"))
@@ -98,7 +98,7 @@ class errstate:
     nan
     """
 
-    def __init__(self, invalid: Optional[Action] = None, out_of_range: Optional[Action] = None) -> None:
+    def __init__(self, invalid: Optional[_Action] = None, out_of_range: Optional[_Action] = None) -> None:
         for label, value in (("invalid", invalid), ("out_of_range", out_of_range)):
             if value is not None and value not in _ACTIONS:
                 raise WetboilValueError(f"errstate: {label} must be one of {_ACTIONS}, got {value!r}")
