@@ -15,6 +15,7 @@ pub mod departure;
 pub mod model;
 pub mod nucleation;
 pub mod trig;
+pub mod water;
 pub mod wetting;
 
 #[cfg(feature = "python")]

@@ -133,6 +133,8 @@ def _coerce(function: str, label: str, value: Any) -> Any:
     if kind in _NUMERIC_KINDS:
         return arr
     if kind == "O":
+        if any(v is None for v in arr.flat):
+            raise WetboilTypeError(f"{function}: {label} contains None; use nan for a missing value")
         try:
             return arr.astype(np.float64)
         except (TypeError, ValueError):
@@ -144,7 +146,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
 # evaluation
 
 
-def _as_result(outs: Any, result_type: Optional[type]) -> Any:
+def _as_result(outs: Any, result_type: Optional[Callable[..., Any]]) -> Any:
     if result_type is None:
         return outs
     return result_type(*outs)
@@ -178,7 +180,7 @@ class _Spec(NamedTuple):
     plan: Tuple[Tuple[int, str], ...]  # per kernel input: (argument index, fluid field or "")
     labels: Tuple[str, ...]  # per kernel input: how to name it in messages
     params: Tuple[str, ...]
-    result_type: Optional[type]
+    result_type: Optional[Callable[..., Any]]
 
 
 def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
@@ -238,7 +240,7 @@ def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
 F = TypeVar("F", bound=Callable[..., Any])
 
 
-def kernel(name: str, *, result: Optional[type] = None) -> Callable[[F], F]:
+def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callable[[F], F]:
     """Make a public function from kernel `name` and a template.
 
     The template supplies the public signature and docstring; its body is

@@ -25,7 +25,7 @@ def make_function(
     names: Sequence[str],
     defaults: Sequence[Optional[Any]],
     fallback: Callable[..., Any],
-    result_type: Optional[type],
+    result_type: Optional[Callable[..., Any]],
     module: str,
     name: str,
     doc: str,

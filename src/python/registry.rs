@@ -2,10 +2,12 @@
 //! package adds exactly one line here.
 
 use super::ufunc::{entry, Entry};
-use crate::{chf, departure, nucleation, wetting};
+use crate::{chf, departure, nucleation, water, wetting};
 
 pub fn entries() -> Vec<Entry> {
     vec![
+        entry::<water::SaturationT, 1, 12>(),
+        entry::<water::SaturationP, 1, 12>(),
         entry::<nucleation::EmbryoSuperheat, 6, 1>(),
         entry::<nucleation::EmbryoRadius, 6, 1>(),
         entry::<departure::Fritz, 5, 1>(),
