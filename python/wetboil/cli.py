@@ -78,6 +78,11 @@ def main(argv: Optional[List[str]] = None) -> int:
     except WetboilError as exc:
         print(f"wetboil: error: {exc}", file=sys.stderr)
         return 1
+    except BrokenPipeError:  # output piped into a command that stopped reading (| head)
+        import os
+
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        return 0
 
 
 if __name__ == "__main__":  # pragma: no cover

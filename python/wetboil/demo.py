@@ -18,7 +18,7 @@ import numpy as np
 from ._errors import RangeWarning
 from .chf import kandlikar, zuber
 from .departure import fritz
-from .fluids import Saturation
+from .fluids import Saturation, water
 
 try:  # Python >= 3.11
     import tomllib as _toml
@@ -32,25 +32,12 @@ def load_scenario() -> Dict[str, Any]:
     return _toml.loads(text)
 
 
-def water_at(p: float) -> Saturation:
-    """Saturated water at pressure `p` from the built-in IAPWS properties when
-    available, else the IAPWS-95 state at 1 atm (values as tabulated by the
-    NIST Webbook, recalled to 5 digits; sigma from IAPWS R1-76)."""
-    from . import fluids
-
-    if hasattr(fluids, "water"):
-        return fluids.water(p=p)  # type: ignore[attr-defined]
-    if abs(p - 101325.0) > 1.0:
-        raise ValueError("the demo needs the built-in water properties for pressures other than 1 atm")
-    return Saturation(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.59817, h_lv=2.2564e6, sigma=0.058912, name="water")
-
-
 def run(out: pathlib.Path) -> pathlib.Path:
     """Run the scenario, print its table, write a plot and a short report into
     `out`; return the report's path."""
     sc = load_scenario()
     meta = sc["scenario"]
-    fluid = water_at(meta["pressure_Pa"])
+    fluid = water(p=meta["pressure_Pa"])
     q_design = meta["design_heat_flux_W_m2"]
     orientations = meta["orientations_deg"]
     surfaces: List[Dict[str, Any]] = sc["surface"]
