@@ -110,6 +110,23 @@ pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
     }
 }
 
+/// Validity code of one element, without computing it: 0 inside the published
+/// range, 1 physically impossible, 2 possible but outside the published range,
+/// 3 missing (a NaN input). Agrees with [`evaluate`]'s status for kernels that
+/// honour the [`Kernel`] contract (checked by the property tests).
+#[inline(always)]
+pub fn classify<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> i8 {
+    if x.iter().any(|v| v.is_nan()) {
+        3
+    } else if !K::possible(x) {
+        1
+    } else if !K::in_range(x) {
+        2
+    } else {
+        0
+    }
+}
+
 /// True when `x` is a finite number strictly above zero.
 #[inline(always)]
 pub fn positive(x: f64) -> bool {

@@ -293,3 +293,31 @@ print("survived")
     r = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120)
     assert r.returncode == 0, r.stderr
     assert "survived" in r.stdout
+
+
+# --------------------------------------------------------------------------- per-element validity
+
+
+def test_validity_codes_agree_with_the_warnings():
+    beta = np.array([30.0, 30.0, 200.0, np.nan, 60.0])
+    phi = np.array([0.0, 120.0, 0.0, 0.0, 100.0])
+    codes = wetboil.validity(kandlikar, beta, WATER, phi)
+    assert codes.dtype == np.int8 and codes.tolist() == [0, 2, 1, 3, 2]
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        kandlikar(beta, WATER, phi)
+    msgs = {w.category: str(w.message) for w in rec}
+    assert "1 of 5" in msgs[wetboil.InvalidValueWarning] and "2 of 5" in msgs[wetboil.RangeWarning]
+    # keywords and defaults bind as in the function itself
+    assert wetboil.validity(kandlikar, receding_angle_deg=30.0, fluid=WATER) == 0
+    with pytest.raises(TypeError):
+        wetboil.validity(kandlikar, 30.0)
+    with pytest.raises(TypeError):
+        wetboil.validity(len, 30.0)
+
+
+def test_validity_keeps_labels():
+    xr = pytest.importorskip("xarray")
+    beta = xr.DataArray([10.0, 200.0], dims="surface")
+    codes = wetboil.validity(fritz, beta, WATER)
+    assert codes.dims == ("surface",) and codes.values.tolist() == [0, 1]

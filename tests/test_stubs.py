@@ -21,7 +21,7 @@ def test_stubtest_matches_runtime(tmp_path):
     # _errors._Action is a Literal alias, which stubtest mistakes for a Union;
     # _core.__all__ lists those ufuncs too.
     allow = tmp_path / "allowlist.txt"
-    names = [f"wetboil._core.{m.name}" for m in wetboil.models()] + ["wetboil.__main__", "wetboil._errors._Action", "wetboil._core.__all__"]
+    names = [f"wetboil._core.{m.name}{suffix}" for m in wetboil.models() for suffix in ("", "_status")] + ["wetboil.__main__", "wetboil._errors._Action", "wetboil._core.__all__"]
     allow.write_text("\n".join(names) + "\n")
     r = subprocess.run(
         [sys.executable, "-m", "mypy.stubtest", "wetboil", "--mypy-config-file", str(ROOT / "pyproject.toml"),

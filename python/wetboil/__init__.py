@@ -14,7 +14,7 @@ one warning per call (see `errstate`).
 """
 
 from . import _core
-from ._api import get_num_threads, model_of, models, set_num_threads, ufunc_of
+from ._api import VALIDITY_CODES, get_num_threads, model_of, models, set_num_threads, ufunc_of, validity
 from ._errors import (
     InvalidValueError,
     InvalidValueWarning,
@@ -42,6 +42,8 @@ __all__ = [
     "models",
     "model_of",
     "ufunc_of",
+    "validity",
+    "VALIDITY_CODES",
     "set_num_threads",
     "get_num_threads",
     "WetboilError",

@@ -31,7 +31,7 @@ import numpy as np
 from . import _core
 from ._errors import WetboilTypeError, WetboilValueError, report
 
-__all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads", "ufunc_of", "model_of"]
+__all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads", "ufunc_of", "model_of", "validity", "VALIDITY_CODES"]
 
 
 class Arg(NamedTuple):
@@ -183,8 +183,8 @@ class _Spec(NamedTuple):
     result_type: Optional[Callable[..., Any]]
 
 
-def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
-    """The array path: gather the kernel inputs, check them, dispatch."""
+def _gather(spec: _Spec, args: Sequence[Any]) -> list:
+    """The kernel inputs of a call, checked and coerced, in kernel order."""
     from .fluids import Saturation
 
     inputs = []
@@ -198,39 +198,89 @@ def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
                 )
             a = getattr(a, field)
         inputs.append(_coerce(spec.function, label, a))
+    return inputs
 
-    name, n_out = spec.model.name, len(spec.model.outputs)
-    func = functools.partial(evaluate_arrays, name, spec.function)
+
+def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list, names: list) -> Any:
+    """Run `func` (a NumPy-level function of the inputs with len(dtypes)
+    outputs) through xarray, dask or directly, by the kind of the inputs."""
+    n_out = len(dtypes)
     if any(_is_xarray(x) for x in inputs):
         import xarray as xr
 
-        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=[np.float64] * n_out)
+        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes)
         if n_out > 1:
             kwargs["output_core_dims"] = [[] for _ in range(n_out)]
         outs = xr.apply_ufunc(func, *inputs, **kwargs)
-        names = [o.name for o in spec.model.outputs]
         if n_out == 1:
             return outs.rename(names[0])
-        return _as_result(tuple(o.rename(nm) for o, nm in zip(outs, names)), spec.result_type)
+        return tuple(o.rename(nm) for o, nm in zip(outs, names))
     if any(_is_dask(x) for x in inputs):
         import dask.array as da
 
         signature = ",".join(["()"] * len(inputs)) + "->" + ",".join(["()"] * n_out)
-        outs = da.apply_gufunc(
-            func, signature, *inputs, output_dtypes=(np.float64 if n_out == 1 else [np.float64] * n_out)
-        )
-        return outs if n_out == 1 else _as_result(tuple(outs), spec.result_type)
-
+        outs = da.apply_gufunc(func, signature, *inputs, output_dtypes=(dtypes[0] if n_out == 1 else dtypes))
+        return outs if n_out == 1 else tuple(outs)
     shapes = [np.shape(x) for x in inputs]
     try:
         np.broadcast_shapes(*shapes)
     except ValueError:
         described = ", ".join(f"{lab} {shp}" for lab, shp in zip(spec.labels, shapes))
         raise WetboilValueError(f"{spec.function}: argument shapes do not broadcast: {described}") from None
-    outs = evaluate_arrays(name, spec.function, *inputs)
+    outs = func(*inputs)
     if n_out == 1:
         return _scalarise(outs)
-    return _as_result(tuple(_scalarise(o) for o in outs), spec.result_type)
+    return tuple(_scalarise(o) for o in outs)
+
+
+def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
+    """The array path: gather the kernel inputs, check them, dispatch."""
+    inputs = _gather(spec, args)
+    n_out = len(spec.model.outputs)
+    func = functools.partial(evaluate_arrays, spec.model.name, spec.function)
+    outs = _dispatch(spec, inputs, func, [np.float64] * n_out, [o.name for o in spec.model.outputs])
+    return outs if n_out == 1 else _as_result(outs, spec.result_type)
+
+
+#: Meaning of the codes returned by `validity`.
+VALIDITY_CODES = {0: "inside the published validity range", 1: "physically impossible",
+                  2: "outside the published validity range", 3: "missing input (NaN)"}
+
+
+def _status_arrays(name: str, *arrays: Any) -> Any:
+    return getattr(_core, f"{name}_status")(*arrays)
+
+
+def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
+    """Per-element validity codes of a call, without computing it.
+
+    ``validity(f, *args, **kwargs)`` takes the same arguments as the kernel
+    function `f` and returns int8 codes with the broadcast shape:
+    0 inside the published validity range, 1 physically impossible (the
+    result is NaN), 2 outside the published range (computed, extrapolated),
+    3 a missing (NaN) input. Labels and laziness follow the arguments, as for
+    `f` itself. Use it to flag rows of a result table.
+
+    Examples
+    --------
+    >>> import wetboil
+    >>> from wetboil.chf import kandlikar
+    >>> from wetboil.fluids import water
+    >>> wetboil.validity(kandlikar, [30.0, 30.0, 200.0, float("nan")], water(p=1e5), [0.0, 120.0, 0.0, 0.0])
+    array([0, 2, 1, 3], dtype=int8)
+    """
+    spec = _FUNCTIONS.get(function)
+    if spec is None:
+        raise WetboilTypeError(f"validity: {function!r} is not a wetboil kernel function")
+    try:
+        bound = inspect.signature(function).bind(*args, **kwargs)
+    except TypeError as exc:
+        raise WetboilTypeError(f"validity: {exc}") from None
+    bound.apply_defaults()
+    inputs = _gather(spec, [bound.arguments[p] for p in spec.params])
+    func = functools.partial(_status_arrays, spec.model.name)
+    out = _dispatch(spec, inputs, func, [np.int8], ["validity"])
+    return out if not isinstance(out, float) else np.int8(out)
 
 
 # ----------------------------------------------------------------------------

@@ -62,8 +62,8 @@ fn _after_fork_child() {
 fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     let py = m.py();
     for e in entries() {
-        let uf = ufunc::make_ufunc(py, e)?;
-        m.add(e.model.name, uf)?;
+        m.add(e.model.name, ufunc::make_ufunc(py, e)?)?;
+        m.add(ufunc::status_name(e.model.name), ufunc::make_status_ufunc(py, e)?)?;
     }
     m.add("Front", front::Front::type_object(py))?;
     m.add_function(wrap_pyfunction!(front::make_function, m)?)?;

@@ -15,7 +15,9 @@ use pyo3::prelude::*;
 use rayon::prelude::*;
 
 use super::threads;
-use crate::model::{evaluate, Kernel, Model, Status};
+use crate::model::{classify, evaluate, Kernel, Model, Status};
+
+type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
 
 /// Inputs per kernel that the scalar entry point can take (and the registry
 /// allows): ufunc loops themselves have no such limit.
@@ -49,7 +51,8 @@ pub struct Entry {
     pub model: Model,
     pub nin: usize,
     pub nout: usize,
-    loop_fn: unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void),
+    loop_fn: LoopFn,
+    status_fn: LoopFn,
     /// Evaluate one element: `x.len() == nin`, `y.len() >= nout`.
     pub scalar: fn(&[f64], &mut [f64]) -> Status,
 }
@@ -58,7 +61,14 @@ pub struct Entry {
 /// the binding is one call of this function in `registry.rs`.
 pub fn entry<K: Kernel<N, M>, const N: usize, const M: usize>() -> Entry {
     const { assert!(N >= 1 && N <= MAX_IN && M >= 1 && M <= MAX_OUT) };
-    Entry { model: K::MODEL, nin: N, nout: M, loop_fn: ufunc_loop::<K, N, M>, scalar: scalar::<K, N, M> }
+    Entry {
+        model: K::MODEL,
+        nin: N,
+        nout: M,
+        loop_fn: ufunc_loop::<K, N, M>,
+        status_fn: status_loop::<K, N, M>,
+        scalar: scalar::<K, N, M>,
+    }
 }
 
 fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64], y: &mut [f64]) -> Status {
@@ -152,6 +162,32 @@ unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>
     }
 }
 
+/// The inner loop of the status ufunc: same inputs as the kernel, one int8
+/// output, the validity code of each element (see `model::classify`). Cheap
+/// (no kernel evaluation) and serial.
+///
+/// # Safety
+/// As for `ufunc_loop`, with `args[N]` pointing to int8 elements.
+unsafe extern "C" fn status_loop<K: Kernel<N, M>, const N: usize, const M: usize>(
+    args: *mut *mut c_char,
+    dimensions: *mut npy_intp,
+    steps: *mut npy_intp,
+    _data: *mut c_void,
+) {
+    let _ = catch_unwind(AssertUnwindSafe(|| unsafe {
+        let n = *dimensions as isize;
+        let out = *args.add(N) as *mut i8;
+        let out_step = *steps.add(N) as isize;
+        for i in 0..n {
+            let mut x = [0.0f64; N];
+            for k in 0..N {
+                x[k] = (((*args.add(k)) as *const u8).offset(i * *steps.add(k) as isize) as *const f64).read_unaligned();
+            }
+            ((out as *mut u8).offset(i * out_step) as *mut i8).write_unaligned(classify::<K, N, M>(&x));
+        }
+    }));
+}
+
 /// Split `0..n` into chunks evaluated on the wetboil thread pool.
 fn run_parallel<K: Kernel<N, M>, const N: usize, const M: usize>(op: Operands<N, M>, n: isize) -> [u64; 2] {
     let Some(pool) = threads::pool() else {
@@ -170,13 +206,8 @@ fn run_parallel<K: Kernel<N, M>, const N: usize, const M: usize>(op: Operands<N,
     })
 }
 
-/// Create the NumPy ufunc of an entry. Every pointer handed to NumPy is leaked
-/// on purpose: NumPy keeps them for the life of the ufunc, i.e. the process.
+/// Create the NumPy ufunc of an entry (float64 in, float64 out).
 pub fn make_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>> {
-    let funcs: &'static mut [PyUFuncGenericFunction] = Box::leak(Box::new([Some(e.loop_fn)]));
-    let data: &'static mut [*mut c_void] = Box::leak(Box::new([std::ptr::null_mut()]));
-    let types: &'static mut [c_char] =
-        Box::leak(vec![NPY_TYPES::NPY_DOUBLE as c_char; e.nin + e.nout].into_boxed_slice());
     let m = &e.model;
     let doc = format!(
         "{}\n\n{}\n\nInputs: {}\nOutputs: {}\nDomain: {}\nValidity: {}\nReference: {}{}\n",
@@ -189,7 +220,42 @@ pub fn make_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>
         m.reference,
         if m.doi.is_empty() { String::new() } else { format!(", doi:{}", m.doi) },
     );
-    let name: &'static CString = Box::leak(Box::new(CString::new(m.name).expect("kernel names have no NUL")));
+    build_ufunc(py, m.name, &doc, e.loop_fn, e.nin, e.nout, NPY_TYPES::NPY_DOUBLE)
+}
+
+/// Name of the status ufunc of a kernel.
+pub fn status_name(kernel: &str) -> String {
+    format!("{kernel}_status")
+}
+
+/// Create the status ufunc of an entry (float64 in, one int8 out: 0 in range,
+/// 1 impossible, 2 outside the published range, 3 missing input).
+pub fn make_status_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>> {
+    let doc = format!(
+        "Validity code of each element of {}: 0 inside the published range ({}), 1 physically impossible \
+         ({}), 2 outside the published range, 3 missing (NaN input).",
+        e.model.name, e.model.validity, e.model.domain
+    );
+    build_ufunc(py, &status_name(e.model.name), &doc, e.status_fn, e.nin, 1, NPY_TYPES::NPY_BYTE)
+}
+
+/// Build a ufunc with one loop. Every pointer handed to NumPy is leaked on
+/// purpose: NumPy keeps them for the life of the ufunc, i.e. the process.
+fn build_ufunc<'py>(
+    py: Python<'py>,
+    name: &str,
+    doc: &str,
+    loop_fn: LoopFn,
+    nin: usize,
+    nout: usize,
+    out_type: NPY_TYPES,
+) -> PyResult<Bound<'py, PyAny>> {
+    let funcs: &'static mut [PyUFuncGenericFunction] = Box::leak(Box::new([Some(loop_fn)]));
+    let data: &'static mut [*mut c_void] = Box::leak(Box::new([std::ptr::null_mut()]));
+    let mut t = vec![NPY_TYPES::NPY_DOUBLE as c_char; nin];
+    t.extend(std::iter::repeat_n(out_type as c_char, nout));
+    let types: &'static mut [c_char] = Box::leak(t.into_boxed_slice());
+    let name: &'static CString = Box::leak(Box::new(CString::new(name).expect("kernel names have no NUL")));
     let doc: &'static CString = Box::leak(Box::new(CString::new(doc.replace('\0', " ")).expect("no NUL left")));
     // SAFETY: all pointers are 'static, `types` holds nin + nout entries for
     // the single loop, and NumPy copies nothing it does not own.
@@ -200,8 +266,8 @@ pub fn make_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>
             data.as_mut_ptr(),
             types.as_mut_ptr(),
             1,
-            e.nin as c_int,
-            e.nout as c_int,
+            nin as c_int,
+            nout as c_int,
             -1, // PyUFunc_None: no identity
             name.as_ptr(),
             doc.as_ptr(),
