@@ -152,6 +152,235 @@ impl Kernel<7, 1> for Kandlikar {
     }
 }
 
+// ---------------------------------------------------------------------------
+// Lienhard & Dhir finite heaters
+
+/// Geometry code of [`lienhard_dhir`]: large (infinite) horizontal flat heater facing up.
+pub const GEOMETRY_FLAT_PLATE: f64 = 0.0;
+/// Geometry code: small horizontal flat heater (one vapour jet).
+pub const GEOMETRY_SMALL_FLAT_PLATE: f64 = 1.0;
+/// Geometry code: horizontal cylinder.
+pub const GEOMETRY_CYLINDER: f64 = 2.0;
+/// Geometry code: sphere.
+pub const GEOMETRY_SPHERE: f64 = 3.0;
+
+/// Lienhard & Dhir's small-flat-heater coefficient in `q_max = c K₁ scale`,
+/// `K₁ = σ/(g Δρ A)`, from their ratio form `q_max/q_max,Z = 1.14 λ_d²/A` with
+/// `λ_d = 2π√3 l_c`: `c = 1.14 (π/24) (2π√3)² = 17.67` \[D from the ratio form\].
+pub const SMALL_PLATE_RATIO_FORM: f64 = 1.14 * (PI / 24.0) * (12.0 * PI * PI);
+/// The same coefficient as tabulated in restatements, 18.9 (7 % higher; MODELS Q-8).
+pub const SMALL_PLATE_TABULATED: f64 = 18.9;
+
+/// The hydrodynamic group `h_lv ρ_v^(1/2) [σ g (ρ_l − ρ_v)]^(1/4)` [W/m2].
+#[inline(always)]
+fn chf_scale(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
+    h_lv * rho_v.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt()
+}
+
+#[inline(always)]
+fn scale_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
+    positive(h_lv) && densities(rho_l, rho_v) && positive(rho_v) && positive(sigma) && positive(g)
+}
+
+#[inline(always)]
+fn geometry_code(x: f64) -> Option<u8> {
+    if x == GEOMETRY_FLAT_PLATE {
+        Some(0)
+    } else if x == GEOMETRY_SMALL_FLAT_PLATE {
+        Some(1)
+    } else if x == GEOMETRY_CYLINDER {
+        Some(2)
+    } else if x == GEOMETRY_SPHERE {
+        Some(3)
+    } else {
+        None
+    }
+}
+
+/// Peak (critical) heat flux of a finite heater after Lienhard & Dhir [W/m2].
+///
+/// `q_max = F(L') (π/24) h_lv ρ_v^(1/2) [σ g (ρ_l − ρ_v)]^(1/4)` with the
+/// dimensionless size `L' = L [g (ρ_l − ρ_v)/σ]^(1/2)`:
+///
+/// | geometry (code) | `L` | `F(L')` or `q_max` | published range |
+/// |---|---|---|---|
+/// | large flat plate (0) | width | `q_max = 0.149 × scale` (F = 1.14) | L' ≥ 27 |
+/// | small flat plate (1) | width | `q_max = c K₁ × scale`, `K₁ = σ/(gΔρA)` | 9 ≤ L' ≤ 20 |
+/// | cylinder (2) | radius | `0.89 + 2.27 exp(−3.44 √L')` (Sun & Lienhard) | L' ≥ 0.15 |
+/// | sphere (3) | radius | `0.84` for L' ≥ 4.26, else `1.734 L'^(−1/2)` | L' ≥ 0.15 |
+///
+/// * `geometry` code, `size` L [m], `area` heater area A [m2] (small flat
+///   plate only; other geometries ignore it but it must be positive),
+///   `small_plate` the small-plate coefficient c [-] (17.67 from the ratio
+///   form, 18.9 as tabulated; MODELS Q-8 unresolved), `h_lv` [J/kg],
+///   `rho_l`, `rho_v` [kg/m3], `sigma` [N/m], `g` [m/s2].
+/// * Possible: a known geometry code, positive size, area, c and properties,
+///   ρ_l > ρ_v; otherwise NaN. Outside the published L' range: computed, flagged.
+/// * Verification: the cylinder form is \[V2\] (two transcribed textbook
+///   examples using R' = r [gΔρ/σ]^(1/2)); the flat-plate 0.149 (= 1.14 π/24)
+///   is \[V\] in textbook worked examples; the small-plate and sphere forms and
+///   every range are \[M, high\]; the original paper was not read.
+///
+/// References: J.H. Lienhard, V.K. Dhir, "Hydrodynamic prediction of peak
+/// pool-boiling heat fluxes from finite bodies", J. Heat Transfer 95 (1973)
+/// 152-158, doi:10.1115/1.3450013; K.H. Sun, J.H. Lienhard, "The peak pool
+/// boiling heat flux on horizontal cylinders", Int. J. Heat Mass Transfer 13
+/// (1970) 1425-1439.
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn lienhard_dhir(
+    geometry: f64,
+    size: f64,
+    area: f64,
+    small_plate: f64,
+    h_lv: f64,
+    rho_l: f64,
+    rho_v: f64,
+    sigma: f64,
+    g: f64,
+) -> f64 {
+    let code = match geometry_code(geometry) {
+        Some(c) => c,
+        None => return f64::NAN,
+    };
+    if !(positive(size) && positive(area) && positive(small_plate) && scale_possible(h_lv, rho_l, rho_v, sigma, g)) {
+        return f64::NAN;
+    }
+    let scale = chf_scale(h_lv, rho_l, rho_v, sigma, g);
+    let l_prime = size * (g * (rho_l - rho_v) / sigma).sqrt();
+    match code {
+        0 => LIENHARD_DHIR_K * scale,
+        1 => small_plate * sigma / (g * (rho_l - rho_v) * area) * scale,
+        2 => ZUBER_K * (0.89 + 2.27 * (-3.44 * l_prime.sqrt()).exp()) * scale,
+        _ => {
+            let f = if l_prime >= 4.26 { 0.84 } else { 1.734 / l_prime.sqrt() };
+            ZUBER_K * f * scale
+        }
+    }
+}
+
+/// Dimensionless size `L' = L [g (ρ_l − ρ_v)/σ]^(1/2)` of [`lienhard_dhir`].
+#[inline]
+pub fn dimensionless_size(size: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
+    size * (g * (rho_l - rho_v) / sigma).sqrt()
+}
+
+/// Kernel of [`lienhard_dhir`].
+pub struct LienhardDhir;
+impl Kernel<9, 1> for LienhardDhir {
+    const MODEL: Model = Model {
+        name: "lienhard_dhir_chf",
+        summary: "Lienhard & Dhir (1973) peak heat flux of finite heaters: flat plates, cylinders, spheres",
+        equation: "q_max = F(L') * pi/24 * h_lv*sqrt(rho_v)*(sigma*g*(rho_l-rho_v))**0.25, L' = L*sqrt(g*(rho_l-rho_v)/sigma)",
+        inputs: &[
+            arg("geometry", "-"),
+            arg("size", "m"),
+            arg("area", "m2"),
+            arg("small_plate_coefficient", "-"),
+            arg("fluid.h_lv", "J/kg"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.rho_v", "kg/m3"),
+            arg("fluid.sigma", "N/m"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("critical_heat_flux", "W/m2")],
+        domain: "geometry code 0-3, size > 0, area > 0, coefficient > 0, positive properties, rho_l > rho_v",
+        validity: "large flat plate L' >= 27; small flat plate 9 <= L' <= 20; cylinder and sphere R' >= 0.15",
+        reference: "J.H. Lienhard, V.K. Dhir, J. Heat Transfer 95 (1973) 152-158; \
+                    K.H. Sun, J.H. Lienhard, Int. J. Heat Mass Transfer 13 (1970) 1425-1439",
+        doi: "10.1115/1.3450013",
+        verification: "cylinder form: secondary (transcribed textbook examples); 0.149: textbook worked example; \
+                       small-plate and sphere forms and ranges from memory (high confidence); originals not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 9]) -> [f64; 1] {
+        [lienhard_dhir(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8])]
+    }
+    fn possible(x: &[f64; 9]) -> bool {
+        geometry_code(x[0]).is_some()
+            && positive(x[1])
+            && positive(x[2])
+            && positive(x[3])
+            && scale_possible(x[4], x[5], x[6], x[7], x[8])
+    }
+    fn in_range(x: &[f64; 9]) -> bool {
+        let lp = dimensionless_size(x[1], x[5], x[6], x[7], x[8]);
+        match geometry_code(x[0]) {
+            Some(0) => lp >= 27.0,
+            Some(1) => (9.0..=20.0).contains(&lp),
+            _ => lp >= 0.15,
+        }
+    }
+}
+
+// ---------------------------------------------------------------------------
+// Minimum heat flux
+
+/// Berenson's constant of the minimum film-boiling heat flux (large horizontal plate) [-].
+pub const BERENSON_MIN_K: f64 = 0.09;
+/// Zuber's constant of the minimum heat flux, π/24 [-].
+pub const ZUBER_MIN_K: f64 = PI / 24.0;
+
+/// Minimum film-boiling heat flux (the Leidenfrost point of the boiling curve) [W/m2].
+///
+/// `q_min = C ρ_v h_lv [σ g (ρ_l − ρ_v) / (ρ_l + ρ_v)²]^(1/4)`
+///
+/// * `C = π/24` (Zuber 1959, from Taylor-instability collapse of the vapour
+///   film) or `C = 0.09` (Berenson 1961, fitted to his large horizontal plate
+///   data, about ±50 %; MODELS D8).
+/// * `c` [-], `h_lv` [J/kg], `rho_l`, `rho_v` [kg/m3], `sigma` [N/m], `g` [m/s2].
+/// * Possible: positive inputs, ρ_l > ρ_v; otherwise NaN. Constants outside
+///   0.05-0.20 are flagged (the two in use are 0.09 and 0.131).
+/// * Verification: the form and 0.09 are \[V2\] (a transcribed textbook
+///   example; MODELS D8 records it from a textbook); originals not read.
+///
+/// References: N. Zuber, AECU-4439 (1959); P.J. Berenson, "Film-boiling heat
+/// transfer from a horizontal surface", J. Heat Transfer 83 (1961) 351-358,
+/// doi:10.1115/1.3682280 (DOI from memory).
+#[inline]
+pub fn minimum_heat_flux(c: f64, h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
+    if !(positive(c) && scale_possible(h_lv, rho_l, rho_v, sigma, g)) {
+        return f64::NAN;
+    }
+    let s = rho_l + rho_v;
+    c * rho_v * h_lv * (sigma * g * (rho_l - rho_v) / (s * s)).sqrt().sqrt()
+}
+
+/// Kernel of [`minimum_heat_flux`].
+pub struct MinimumHeatFlux;
+impl Kernel<6, 1> for MinimumHeatFlux {
+    const MODEL: Model = Model {
+        name: "minimum_heat_flux",
+        summary: "Minimum film-boiling heat flux (Zuber pi/24, Berenson 0.09) with the constant as a parameter",
+        equation: "q_min = C * rho_v * h_lv * (sigma*g*(rho_l-rho_v)/(rho_l+rho_v)**2)**0.25",
+        inputs: &[
+            arg("C", "-"),
+            arg("fluid.h_lv", "J/kg"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.rho_v", "kg/m3"),
+            arg("fluid.sigma", "N/m"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("minimum_heat_flux", "W/m2")],
+        domain: "C > 0, positive properties, rho_l > rho_v > 0, g > 0",
+        validity: "large horizontal upward-facing heater; 0.05 <= C <= 0.20",
+        reference: "N. Zuber, AEC Report AECU-4439 (1959); P.J. Berenson, Film-boiling heat transfer from a horizontal \
+                    surface, J. Heat Transfer 83 (1961) 351-358",
+        doi: "10.1115/1.3682280",
+        verification: "form and C = 0.09: secondary source (transcribed textbook example); originals not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 6]) -> [f64; 1] {
+        [minimum_heat_flux(x[0], x[1], x[2], x[3], x[4], x[5])]
+    }
+    fn possible(x: &[f64; 6]) -> bool {
+        positive(x[0]) && scale_possible(x[1], x[2], x[3], x[4], x[5])
+    }
+    fn in_range(x: &[f64; 6]) -> bool {
+        (0.05..=0.20).contains(&x[0])
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -196,5 +425,50 @@ mod tests {
         assert_eq!(evaluate::<Kandlikar, 7, 1>(&x).1, Status::OutOfRange);
         let x = [30.0, 200.0, 2257e3, 957.9, 0.5955, 58.9e-3, 9.80665];
         assert_eq!(evaluate::<Kandlikar, 7, 1>(&x).1, Status::Invalid);
+    }
+
+    #[test]
+    fn lienhard_dhir_forms() {
+        let (h, rl, rv, s, g): (f64, f64, f64, f64, f64) = (2257e3, 957.9, 0.5955, 58.9e-3, 9.8);
+        let scale = h * rv.sqrt() * (s * g * (rl - rv)).powf(0.25);
+        let lc = (s / (g * (rl - rv))).sqrt();
+        // Large flat plate: the 0.149 constant of zuber().
+        assert_relative_eq!(lienhard_dhir(0.0, 0.3, 0.09, SMALL_PLATE_RATIO_FORM, h, rl, rv, s, g), zuber(h, rl, rv, s, 0.149, g), max_relative = 1e-14);
+        // Small plate: 1.14 (lambda_d^2/A) pi/24 with lambda_d = 2 pi sqrt3 l_c.
+        let a = (12.0 * lc) * (12.0 * lc);
+        let lam = 2.0 * PI * 3f64.sqrt() * lc;
+        assert_relative_eq!(
+            lienhard_dhir(1.0, 12.0 * lc, a, SMALL_PLATE_RATIO_FORM, h, rl, rv, s, g),
+            1.14 * lam * lam / a * ZUBER_K * scale,
+            max_relative = 1e-12
+        );
+        assert_relative_eq!(SMALL_PLATE_RATIO_FORM, 17.67, max_relative = 1e-3);
+        // Cylinder: Sun-Lienhard tends to 0.89 pi/24 for a large radius.
+        let big = lienhard_dhir(2.0, 1.0, 1.0, 17.67, h, rl, rv, s, g) / scale;
+        assert_relative_eq!(big, 0.89 * ZUBER_K, max_relative = 1e-6);
+        // Sphere: continuous at R' = 4.26 (1.734/sqrt(4.26) = 0.840).
+        let r = 4.26 * lc;
+        let lo = lienhard_dhir(3.0, r * (1.0 - 1e-9), 1.0, 17.67, h, rl, rv, s, g);
+        let hi = lienhard_dhir(3.0, r, 1.0, 17.67, h, rl, rv, s, g);
+        assert_relative_eq!(lo, hi, max_relative = 2e-3);
+        assert!(lienhard_dhir(4.0, 1.0, 1.0, 17.67, h, rl, rv, s, g).is_nan());
+        assert!(lienhard_dhir(0.5, 1.0, 1.0, 17.67, h, rl, rv, s, g).is_nan());
+        assert!(lienhard_dhir(2.0, -1.0, 1.0, 17.67, h, rl, rv, s, g).is_nan());
+        use crate::model::{evaluate, Status};
+        assert_eq!(evaluate::<LienhardDhir, 9, 1>(&[0.0, 0.01, 1.0, 17.67, h, rl, rv, s, g]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<LienhardDhir, 9, 1>(&[2.0, 0.1 * lc, 1.0, 17.67, h, rl, rv, s, g]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<LienhardDhir, 9, 1>(&[2.0, 1.0 * lc, 1.0, 17.67, h, rl, rv, s, g]).1, Status::Ok);
+    }
+
+    #[test]
+    fn minimum_heat_flux_form() {
+        let (h, rl, rv, s, g): (f64, f64, f64, f64, f64) = (2257e3, 957.9, 0.5955, 58.9e-3, 9.8);
+        let q = minimum_heat_flux(0.09, h, rl, rv, s, g);
+        assert_relative_eq!(q, 0.09 * rv * h * (s * g * (rl - rv) / ((rl + rv) * (rl + rv))).powf(0.25), max_relative = 1e-14);
+        // [D] about 18.9 kW/m2 for water at 1 atm with these properties.
+        assert!((18.8e3..19.1e3).contains(&q), "{q}");
+        assert_relative_eq!(minimum_heat_flux(ZUBER_MIN_K, h, rl, rv, s, g) / q, ZUBER_MIN_K / 0.09, max_relative = 1e-14);
+        assert!(minimum_heat_flux(0.0, h, rl, rv, s, g).is_nan());
+        assert!(minimum_heat_flux(0.09, h, rv, rl, s, g).is_nan());
     }
 }

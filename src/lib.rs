@@ -10,6 +10,7 @@
 //! `python` module turns every such kernel into a NumPy ufunc through one
 //! generic mechanism.
 
+pub mod boiling;
 pub mod chf;
 pub mod departure;
 pub mod model;

@@ -27,7 +27,7 @@ from ._errors import (
     errstate,
     geterr,
 )
-from . import fluids, nucleation, departure, chf, wetting  # noqa: E402  (topic modules)
+from . import fluids, nucleation, departure, chf, wetting, boiling  # noqa: E402  (topic modules)
 
 __version__ = "0.1.0"
 
@@ -36,6 +36,7 @@ __all__ = [
     "nucleation",
     "departure",
     "chf",
+    "boiling",
     "wetting",
     "errstate",
     "geterr",

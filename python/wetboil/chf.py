@@ -6,23 +6,50 @@
    aged ones). Use them only inside each correlation's validity range, apply a
    safety margin, and follow the codes and licensed engineering practice that
    govern your application. wetboil does not certify any design.
+
+Models: `zuber` (Kutateladze-Zuber, constant as a parameter), `kandlikar`
+(receding contact angle and orientation), `lienhard_dhir` (finite flat
+plates, cylinders, spheres), `minimum_heat_flux` (Zuber, Berenson).
+
+Not provided, on purpose: the roughness-augmented CHF of Chu, Enright & Wang
+(Appl. Phys. Lett. 100 (2012) 241603) and the wicking-augmented CHF of
+Rahman, Olceroglu & McCarthy (Langmuir 30 (2014) 11225). Neither paper's
+equations could be read (only abstracts and first pages were reachable), and
+the forms in circulation could not be confirmed against the originals, so no
+guess is shipped. Kirichenko & Chernyakov's contact-angle form is left out
+for the same reason (two restatements disagree on the sign of an exponent).
 """
 
 from __future__ import annotations
 
 import math
-from typing import Any
+from typing import Any, Dict, Tuple
 
 from ._api import kernel
+from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
 
-__all__ = ["zuber", "kandlikar", "ZUBER_K", "LIENHARD_DHIR_K"]
+__all__ = [
+    "zuber",
+    "kandlikar",
+    "lienhard_dhir",
+    "minimum_heat_flux",
+    "dimensionless_size",
+    "GEOMETRIES",
+    "SMALL_PLATE_FORMS",
+    "MINIMUM_METHODS",
+    "ZUBER_K",
+    "LIENHARD_DHIR_K",
+    "BERENSON_K",
+]
 
 G = 9.80665
 #: Zuber's constant pi/24.
 ZUBER_K = math.pi / 24.0
 #: Lienhard and Dhir's constant for a large flat heater facing up.
 LIENHARD_DHIR_K = 0.149
+#: Berenson's constant of the minimum film-boiling heat flux (large horizontal plate).
+BERENSON_K = 0.09
 
 
 @kernel("zuber_chf")
@@ -139,3 +166,208 @@ def kandlikar(receding_angle_deg: Any, fluid: Saturation, orientation_deg: Any =
     >>> kandlikar([10.0, 45.0, 80.0], w, orientation_deg=90.0).round(-3)
     array([838000., 720000., 495000.])
     """
+
+
+# --------------------------------------------------------------------------- Lienhard & Dhir
+
+
+#: Geometries of `lienhard_dhir` and their kernel codes.
+GEOMETRIES: Dict[str, float] = {"flat_plate": 0.0, "small_flat_plate": 1.0, "cylinder": 2.0, "sphere": 3.0}
+#: Small-flat-plate coefficient c in q_max = c K1 scale: Lienhard & Dhir's
+#: ratio form 1.14 (pi/24) (2 pi sqrt 3)^2 = 17.67, or the tabulated 18.9.
+SMALL_PLATE_FORMS: Dict[str, float] = {
+    "lienhard_dhir": 1.14 * (math.pi / 24.0) * 12.0 * math.pi**2,
+    "tabulated": 18.9,
+}
+
+
+def _lienhard_dhir_kernel(
+    geometry: Any, size: Any, area: Any, small_plate_coefficient: Any, fluid: Saturation, g: Any
+) -> Any:
+    """Kernel-backed helper of `lienhard_dhir` (geometry as a code)."""
+
+
+_lienhard_dhir_kernel.__name__ = "lienhard_dhir"
+_lienhard_dhir_kernel = kernel("lienhard_dhir_chf")(_lienhard_dhir_kernel)
+
+
+def _choice(function: str, label: str, value: Any, known: Dict[str, Any]) -> Any:
+    if not isinstance(value, str):
+        raise WetboilTypeError(f"{function}: {label} must be a string, got {type(value).__name__}")
+    if value not in known:
+        raise WetboilValueError(f"{function}: unknown {label} {value!r}; choices are {', '.join(known)}")
+    return known[value]
+
+
+def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
+    r"""Dimensionless heater size :math:`L' = L\,[g(\rho_l-\rho_v)/\sigma]^{1/2}` [-],
+    the heater size over the capillary length (Lienhard & Dhir's L', R').
+
+    >>> from wetboil.fluids import Saturation
+    >>> from wetboil.chf import dimensionless_size
+    >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
+    >>> round(dimensionless_size(0.30, w, g=9.8), 1)
+    119.7
+    """
+    if not isinstance(fluid, Saturation):
+        raise WetboilTypeError(f"chf.dimensionless_size: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}")
+    return size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
+
+
+def lienhard_dhir(
+    fluid: Saturation, geometry: str, size: Any, area: Any = None, small_plate: str = "lienhard_dhir", g: Any = G
+) -> Any:
+    r"""Peak (critical) heat flux of a finite heater, Lienhard & Dhir (1973) [W/m2].
+
+    .. math::
+        q''_{max} = F(L')\,\frac{\pi}{24}\,h_{lv}\,\rho_v^{1/2}\,[\sigma g(\rho_l-\rho_v)]^{1/4},
+        \qquad L' = L\,\sqrt{g(\rho_l-\rho_v)/\sigma}
+
+    ======================  ==========  ==========================================  ====================
+    geometry                size L      F(L')                                       published range
+    ======================  ==========  ==========================================  ====================
+    ``"flat_plate"``        width       1.14 (K = 0.149), large plate facing up     L' >= 27
+    ``"small_flat_plate"``  width       :math:`1.14\,\lambda_d^2/A`, see below     9 <= L' <= 20
+    ``"cylinder"``          radius      :math:`0.89 + 2.27\,e^{-3.44\sqrt{L'}}`     R' >= 0.15
+    ``"sphere"``            radius      0.84 (R' >= 4.26), :math:`1.734\,R'^{-1/2}`  R' >= 0.15
+    ======================  ==========  ==========================================  ====================
+
+    Parameters
+    ----------
+    fluid : Saturation
+        Saturated state; uses ``h_lv``, ``rho_l``, ``rho_v``, ``sigma``.
+    geometry : str
+        One of `GEOMETRIES`; an unknown name raises `WetboilValueError`
+        listing them.
+    size : array_like
+        Heater width [m] (flat plates) or radius [m] (cylinder, sphere).
+    area : array_like, optional
+        Heater area A [m2], small flat plate only; default ``size**2``.
+    small_plate : str, optional
+        Small-plate form (MODELS Q-8, unresolved): ``"lienhard_dhir"``
+        (default) is their ratio form :math:`1.14\,\lambda_d^2/A` with
+        :math:`\lambda_d = 2\pi\sqrt3\,l_c`, i.e.
+        :math:`q = 17.67\,K_1\,h_{lv}\rho_v^{1/2}[\sigma g\Delta\rho]^{1/4}`,
+        :math:`K_1 = \sigma/(g\Delta\rho A)`; ``"tabulated"`` uses 18.9
+        :math:`K_1` as tabulated in restatements (7 % higher). The definition
+        of :math:`\lambda_d` in the original was not read; both are kept.
+    g : array_like, optional
+        Acceleration [m/s2]; standard gravity by default.
+
+    Returns
+    -------
+    float or ndarray or DataArray
+        Critical heat flux [W/m2]. Sizes outside the published range are
+        computed and flagged (`RangeWarning`).
+
+    Notes
+    -----
+    Saturated pool boiling of clean, well-wetted heaters; no wettability
+    effect (compare `kandlikar`). The large-cylinder (0.90) and small-cylinder
+    (0.94 R'^(-1/4)) forms in circulation approximate the Sun-Lienhard
+    expression used here. Verification: the cylinder form is [V2] (two
+    transcribed textbook examples); 0.149 is [V] in textbook worked examples;
+    the small-plate and sphere forms and all ranges are [M, high]; the
+    original paper was not read.
+
+    Caution: CHF correlations scatter by tens of percent; apply margins and
+    follow applicable codes.
+
+    References
+    ----------
+    .. [1] J.H. Lienhard, V.K. Dhir, "Hydrodynamic prediction of peak
+       pool-boiling heat fluxes from finite bodies", J. Heat Transfer 95
+       (1973) 152-158, doi:10.1115/1.3450013.
+    .. [2] K.H. Sun, J.H. Lienhard, "The peak pool boiling heat flux on
+       horizontal cylinders", Int. J. Heat Mass Transfer 13 (1970) 1425-1439.
+
+    Examples
+    --------
+    >>> from wetboil.fluids import Saturation
+    >>> from wetboil.chf import lienhard_dhir
+    >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
+    >>> round(lienhard_dhir(w, "flat_plate", 0.30, g=9.8) / 1e6, 2)    # MW/m2
+    1.26
+    >>> round(lienhard_dhir(w, "cylinder", 0.5e-3, g=9.8) / 1e6, 2)   # thin wire
+    1.52
+    >>> lienhard_dhir(w, "cone", 0.01)
+    Traceback (most recent call last):
+    ...
+    wetboil._errors.WetboilValueError: chf.lienhard_dhir: unknown geometry 'cone'; choices are flat_plate, small_flat_plate, cylinder, sphere
+    """
+    code = _choice("chf.lienhard_dhir", "geometry", geometry, GEOMETRIES)
+    coefficient = _choice("chf.lienhard_dhir", "small_plate form", small_plate, SMALL_PLATE_FORMS)
+    if area is None:
+        area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
+    return _lienhard_dhir_kernel(code, size, area, coefficient, fluid, g)
+
+
+# --------------------------------------------------------------------------- minimum heat flux
+
+#: Methods of `minimum_heat_flux` and their constants.
+MINIMUM_METHODS: Dict[str, float] = {"berenson": BERENSON_K, "zuber": ZUBER_K}
+
+
+def _minimum_kernel(C: Any, fluid: Saturation, g: Any) -> Any:
+    """Kernel-backed helper of `minimum_heat_flux`."""
+
+
+_minimum_kernel.__name__ = "minimum_heat_flux"
+_minimum_kernel = kernel("minimum_heat_flux")(_minimum_kernel)
+
+
+def minimum_heat_flux(fluid: Saturation, method: str = "berenson", g: Any = G) -> Any:
+    r"""Minimum film-boiling heat flux (the Leidenfrost point) [W/m2].
+
+    .. math::
+        q''_{min} = C\,\rho_v\,h_{lv}\left[\frac{\sigma g(\rho_l-\rho_v)}{(\rho_l+\rho_v)^2}\right]^{1/4}
+
+    ===================  ==========  ==============================================
+    method               C           source
+    ===================  ==========  ==============================================
+    ``"berenson"``       0.09        Berenson (1961), large horizontal plate, +-50 %
+    ``"zuber"``          pi/24       Zuber (1959), Taylor instability of the film
+    ===================  ==========  ==============================================
+
+    Parameters
+    ----------
+    fluid : Saturation
+        Saturated state; uses ``h_lv``, ``rho_l``, ``rho_v``, ``sigma``.
+    method : str, optional
+        One of `MINIMUM_METHODS`; an unknown name raises `WetboilValueError`.
+    g : array_like, optional
+        Acceleration [m/s2]; standard gravity by default.
+
+    Returns
+    -------
+    float or ndarray or DataArray
+        Minimum heat flux [W/m2].
+
+    Notes
+    -----
+    For large horizontal upward-facing heaters; the Leidenfrost point is
+    strongly affected by surface condition, so treat it as an estimate.
+    Verification: the form and C = 0.09 are [V2] (transcribed textbook
+    example; MODELS D8); the originals were not read. No published worked
+    example of q_min was found; the tests check the form and a derived value.
+
+    References
+    ----------
+    .. [1] N. Zuber, "Hydrodynamic aspects of boiling heat transfer", AEC
+       Report AECU-4439, 1959.
+    .. [2] P.J. Berenson, "Film-boiling heat transfer from a horizontal
+       surface", J. Heat Transfer 83 (1961) 351-358, doi:10.1115/1.3682280
+       (DOI from memory).
+
+    Examples
+    --------
+    >>> from wetboil.fluids import Saturation
+    >>> from wetboil.chf import minimum_heat_flux
+    >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
+    >>> round(minimum_heat_flux(w, g=9.8) / 1e3, 1)              # kW/m2
+    18.9
+    >>> round(minimum_heat_flux(w, method="zuber", g=9.8) / 1e3, 1)
+    27.6
+    """
+    C = _choice("chf.minimum_heat_flux", "method", method, MINIMUM_METHODS)
+    return _minimum_kernel(C, fluid, g)

@@ -2,7 +2,7 @@
 //! package adds exactly one line here.
 
 use super::ufunc::{entry, Entry};
-use crate::{chf, departure, nucleation, water, wetting};
+use crate::{boiling, chf, departure, nucleation, water, wetting};
 
 pub fn entries() -> Vec<Entry> {
     vec![
@@ -35,6 +35,16 @@ pub fn entries() -> Vec<Entry> {
         entry::<departure::WaitingTime, 10, 1>(),
         entry::<chf::Zuber, 6, 1>(),
         entry::<chf::Kandlikar, 7, 1>(),
+        entry::<chf::LienhardDhir, 9, 1>(),
+        entry::<chf::MinimumHeatFlux, 6, 1>(),
+        entry::<boiling::Rohsenow, 11, 1>(),
+        entry::<boiling::RohsenowSuperheat, 11, 1>(),
+        entry::<boiling::Cooper, 5, 1>(),
+        entry::<boiling::CooperSuperheat, 5, 1>(),
+        entry::<boiling::RpiPartition, 12, 5>(),
+        entry::<boiling::TolubinskyKostanchuk, 1, 1>(),
+        entry::<boiling::NaturalConvection, 8, 1>(),
+        entry::<boiling::FilmBoiling, 11, 1>(),
         entry::<wetting::YoungAngle, 3, 1>(),
         entry::<wetting::SpreadingCoefficient, 3, 1>(),
         entry::<wetting::AdhesionWork, 2, 1>(),

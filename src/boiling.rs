@@ -1,0 +1,809 @@
+//! Pool boiling curves: nucleate boiling (Rohsenow, Cooper), wall heat-flux
+//! partitioning (Kurul & Podowski), natural convection before onset, and
+//! film boiling (Bromley / Berenson form).
+//!
+//! Verification tags used below: **\[V\]** seen in the original or a faithful
+//! copy; **\[V2\]** seen only in a secondary source (a restatement, an abstract,
+//! general-purpose open code, a textbook worked example); **\[M\]** from memory,
+//! not seen in any source (confidence given); **\[D\]** derived here.
+
+use crate::model::{arg, densities, non_negative, positive, Kernel, Model};
+use std::f64::consts::PI;
+
+#[inline(always)]
+fn liquid_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
+    positive(h_lv) && densities(rho_l, rho_v) && positive(rho_v) && positive(sigma) && positive(g)
+}
+
+// ---------------------------------------------------------------------------
+// Rohsenow
+
+/// The group `μ_l h_lv [g (ρ_l − ρ_v)/σ]^(1/2) [c_pl / (C_sf h_lv Pr_l^n)]³` of
+/// Rohsenow's correlation, so that `q = R ΔT³` [W/(m2 K3)].
+#[inline(always)]
+#[allow(clippy::too_many_arguments)]
+fn rohsenow_group(c_sf: f64, n: f64, h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, cp_l: f64, k_l: f64, mu_l: f64, g: f64) -> f64 {
+    let pr = cp_l * mu_l / k_l;
+    let b = cp_l / (c_sf * h_lv * pr.powf(n));
+    mu_l * h_lv * (g * (rho_l - rho_v) / sigma).sqrt() * b * b * b
+}
+
+#[inline(always)]
+#[allow(clippy::too_many_arguments)]
+fn rohsenow_possible(
+    x: f64,
+    c_sf: f64,
+    n: f64,
+    h_lv: f64,
+    rho_l: f64,
+    rho_v: f64,
+    sigma: f64,
+    cp_l: f64,
+    k_l: f64,
+    mu_l: f64,
+    g: f64,
+) -> bool {
+    non_negative(x)
+        && positive(c_sf)
+        && positive(n)
+        && liquid_possible(h_lv, rho_l, rho_v, sigma, g)
+        && positive(cp_l)
+        && positive(k_l)
+        && positive(mu_l)
+}
+
+/// Rohsenow (1952) nucleate pool-boiling heat flux [W/m2] from the wall superheat.
+///
+/// `q = μ_l h_lv [g (ρ_l − ρ_v)/σ]^(1/2) [c_pl ΔT / (C_sf h_lv Pr_l^n)]³`
+///
+/// * `superheat` ΔT = T_w − T_sat [K], `c_sf` [-], `n` [-] (1 for water, 1.7
+///   for other liquids), `h_lv` [J/kg], `rho_l`, `rho_v` [kg/m3], `sigma`
+///   [N/m], `cp_l` [J/(kg K)], `k_l` [W/(m K)], `mu_l` [Pa s], `g` [m/s2];
+///   properties of the saturated liquid.
+/// * Possible: ΔT ≥ 0, positive constants and properties, ρ_l > ρ_v; else NaN.
+/// * Validity flagged: `0.002 ≤ C_sf ≤ 0.02` and `0.8 ≤ n ≤ 2` (the span of
+///   the tabulated surface-liquid constants). Stated accuracy ±100 % in q
+///   at given ΔT, ±30 % in ΔT at given q \[V2\].
+/// * Verification: the form \[V2\] (three textbooks and their worked examples;
+///   Incropera 6th ed. Ex. 10.1 is reproduced in the tests); original not read.
+///
+/// Reference: W.M. Rohsenow, "A method of correlating heat-transfer data for
+/// surface boiling of liquids", Trans. ASME 74 (1952) 969-976.
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn rohsenow(
+    superheat: f64,
+    c_sf: f64,
+    n: f64,
+    h_lv: f64,
+    rho_l: f64,
+    rho_v: f64,
+    sigma: f64,
+    cp_l: f64,
+    k_l: f64,
+    mu_l: f64,
+    g: f64,
+) -> f64 {
+    if !rohsenow_possible(superheat, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) {
+        return f64::NAN;
+    }
+    rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) * superheat * superheat * superheat
+}
+
+/// Inverse of [`rohsenow`]: the wall superheat [K] at a nucleate-boiling heat flux [W/m2].
+///
+/// `ΔT = (C_sf h_lv Pr_l^n / c_pl) [q / (μ_l h_lv [g Δρ/σ]^(1/2))]^(1/3)`
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn rohsenow_superheat(
+    heat_flux: f64,
+    c_sf: f64,
+    n: f64,
+    h_lv: f64,
+    rho_l: f64,
+    rho_v: f64,
+    sigma: f64,
+    cp_l: f64,
+    k_l: f64,
+    mu_l: f64,
+    g: f64,
+) -> f64 {
+    if !rohsenow_possible(heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) {
+        return f64::NAN;
+    }
+    (heat_flux / rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g)).cbrt()
+}
+
+const ROHSENOW_INPUTS_TAIL: [crate::model::Arg; 10] = [
+    arg("C_sf", "-"),
+    arg("n", "-"),
+    arg("fluid.h_lv", "J/kg"),
+    arg("fluid.rho_l", "kg/m3"),
+    arg("fluid.rho_v", "kg/m3"),
+    arg("fluid.sigma", "N/m"),
+    arg("fluid.cp_l", "J/(kg K)"),
+    arg("fluid.k_l", "W/(m K)"),
+    arg("fluid.mu_l", "Pa s"),
+    arg("g", "m/s2"),
+];
+
+const fn with_head(head: crate::model::Arg) -> [crate::model::Arg; 11] {
+    let t = ROHSENOW_INPUTS_TAIL;
+    [head, t[0], t[1], t[2], t[3], t[4], t[5], t[6], t[7], t[8], t[9]]
+}
+
+const ROHSENOW_FLUX_INPUTS: [crate::model::Arg; 11] = with_head(arg("wall_superheat", "K"));
+const ROHSENOW_SUPERHEAT_INPUTS: [crate::model::Arg; 11] = with_head(arg("heat_flux", "W/m2"));
+
+const ROHSENOW_REFERENCE: &str = "W.M. Rohsenow, A method of correlating heat-transfer data for surface boiling of \
+                                  liquids, Trans. ASME 74 (1952) 969-976";
+const ROHSENOW_VALIDITY: &str = "nucleate pool boiling below the critical heat flux; 0.002 <= C_sf <= 0.02, 0.8 <= n <= 2";
+
+#[inline(always)]
+fn rohsenow_in_range(x: &[f64; 11]) -> bool {
+    (0.002..=0.02).contains(&x[1]) && (0.8..=2.0).contains(&x[2])
+}
+
+/// Kernel of [`rohsenow`].
+pub struct Rohsenow;
+impl Kernel<11, 1> for Rohsenow {
+    const MODEL: Model = Model {
+        name: "rohsenow_heat_flux",
+        summary: "Rohsenow (1952) nucleate pool-boiling heat flux from the wall superheat",
+        equation: "q = mu_l*h_lv*sqrt(g*(rho_l-rho_v)/sigma) * (cp_l*dT/(C_sf*h_lv*Pr_l**n))**3",
+        inputs: &ROHSENOW_FLUX_INPUTS,
+        outputs: &[arg("heat_flux", "W/m2")],
+        domain: "wall_superheat >= 0, C_sf > 0, n > 0, positive properties, rho_l > rho_v",
+        validity: ROHSENOW_VALIDITY,
+        reference: ROHSENOW_REFERENCE,
+        doi: "",
+        verification: "form: textbook restatements and worked examples (Incropera 6th ed. Ex. 10.1 reproduced); \
+                       original not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 11]) -> [f64; 1] {
+        [rohsenow(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
+    }
+    fn possible(x: &[f64; 11]) -> bool {
+        rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])
+    }
+    fn in_range(x: &[f64; 11]) -> bool {
+        rohsenow_in_range(x)
+    }
+}
+
+/// Kernel of [`rohsenow_superheat`].
+pub struct RohsenowSuperheat;
+impl Kernel<11, 1> for RohsenowSuperheat {
+    const MODEL: Model = Model {
+        name: "rohsenow_superheat",
+        summary: "Rohsenow (1952) wall superheat at a nucleate pool-boiling heat flux (the inverse form)",
+        equation: "dT = C_sf*h_lv*Pr_l**n/cp_l * (q/(mu_l*h_lv*sqrt(g*(rho_l-rho_v)/sigma)))**(1/3)",
+        inputs: &ROHSENOW_SUPERHEAT_INPUTS,
+        outputs: &[arg("wall_superheat", "K")],
+        domain: "heat_flux >= 0, C_sf > 0, n > 0, positive properties, rho_l > rho_v",
+        validity: ROHSENOW_VALIDITY,
+        reference: ROHSENOW_REFERENCE,
+        doi: "",
+        verification: "exact inverse of rohsenow_heat_flux",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 11]) -> [f64; 1] {
+        [rohsenow_superheat(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
+    }
+    fn possible(x: &[f64; 11]) -> bool {
+        rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])
+    }
+    fn in_range(x: &[f64; 11]) -> bool {
+        rohsenow_in_range(x)
+    }
+}
+
+// ---------------------------------------------------------------------------
+// Cooper
+
+/// Cooper's coefficient `A` of `h = A q^0.67` [W^0.33 m^-0.66 K^-1]:
+/// `A = 55 p_r^(0.12 − 0.2 log10 R_p) (−log10 p_r)^(−0.55) M^(−0.5)` with R_p in
+/// µm and M in kg/kmol (converted here from metres and kg/mol).
+#[inline(always)]
+fn cooper_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
+    let pr = p / p_crit;
+    let rp_um = roughness * 1e6;
+    let m = molar_mass * 1e3;
+    55.0 * pr.powf(0.12 - 0.2 * rp_um.log10()) * (-pr.log10()).powf(-0.55) / m.sqrt()
+}
+
+#[inline(always)]
+fn cooper_possible(x: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> bool {
+    non_negative(x) && positive(p) && positive(p_crit) && p < p_crit && positive(molar_mass) && positive(roughness)
+}
+
+/// Cooper (1984) exponent of the heat flux in `h = A q^0.67`.
+pub const COOPER_EXPONENT: f64 = 0.67;
+
+/// Cooper (1984) nucleate pool-boiling heat flux [W/m2], solved explicitly
+/// from `h = A q^0.67` and `q = h ΔT`: `q = (A ΔT)^(1/0.33)`.
+///
+/// `A = 55 p_r^(0.12 − 0.2 log10 R_p) (−log10 p_r)^(−0.55) M^(−0.5)`,
+/// **R_p in µm and M in kg/kmol** in the published form; this function takes
+/// `roughness` R_p [m] and `molar_mass` [kg/mol] and converts them.
+///
+/// * `superheat` [K], `p` saturation pressure [Pa], `p_crit` [Pa].
+/// * Possible: ΔT ≥ 0, 0 < p < p_crit, M > 0, R_p > 0; otherwise NaN.
+/// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\]. Cooper suggested about
+///   ×1.7 for horizontal copper cylinders (not applied) \[M\].
+/// * Verification: the form \[V2\] (CalebBell/ht, which cites Cooper 1984
+///   and a handbook example); R_p is the old DIN 4762 smoothing depth, not R_a
+///   \[M, med\]. Original not read.
+///
+/// Reference: M.G. Cooper, "Saturation nucleate pool boiling - a simple
+/// correlation", IChemE Symp. Ser. 86 (1984) 785-793.
+#[inline]
+pub fn cooper(superheat: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
+    if !cooper_possible(superheat, p, p_crit, molar_mass, roughness) {
+        return f64::NAN;
+    }
+    (cooper_coefficient(p, p_crit, molar_mass, roughness) * superheat).powf(1.0 / (1.0 - COOPER_EXPONENT))
+}
+
+/// Inverse of [`cooper`]: wall superheat [K] at a heat flux [W/m2],
+/// `ΔT = q / h = q^0.33 / A`.
+#[inline]
+pub fn cooper_superheat(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
+    if !cooper_possible(heat_flux, p, p_crit, molar_mass, roughness) {
+        return f64::NAN;
+    }
+    heat_flux.powf(1.0 - COOPER_EXPONENT) / cooper_coefficient(p, p_crit, molar_mass, roughness)
+}
+
+/// Cooper heat transfer coefficient [W/(m2 K)] at a heat flux [W/m2], `h = A q^0.67`.
+#[inline]
+pub fn cooper_coefficient_at_flux(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
+    if !cooper_possible(heat_flux, p, p_crit, molar_mass, roughness) {
+        return f64::NAN;
+    }
+    cooper_coefficient(p, p_crit, molar_mass, roughness) * heat_flux.powf(COOPER_EXPONENT)
+}
+
+const COOPER_REFERENCE: &str = "M.G. Cooper, Saturation nucleate pool boiling - a simple correlation, IChemE Symp. Ser. 86 \
+                                (1984) 785-793";
+const COOPER_VALIDITY: &str = "0.001 <= p/p_crit <= 0.9 (from memory, medium confidence)";
+const COOPER_VERIFICATION: &str = "form: secondary source (CalebBell/ht, a handbook example reproduced in the tests); \
+                                   original not read";
+
+#[inline(always)]
+fn cooper_in_range(x: &[f64; 5]) -> bool {
+    (0.001..=0.9).contains(&(x[1] / x[2]))
+}
+
+/// Kernel of [`cooper`].
+pub struct Cooper;
+impl Kernel<5, 1> for Cooper {
+    const MODEL: Model = Model {
+        name: "cooper_heat_flux",
+        summary: "Cooper (1984) nucleate pool-boiling heat flux from the wall superheat (solved for the flux)",
+        equation: "q = (55*pr**(0.12-0.2*log10(Rp_um))*(-log10 pr)**-0.55*M_kg_kmol**-0.5 * dT)**(1/0.33)",
+        inputs: &[
+            arg("wall_superheat", "K"),
+            arg("fluid.p", "Pa"),
+            arg("fluid.p_crit", "Pa"),
+            arg("fluid.molar_mass", "kg/mol"),
+            arg("roughness_Rp", "m"),
+        ],
+        outputs: &[arg("heat_flux", "W/m2")],
+        domain: "wall_superheat >= 0, 0 < p < p_crit, molar_mass > 0, roughness_Rp > 0",
+        validity: COOPER_VALIDITY,
+        reference: COOPER_REFERENCE,
+        doi: "",
+        verification: COOPER_VERIFICATION,
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 5]) -> [f64; 1] {
+        [cooper(x[0], x[1], x[2], x[3], x[4])]
+    }
+    fn possible(x: &[f64; 5]) -> bool {
+        cooper_possible(x[0], x[1], x[2], x[3], x[4])
+    }
+    fn in_range(x: &[f64; 5]) -> bool {
+        cooper_in_range(x)
+    }
+}
+
+/// Kernel of [`cooper_superheat`].
+pub struct CooperSuperheat;
+impl Kernel<5, 1> for CooperSuperheat {
+    const MODEL: Model = Model {
+        name: "cooper_superheat",
+        summary: "Cooper (1984) wall superheat at a nucleate pool-boiling heat flux",
+        equation: "dT = q**0.33 / (55*pr**(0.12-0.2*log10(Rp_um))*(-log10 pr)**-0.55*M_kg_kmol**-0.5)",
+        inputs: &[
+            arg("heat_flux", "W/m2"),
+            arg("fluid.p", "Pa"),
+            arg("fluid.p_crit", "Pa"),
+            arg("fluid.molar_mass", "kg/mol"),
+            arg("roughness_Rp", "m"),
+        ],
+        outputs: &[arg("wall_superheat", "K")],
+        domain: "heat_flux >= 0, 0 < p < p_crit, molar_mass > 0, roughness_Rp > 0",
+        validity: COOPER_VALIDITY,
+        reference: COOPER_REFERENCE,
+        doi: "",
+        verification: COOPER_VERIFICATION,
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 5]) -> [f64; 1] {
+        [cooper_superheat(x[0], x[1], x[2], x[3], x[4])]
+    }
+    fn possible(x: &[f64; 5]) -> bool {
+        cooper_possible(x[0], x[1], x[2], x[3], x[4])
+    }
+    fn in_range(x: &[f64; 5]) -> bool {
+        cooper_in_range(x)
+    }
+}
+
+// ---------------------------------------------------------------------------
+// Kurul & Podowski heat-flux partitioning
+
+/// Kurul & Podowski's bubble influence factor `K = 4` (influence diameter 2 D_d) [-].
+pub const KURUL_PODOWSKI_AREA_FACTOR: f64 = 4.0;
+/// Waiting time over departure period in the RPI quenching term, `t_w f = 0.8` [-].
+pub const RPI_WAITING_FRACTION: f64 = 0.8;
+
+/// Wall heat-flux partitioning of Kurul & Podowski (the "RPI" model) [W/m2].
+///
+/// Returns `[evaporation, quenching, convection, total, quench_area_fraction]`:
+///
+/// * evaporation `q_e = N_a f (π D_d³/6) ρ_v h_lv`;
+/// * quench area `A_q = min(1, K N_a π D_d²/4)`;
+/// * quenching `q_q = A_q h_q (ΔT_w + ΔT_sub)`, `h_q = 2 k_l f [t_w/(π α_l)]^(1/2)`,
+///   `t_w = 0.8/f`, `α_l = k_l/(ρ_l c_pl)` (transient conduction averaged over
+///   the waiting time);
+/// * convection `q_c = h_c (1 − A_q)(ΔT_w + ΔT_sub)`.
+///
+/// Inputs: `site_density` N_a [1/m2], `diameter` D_d [m], `frequency` f [Hz],
+/// `superheat` ΔT_w [K], `subcooling` ΔT_sub [K], `h_c` single-phase
+/// coefficient [W/(m2 K)], `area_factor` K [-], `rho_l`, `rho_v` [kg/m3],
+/// `h_lv` [J/kg], `k_l` [W/(m K)], `cp_l` [J/(kg K)].
+///
+/// * Possible: non-negative N_a, ΔT_w, ΔT_sub, h_c; positive D_d, f, K and
+///   properties; otherwise NaN.
+/// * Flagged (out of range): `K N_a π D_d²/4 > 1`, where bubble influence
+///   areas cover the wall and the partition is capped (the model's own limit,
+///   approached near the critical heat flux).
+/// * Verification: the structure \[M, high\]; the quenching expression with
+///   t_w = 0.8/f \[V2\] (OpenFOAM's implementation, which cites Kurul &
+///   Podowski); the originals were not read.
+///
+/// References: N. Kurul, M.Z. Podowski, "Multidimensional effects in forced
+/// convection subcooled boiling", Proc. 9th Int. Heat Transfer Conf.,
+/// Jerusalem (1990) vol. 2, 21-26 (pages from memory); N. Kurul, M.Z. Podowski,
+/// "On the modeling of multidimensional effects in boiling channels", ANS
+/// Proc. National Heat Transfer Conf., Minneapolis (1991) 30-40.
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn rpi_partition(
+    site_density: f64,
+    diameter: f64,
+    frequency: f64,
+    superheat: f64,
+    subcooling: f64,
+    h_c: f64,
+    area_factor: f64,
+    rho_l: f64,
+    rho_v: f64,
+    h_lv: f64,
+    k_l: f64,
+    cp_l: f64,
+) -> [f64; 5] {
+    if !rpi_possible(&[site_density, diameter, frequency, superheat, subcooling, h_c, area_factor, rho_l, rho_v, h_lv, k_l, cp_l]) {
+        return [f64::NAN; 5];
+    }
+    let dt = superheat + subcooling;
+    let evaporation = site_density * frequency * (PI * diameter * diameter * diameter / 6.0) * rho_v * h_lv;
+    let area = (area_factor * site_density * PI * diameter * diameter / 4.0).min(1.0);
+    let alpha = k_l / (rho_l * cp_l);
+    let t_w = RPI_WAITING_FRACTION / frequency;
+    let h_q = 2.0 * k_l * frequency * (t_w / (PI * alpha)).sqrt();
+    let quenching = area * h_q * dt;
+    let convection = h_c * (1.0 - area) * dt;
+    [evaporation, quenching, convection, evaporation + quenching + convection, area]
+}
+
+#[inline(always)]
+fn rpi_possible(x: &[f64; 12]) -> bool {
+    non_negative(x[0])
+        && positive(x[1])
+        && positive(x[2])
+        && non_negative(x[3])
+        && non_negative(x[4])
+        && non_negative(x[5])
+        && positive(x[6])
+        && densities(x[7], x[8])
+        && positive(x[8])
+        && positive(x[9])
+        && positive(x[10])
+        && positive(x[11])
+}
+
+/// Kernel of [`rpi_partition`].
+pub struct RpiPartition;
+impl Kernel<12, 5> for RpiPartition {
+    const MODEL: Model = Model {
+        name: "rpi_partition",
+        summary: "Kurul & Podowski wall heat-flux partitioning into evaporation, quenching and convection",
+        equation: "q_e = N f pi D^3/6 rho_v h_lv; A = min(1, K N pi D^2/4); q_q = A*2 k_l f sqrt(0.8/(f pi alpha_l))*(dTw+dTsub); \
+                   q_c = h_c (1-A)(dTw+dTsub)",
+        inputs: &[
+            arg("site_density", "1/m2"),
+            arg("departure_diameter", "m"),
+            arg("frequency", "Hz"),
+            arg("wall_superheat", "K"),
+            arg("subcooling", "K"),
+            arg("convection_coefficient", "W/(m2 K)"),
+            arg("area_factor", "-"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.rho_v", "kg/m3"),
+            arg("fluid.h_lv", "J/kg"),
+            arg("fluid.k_l", "W/(m K)"),
+            arg("fluid.cp_l", "J/(kg K)"),
+        ],
+        outputs: &[
+            arg("evaporation", "W/m2"),
+            arg("quenching", "W/m2"),
+            arg("convection", "W/m2"),
+            arg("total", "W/m2"),
+            arg("quench_area_fraction", "-"),
+        ],
+        domain: "site_density, superheat, subcooling, convection coefficient >= 0; diameter, frequency, area factor, \
+                 properties > 0; rho_l > rho_v",
+        validity: "area_factor * site_density * pi * D^2 / 4 <= 1 (influence areas do not cover the wall)",
+        reference: "N. Kurul, M.Z. Podowski, Multidimensional effects in forced convection subcooled boiling, \
+                    Proc. 9th Int. Heat Transfer Conf., Jerusalem (1990) vol. 2, 21-26",
+        doi: "",
+        verification: "structure from memory (high confidence); quenching term with t_w = 0.8/f: secondary source \
+                       (OpenFOAM implementation); originals not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 12]) -> [f64; 5] {
+        rpi_partition(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10], x[11])
+    }
+    fn possible(x: &[f64; 12]) -> bool {
+        rpi_possible(x)
+    }
+    fn in_range(x: &[f64; 12]) -> bool {
+        x[6] * x[0] * PI * x[1] * x[1] / 4.0 <= 1.0
+    }
+}
+
+/// Tolubinsky & Kostanchuk (1970) departure diameter used by the original RPI
+/// closure set [m]: `D_d = min(0.6 mm · exp(−ΔT_sub / 45 K), 1.4 mm)`.
+///
+/// * `subcooling` ΔT_sub [K]; possible: finite. Negative subcooling
+///   (superheated bulk) is allowed by the formula and capped at 1.4 mm.
+/// * Validity flagged: 0 ≤ ΔT_sub ≤ 60 K \[M, low: subcooled flow boiling of
+///   water at high pressure\]. It knows nothing of the contact angle.
+/// * Verification: \[V2\] OpenFOAM's implementation (which cites the paper);
+///   original not read.
+///
+/// Reference: V.I. Tolubinsky, D.M. Kostanchuk, "Vapour bubbles growth rate
+/// and heat transfer intensity at subcooled water boiling", Proc. 4th Int.
+/// Heat Transfer Conf., Paris (1970) vol. 5, paper B-2.8 (from memory).
+#[inline]
+pub fn tolubinsky_kostanchuk(subcooling: f64) -> f64 {
+    if !subcooling.is_finite() {
+        return f64::NAN;
+    }
+    (0.6e-3 * (-subcooling / 45.0).exp()).min(1.4e-3)
+}
+
+/// Kernel of [`tolubinsky_kostanchuk`].
+pub struct TolubinskyKostanchuk;
+impl Kernel<1, 1> for TolubinskyKostanchuk {
+    const MODEL: Model = Model {
+        name: "tolubinsky_kostanchuk_departure",
+        summary: "Tolubinsky & Kostanchuk (1970) departure diameter from subcooling (original RPI closure)",
+        equation: "D_d = min(0.6e-3 * exp(-dT_sub/45), 1.4e-3)",
+        inputs: &[arg("subcooling", "K")],
+        outputs: &[arg("departure_diameter", "m")],
+        domain: "finite subcooling",
+        validity: "0 <= subcooling <= 60 K (from memory, low confidence)",
+        reference: "V.I. Tolubinsky, D.M. Kostanchuk, Vapour bubbles growth rate and heat transfer intensity at \
+                    subcooled water boiling, Proc. 4th Int. Heat Transfer Conf., Paris (1970) vol. 5, B-2.8",
+        doi: "",
+        verification: "secondary source (OpenFOAM implementation); original not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 1]) -> [f64; 1] {
+        [tolubinsky_kostanchuk(x[0])]
+    }
+    fn possible(x: &[f64; 1]) -> bool {
+        x[0].is_finite()
+    }
+    fn in_range(x: &[f64; 1]) -> bool {
+        (0.0..=60.0).contains(&x[0])
+    }
+}
+
+// ---------------------------------------------------------------------------
+// Natural convection before onset
+
+/// Natural convection from the upper face of a heated horizontal plate, Lloyd
+/// & Moran (1974) [W/m2]: `Nu_L = 0.54 Ra_L^(1/4)` for 1e4 ≤ Ra_L ≤ 1e7 and
+/// `Nu_L = 0.15 Ra_L^(1/3)` for 1e7 < Ra_L ≤ 1e11, with `L = A/P` and
+/// `Ra_L = g β ΔT L³ ρ_l² c_pl / (μ_l k_l)`.
+///
+/// * `superheat` ΔT = T_w − T_l [K], `length` L [m], `beta` thermal
+///   expansion coefficient of the liquid [1/K], `k_l`, `rho_l`, `cp_l`, `mu_l`, `g`.
+/// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
+/// * Flagged: Ra_L outside 1e4-1e11.
+/// * Verification: constants and ranges \[M, high\]; original not read.
+///
+/// Reference: J.R. Lloyd, W.R. Moran, "Natural convection adjacent to
+/// horizontal surface of various planforms", J. Heat Transfer 96 (1974)
+/// 443-447, doi:10.1115/1.3450224 (DOI from memory).
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn natural_convection(superheat: f64, length: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: f64, mu_l: f64, g: f64) -> f64 {
+    if !natural_possible(&[superheat, length, beta, k_l, rho_l, cp_l, mu_l, g]) {
+        return f64::NAN;
+    }
+    let ra = rayleigh(superheat, length, beta, k_l, rho_l, cp_l, mu_l, g);
+    let nu = if ra <= 1e7 { 0.54 * ra.sqrt().sqrt() } else { 0.15 * ra.cbrt() };
+    nu * k_l / length * superheat
+}
+
+#[inline(always)]
+#[allow(clippy::too_many_arguments)]
+fn rayleigh(superheat: f64, length: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: f64, mu_l: f64, g: f64) -> f64 {
+    g * beta * superheat * length * length * length * rho_l * rho_l * cp_l / (mu_l * k_l)
+}
+
+#[inline(always)]
+fn natural_possible(x: &[f64; 8]) -> bool {
+    non_negative(x[0]) && x[1..].iter().all(|&v| positive(v))
+}
+
+/// Kernel of [`natural_convection`].
+pub struct NaturalConvection;
+impl Kernel<8, 1> for NaturalConvection {
+    const MODEL: Model = Model {
+        name: "lloyd_moran_natural_convection",
+        summary: "Lloyd & Moran (1974) natural convection from the upper face of a heated horizontal plate",
+        equation: "q = Nu*k_l/L*dT, Nu = 0.54 Ra**0.25 (1e4-1e7), 0.15 Ra**(1/3) (1e7-1e11)",
+        inputs: &[
+            arg("superheat", "K"),
+            arg("length", "m"),
+            arg("expansion_coefficient", "1/K"),
+            arg("fluid.k_l", "W/(m K)"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.cp_l", "J/(kg K)"),
+            arg("fluid.mu_l", "Pa s"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("heat_flux", "W/m2")],
+        domain: "superheat >= 0, every other input > 0",
+        validity: "1e4 <= Ra_L <= 1e11, L = area/perimeter",
+        reference: "J.R. Lloyd, W.R. Moran, Natural convection adjacent to horizontal surface of various planforms, \
+                    J. Heat Transfer 96 (1974) 443-447",
+        doi: "10.1115/1.3450224",
+        verification: "constants and ranges from memory (high confidence); original not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 8]) -> [f64; 1] {
+        [natural_convection(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])]
+    }
+    fn possible(x: &[f64; 8]) -> bool {
+        natural_possible(x)
+    }
+    fn in_range(x: &[f64; 8]) -> bool {
+        let ra = rayleigh(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7]);
+        x[0] == 0.0 || (1e4..=1e11).contains(&ra)
+    }
+}
+
+// ---------------------------------------------------------------------------
+// Film boiling
+
+/// Bromley's constant for a horizontal cylinder (length = diameter) [-].
+pub const BROMLEY_CYLINDER: f64 = 0.62;
+/// Bromley-type constant for a sphere (length = diameter) [-].
+pub const BROMLEY_SPHERE: f64 = 0.67;
+/// Berenson's constant for a large horizontal plate (length = capillary length) [-] \[M, med\].
+pub const BERENSON_PLATE: f64 = 0.425;
+
+/// Film-boiling heat flux, Bromley form [W/m2] (convection only):
+///
+/// `q = C [g k_v³ ρ_v (ρ_l − ρ_v) (h_lv + a c_pv ΔT) / (μ_v L ΔT)]^(1/4) ΔT`
+///
+/// * `superheat` ΔT [K] (> 0), `constant` C [-], `length` L [m], `latent_factor`
+///   a [-] (0.4 in Bromley's restatement, 0.8 in others), `h_lv`, `cp_v`,
+///   `rho_l`, `rho_v`, `k_v`, `mu_v` (vapour at the film temperature), `g`.
+/// * C = 0.62 with L = D for a horizontal cylinder (Bromley 1950), 0.67 with
+///   L = D for a sphere \[V2\]; C = 0.425 with L = [σ/(gΔρ)]^(1/2) for a large
+///   horizontal plate (Berenson 1961) \[M, med\].
+/// * Possible: ΔT > 0 and positive inputs (a ≥ 0), ρ_l > ρ_v. Nothing flagged.
+///
+/// References: L.A. Bromley, "Heat transfer in stable film boiling", Chem.
+/// Eng. Prog. 46 (1950) 221-227 (from memory); P.J. Berenson, J. Heat
+/// Transfer 83 (1961) 351-358.
+#[inline]
+#[allow(clippy::too_many_arguments)]
+pub fn film_boiling(
+    superheat: f64,
+    constant: f64,
+    length: f64,
+    latent_factor: f64,
+    h_lv: f64,
+    cp_v: f64,
+    rho_l: f64,
+    rho_v: f64,
+    k_v: f64,
+    mu_v: f64,
+    g: f64,
+) -> f64 {
+    if !film_possible(&[superheat, constant, length, latent_factor, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g]) {
+        return f64::NAN;
+    }
+    let h_mod = h_lv + latent_factor * cp_v * superheat;
+    let group = g * k_v * k_v * k_v * rho_v * (rho_l - rho_v) * h_mod / (mu_v * length * superheat);
+    constant * group.sqrt().sqrt() * superheat
+}
+
+#[inline(always)]
+fn film_possible(x: &[f64; 11]) -> bool {
+    positive(x[0])
+        && positive(x[1])
+        && positive(x[2])
+        && non_negative(x[3])
+        && positive(x[4])
+        && positive(x[5])
+        && densities(x[6], x[7])
+        && positive(x[7])
+        && positive(x[8])
+        && positive(x[9])
+        && positive(x[10])
+}
+
+/// Kernel of [`film_boiling`].
+pub struct FilmBoiling;
+impl Kernel<11, 1> for FilmBoiling {
+    const MODEL: Model = Model {
+        name: "film_boiling",
+        summary: "Film-boiling heat flux, Bromley form (cylinder 0.62, sphere 0.67, Berenson plate 0.425)",
+        equation: "q = C*(g*k_v**3*rho_v*(rho_l-rho_v)*(h_lv+a*cp_v*dT)/(mu_v*L*dT))**0.25*dT",
+        inputs: &[
+            arg("wall_superheat", "K"),
+            arg("constant", "-"),
+            arg("length", "m"),
+            arg("latent_factor", "-"),
+            arg("fluid.h_lv", "J/kg"),
+            arg("fluid.cp_v", "J/(kg K)"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.rho_v", "kg/m3"),
+            arg("fluid.k_v", "W/(m K)"),
+            arg("fluid.mu_v", "Pa s"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("heat_flux", "W/m2")],
+        domain: "wall_superheat > 0, positive constant, length and properties, latent_factor >= 0, rho_l > rho_v",
+        validity: "stable film boiling above the minimum heat flux (not checked here)",
+        reference: "L.A. Bromley, Heat transfer in stable film boiling, Chem. Eng. Prog. 46 (1950) 221-227; \
+                    P.J. Berenson, J. Heat Transfer 83 (1961) 351-358",
+        doi: "",
+        verification: "cylinder 0.62 with 0.4 c_pv dT: secondary (textbook restatement, transcribed example); \
+                       sphere 0.67 secondary; plate 0.425 from memory (medium confidence); originals not read",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 11]) -> [f64; 1] {
+        [film_boiling(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
+    }
+    fn possible(x: &[f64; 11]) -> bool {
+        film_possible(x)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::model::{evaluate, Status};
+    use approx::assert_relative_eq;
+
+    // Incropera, DeWitt, Bergman & Lavine, 6th ed., Example 10.1 inputs
+    // (Table A.6 at 100 C; recalled from memory): water at 1 atm.
+    const RL: f64 = 957.9;
+    const RV: f64 = 0.5955;
+    const CPL: f64 = 4217.0;
+    const MUL: f64 = 279e-6;
+    const PR: f64 = 1.76;
+    const HLV: f64 = 2257e3;
+    const S: f64 = 58.9e-3;
+    const G: f64 = 9.8;
+
+    fn kl() -> f64 {
+        CPL * MUL / PR
+    }
+
+    #[test]
+    fn rohsenow_incropera_example_10_1() {
+        // Printed: q''_s = 836 kW/m2 at dT_e = 18 K with C_sf = 0.0128, n = 1.
+        let q = rohsenow(18.0, 0.0128, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G);
+        assert_relative_eq!(q, 836e3, max_relative = 1e-3);
+        let dt = rohsenow_superheat(q, 0.0128, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G);
+        assert_relative_eq!(dt, 18.0, max_relative = 1e-13);
+        // q ~ dT^3 and ~ C_sf^-3.
+        let q2 = rohsenow(36.0, 0.0128, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G);
+        assert_relative_eq!(q2 / q, 8.0, max_relative = 1e-12);
+        let q3 = rohsenow(18.0, 0.0256, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G);
+        assert_relative_eq!(q / q3, 8.0, max_relative = 1e-12);
+        assert_eq!(rohsenow(0.0, 0.0128, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G), 0.0);
+        assert!(rohsenow(-1.0, 0.0128, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G).is_nan());
+        assert!(rohsenow(5.0, 0.0, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G).is_nan());
+        let x = [5.0, 0.1, 1.0, HLV, RL, RV, S, CPL, kl(), MUL, G];
+        assert_eq!(evaluate::<Rohsenow, 11, 1>(&x).1, Status::OutOfRange);
+    }
+
+    #[test]
+    fn cooper_handbook_value_and_inverse() {
+        // CalebBell/ht doctest citing Rohsenow, Hartnett & Cho, Handbook of
+        // Heat Transfer 3rd ed.: water, P = 101325, Pc = 22048321 Pa, M = 18.02,
+        // dT = 4.3 K, R_p = 1 um: h = 1558.14 W/m2K.
+        let q = cooper(4.3, 101325.0, 22048321.0, 18.02e-3, 1e-6);
+        assert_relative_eq!(q / 4.3, 1558.1435442153575, max_relative = 1e-9);
+        assert_relative_eq!(cooper_superheat(q, 101325.0, 22048321.0, 18.02e-3, 1e-6), 4.3, max_relative = 1e-12);
+        assert_relative_eq!(cooper_coefficient_at_flux(q, 101325.0, 22048321.0, 18.02e-3, 1e-6), q / 4.3, max_relative = 1e-12);
+        // Roughness 1 um: exponent 0.12; rougher surfaces boil better at p_r < 1.
+        assert!(cooper(4.3, 1e6, 22e6, 18e-3, 5e-6) > cooper(4.3, 1e6, 22e6, 18e-3, 1e-6));
+        assert!(cooper(4.3, 22e6, 22e6, 18e-3, 1e-6).is_nan());
+        assert_eq!(evaluate::<Cooper, 5, 1>(&[4.3, 1e3, 22e6, 18e-3, 1e-6]).1, Status::OutOfRange);
+    }
+
+    #[test]
+    fn rpi_partition_identities() {
+        let (n, d, f) = (1e5, 1e-3, 50.0);
+        let (kl, cpl) = (0.68, 4217.0);
+        let r = rpi_partition(n, d, f, 10.0, 5.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl);
+        assert_relative_eq!(r[0], n * f * PI * d * d * d / 6.0 * RV * HLV, max_relative = 1e-14);
+        let a = 4.0 * n * PI * d * d / 4.0;
+        assert_relative_eq!(r[4], a, max_relative = 1e-14);
+        let alpha = kl / (RL * cpl);
+        assert_relative_eq!(r[1], a * 2.0 * kl * f * (0.8 / f / (PI * alpha)).sqrt() * 15.0, max_relative = 1e-14);
+        assert_relative_eq!(r[2], 2000.0 * (1.0 - a) * 15.0, max_relative = 1e-14);
+        assert_relative_eq!(r[3], r[0] + r[1] + r[2], max_relative = 1e-14);
+        // No sites: single-phase convection only.
+        let z = rpi_partition(0.0, d, f, 10.0, 0.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl);
+        assert_eq!(z, [0.0, 0.0, 20000.0, 20000.0, 0.0]);
+        // Saturated area: capped at 1, flagged.
+        let x = [1e8, d, f, 10.0, 0.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl];
+        let (y, s) = evaluate::<RpiPartition, 12, 5>(&x);
+        assert_eq!(y[4], 1.0);
+        assert_eq!(y[2], 0.0);
+        assert_eq!(s, Status::OutOfRange);
+        assert!(rpi_partition(-1.0, d, f, 10.0, 0.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl)[0].is_nan());
+    }
+
+    #[test]
+    fn tolubinsky_and_natural_convection() {
+        assert_eq!(tolubinsky_kostanchuk(0.0), 0.6e-3);
+        assert_relative_eq!(tolubinsky_kostanchuk(45.0), 0.6e-3 / std::f64::consts::E, max_relative = 1e-14);
+        assert_eq!(tolubinsky_kostanchuk(-100.0), 1.4e-3);
+        // Turbulent branch: h independent of L.
+        let beta = 7.5e-4;
+        let a = natural_convection(5.0, 0.1, beta, kl(), RL, CPL, MUL, G) / 5.0;
+        let b = natural_convection(5.0, 0.2, beta, kl(), RL, CPL, MUL, G) / 5.0;
+        assert_relative_eq!(a, b, max_relative = 1e-12);
+        assert_eq!(natural_convection(0.0, 0.1, beta, kl(), RL, CPL, MUL, G), 0.0);
+    }
+
+    #[test]
+    fn film_boiling_form() {
+        let (cpv, kv, muv) = (2080.0, 0.025, 12.5e-6);
+        let q = film_boiling(200.0, 0.62, 0.01, 0.4, HLV, cpv, RL, RV, kv, muv, G);
+        let h = 0.62 * (G * kv.powi(3) * RV * (RL - RV) * (HLV + 0.4 * cpv * 200.0) / (muv * 0.01 * 200.0)).powf(0.25);
+        assert_relative_eq!(q, h * 200.0, max_relative = 1e-14);
+        assert!(film_boiling(0.0, 0.62, 0.01, 0.4, HLV, cpv, RL, RV, kv, muv, G).is_nan());
+        // L^-1/4 scaling.
+        let q16 = film_boiling(200.0, 0.62, 0.16, 0.4, HLV, cpv, RL, RV, kv, muv, G);
+        assert_relative_eq!(q / q16, 2.0, max_relative = 1e-12);
+    }
+}
