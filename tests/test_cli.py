@@ -1,39 +1,61 @@
-"""The command line and the built-in demo scenario, run as a user would."""
+"""The command line, the built-in demo study and study specifications, run as
+a user would (subprocesses), with their files checked."""
 
+import pathlib
 import subprocess
 import sys
 
 import pytest
 
 pytest.importorskip("matplotlib")
+pytest.importorskip("xarray")
+
+PNG = b"\x89PNG\r\n\x1a\n"
 
 
 def run(*args, cwd=None):
-    return subprocess.run([sys.executable, "-m", "wetboil", *args], capture_output=True, text=True, timeout=300, cwd=cwd)
+    return subprocess.run([sys.executable, "-m", "wetboil", *args], capture_output=True, text=True, timeout=600,
+                          cwd=cwd)
 
 
 def test_help_on_every_command():
     r = run("--help")
-    assert r.returncode == 0 and "demo" in r.stdout and "CAUTION" in r.stdout
-    r = run("demo", "--help")
-    assert r.returncode == 0 and "--out" in r.stdout
+    assert r.returncode == 0 and "demo" in r.stdout and "run" in r.stdout and "CAUTION" in r.stdout
+    for cmd in ("demo", "run"):
+        r = run(cmd, "--help")
+        assert r.returncode == 0 and "--out" in r.stdout
+
+
+def _check_outputs(out: pathlib.Path, names, stdout: str):
+    import xarray as xr
+
+    for f in ("boiling_curves.png", "chf_receding_orientation.png", "onset_superheat_map.png"):
+        data = (out / f).read_bytes()
+        assert data[:8] == PNG and len(data) > 10_000, f
+    report = (out / "report.md").read_text()
+    for name in names:
+        assert name in report and name in stdout
+    assert "CAUTION" in report and "CAUTION" in stdout
+    assert "doi:10.1115/1.1409265" in report  # Kandlikar (2001), the design CHF method
+    assert "Validity flags" in report
+    ds = xr.load_dataset(out / "sweep.nc")
+    assert set(ds["surface"].values) == set(names)
+    summary = (out / "summary.csv").read_text().splitlines()
+    assert summary[0].startswith("surface,") and len(summary) == 1 + ds["chf"].size
+    assert not any(p.name.startswith(".partial") for p in out.iterdir())
 
 
 def test_demo_end_to_end(tmp_path):
+    from wetboil.demo import study_path
+    from wetboil.report import load_spec
+
     out = tmp_path / "demo"
     r = run("demo", "--out", str(out))
     assert r.returncode == 0, r.stderr
-    from wetboil.demo import load_scenario
-
-    names = [s["name"] for s in load_scenario()["surface"]]
-    for name in names:
-        assert name in r.stdout
-    assert "CAUTION" in r.stdout and "report" in r.stdout.lower()
-    png = out / "chf_vs_receding_angle.png"
-    assert png.read_bytes()[:8] == b"\x89PNG\r\n\x1a\n" and png.stat().st_size > 10_000
-    report = (out / "report.md").read_text()
-    assert all(name in report for name in names)
-    assert "Kandlikar" in report and "doi:10.1115/1.1409265" in report and "CAUTION" in report
+    study = load_spec(study_path())
+    _check_outputs(out, [s.name for s in study.surfaces], r.stdout)
+    assert "Report:" in r.stdout and str((out / "report.md").resolve()) in r.stdout
+    assert "invented" in study.title and "invented" in study.meta["lab"]
 
 
 def test_demo_default_folder_is_new(tmp_path):
@@ -43,8 +65,56 @@ def test_demo_default_folder_is_new(tmp_path):
     assert len(made) == 1 and (made[0] / "report.md").exists()
 
 
-def test_demo_scenario_is_labelled_invented():
-    from wetboil.demo import load_scenario
+SPEC = """
+[study]
+title = "Two-coating check (invented)"
+fluid = "water"
+pressures_Pa = [101325.0, 300000.0]
+heat_fluxes_W_m2 = [250000.0]
+orientations_deg = [0.0, 90.0]
+surfaces_file = "surfaces.csv"
+chunks = 4
 
-    sc = load_scenario()
-    assert "invented" in sc["scenario"]["lab"] and "invented" in sc["scenario"]["title"]
+[methods]
+chf = ["kandlikar", "zuber"]
+onset = "kandlikar"
+
+[[surface]]
+name = "inline (invented)"
+static_deg = 60.0
+advancing_deg = 70.0
+receding_deg = 40.0
+"""
+
+
+def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
+    (tmp_path / "surfaces.csv").write_text("name,static_deg,advancing_deg,receding_deg,C_sf\n"
+                                           "from csv (invented),30,40,20,0.013\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC)
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 0, r.stderr
+    _check_outputs(out, ["from csv (invented)", "inline (invented)"], r.stdout)
+
+
+@pytest.mark.parametrize("change, message", [
+    (("chunks = 4", "chunkz = 4"), r"study.toml:9: unknown key 'chunkz' in \[study\]"),
+    (('fluid = "water"', 'fluid = "Unobtainium"'), r"study.toml:4: \[study\] unknown fluid 'Unobtainium'"),
+    (("orientations_deg = [0.0, 90.0]", "orientations_deg = []"), r"study.toml:7: \[study\] orientations_deg is empty"),
+    (("advancing_deg = 70.0", "advancing_deg = 30.0"), r"advancing angle 30 deg is below the receding angle 40"),
+    (('onset = "kandlikar"', 'onset = "guess"'), r"study.toml:\d+: \[methods\] onset: unknown method 'guess'"),
+])
+def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message):
+    import re
+
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC.replace(*change))
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 1
+    err = r.stderr.strip()
+    assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
+    assert re.search(message, err), err
+    assert not out.exists()

@@ -28,6 +28,8 @@ from ._errors import (
     geterr,
 )
 from . import fluids, nucleation, departure, chf, wetting, boiling  # noqa: E402  (topic modules)
+from .surface import Surface, load_surfaces, save_surfaces  # noqa: E402
+from .sweep import screen, sweep  # noqa: E402
 
 __version__ = "0.1.0"
 
@@ -36,8 +38,13 @@ __all__ = [
     "nucleation",
     "departure",
     "chf",
-    "boiling",
     "wetting",
+    "boiling",
+    "Surface",
+    "load_surfaces",
+    "save_surfaces",
+    "screen",
+    "sweep",
     "errstate",
     "geterr",
     "models",

@@ -19,12 +19,14 @@ the same signature and docstring that
 
 from __future__ import annotations
 
+import contextlib
+import contextvars
 import functools
 import inspect
 import json
 import os
 import sys
-from typing import Any, Callable, Dict, NamedTuple, Optional, Sequence, Tuple, TypeVar
+from typing import Any, Callable, Dict, Iterator, NamedTuple, Optional, Sequence, Tuple, TypeVar
 
 import numpy as np
 
@@ -152,10 +154,50 @@ def _as_result(outs: Any, result_type: Optional[Callable[..., Any]]) -> Any:
     return result_type(*outs)
 
 
+class ValidityCapture:
+    """Per-element flags collected from every kernel evaluated inside
+    `capture_validity` (NumPy inputs only): `invalid` (impossible elements)
+    and `out_of_range` (outside a published range), broadcast together."""
+
+    def __init__(self) -> None:
+        self.invalid: Any = False
+        self.out_of_range: Any = False
+
+    def add(self, codes: Any) -> None:
+        self.invalid = np.logical_or(self.invalid, codes == 1)
+        self.out_of_range = np.logical_or(self.out_of_range, codes == 2)
+
+
+_CAPTURE: contextvars.ContextVar[Optional[ValidityCapture]] = contextvars.ContextVar("wetboil_capture", default=None)
+
+
+@contextlib.contextmanager
+def capture_validity() -> Iterator[ValidityCapture]:
+    """Collect the per-element validity of every kernel call in the block.
+
+    >>> import numpy as np, wetboil
+    >>> from wetboil.chf import kandlikar
+    >>> from wetboil.fluids import water
+    >>> with wetboil.errstate(out_of_range="ignore"), capture_validity() as cap:
+    ...     q = kandlikar(np.array([30.0, 60.0]), water(p=1e5), np.array([0.0, 100.0]))
+    >>> cap.out_of_range.tolist()
+    [False, True]
+    """
+    cap = ValidityCapture()
+    token = _CAPTURE.set(cap)
+    try:
+        yield cap
+    finally:
+        _CAPTURE.reset(token)
+
+
 def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
     """Evaluate kernel `name` on NumPy-compatible arrays through its ufunc and
     apply the element policy. Module-level and picklable (used by dask)."""
     uf = getattr(_core, name)
+    cap = _CAPTURE.get()
+    if cap is not None:
+        cap.add(getattr(_core, f"{name}_status")(*arrays))
     _core.take_counts()  # discard counts of direct ufunc calls made earlier
     with np.errstate(all="ignore"):  # our own policy reports NaNs, not NumPy's FP flags
         outs = uf(*arrays)

@@ -1,8 +1,10 @@
 """The ``wetboil`` command line.
 
-    wetboil demo [--out DIR]     run the built-in scenario (invented data) end to end
+    wetboil demo [--out DIR]            run the built-in study (invented data) end to end
+    wetboil run SPEC.toml --out DIR     run a study described in a TOML file
 
-Every command has ``--help``.
+Every command has ``--help``. The spec format is documented in
+`wetboil.report` (``python -c "import wetboil.report; help(wetboil.report)"``).
 """
 
 from __future__ import annotations
@@ -15,11 +17,7 @@ from typing import List, Optional
 
 from ._errors import WetboilError
 
-CAUTION = (
-    "CAUTION: critical heat flux and burnout predictions carry correlation uncertainty of tens of\n"
-    "percent and hold only inside each correlation's published validity range. Apply safety margins\n"
-    "and defer to the codes and licensed engineering practice that govern your application."
-)
+from .report import CAUTION
 
 
 def _new_out_dir(out: Optional[str], stem: str) -> pathlib.Path:
@@ -40,8 +38,21 @@ def _cmd_demo(args: argparse.Namespace) -> int:
     from . import demo
 
     out = _new_out_dir(args.out, "wetboil-demo")
-    report = demo.run(out)
+    report = demo.run(out, progress=args.progress)
     print(f"\nDemo outputs written to {out.resolve()}")
+    print(f"Report: {report.resolve()}")
+    return 0
+
+
+def _cmd_run(args: argparse.Namespace) -> int:
+    from .demo import print_ranking
+    from .report import load_spec, run_study
+
+    study = load_spec(args.spec)  # all spec errors are raised before anything is written
+    out = _new_out_dir(args.out, "wetboil-run")
+    report = run_study(study, out, progress=args.progress, spec_text=pathlib.Path(args.spec).read_text())
+    print_ranking(out, study.title)
+    print(f"\nOutputs written to {out.resolve()}")
     print(f"Report: {report.resolve()}")
     return 0
 
@@ -57,13 +68,29 @@ def build_parser() -> argparse.ArgumentParser:
     demo = sub.add_parser(
         "demo",
         help="run the built-in demo scenario (invented surfaces) and write its table, plot and report",
-        description="Run the built-in demo scenario: invented surface treatments of an invented lab, "
-        "screened for bubble departure size and critical heat flux in saturated water at 1 atm.",
+        description="Run the built-in demo study: invented surface treatments of an invented lab, screened "
+        "for onset of boiling, bubble departure, nucleate superheat and critical heat flux margin in saturated "
+        "water over pressures, heat fluxes, orientations and subcoolings.",
         epilog=CAUTION,
         formatter_class=argparse.RawDescriptionHelpFormatter,
     )
     demo.add_argument("--out", metavar="DIR", help="output folder (default: a new wetboil-demo-<time> folder)")
+    demo.add_argument("--progress", action="store_true", help="show a progress bar for chunked sweeps")
     demo.set_defaults(func=_cmd_demo)
+    run = sub.add_parser(
+        "run",
+        help="run a study described in a TOML file and write its dataset, summary, plots and report",
+        description="Run a study described in a TOML specification: fluid, pressures or temperatures, design "
+        "heat fluxes, orientations, subcoolings, methods and surfaces (inline [[surface]] tables or a "
+        "surfaces_file). Writes sweep.nc, summary.csv, PNG plots and report.md. The format is documented in "
+        "the wetboil.report module.",
+        epilog=CAUTION,
+        formatter_class=argparse.RawDescriptionHelpFormatter,
+    )
+    run.add_argument("spec", metavar="SPEC.toml", help="study specification")
+    run.add_argument("--out", metavar="DIR", help="output folder (default: a new wetboil-run-<time> folder)")
+    run.add_argument("--progress", action="store_true", help="show a progress bar for chunked sweeps")
+    run.set_defaults(func=_cmd_run)
     return ap
 
 

@@ -1,0 +1,439 @@
+"""Study specifications (TOML), their sweep, and the files a study writes:
+the Dataset (netCDF), a ranked CSV summary, PNG plots and a Markdown report
+with inputs, methods and references, validity flags and the cautions.
+
+Spec format (every key optional unless marked)::
+
+    [study]
+    title = "Coating screen for ..."          # shown in the report
+    fluid = "water"                           # "water" (built in) or a CoolProp name
+    pressures_Pa = [101325.0, 5e5]            # or temperatures_K = [...]   (one of them required)
+    heat_fluxes_W_m2 = [3e5, 5e5]             # design heat fluxes (required)
+    orientations_deg = [0.0, 90.0]            # default [0.0]
+    subcoolings_K = [0.0]                     # default [0.0]
+    surfaces_file = "surfaces.toml"           # .toml or .csv, relative to the spec; or [[surface]] tables below
+    chunks = 200000                           # optional: run lazily on dask in chunks of this many points
+
+    [methods]                                 # optional, see wetboil.sweep.METHOD_CHOICES
+    onset = "hsu"
+    departure = "fritz"
+    frequency = "zuber"
+    nucleate = "auto"
+    chf = ["kandlikar", "zuber"]
+
+    [[surface]]                               # as in wetboil.load_surfaces
+    name = "..."
+    static_deg = 70.0
+    advancing_deg = 80.0
+    receding_deg = 45.0
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import math
+import pathlib
+import re
+import shutil
+import tempfile
+import warnings
+from typing import Any, Dict, List, Optional, Tuple
+
+import numpy as np
+
+from ._errors import RangeWarning, WetboilError, WetboilValueError
+from .surface import Surface, _from_toml, load_surfaces
+
+try:  # Python >= 3.11
+    import tomllib as _toml
+except ModuleNotFoundError:  # pragma: no cover
+    import tomli as _toml  # type: ignore[no-redef,import-not-found]
+
+__all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION"]
+
+CAUTION = (
+    "CAUTION: critical heat flux and burnout predictions carry correlation uncertainty of tens of "
+    "percent and hold only inside each correlation's published validity range. Apply safety margins "
+    "and defer to the codes and licensed engineering practice that govern your application."
+)
+
+_STUDY_KEYS: Dict[str, type] = {
+    "title": str, "fluid": str, "pressures_Pa": list, "temperatures_K": list, "heat_fluxes_W_m2": list,
+    "orientations_deg": list, "subcoolings_K": list, "surfaces_file": str, "chunks": int,
+    "lab": str, "product": str,
+}
+_TOP_KEYS = ("study", "methods", "surface")
+
+
+class SpecError(WetboilValueError):
+    """A study specification is wrong; the message names the file, line and key."""
+
+
+class Study:
+    """A parsed, checked study specification."""
+
+    def __init__(self, title: str, fluid: str, axis: str, states: List[float], heat_fluxes: List[float],
+                 orientations: List[float], subcoolings: List[float], methods: Dict[str, Any],
+                 surfaces: List[Surface], chunks: Optional[int] = None, meta: Optional[Dict[str, str]] = None):
+        self.title, self.fluid, self.axis, self.states = title, fluid, axis, states
+        self.heat_fluxes, self.orientations, self.subcoolings = heat_fluxes, orientations, subcoolings
+        self.methods, self.surfaces, self.chunks, self.meta = methods, surfaces, chunks, meta or {}
+
+
+def _line(text: str, key: str, section: Optional[str] = None) -> int:
+    lines = text.splitlines()
+    start = 0
+    if section is not None:
+        for i, line in enumerate(lines):
+            if re.match(rf"^\s*\[{re.escape(section)}\]\s*$", line):
+                start = i
+                break
+    pat = re.compile(rf"^\s*\"?{re.escape(key)}\"?\s*=")
+    for i in range(start, len(lines)):
+        if pat.match(lines[i]):
+            return i + 1
+    for i, line in enumerate(lines):
+        if re.match(rf"^\s*\[+{re.escape(key)}\]+\s*$", line):
+            return i + 1
+    return 0
+
+
+def load_spec(path: Any) -> Study:
+    """Read and check a study specification (see the module docstring)."""
+    from .sweep import METHOD_CHOICES, _methods
+
+    path = pathlib.Path(path)
+    if not path.exists():
+        raise SpecError(f"{path}: no such file")
+    text = path.read_text()
+    try:
+        data = _toml.loads(text)
+    except _toml.TOMLDecodeError as exc:
+        raise SpecError(f"{path}: not valid TOML: {exc}") from None
+
+    def fail(key: str, msg: str, section: Optional[str] = None) -> SpecError:
+        return SpecError(f"{path}:{_line(text, key, section)}: {msg}")
+
+    for key in data:
+        if key not in _TOP_KEYS:
+            raise fail(key, f"unknown section or key {key!r}; known: {', '.join(_TOP_KEYS)}")
+    study = data.get("study")
+    if not isinstance(study, dict):
+        raise SpecError(f"{path}: missing [study] section")
+    for key, value in study.items():
+        if key not in _STUDY_KEYS:
+            raise fail(key, f"unknown key {key!r} in [study]; known keys: {', '.join(_STUDY_KEYS)}", "study")
+        want = _STUDY_KEYS[key]
+        if want is list and not isinstance(value, list):
+            value = [value]
+            study[key] = value
+        if not isinstance(value, want) or isinstance(value, bool):
+            raise fail(key, f"[study] {key} must be a {want.__name__}", "study")
+        if isinstance(value, list):
+            if not value:
+                raise fail(key, f"[study] {key} is empty: give at least one value", "study")
+            if not all(isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v) for v in value):
+                raise fail(key, f"[study] {key} must hold finite numbers", "study")
+    fluid = study.get("fluid", "water")
+    if ("pressures_Pa" in study) == ("temperatures_K" in study):
+        raise fail("study", "[study] needs exactly one of pressures_Pa or temperatures_K")
+    axis = "p" if "pressures_Pa" in study else "T"
+    states = [float(v) for v in study["pressures_Pa" if axis == "p" else "temperatures_K"]]
+    if "heat_fluxes_W_m2" not in study:
+        raise fail("study", "[study] needs heat_fluxes_W_m2 (the design heat fluxes)")
+    fluxes = [float(v) for v in study["heat_fluxes_W_m2"]]
+    if any(q <= 0 for q in fluxes):
+        raise fail("heat_fluxes_W_m2", "[study] heat_fluxes_W_m2 must be positive", "study")
+    if fluid.lower() != "water":
+        try:
+            import CoolProp.CoolProp as CP
+
+            CP.PropsSI("Tcrit", fluid)
+        except ImportError:
+            raise fail("fluid", f"[study] fluid {fluid!r} needs CoolProp (pip install CoolProp); "
+                                "'water' is built in", "study") from None
+        except ValueError:
+            raise fail("fluid", f"[study] unknown fluid {fluid!r} (not 'water' and not a CoolProp name)",
+                       "study") from None
+    methods = data.get("methods", {})
+    if not isinstance(methods, dict):
+        raise fail("methods", "[methods] must be a table")
+    for key, value in methods.items():
+        if key not in METHOD_CHOICES:
+            raise fail(key, f"unknown key {key!r} in [methods]; known keys: {', '.join(METHOD_CHOICES)}", "methods")
+        values = [value] if isinstance(value, str) else value
+        if not isinstance(values, list) or not values:
+            raise fail(key, f"[methods] {key} must be a method name or a non-empty list", "methods")
+        for v in values:
+            if v not in METHOD_CHOICES[key]:
+                raise fail(key, f"[methods] {key}: unknown method {v!r}; choices: {', '.join(METHOD_CHOICES[key])}",
+                           "methods")
+    methods = _methods(methods)
+    surfaces: List[Surface] = []
+    if "surfaces_file" in study:
+        sf = (path.parent / study["surfaces_file"]).resolve()
+        try:
+            surfaces = load_surfaces(sf)
+        except WetboilError as exc:
+            raise SpecError(f"{path}:{_line(text, 'surfaces_file', 'study')}: surfaces_file: {exc}") from None
+    if "surface" in data:
+        surfaces += _from_toml(path)
+    if not surfaces:
+        raise SpecError(f"{path}: no surfaces: give [study] surfaces_file or [[surface]] tables")
+    names = [s.name for s in surfaces]
+    dup = sorted({n for n in names if names.count(n) > 1})
+    if dup:
+        raise SpecError(f"{path}:{_line(text, 'name')}: duplicate surface name(s) {dup}")
+    chunks = study.get("chunks")
+    if chunks is not None and chunks < 1:
+        raise fail("chunks", "[study] chunks must be a positive integer", "study")
+    return Study(
+        title=study.get("title", path.stem), fluid=fluid, axis=axis, states=states, heat_fluxes=fluxes,
+        orientations=[float(v) for v in study.get("orientations_deg", [0.0])],
+        subcoolings=[float(v) for v in study.get("subcoolings_K", [0.0])],
+        methods=methods, surfaces=surfaces, chunks=chunks,
+        meta={k: study[k] for k in ("lab", "product") if k in study},
+    )
+
+
+def _chunk_sizes(study: Study, target: int) -> Dict[str, int]:
+    """Chunks of about `target` points: split the surface and state axes."""
+    inner = len(study.heat_fluxes) * len(study.orientations) * len(study.subcoolings)
+    per_state = max(1, target // max(1, inner * len(study.surfaces)))
+    return {"surface": len(study.surfaces), study.axis: min(len(study.states), per_state)}
+
+
+def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_text: str = "") -> pathlib.Path:
+    """Sweep the study and write its files into `out`; return the report path.
+
+    Files are written into a scratch folder inside `out` and moved into place
+    only when everything succeeded, so a failed run leaves no partial output
+    that looks complete.
+    """
+    from .sweep import sweep
+
+    out.mkdir(parents=True, exist_ok=True)
+    scratch = pathlib.Path(tempfile.mkdtemp(prefix=".partial-", dir=out))
+    try:
+        kw: Dict[str, Any] = {"p" if study.axis == "p" else "T": study.states}
+        if study.chunks:
+            kw["chunks"] = _chunk_sizes(study, study.chunks)
+            kw["progress"] = progress
+        ds = sweep(study.surfaces, study.fluid, heat_flux=study.heat_fluxes, orientation_deg=study.orientations,
+                   subcooling=study.subcoolings, methods=study.methods, **kw)
+        ds.attrs["title"] = study.title
+        ds.to_netcdf(scratch / "sweep.nc")
+        summary = _summary(ds)
+        summary.to_csv(scratch / "summary.csv", index=False)
+        plots = _plots(ds, study, scratch)
+        report = scratch / "report.md"
+        report.write_text(_report_text(study, ds, summary, plots, spec_text))
+        for f in scratch.iterdir():
+            shutil.move(str(f), str(out / f.name))
+        return out / "report.md"
+    finally:
+        shutil.rmtree(scratch, ignore_errors=True)
+
+
+def _summary(ds: Any) -> Any:
+    """The ranked table: one row per surface and operating point."""
+    from .sweep import _flag_text
+
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    df = ds.to_dataframe().reset_index()
+    df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
+    df["impossible"] = [_flag_text(int(m), bits) for m in df.pop("invalid_flags")]
+    units = {n: ds[n].attrs.get("units", "") for n in ds.data_vars}
+    units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K"})
+    df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
+    return df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
+
+
+def _plots(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
+    # the sweep already recorded every validity flag; the plots repeat its calls
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", RangeWarning)
+        return _draw(ds, study, folder)
+
+
+def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
+    import matplotlib
+
+    matplotlib.use("Agg")
+    import matplotlib.pyplot as plt
+
+    from . import boiling, chf
+    from .fluids import from_coolprop, water
+
+    made: List[Tuple[str, str]] = []
+    axis = study.axis
+    first = study.states[0]
+    state = (water(p=first) if axis == "p" else water(T=first)) if study.fluid.lower() == "water" else (
+        from_coolprop(study.fluid, p=first) if axis == "p" else from_coolprop(study.fluid, T=first))
+    label = f"{first / 1e5:g} bar" if axis == "p" else f"{first:g} K"
+
+    # 1. boiling curves per surface at the first pressure
+    fig, ax = plt.subplots(figsize=(7.5, 5))
+    superheat = np.geomspace(0.5, 1500.0, 400)
+    design = study.heat_fluxes[0]
+    for s in study.surfaces:
+        a = s.angles(state)
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            c = boiling.curve(state, superheat, receding_angle_deg=float(np.asarray(a.receding_deg)),
+                              contact_angle_deg=float(np.asarray(a.static_deg)), orientation_deg=study.orientations[0],
+                              nucleate="rohsenow" if s.C_sf else "cooper", C_sf=s.C_sf or 0.013, n=s.n or 1.0,
+                              roughness_Rp=s.Rp or 1e-6, natural_convection_coefficient=1000.0,
+                              design_heat_flux=design)
+        ax.loglog(superheat, c["heat_flux"].values, label=s.name)
+    ax.axhline(design, color="k", ls="--", lw=1, label="design heat flux")
+    ax.set_xlabel("wall superheat [K]")
+    ax.set_ylabel("heat flux [W/m2]")
+    ax.set_title(f"Pool-boiling curves, {study.fluid} at {label}, orientation {study.orientations[0]:g} deg")
+    ax.set_ylim(1e3, None)
+    ax.grid(alpha=0.3, which="both")
+    ax.legend(fontsize=7)
+    fig.tight_layout()
+    fig.savefig(folder / "boiling_curves.png", dpi=110)
+    plt.close(fig)
+    made.append(("boiling_curves.png", "Assembled pool-boiling curves per surface (natural convection h = 1000 "
+                 "W/m2K assumed; transition branch is a log-log construction)."))
+
+    # 2. CHF against receding angle and orientation
+    fig, ax = plt.subplots(figsize=(7.5, 5))
+    beta = np.linspace(0.0, 150.0, 301)
+    for phi in sorted(set(study.orientations) | {0.0, 90.0}):
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", RangeWarning)
+            ax.plot(beta, chf.kandlikar(beta, state, phi) / 1e6, label=f"Kandlikar (2001), {phi:g} deg")
+    for s in study.surfaces:
+        r = float(np.asarray(s.angles(state).receding_deg))
+        ax.plot(r, chf.kandlikar(r, state, study.orientations[0]) / 1e6, "o", ms=6)
+        ax.annotate(s.name, (r, chf.kandlikar(r, state, study.orientations[0]) / 1e6), fontsize=7,
+                    textcoords="offset points", xytext=(4, 4))
+    for q in study.heat_fluxes:
+        ax.axhline(q / 1e6, color="k", ls=":", lw=0.8)
+    ax.set_xlabel("receding contact angle [deg]")
+    ax.set_ylabel("critical heat flux [MW/m2]")
+    ax.set_title(f"CHF against receding angle and orientation, {study.fluid} at {label}")
+    ax.grid(alpha=0.3)
+    ax.legend(fontsize=7)
+    fig.tight_layout()
+    fig.savefig(folder / "chf_receding_orientation.png", dpi=110)
+    plt.close(fig)
+    made.append(("chf_receding_orientation.png", "Kandlikar CHF against receding angle for each orientation; "
+                 "dotted lines: design heat fluxes."))
+
+    # 3. onset superheat map: surface x pressure (first heat flux, orientation, subcooling)
+    onset = ds["onset_superheat"].isel(heat_flux=0, orientation=0, subcooling=0)
+    fig, ax = plt.subplots(figsize=(7.5, 0.5 * len(study.surfaces) + 2.5))
+    values = np.atleast_2d(onset.values)
+    im = ax.imshow(values, aspect="auto", cmap="viridis")
+    ax.set_yticks(range(len(study.surfaces)))
+    ax.set_yticklabels([s.name for s in study.surfaces], fontsize=7)
+    ax.set_xticks(range(len(study.states)))
+    ax.set_xticklabels([f"{v / 1e5:g}" if axis == "p" else f"{v:g}" for v in study.states], fontsize=7)
+    ax.set_xlabel("pressure [bar]" if axis == "p" else "saturation temperature [K]")
+    fig.colorbar(im, ax=ax, label="onset superheat [K]")
+    ax.set_title(f"Onset-of-boiling superheat at {study.heat_fluxes[0] / 1e3:g} kW/m2")
+    fig.tight_layout()
+    fig.savefig(folder / "onset_superheat_map.png", dpi=110)
+    plt.close(fig)
+    made.append(("onset_superheat_map.png", f"Onset superheat by surface and {'pressure' if axis == 'p' else 'temperature'}"
+                 f" ({study.methods['onset']} method)."))
+    return made
+
+
+_METHOD_KERNELS = {
+    ("onset", "hsu"): "hsu_onset", ("onset", "davis_anderson"): "davis_anderson_onset",
+    ("onset", "kandlikar"): "kandlikar_onset", ("onset", "bergles_rohsenow"): "bergles_rohsenow_onset",
+    ("departure", "fritz"): "fritz_departure", ("departure", "cole_rohsenow"): "cole_rohsenow_departure",
+    ("departure", "kocamustafaogullari_ishii"): "kocamustafaogullari_ishii_departure",
+    ("chf", "kandlikar"): "kandlikar_chf", ("chf", "zuber"): "zuber_chf", ("chf", "lienhard_dhir_flat"): "zuber_chf",
+}
+
+
+def _references(study: Study) -> List[str]:
+    from . import models
+
+    by_name = {m.name: m for m in models()}
+    refs = []
+    for key, value in study.methods.items():
+        for v in (value if isinstance(value, tuple) else (value,)):
+            if v == "auto":
+                continue
+            m = by_name.get(_METHOD_KERNELS.get((key, v), ""))
+            if m is None:
+                m = next((mm for mm in by_name.values() if v.split("_")[0] in mm.name and key[:3] in mm.name), None)
+            ref = f"{m.reference}" + (f", doi:{m.doi}" if m and m.doi else "") if m else "see wetboil.models()"
+            refs.append(f"- **{key}: {v}** -- {ref}")
+    refs.append("- **properties** -- " + (by_name["water_saturation_p"].reference if study.fluid.lower() == "water"
+                                          else "CoolProp (Bell et al., Ind. Eng. Chem. Res. 53 (2014) 2498-2508)"))
+    return refs
+
+
+def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str]], spec_text: str) -> str:
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    flagged = {name: int(((ds["range_flags"].values >> i) & 1).sum()) for i, name in enumerate(bits)}
+    flagged = {k: v for k, v in flagged.items() if v}
+    impossible = {name: int(((ds["invalid_flags"].values >> i) & 1).sum()) for i, name in enumerate(bits)}
+    impossible = {k: v for k, v in impossible.items() if v}
+    n = int(ds["chf"].size)
+    axis_name = "pressures [Pa]" if study.axis == "p" else "saturation temperatures [K]"
+    lines = [
+        f"# {study.title}",
+        "",
+        f"Generated by wetboil on {_dt.datetime.now().strftime('%Y-%m-%d %H:%M')}.",
+        "",
+        f"> {CAUTION}",
+        "",
+        "## Inputs",
+        "",
+    ]
+    for k, v in study.meta.items():
+        lines.append(f"- {k}: {v}")
+    lines += [
+        f"- fluid: {study.fluid}",
+        f"- {axis_name}: {', '.join(f'{v:g}' for v in study.states)}",
+        f"- design heat fluxes [W/m2]: {', '.join(f'{v:g}' for v in study.heat_fluxes)}",
+        f"- orientations [deg]: {', '.join(f'{v:g}' for v in study.orientations)}",
+        f"- subcoolings [K]: {', '.join(f'{v:g}' for v in study.subcoolings)}",
+        f"- grid points: {n}",
+        "",
+        "### Surfaces",
+        "",
+        "| surface | static [deg] | advancing [deg] | receding [deg] | notes |",
+        "|---|---|---|---|---|",
+    ]
+    for s in study.surfaces:
+        a = ds["static_angle"].sel(surface=s.name).values.ravel()[0]
+        b = ds["advancing_angle"].sel(surface=s.name).values.ravel()[0]
+        c = ds["receding_angle"].sel(surface=s.name).values.ravel()[0]
+        src = "from probe liquids" if s.probe_static_deg else ("intrinsic, roughened" if s.angles_are == "intrinsic"
+                                                              else "as measured")
+        lines.append(f"| {s.name} | {a:.1f} | {b:.1f} | {c:.1f} | {src}{'; ' + s.notes if s.notes else ''} |")
+    lines += ["", "## Methods and references", ""] + _references(study)
+    lines += ["", "## Ranking (best worst-case CHF margin first)", ""]
+    worst = summary.groupby("surface")["chf_margin [-]"].min().sort_values(ascending=False)
+    lines += ["| surface | lowest CHF margin over the operating points |", "|---|---|"]
+    lines += [f"| {name} | {m:.2f} |" for name, m in worst.items()]
+    lines += ["", "Full table: `summary.csv` (one row per surface and operating point); all quantities: `sweep.nc`.",
+              "", "## Validity flags", ""]
+    if flagged:
+        lines.append("Quantities computed outside a correlation's published validity range (extrapolated):")
+        lines += [f"- {k}: {v} of {n} points" for k, v in flagged.items()]
+    else:
+        lines.append("No quantity left its correlation's published validity range.")
+    if impossible:
+        lines.append("")
+        lines.append("Quantities without a value because an input was physically impossible:")
+        lines += [f"- {k}: {v} of {n} points" for k, v in impossible.items()]
+    lines += ["", "## Plots", ""]
+    for f, caption in plots:
+        lines += [f"![{caption}]({f})", "", caption, ""]
+    if spec_text:
+        lines += ["## Specification", "", "```toml", spec_text.rstrip(), "```", ""]
+    lines += ["## Cautions", "", CAUTION, "",
+              "Contact angles change with temperature, ageing, oxidation and fouling in service; "
+              "re-measure on aged coupons before relying on a wettability-driven margin.", ""]
+    return "\n".join(lines)

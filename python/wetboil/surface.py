@@ -1,0 +1,397 @@
+"""A surface treatment described once: its wettability, roughness and what
+else the boiling models need, loaded from and saved to plain TOML or CSV."""
+
+from __future__ import annotations
+
+import csv
+import io
+import math
+import pathlib
+import re
+from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Union
+
+import numpy as np
+
+from ._errors import WetboilTypeError, WetboilValueError
+from .fluids import Saturation
+
+try:  # Python >= 3.11
+    import tomllib as _toml
+except ModuleNotFoundError:  # pragma: no cover
+    import tomli as _toml  # type: ignore[no-redef,import-not-found]
+
+__all__ = ["Surface", "WorkingAngles", "load_surfaces", "save_surfaces", "SurfaceFileError"]
+
+_ANGLE_KEYS = ("static_deg", "advancing_deg", "receding_deg")
+_PROBE_KEYS = ("probe_static_deg", "probe_advancing_deg", "probe_receding_deg")
+_NUMBER_KEYS = ("roughness_ratio", "solid_fraction", "Rp", "C_sf", "n", "cavity_radius", "cavity_half_angle_deg")
+_KEYS = ("name",) + _ANGLE_KEYS + ("angles_are",) + _NUMBER_KEYS + _PROBE_KEYS + ("notes",)
+
+
+class SurfaceFileError(WetboilValueError):
+    """A surface file could not be read: the message names the file, the key
+    and the line."""
+
+
+class WorkingAngles(NamedTuple):
+    """Apparent static, advancing and receding angles [deg] of the working
+    fluid on a surface (through the liquid)."""
+
+    static_deg: Any
+    advancing_deg: Any
+    receding_deg: Any
+
+
+def _number(owner: str, key: str, value: Any, lo: float = -math.inf, hi: float = math.inf,
+            lo_open: bool = False) -> Optional[float]:
+    if value is None:
+        return None
+    if isinstance(value, bool) or not isinstance(value, (int, float, np.integer, np.floating)):
+        raise WetboilTypeError(f"surface {owner!r}: {key} must be a number, got {type(value).__name__}")
+    v = float(value)
+    bad = not math.isfinite(v) or v > hi or (v <= lo if lo_open else v < lo)
+    if bad:
+        rng = f"{'(' if lo_open else '['}{lo:g}, {hi:g}]"
+        raise WetboilValueError(f"surface {owner!r}: {key} = {v:g} is outside {rng}")
+    return v
+
+
+class Surface:
+    """A named surface treatment.
+
+    Give the working fluid's angles directly (``static_deg``,
+    ``advancing_deg``, ``receding_deg``), or probe-liquid angles to derive
+    them from (``probe_static_deg={"water": 72, "diiodomethane": 45}`` and,
+    for hysteresis, ``probe_advancing_deg`` / ``probe_receding_deg``): the
+    solid's surface energy then comes from Owens-Wendt-Rabel-Kaelble and the
+    working fluid's angles at its saturation temperature from
+    `wetboil.wetting.predict_angle` (see `angles`).
+
+    Parameters
+    ----------
+    name : str
+        Label of the treatment.
+    static_deg, advancing_deg, receding_deg : float, optional
+        Angles of the working fluid [deg], through the liquid; advancing >=
+        static >= receding. A missing advancing or receding angle is taken
+        equal to the static one (no hysteresis data) and noted in `notes`.
+    angles_are : {"apparent", "intrinsic"}
+        "apparent" (default): measured on this surface as it is, roughness
+        included. "intrinsic": measured on a smooth coupon of the same
+        chemistry; the apparent angles then follow from Wenzel (or
+        Cassie-Baxter when `solid_fraction` is given).
+    roughness_ratio : float
+        Wenzel roughness ratio r >= 1 (true / projected area).
+    solid_fraction : float, optional
+        Cassie-Baxter wetted solid fraction, 0 < f <= 1.
+    Rp : float
+        Cooper's surface roughness parameter [m] (default 1 um, Cooper's
+        value when unknown).
+    C_sf, n : float, optional
+        Rohsenow's surface-liquid constant and Prandtl exponent, where known.
+    cavity_radius : float, optional
+        Typical cavity mouth radius [m], where known.
+    cavity_half_angle_deg : float, optional
+        Typical conical cavity half-angle [deg], where known (vapour trapping).
+    probe_static_deg, probe_advancing_deg, probe_receding_deg : mapping, optional
+        Probe-liquid name (see `wetboil.wetting.PROBE_LIQUIDS`) -> angle [deg].
+    notes : str
+        Free text.
+
+    Examples
+    --------
+    >>> from wetboil import Surface
+    >>> Surface("oxidised copper", static_deg=24, advancing_deg=33, receding_deg=11)
+    Surface('oxidised copper', static_deg=24, advancing_deg=33, receding_deg=11)
+    """
+
+    def __init__(
+        self,
+        name: str,
+        static_deg: Optional[float] = None,
+        advancing_deg: Optional[float] = None,
+        receding_deg: Optional[float] = None,
+        *,
+        angles_are: str = "apparent",
+        roughness_ratio: float = 1.0,
+        solid_fraction: Optional[float] = None,
+        Rp: float = 1e-6,
+        C_sf: Optional[float] = None,
+        n: float = 1.0,
+        cavity_radius: Optional[float] = None,
+        cavity_half_angle_deg: Optional[float] = None,
+        probe_static_deg: Optional[Mapping[str, float]] = None,
+        probe_advancing_deg: Optional[Mapping[str, float]] = None,
+        probe_receding_deg: Optional[Mapping[str, float]] = None,
+        notes: str = "",
+    ) -> None:
+        if not isinstance(name, str) or not name.strip():
+            raise WetboilTypeError(f"Surface: name must be a non-empty string, got {name!r}")
+        self.name = name.strip()
+        angles = [_number(self.name, k, v, 0.0, 180.0) for k, v in zip(_ANGLE_KEYS, (static_deg, advancing_deg, receding_deg))]
+        self.static_deg, self.advancing_deg, self.receding_deg = angles
+        if angles_are not in ("apparent", "intrinsic"):
+            raise WetboilValueError(f"surface {self.name!r}: angles_are must be 'apparent' or 'intrinsic', got {angles_are!r}")
+        self.angles_are = angles_are
+        self.roughness_ratio = _number(self.name, "roughness_ratio", roughness_ratio, 1.0)
+        self.solid_fraction = _number(self.name, "solid_fraction", solid_fraction, 0.0, 1.0, lo_open=True)
+        self.Rp = _number(self.name, "Rp", Rp, 0.0, lo_open=True)
+        self.C_sf = _number(self.name, "C_sf", C_sf, 0.0, lo_open=True)
+        self.n = _number(self.name, "n", n, 0.0, lo_open=True)
+        self.cavity_radius = _number(self.name, "cavity_radius", cavity_radius, 0.0, lo_open=True)
+        self.cavity_half_angle_deg = _number(self.name, "cavity_half_angle_deg", cavity_half_angle_deg, 0.0, 90.0, lo_open=True)
+        self.probe_static_deg = self._probe("probe_static_deg", probe_static_deg)
+        self.probe_advancing_deg = self._probe("probe_advancing_deg", probe_advancing_deg)
+        self.probe_receding_deg = self._probe("probe_receding_deg", probe_receding_deg)
+        if not isinstance(notes, str):
+            raise WetboilTypeError(f"surface {self.name!r}: notes must be a string")
+        self.notes = notes
+        self._validate()
+
+    def _probe(self, key: str, value: Optional[Mapping[str, float]]) -> Optional[Dict[str, float]]:
+        if value is None:
+            return None
+        if not isinstance(value, Mapping):
+            raise WetboilTypeError(f"surface {self.name!r}: {key} must map probe-liquid names to angles")
+        out = {str(k): _number(self.name, f"{key}.{k}", v, 0.0, 180.0) for k, v in value.items()}
+        if len(out) < 2:
+            raise WetboilValueError(f"surface {self.name!r}: {key} needs at least two probe liquids, got {len(out)}")
+        return out  # type: ignore[return-value]
+
+    def _validate(self) -> None:
+        direct = self.static_deg is not None
+        probes = self.probe_static_deg is not None
+        if direct == probes:
+            raise WetboilValueError(
+                f"surface {self.name!r}: give either the working fluid's angles (static_deg, ...) "
+                "or probe-liquid angles (probe_static_deg), not both or neither"
+            )
+        a, s, r = self.advancing_deg, self.static_deg, self.receding_deg
+        if a is not None and r is not None and a < r:
+            raise WetboilValueError(f"surface {self.name!r}: advancing angle {a:g} deg is below the receding angle {r:g} deg")
+        if s is not None and a is not None and a < s:
+            raise WetboilValueError(f"surface {self.name!r}: advancing angle {a:g} deg is below the static angle {s:g} deg")
+        if s is not None and r is not None and r > s:
+            raise WetboilValueError(f"surface {self.name!r}: receding angle {r:g} deg is above the static angle {s:g} deg")
+        if self.solid_fraction is not None and self.angles_are != "intrinsic":
+            raise WetboilValueError(
+                f"surface {self.name!r}: solid_fraction converts intrinsic angles; set angles_are = 'intrinsic'"
+            )
+
+    # -- the working fluid's angles -------------------------------------------------
+    def angles(self, fluid: Optional[Saturation] = None) -> WorkingAngles:
+        """Apparent static, advancing and receding angles of the working fluid
+        [deg].
+
+        Direct angles are returned as given (after Wenzel / Cassie-Baxter when
+        they are intrinsic). Probe-liquid angles need `fluid`: the surface
+        energy is fitted to each probe set (static, advancing, receding) and
+        the working fluid's angle predicted with its surface tension at
+        saturation, split into dispersive and polar parts in the proportions
+        of water at 20 C (`wetboil.wetting.split_surface_tension`, our
+        assumption). Missing advancing/receding data give the static angle
+        (no hysteresis).
+        """
+        from . import wetting
+
+        if self.static_deg is not None:
+            s = self.static_deg
+            a = self.advancing_deg if self.advancing_deg is not None else s
+            r = self.receding_deg if self.receding_deg is not None else s
+        else:
+            if not isinstance(fluid, Saturation):
+                raise WetboilTypeError(
+                    f"surface {self.name!r} is described by probe-liquid angles: angles() needs the working fluid "
+                    "(a wetboil.fluids.Saturation)"
+                )
+            d, p = wetting.split_surface_tension(fluid.sigma)
+
+            def predict(probes: Optional[Dict[str, float]]) -> Any:
+                if probes is None:
+                    return None
+                energy = wetting.surface_energy(list(probes.values()), list(probes.keys()))
+                return wetting.predict_angle(energy, d, p)
+
+            s = predict(self.probe_static_deg)
+            a = predict(self.probe_advancing_deg)
+            r = predict(self.probe_receding_deg)
+            a = s if a is None else a
+            r = s if r is None else r
+        if self.angles_are == "intrinsic":
+            if self.solid_fraction is not None:
+                f = self.solid_fraction
+                s, a, r = (wetting.cassie_baxter(x, f, self.roughness_ratio) for x in (s, a, r))
+            elif self.roughness_ratio != 1.0:
+                s, a, r = (wetting.wenzel(x, self.roughness_ratio) for x in (s, a, r))
+        return WorkingAngles(s, a, r)
+
+    # -- records -------------------------------------------------------------------
+    def to_dict(self) -> Dict[str, Any]:
+        """The description as a plain dict (None for what is not known)."""
+        return {k: getattr(self, k) for k in _KEYS}
+
+    @classmethod
+    def from_dict(cls, record: Mapping[str, Any]) -> "Surface":
+        """A surface from a dict with the keys of `to_dict` (unknown keys raise)."""
+        unknown = set(record) - set(_KEYS)
+        if unknown:
+            raise WetboilValueError(f"surface {record.get('name', '?')!r}: unknown key(s) {sorted(unknown)}; "
+                                    f"known keys are {list(_KEYS)}")
+        if "name" not in record:
+            raise WetboilValueError("surface record without a name")
+        kw = {k: v for k, v in record.items() if v is not None and k != "name"}
+        return cls(record["name"], **kw)
+
+    def __eq__(self, other: object) -> bool:
+        return isinstance(other, Surface) and self.to_dict() == other.to_dict()
+
+    def __repr__(self) -> str:
+        parts = [repr(self.name)]
+        defaults = {"angles_are": "apparent", "roughness_ratio": 1.0, "Rp": 1e-6, "n": 1.0, "notes": ""}
+        for k in _KEYS[1:]:
+            v = getattr(self, k)
+            if v is None or defaults.get(k, object()) == v:
+                continue
+            parts.append(f"{k}={v:g}" if isinstance(v, float) else f"{k}={v!r}")
+        return f"Surface({', '.join(parts)})"
+
+
+# ---------------------------------------------------------------------------------
+# files
+
+
+def _line_of(text: str, key: str, occurrence: int = 0) -> int:
+    """1-based line of the `occurrence`-th assignment to `key` in a TOML text."""
+    pat = re.compile(rf"^\s*{re.escape(key)}\s*=")
+    hits = [i + 1 for i, line in enumerate(text.splitlines()) if pat.match(line)]
+    return hits[occurrence] if occurrence < len(hits) else 0
+
+
+def _from_toml(path: pathlib.Path) -> List[Surface]:
+    text = path.read_text()
+    try:
+        data = _toml.loads(text)
+    except _toml.TOMLDecodeError as exc:
+        raise SurfaceFileError(f"{path}: not valid TOML: {exc}") from None
+    records = data.get("surface")
+    if not isinstance(records, list) or not records:
+        raise SurfaceFileError(f"{path}: no [[surface]] tables found")
+    out = []
+    seen: Dict[str, int] = {}
+    for rec in records:
+        for key in rec:
+            if key not in _KEYS:
+                n = seen.get(key, 0)
+                seen[key] = n + 1
+                raise SurfaceFileError(
+                    f"{path}:{_line_of(text, key, n)}: unknown key {key!r} in surface {rec.get('name', '?')!r}; "
+                    f"known keys are {', '.join(_KEYS)}"
+                )
+        try:
+            out.append(Surface.from_dict(rec))
+        except (WetboilValueError, WetboilTypeError) as exc:
+            bad = next((k for k in rec if k in str(exc)), "name")
+            raise SurfaceFileError(f"{path}:{_line_of(text, bad)}: {exc}") from None
+    return out
+
+
+def _from_csv(path: pathlib.Path) -> List[Surface]:
+    text = path.read_text()
+    reader = csv.DictReader(io.StringIO(text))
+    if reader.fieldnames is None:
+        raise SurfaceFileError(f"{path}: empty CSV file")
+    out = []
+    for line_no, row in enumerate(reader, start=2):
+        rec: Dict[str, Any] = {}
+        for key, value in row.items():
+            if key is None:
+                raise SurfaceFileError(f"{path}:{line_no}: more values than column names")
+            value = (value or "").strip()
+            if ":" in key:
+                group, liquid = key.split(":", 1)
+                if group not in _PROBE_KEYS:
+                    raise SurfaceFileError(f"{path}:1: unknown column {key!r}")
+                if value:
+                    rec.setdefault(group, {})[liquid] = _csv_number(path, line_no, key, value)
+                continue
+            if key not in _KEYS:
+                raise SurfaceFileError(f"{path}:1: unknown column {key!r}; known columns are {', '.join(_KEYS)}")
+            if value == "":
+                continue
+            rec[key] = value if key in ("name", "angles_are", "notes") else _csv_number(path, line_no, key, value)
+        try:
+            out.append(Surface.from_dict(rec))
+        except (WetboilValueError, WetboilTypeError) as exc:
+            raise SurfaceFileError(f"{path}:{line_no}: {exc}") from None
+    if not out:
+        raise SurfaceFileError(f"{path}: no surfaces")
+    return out
+
+
+def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
+    try:
+        return float(value)
+    except ValueError:
+        raise SurfaceFileError(f"{path}:{line}: {key} = {value!r} is not a number") from None
+
+
+def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
+    """Read surfaces from a TOML file (``[[surface]]`` tables with the keys of
+    `Surface`) or a CSV file (one row per surface; probe angles as columns
+    ``probe_static_deg:water`` ...). Errors name the file, line and key."""
+    path = pathlib.Path(path)
+    if not path.exists():
+        raise SurfaceFileError(f"{path}: no such file")
+    if path.suffix.lower() == ".toml":
+        return _from_toml(path)
+    if path.suffix.lower() == ".csv":
+        return _from_csv(path)
+    raise SurfaceFileError(f"{path}: unknown format (use .toml or .csv)")
+
+
+def _toml_value(v: Any) -> str:
+    if isinstance(v, str):
+        return '"' + v.replace("\\", "\\\\").replace('"', '\\"') + '"'
+    return repr(float(v))
+
+
+def save_surfaces(surfaces: Iterable[Surface], path: Union[str, pathlib.Path]) -> pathlib.Path:
+    """Write surfaces to a TOML or CSV file (by the extension) that
+    `load_surfaces` reads back unchanged."""
+    path = pathlib.Path(path)
+    surfaces = list(surfaces)
+    if not all(isinstance(s, Surface) for s in surfaces):
+        raise WetboilTypeError("save_surfaces: expected Surface objects")
+    if path.suffix.lower() == ".toml":
+        lines = ["# wetboil surface descriptions", ""]
+        for s in surfaces:
+            lines.append("[[surface]]")
+            probes = []
+            for k, v in s.to_dict().items():
+                if v is None:
+                    continue
+                if isinstance(v, dict):
+                    probes.append((k, v))
+                    continue
+                lines.append(f"{k} = {_toml_value(v)}")
+            for k, v in probes:
+                lines.append(f"[surface.{k}]")
+                lines.extend(f'"{liq}" = {_toml_value(a)}' for liq, a in v.items())
+            lines.append("")
+        path.write_text("\n".join(lines))
+    elif path.suffix.lower() == ".csv":
+        probe_cols = sorted({f"{k}:{liq}" for s in surfaces for k in _PROBE_KEYS for liq in (getattr(s, k) or {})})
+        cols = [k for k in _KEYS if k not in _PROBE_KEYS] + probe_cols
+        with path.open("w", newline="") as fh:
+            w = csv.DictWriter(fh, fieldnames=cols)
+            w.writeheader()
+            for s in surfaces:
+                d = s.to_dict()
+                row = {k: ("" if d[k] is None else d[k]) for k in cols if ":" not in k}
+                for col in probe_cols:
+                    group, liq = col.split(":", 1)
+                    row[col] = (d[group] or {}).get(liq, "")
+                w.writerow(row)
+    else:
+        raise WetboilValueError(f"save_surfaces: unknown format {path.suffix!r} (use .toml or .csv)")
+    return path

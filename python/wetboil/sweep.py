@@ -1,0 +1,468 @@
+"""Describe surfaces once, sweep every operating point, get a ranked answer.
+
+`sweep` evaluates the whole chain (working-fluid angles, onset of boiling,
+active cavities, bubble departure, nucleate superheat at the design heat flux,
+critical heat flux and its margin) over labelled grids of surfaces, pressures
+or temperatures, heat fluxes, orientations and subcoolings, and returns an
+`xarray.Dataset`; with ``chunks=`` the same call is lazy on dask (and runs on
+a `dask.distributed` cluster when a client is active). `screen` flattens it
+to a `pandas.DataFrame` ranked by CHF margin.
+
+Every quantity is computed for all grid points in one pass per block (one
+NumPy-level evaluation of the chain per chunk), and every kernel reports the
+points where an input left its published validity range (`flag` variables),
+so that a result table can say which rows are extrapolations.
+
+.. warning::
+   CHF margins computed here inherit the uncertainty of the correlations
+   (tens of percent) and their validity ranges. Apply safety margins and
+   defer to local codes and licensed engineering practice.
+"""
+
+from __future__ import annotations
+
+import math
+from typing import Any, Dict, Iterable, List, Mapping, Optional, Sequence, Tuple, Union
+
+import numpy as np
+
+from . import boiling, chf, departure, nucleation
+from ._api import capture_validity
+from ._errors import WetboilTypeError, WetboilValueError, errstate
+from .fluids import Saturation, from_coolprop, water
+from .surface import Surface
+
+__all__ = ["sweep", "screen", "DEFAULT_METHODS", "QUANTITIES", "METHOD_CHOICES"]
+
+#: Methods used when `methods` does not say otherwise.
+DEFAULT_METHODS: Dict[str, Any] = {
+    "onset": "hsu",
+    "departure": "fritz",
+    "frequency": "zuber",
+    "nucleate": "auto",
+    "chf": ("kandlikar", "zuber"),
+}
+
+#: Choices per method key.
+METHOD_CHOICES: Dict[str, Tuple[str, ...]] = {
+    "onset": ("hsu", "davis_anderson", "kandlikar", "bergles_rohsenow"),
+    "departure": ("fritz", "fritz_jakob", "cole_rohsenow", "kocamustafaogullari_ishii"),
+    "frequency": ("zuber", "cole", "ivey", "kocamustafaogullari_ishii"),
+    "nucleate": ("auto", "rohsenow", "cooper"),
+    "chf": ("kandlikar", "zuber", "lienhard_dhir_flat"),
+}
+
+#: Output variables with units and meaning (also the flag bit order).
+QUANTITIES: Dict[str, Tuple[str, str]] = {
+    "static_angle": ("deg", "working fluid's apparent static contact angle"),
+    "advancing_angle": ("deg", "working fluid's apparent advancing contact angle"),
+    "receding_angle": ("deg", "working fluid's apparent receding contact angle"),
+    "onset_superheat": ("K", "wall superheat at the onset of nucleate boiling at the design heat flux"),
+    "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset"),
+    "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux"),
+    "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu)"),
+    "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu)"),
+    "departure_diameter": ("m", "bubble departure diameter"),
+    "departure_frequency": ("Hz", "bubble departure frequency"),
+    "chf": ("W/m2", "critical heat flux by the first (design) CHF method"),
+    "chf_margin": ("-", "critical heat flux of the design method / design heat flux"),
+}
+
+
+def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
+    out = dict(DEFAULT_METHODS)
+    if methods is None:
+        return out
+    if not isinstance(methods, Mapping):
+        raise WetboilTypeError(f"methods must be a mapping like {DEFAULT_METHODS}, got {type(methods).__name__}")
+    for key, value in methods.items():
+        if key not in METHOD_CHOICES:
+            raise WetboilValueError(f"methods: unknown key {key!r}; keys are {sorted(METHOD_CHOICES)}")
+        values = (value,) if isinstance(value, str) else tuple(value)
+        if key != "chf" and len(values) != 1:
+            raise WetboilValueError(f"methods[{key!r}] takes one method name, got {value!r}")
+        if not values:
+            raise WetboilValueError(f"methods[{key!r}] is empty")
+        for v in values:
+            if v not in METHOD_CHOICES[key]:
+                raise WetboilValueError(f"methods[{key!r}]: unknown method {v!r}; choices are {METHOD_CHOICES[key]}")
+        out[key] = values if key == "chf" else values[0]
+    return out
+
+
+def _axis(name: str, values: Any, xr: Any) -> Any:
+    arr = np.atleast_1d(np.asarray(values, dtype=float))
+    if arr.ndim != 1:
+        raise WetboilValueError(f"sweep: {name} must be a number or a 1-D sequence, got shape {arr.shape}")
+    if arr.size == 0:
+        raise WetboilValueError(f"sweep: the {name} axis is empty")
+    return xr.DataArray(arr, dims=name, coords={name: arr})
+
+
+def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str]:
+    """The saturated states of the sweep along one labelled axis."""
+    if isinstance(fluid, Saturation):
+        if p is not None or T is not None:
+            raise WetboilValueError("sweep: give p or T with a fluid name, not with a Saturation")
+        shape = fluid.shape
+        if len(shape) > 1:
+            raise WetboilValueError(f"sweep: a Saturation fluid must be a single state or 1-D, got shape {shape}")
+        if shape == ():
+            return fluid, ""
+        axis = _axis("p", fluid.p, xr) if not np.isnan(np.asarray(fluid.p)).any() else xr.DataArray(
+            np.arange(shape[0]), dims="state")
+        dim = axis.dims[0]
+        fields = {}
+        for f in ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
+                  "molar_mass", "T_crit", "p_crit"):
+            v = getattr(fluid, f)
+            fields[f] = v if np.ndim(v) == 0 else xr.DataArray(np.asarray(v), dims=dim, coords=axis.coords)
+        return Saturation(**fields, name=fluid.name), dim
+    if not isinstance(fluid, str):
+        raise WetboilTypeError(f"sweep: fluid must be a fluid name or a Saturation, got {type(fluid).__name__}")
+    if (p is None) == (T is None):
+        raise WetboilValueError("sweep: give exactly one of p [Pa] or T [K] with a fluid name")
+    dim = "p" if p is not None else "T"
+    axis = _axis(dim, p if p is not None else T, xr)
+    if fluid.lower() == "water":
+        return (water(p=axis) if dim == "p" else water(T=axis)), dim
+    return (from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)), dim
+
+
+def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> Dict[str, Any]:
+    """Per-surface inputs as DataArrays along `surface` (angles may also vary
+    with the fluid state when they are predicted from probe liquids)."""
+    names = [s.name for s in surfaces]
+    if len(set(names)) != len(names):
+        raise WetboilValueError(f"sweep: surface names must be unique, got {names}")
+    coord = {"surface": names}
+    angles, invalid, out_of_range = [], [], []
+    for s in surfaces:
+        # the angle conversions (Wenzel, Cassie-Baxter, OWRK) are flagged like every other step
+        with errstate(invalid="ignore", out_of_range="ignore"), capture_validity() as cap:
+            angles.append(s.angles(fluid))
+        invalid.append(bool(np.any(cap.invalid)))
+        out_of_range.append(bool(np.any(cap.out_of_range)))
+
+    def stack(values: List[Any]) -> Any:
+        arrs = [v if hasattr(v, "dims") else xr.DataArray(v) for v in values]
+        return xr.concat(arrs, dim="surface").assign_coords(coord)
+
+    table = {
+        "static_angle": stack([a.static_deg for a in angles]),
+        "advancing_angle": stack([a.advancing_deg for a in angles]),
+        "receding_angle": stack([a.receding_deg for a in angles]),
+    }
+    table["angle_invalid"] = xr.DataArray(np.asarray(invalid, dtype=float), dims="surface", coords=coord)
+    table["angle_out_of_range"] = xr.DataArray(np.asarray(out_of_range, dtype=float), dims="surface", coords=coord)
+    for key, default in (("C_sf", math.nan), ("n", 1.0), ("Rp", 1e-6)):
+        vals = [getattr(s, key) if getattr(s, key) is not None else default for s in surfaces]
+        table[key] = xr.DataArray(np.asarray(vals, dtype=float), dims="surface", coords=coord)
+    return table
+
+
+def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation) -> Dict[str, Tuple[Any, Any, Any]]:
+    """Evaluate every quantity on NumPy arrays; return name -> (value,
+    invalid mask, out-of-range mask)."""
+    out: Dict[str, Tuple[Any, Any, Any]] = {}
+    q = inputs["in_heat_flux"]
+    phi = inputs["in_orientation"]
+    sub = inputs["in_subcooling"]
+    static, adv, rec = inputs["static_angle"], inputs["advancing_angle"], inputs["receding_angle"]
+
+    def run(name: str, fn: Any) -> Any:
+        with capture_validity() as cap:
+            value = fn()
+        out[name] = (value, cap.invalid, cap.out_of_range)
+        return value
+
+    angle_flags = (inputs["angle_invalid"] > 0, inputs["angle_out_of_range"] > 0)
+    for name, value in (("static_angle", static), ("advancing_angle", adv), ("receding_angle", rec)):
+        out[name] = (value,) + angle_flags
+    onset_angle = rec if methods["onset"] == "kandlikar" else static
+    run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]))
+    run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]))
+
+    def nucleate() -> Any:
+        m = methods["nucleate"]
+        c_sf = inputs["C_sf"]
+        by_cooper = boiling.cooper_superheat(q, fluid, inputs["Rp"]) if m in ("auto", "cooper") else None
+        if m == "cooper":
+            return by_cooper
+        by_rohsenow = boiling.rohsenow_superheat(q, fluid, np.where(np.isnan(c_sf), 0.013, c_sf), inputs["n"])
+        if m == "rohsenow":
+            return by_rohsenow
+        return np.where(np.isnan(c_sf), by_cooper, by_rohsenow)
+
+    dtw = run("nucleate_superheat", nucleate)
+    # linear thermal layer carrying the design flux: delta = k_l (dT_w + dT_sub) / q
+    delta = fluid.k_l * (dtw + sub) / q
+    radii = run("cavity_radius", lambda: nucleation.hsu_active_radii(dtw, fluid, static, delta, sub))
+    v, inv, oor = out.pop("cavity_radius")
+    out["cavity_radius_min"] = (radii.r_min, inv, oor)
+    out["cavity_radius_max"] = (radii.r_max, inv, oor)
+    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"]))
+    run("departure_frequency", lambda: departure.frequency(d, fluid, method=methods["frequency"]))
+    values = []
+    for m in methods["chf"]:
+        if m == "kandlikar":
+            values.append(run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi)))
+        elif m == "zuber":
+            values.append(run(f"chf_{m}", lambda: chf.zuber(fluid) * np.ones_like(rec)))
+        else:  # lienhard_dhir_flat: large flat heater facing up (K = 0.149)
+            values.append(run(f"chf_{m}", lambda: chf.zuber(fluid, K=0.149) * np.ones_like(rec)))
+    # The first selected method is the design method: its CHF and margin are
+    # reported as "chf" and "chf_margin"; the others stay as chf_<method>.
+    primary, inv, oor = out[f"chf_{methods['chf'][0]}"]
+    out["chf"] = (primary, inv, oor)
+    out["chf_margin"] = (primary / q, inv, oor)
+    return out
+
+
+def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], names: List[str]) -> Any:
+    """Evaluate the chain on one block of the broadcast input Dataset (NumPy
+    data); module-level so that dask can ship it to workers."""
+    import xarray as xr
+
+    arrays = {k: ds[k].values for k in ds.data_vars}
+    fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in _FLUID_FIELDS}, name=fluid_name)
+    with errstate(invalid="ignore", out_of_range="ignore"):
+        res = _chain(arrays, methods, fluid)
+    dims = ds[names[0]].dims
+    shape = ds[names[0]].shape
+    data: Dict[str, Any] = {}
+    invalid = np.zeros(shape, np.int32)
+    out_of_range = np.zeros(shape, np.int32)
+    for bit, (name, (value, inv, oor)) in enumerate(res.items()):
+        data[name] = (dims, np.broadcast_to(np.asarray(value, float), shape).copy())
+        invalid |= np.broadcast_to(np.asarray(inv, bool), shape) * np.int32(1 << bit)
+        out_of_range |= np.broadcast_to(np.asarray(oor, bool), shape) * np.int32(1 << bit)
+    data["invalid_flags"] = (dims, invalid)
+    data["range_flags"] = (dims, out_of_range)
+    return xr.Dataset(data, coords=ds.coords)
+
+
+_FLUID_FIELDS = ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
+                 "molar_mass", "T_crit", "p_crit")
+
+
+def sweep(
+    surfaces: Union[Surface, Sequence[Surface]],
+    fluid: Union[str, Saturation] = "water",
+    *,
+    p: Any = None,
+    T: Any = None,
+    heat_flux: Any,
+    orientation_deg: Any = 0.0,
+    subcooling: Any = 0.0,
+    methods: Optional[Mapping[str, Any]] = None,
+    chunks: Optional[Union[int, Mapping[str, int]]] = None,
+    progress: bool = False,
+    compute: bool = True,
+) -> Any:
+    """Evaluate the boiling chain over a labelled grid.
+
+    Parameters
+    ----------
+    surfaces : Surface or sequence of Surface
+        The candidate treatments (the ``surface`` axis).
+    fluid : str or Saturation
+        A fluid name with `p` or `T` ("water" is built in; other names go
+        through CoolProp), or ready saturated states (a single state or a 1-D
+        `Saturation`, whose pressure becomes the ``p`` axis).
+    p, T : array_like, optional
+        Saturation pressures [Pa] or temperatures [K] (the ``p`` or ``T`` axis).
+    heat_flux : array_like
+        Design wall heat fluxes [W/m2] (the ``heat_flux`` axis).
+    orientation_deg : array_like
+        Heater orientations [deg], 0 facing up, 90 vertical (``orientation``).
+    subcooling : array_like
+        Bulk liquid subcooling [K] (``subcooling``); it enters the active
+        cavity range (Hsu). The CHF correlations here are for saturated
+        liquid.
+    methods : mapping, optional
+        Method per step, e.g. ``{"onset": "kandlikar", "chf": ["kandlikar",
+        "zuber"]}``; see `DEFAULT_METHODS` and `METHOD_CHOICES`. The first CHF
+        method is the design method behind ``chf`` and ``chf_margin``; every
+        selected method also gets its own ``chf_<method>`` variable to compare
+        against. With "nucleate": "auto", Rohsenow is used where the surface
+        has a C_sf and Cooper elsewhere. Onset uses the static angle, or the
+        receding angle for "kandlikar"; departure uses the static angle; CHF
+        (Kandlikar) the receding angle.
+    chunks : int or mapping, optional
+        Chunk sizes (per axis name, or one size for every axis): the result
+        is computed lazily on dask, block by block (on a `dask.distributed`
+        cluster when a client is active).
+    progress : bool
+        Show a progress bar while computing a chunked sweep.
+    compute : bool
+        With `chunks`, return the computed Dataset (default) or the lazy one.
+
+    Returns
+    -------
+    xarray.Dataset
+        One variable per entry of `QUANTITIES` (units in ``attrs``), plus
+        ``chf_<method>`` for each CHF method, and two bit masks:
+        ``range_flags`` (bit i set: quantity i used a correlation outside its
+        published validity range) and ``invalid_flags`` (bit i set: quantity i
+        is NaN because an input was physically impossible); the bit order is
+        in their ``attrs["bits"]``.
+
+    Examples
+    --------
+    >>> import wetboil
+    >>> s = [wetboil.Surface("bare (invented)", 78, 88, 52), wetboil.Surface("oxidised (invented)", 24, 33, 11)]
+    >>> ds = wetboil.sweep(s, "water", p=[1e5, 5e5], heat_flux=4e5, orientation_deg=[0.0, 90.0])
+    >>> ds["chf_margin"].dims
+    ('surface', 'p', 'heat_flux', 'orientation', 'subcooling')
+    >>> bool((ds["chf_margin"].sel(surface="oxidised (invented)") > ds["chf_margin"].sel(surface="bare (invented)")).all())
+    True
+    """
+    import xarray as xr
+
+    if isinstance(surfaces, Surface):
+        surfaces = [surfaces]
+    surfaces = list(surfaces)
+    if not surfaces:
+        raise WetboilValueError("sweep: the surface axis is empty")
+    if not all(isinstance(s, Surface) for s in surfaces):
+        raise WetboilTypeError("sweep: surfaces must be wetboil.Surface objects")
+    meth = _methods(methods)
+    states, state_dim = _fluid_states(fluid, p, T, xr)
+    table = _surface_table(surfaces, states, xr)
+    axes = {
+        "heat_flux": _axis("heat_flux", heat_flux, xr),
+        "orientation": _axis("orientation", orientation_deg, xr),
+        "subcooling": _axis("subcooling", subcooling, xr),
+    }
+    if (axes["heat_flux"] <= 0).any():
+        raise WetboilValueError("sweep: heat_flux must be positive")
+    parts = dict(table)
+    parts.update({f"in_{k}": v for k, v in axes.items()})
+    for f in _FLUID_FIELDS:
+        v = getattr(states, f)
+        parts[f"fluid_{f}"] = v if hasattr(v, "dims") else xr.DataArray(float(v))
+    order = ["surface"] + ([state_dim] if state_dim else []) + ["heat_flux", "orientation", "subcooling"]
+    ds_in = xr.Dataset(parts)
+    ds_in = xr.broadcast(ds_in)[0].transpose(*order)
+    names = list(QUANTITIES)
+
+    template_needed = chunks is not None
+    if template_needed:
+        ds_in = ds_in.chunk(chunks if isinstance(chunks, Mapping) else {d: chunks for d in order})
+        template = _template(ds_in, meth, order)
+        result = xr.map_blocks(_block, ds_in, args=(meth, states.name, ["static_angle"]), template=template)
+        if compute:
+            if progress:
+                result = _compute_with_progress(result)
+            else:
+                result = result.compute()
+    else:
+        result = _block(ds_in.compute(), meth, states.name, ["static_angle"])
+    return _decorate(result, meth, state_dim)
+
+
+def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
+    import dask.array as da
+    import xarray as xr
+
+    like = ds_in["static_angle"]
+    names = list(QUANTITIES)[:3] + list(QUANTITIES)[3:5] + ["nucleate_superheat", "cavity_radius_min",
+                                                             "cavity_radius_max", "departure_diameter",
+                                                             "departure_frequency"]
+    names += [f"chf_{m}" for m in meth["chf"]] + ["chf", "chf_margin"]
+    data = {n: (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=float)) for n in names}
+    for n in ("invalid_flags", "range_flags"):
+        data[n] = (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=np.int32))
+    return xr.Dataset(data, coords=ds_in.coords)
+
+
+def _compute_with_progress(result: Any) -> Any:
+    try:
+        from distributed import get_client
+
+        client = get_client()
+    except (ImportError, ValueError):
+        client = None
+    if client is not None:
+        from distributed import progress as dist_progress
+
+        persisted = result.persist()
+        dist_progress(persisted)
+        return persisted.compute()
+    from dask.diagnostics import ProgressBar
+
+    with ProgressBar():
+        return result.compute()
+
+
+def _decorate(ds: Any, meth: Dict[str, Any], state_dim: str) -> Any:
+    bits = []
+    for name in (n for n in ds.data_vars if n not in ("invalid_flags", "range_flags")):
+        bits.append(name)
+        unit, long_name = QUANTITIES.get(name, ("W/m2", f"critical heat flux, method {name[4:]}"))
+        ds[name].attrs.update(units=unit, long_name=long_name)
+    for n in ("invalid_flags", "range_flags"):
+        ds[n].attrs["bits"] = ",".join(bits)  # bit i <-> i-th name
+        ds[n].attrs["long_name"] = ("quantities that are NaN because an input was impossible" if n == "invalid_flags"
+                                    else "quantities computed outside a correlation's published validity range")
+    for axis, unit in (("heat_flux", "W/m2"), ("orientation", "deg"), ("subcooling", "K"), ("p", "Pa"), ("T", "K")):
+        if axis in ds.coords:
+            ds[axis].attrs["units"] = unit
+    ds.attrs.update(
+        methods=str({k: list(v) if isinstance(v, tuple) else v for k, v in meth.items()}),
+        caution="CHF predictions carry correlation uncertainty of tens of percent and hold only inside their "
+        "validity ranges; apply safety margins and defer to local codes and licensed engineering practice.",
+        created_by="wetboil",
+    )
+    return ds
+
+
+def _flag_text(mask: int, bits: List[str]) -> str:
+    return ", ".join(name for bit, name in enumerate(bits) if mask & (1 << bit))
+
+
+def screen(
+    surfaces: Union[Surface, Sequence[Surface]],
+    fluid: Union[str, Saturation] = "water",
+    heat_flux: Any = None,
+    orientation_deg: Any = 0.0,
+    subcooling: Any = 0.0,
+    methods: Optional[Mapping[str, Any]] = None,
+    *,
+    p: Any = None,
+    T: Any = None,
+) -> Any:
+    """Rank surface treatments: one row per surface and operating point.
+
+    Takes the arguments of `sweep` (the operating points are the grid of the
+    given pressures or states, heat fluxes, orientations and subcoolings) and
+    returns a `pandas.DataFrame` sorted by CHF margin, highest first (the
+    best candidates first; ties by surface name). Column names carry units; ``flags`` names the quantities whose correlations
+    left their published validity range on that row, ``impossible`` those
+    that are NaN because an input was impossible.
+
+    Examples
+    --------
+    >>> import wetboil
+    >>> s = [wetboil.Surface("bare (invented)", 78, 88, 52), wetboil.Surface("oxidised (invented)", 24, 33, 11)]
+    >>> df = wetboil.screen(s, "water", heat_flux=4e5, p=101325.0)
+    >>> list(df["surface"])
+    ['oxidised (invented)', 'bare (invented)']
+    """
+    if heat_flux is None:
+        raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
+    ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
+               subcooling=subcooling, methods=methods)
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    df = ds.to_dataframe().reset_index()
+    df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
+    df["impossible"] = [_flag_text(int(m), bits) for m in df.pop("invalid_flags")]
+    units = {name: ds[name].attrs.get("units", "") for name in ds.data_vars}
+    units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K"})
+    df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
+    df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
+    df.attrs["units"] = units
+    df.attrs["methods"] = ds.attrs["methods"]
+    df.attrs["caution"] = ds.attrs["caution"]
+    return df

@@ -1,0 +1,168 @@
+"""Surfaces, sweeps and screening: wiring (a sweep's numbers are those of the
+public functions it chains, which have their own reference tests), labels,
+flags, laziness, a dask.distributed cluster, and surface files."""
+
+import warnings
+
+import numpy as np
+import pytest
+
+xr = pytest.importorskip("xarray")
+pd = pytest.importorskip("pandas")
+
+import wetboil  # noqa: E402
+from wetboil import Surface, load_surfaces, save_surfaces  # noqa: E402
+from wetboil.chf import kandlikar, zuber  # noqa: E402
+from wetboil.departure import fritz, frequency  # noqa: E402
+from wetboil.fluids import water  # noqa: E402
+from wetboil.nucleation import hsu_active_radii, onset_superheat  # noqa: E402
+from wetboil.boiling import cooper_superheat, rohsenow_superheat  # noqa: E402
+
+# invented surfaces (test data only)
+SURFACES = [
+    Surface("bare (invented)", 78, 88, 52, C_sf=0.013),
+    Surface("oxidised (invented)", 24, 33, 11),
+    Surface("coated (invented)", 112, 120, 96),
+]
+
+
+def test_sweep_numbers_are_the_public_functions():
+    ds = wetboil.sweep(SURFACES, "water", p=[1e5, 1e6], heat_flux=[3e5], orientation_deg=[0.0, 60.0],
+                       subcooling=[0.0, 5.0])
+    assert ds["chf"].dims == ("surface", "p", "heat_flux", "orientation", "subcooling")
+    pt = dict(surface="bare (invented)", p=1e6, heat_flux=3e5, orientation=60.0, subcooling=5.0)
+    w = water(p=1e6)
+    v = ds.sel(pt)
+    assert float(v["chf_kandlikar"]) == kandlikar(52.0, w, 60.0)
+    assert float(v["chf_zuber"]) == zuber(w)
+    assert float(v["chf"]) == float(v["chf_kandlikar"])  # first method is the design method
+    assert float(v["chf_margin"]) == pytest.approx(kandlikar(52.0, w, 60.0) / 3e5, rel=1e-15)
+    assert float(v["onset_superheat"]) == onset_superheat(3e5, w, 78.0, method="hsu")
+    dtw = rohsenow_superheat(3e5, w, 0.013, 1.0)  # the surface has a C_sf: Rohsenow
+    assert float(v["nucleate_superheat"]) == pytest.approx(dtw, rel=1e-14)
+    radii = hsu_active_radii(dtw, w, 78.0, w.k_l * (dtw + 5.0) / 3e5, 5.0)
+    assert float(v["cavity_radius_min"]) == pytest.approx(radii.r_min, rel=1e-12)
+    assert float(v["departure_diameter"]) == fritz(78.0, w)
+    assert float(v["departure_frequency"]) == pytest.approx(frequency(fritz(78.0, w), w, method="zuber"), rel=1e-14)
+    # no C_sf: Cooper
+    v2 = ds.sel(pt | {"surface": "oxidised (invented)"})
+    assert float(v2["nucleate_superheat"]) == pytest.approx(cooper_superheat(3e5, w, 1e-6), rel=1e-14)
+    assert ds["chf"].attrs["units"] == "W/m2" and "caution" in ds.attrs
+
+
+def test_flags_mark_rows_outside_validity_ranges():
+    df = wetboil.screen(SURFACES, "water", heat_flux=3e5, p=101325.0, orientation_deg=[0.0, 120.0])
+    down = df[df["orientation [deg]"] == 120.0]
+    up = df[df["orientation [deg]"] == 0.0]
+    assert all("chf_kandlikar" in f for f in down["flags"])
+    assert not any("chf_kandlikar" in f for f in up["flags"])
+    # the coated surface's static angle (112 deg) is beyond Fritz's range
+    coated = up[up["surface"] == "coated (invented)"]
+    assert "departure_diameter" in coated["flags"].iloc[0]
+
+
+def test_screen_ranks_by_margin_with_units_in_columns():
+    df = wetboil.screen(SURFACES, "water", heat_flux=4e5, p=[101325.0, 5e5])
+    assert list(df["chf_margin [-]"]) == sorted(df["chf_margin [-]"], reverse=True)
+    assert "chf [W/m2]" in df.columns and "onset_superheat [K]" in df.columns
+    assert df.iloc[0]["surface"] == "oxidised (invented)"
+    assert len(df) == 3 * 2
+    assert "caution" in df.attrs
+
+
+def test_probe_liquid_surface_angles_vary_with_pressure():
+    s = Surface("probe (invented)", probe_static_deg={"water": 95.0, "diiodomethane": 50.0})
+    ds = wetboil.sweep([s], "water", p=[1e5, 1e7], heat_flux=3e5)
+    a = ds["static_angle"].sel(surface="probe (invented)").squeeze().values
+    assert a[0] != a[1]  # surface tension falls with temperature: the angle follows
+
+
+def test_bad_input_is_named():
+    with pytest.raises(ValueError, match="heat_flux axis is empty"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])
+    with pytest.raises(ValueError, match="unknown method"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=3e5, methods={"chf": ["magic"]})
+    with pytest.raises(ValueError, match="unknown key"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=3e5, methods={"chff": "zuber"})
+    with pytest.raises(ValueError, match="exactly one"):
+        wetboil.sweep(SURFACES, "water", heat_flux=3e5)
+    with pytest.raises(ValueError, match="advancing angle 20 deg is below the receding angle 30"):
+        Surface("x", 25, 20, 30)
+    with pytest.raises(ValueError, match="unique"):
+        wetboil.sweep([SURFACES[0], SURFACES[0]], "water", p=1e5, heat_flux=3e5)
+
+
+def _big_grid(**kw):
+    # 10 surfaces x 50 pressures x 20 heat fluxes x 10 orientations x 10 subcoolings = 10^6 points
+    rng = np.random.default_rng(3)
+    surfaces = []
+    for i in range(10):
+        r = float(rng.uniform(5, 80))
+        surfaces.append(Surface(f"S{i} (invented)", r + 10, r + 20, r, C_sf=0.013 if i % 2 else None))
+    return wetboil.sweep(surfaces, "water", p=np.geomspace(5e4, 5e6, 50), heat_flux=np.linspace(1e5, 1e6, 20),
+                         orientation_deg=np.linspace(0, 90, 10), subcooling=np.linspace(0, 20, 10), **kw)
+
+
+def test_million_point_sweep_in_process_dask_and_cluster_identical():
+    distributed = pytest.importorskip("distributed")
+    eager = _big_grid()
+    assert eager["chf"].size == 10**6
+    lazy = _big_grid(chunks={"surface": 5, "p": 25}, compute=False)
+    assert hasattr(lazy["chf"].data, "dask")
+    chunked = lazy.compute()
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        with distributed.LocalCluster(n_workers=2, threads_per_worker=1, processes=True,
+                                      dashboard_address=None) as cluster, distributed.Client(cluster):
+            clustered = _big_grid(chunks={"surface": 5, "p": 25})
+    for name in eager.data_vars:
+        np.testing.assert_array_equal(eager[name].values, chunked[name].values, err_msg=name)
+        np.testing.assert_array_equal(eager[name].values, clustered[name].values, err_msg=name)
+
+
+def test_results_save_to_netcdf_and_csv(tmp_path):
+    ds = wetboil.sweep(SURFACES, "water", p=[1e5, 2e5], heat_flux=3e5)
+    nc = tmp_path / "sweep.nc"
+    ds.to_netcdf(nc)
+    back = xr.load_dataset(nc)
+    np.testing.assert_array_equal(back["chf"].values, ds["chf"].values)
+    assert back["range_flags"].attrs["bits"] == ds["range_flags"].attrs["bits"]
+    csv = tmp_path / "sweep.csv"
+    ds.to_dataframe().to_csv(csv)
+    assert len(pd.read_csv(csv)) == ds["chf"].size
+
+
+# --------------------------------------------------------------------------- surface files
+
+
+def test_surface_files_round_trip(tmp_path):
+    surfaces = SURFACES + [
+        Surface("probe (invented)", probe_static_deg={"water": 95.0, "diiodomethane": 50.0},
+                probe_receding_deg={"water": 70.0, "diiodomethane": 40.0}, Rp=2e-6, notes='quoted "note"'),
+        Surface("textured (invented)", 40, 50, 30, angles_are="intrinsic", roughness_ratio=1.8),
+    ]
+    for ext in ("toml", "csv"):
+        path = save_surfaces(surfaces, tmp_path / f"s.{ext}")
+        assert load_surfaces(path) == surfaces
+
+
+def test_surface_file_errors_name_key_and_line(tmp_path):
+    bad = tmp_path / "bad.toml"
+    bad.write_text('[[surface]]\nname = "a"\nstatic_deg = 30.0\n\n[[surface]]\nname = "b"\nstatik_deg = 30.0\n')
+    with pytest.raises(ValueError, match=r"bad.toml:7: unknown key 'statik_deg'"):
+        load_surfaces(bad)
+    bad.write_text('[[surface]]\nname = "a"\nstatic_deg = 30.0\nadvancing_deg = 20.0\nreceding_deg = 25.0\n')
+    with pytest.raises(ValueError, match=r"bad.toml:\d+: surface 'a': advancing angle 20"):
+        load_surfaces(bad)
+    badcsv = tmp_path / "bad.csv"
+    badcsv.write_text("name,static_deg\na,thirty\n")
+    with pytest.raises(ValueError, match=r"bad.csv:2: static_deg = 'thirty' is not a number"):
+        load_surfaces(badcsv)
+
+
+def test_intrinsic_angles_go_through_wenzel():
+    s = Surface("t (invented)", 60, 70, 50, angles_are="intrinsic", roughness_ratio=1.5)
+    a = s.angles()
+    # Wenzel: cos(theta*) = r cos(theta)
+    assert np.cos(np.radians(a.static_deg)) == pytest.approx(1.5 * np.cos(np.radians(60)), rel=1e-12)
+    assert repr(s).startswith("Surface('t (invented)'")
