@@ -321,3 +321,45 @@ def test_validity_keeps_labels():
     beta = xr.DataArray([10.0, 200.0], dims="surface")
     codes = wetboil.validity(fritz, beta, WATER)
     assert codes.dims == ("surface",) and codes.values.tolist() == [0, 1]
+
+
+# --------------------------------------------------------------------------- the parallel grid path
+
+
+def test_grid_path_matches_the_ufunc_bit_for_bit():
+    # array-to-array broadcasting of 2000 x 100 points takes the grid path
+    beta = np.linspace(0.0, 90.0, 2000)[:, None]
+    sat = WATER.replace(sigma=np.linspace(0.03, 0.07, 100), rho_v=np.linspace(0.5, 5.0, 100))
+    phi = np.array(30.0)
+    got = kandlikar(beta, sat, phi)
+    uf = wetboil.ufunc_of(kandlikar)
+    expect = uf(beta, phi, sat.h_lv, sat.rho_l, sat.rho_v, sat.sigma, G)
+    assert got.shape == (2000, 100)
+    np.testing.assert_array_equal(got, expect)
+    # layouts that NumPy would buffer: big-endian, float32, strided, Fortran
+    x = np.random.default_rng(5).uniform(0, 90, (300, 400))
+    base = fritz(np.ascontiguousarray(x), WATER)
+    for variant in (x.astype(">f8"), np.asfortranarray(x), x[:, ::-1][:, ::-1], np.repeat(x, 2, axis=1)[:, ::2]):
+        np.testing.assert_array_equal(fritz(variant, WATER), base)
+    np.testing.assert_array_equal(fritz(x.astype(np.float32), WATER), fritz(x.astype(np.float32).astype(float), WATER))
+
+
+def test_grid_path_counts_and_threads():
+    beta = np.concatenate([np.linspace(0, 90, 999), [200.0]])[:, None]  # one impossible row
+    phi = np.array([0.0, 120.0] * 50)[None, :]  # half the columns out of range
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        q = kandlikar(beta, WATER, phi)
+    msgs = {w.category: str(w.message) for w in rec}
+    assert "100 of 100000" in msgs[wetboil.InvalidValueWarning]
+    assert "49950 of 100000" in msgs[wetboil.RangeWarning]  # 999 possible rows x 50 columns
+    assert np.isnan(q[-1]).all()
+    old = wetboil.get_num_threads()
+    try:
+        wetboil.set_num_threads(1)
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            serial = kandlikar(beta, WATER, phi)
+    finally:
+        wetboil.set_num_threads(old)
+    np.testing.assert_array_equal(serial, q)

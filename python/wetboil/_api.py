@@ -191,17 +191,49 @@ def capture_validity() -> Iterator[ValidityCapture]:
         _CAPTURE.reset(token)
 
 
+#: Below this many elements every call goes through the ufunc.
+GRID_MIN = 1 << 15
+
+
+def _grid_worthy(arrays: Sequence[Any]) -> Optional[Tuple[int, ...]]:
+    """The broadcast shape when a call should take the grid path: large, and
+    NumPy would otherwise buffer it (array-to-array broadcasting, casting,
+    byte swapping, non-contiguous data), which rules out threads."""
+    shapes = [np.shape(a) for a in arrays]
+    shape = np.broadcast_shapes(*shapes)
+    if int(np.prod(shape)) < GRID_MIN:
+        return None
+    for a, s in zip(arrays, shapes):
+        if s == ():
+            continue
+        if s != shape or not isinstance(a, np.ndarray) or a.dtype != np.float64 or not a.flags.c_contiguous \
+                or not a.flags.aligned:
+            return tuple(shape)
+    return None
+
+
 def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
-    """Evaluate kernel `name` on NumPy-compatible arrays through its ufunc and
-    apply the element policy. Module-level and picklable (used by dask)."""
-    uf = getattr(_core, name)
+    """Evaluate kernel `name` on NumPy-compatible arrays and apply the element
+    policy. Whole contiguous float64 arrays (and arrays against scalars) go
+    through the ufunc, which threads them itself; large broadcast grids and
+    other layouts go through the parallel grid path. Module-level and
+    picklable (used by dask)."""
     cap = _CAPTURE.get()
     if cap is not None:
         cap.add(getattr(_core, f"{name}_status")(*arrays))
-    _core.take_counts()  # discard counts of direct ufunc calls made earlier
-    with np.errstate(all="ignore"):  # our own policy reports NaNs, not NumPy's FP flags
-        outs = uf(*arrays)
-    invalid, out_of_range = _core.take_counts()
+    shape = _grid_worthy(arrays)
+    if shape is not None:
+        n_out = len(MODELS[name].outputs)
+        ins = [np.broadcast_to(np.asarray(a, dtype=np.float64), shape) for a in arrays]
+        outs_list = [np.empty(shape) for _ in range(n_out)]
+        invalid, out_of_range = _core.grid_call(name, ins, outs_list)
+        outs: Any = outs_list[0] if n_out == 1 else tuple(outs_list)
+    else:
+        uf = getattr(_core, name)
+        _core.take_counts()  # discard counts of direct ufunc calls made earlier
+        with np.errstate(all="ignore"):  # our own policy reports NaNs, not NumPy's FP flags
+            outs = uf(*arrays)
+        invalid, out_of_range = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
         report(function, size, invalid, out_of_range)

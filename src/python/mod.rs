@@ -11,6 +11,7 @@ mod registry;
 mod threads;
 mod ufunc;
 
+use std::panic::{catch_unwind, AssertUnwindSafe};
 use std::sync::OnceLock;
 
 use pyo3::prelude::*;
@@ -37,6 +38,53 @@ fn take_counts() -> (u64, u64) {
 fn models_json() -> String {
     let models: Vec<_> = entries().iter().map(|e| &e.model).collect();
     serde_json::to_string(&models).unwrap_or_else(|_| "[]".to_owned())
+}
+
+/// Evaluate kernel `kernel` over a broadcast grid: `inputs` are float64
+/// arrays already broadcast to one shape (zero strides allowed), `outputs`
+/// fresh float64 arrays of that shape. Runs in parallel with the GIL
+/// released; returns the element counts `(invalid, out_of_range)`.
+#[pyfunction]
+fn grid_call<'py>(
+    py: Python<'py>,
+    kernel: &str,
+    inputs: Vec<numpy::PyReadonlyArrayDyn<'py, f64>>,
+    mut outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
+) -> PyResult<(u64, u64)> {
+    use numpy::PyUntypedArrayMethods;
+    let e = entries()
+        .iter()
+        .find(|e| e.model.name == kernel)
+        .ok_or_else(|| pyo3::exceptions::PyValueError::new_err(format!("unknown kernel {kernel:?}")))?;
+    if inputs.len() != e.nin || outputs.len() != e.nout {
+        return Err(pyo3::exceptions::PyValueError::new_err(format!(
+            "kernel {kernel} takes {} inputs and {} outputs",
+            e.nin, e.nout
+        )));
+    }
+    let shape: Vec<usize> = outputs[0].shape().to_vec();
+    for a in inputs.iter().map(|a| a.shape()).chain(outputs.iter().map(|a| a.shape())) {
+        if a != shape.as_slice() {
+            return Err(pyo3::exceptions::PyValueError::new_err("grid_call: operands must share one shape"));
+        }
+    }
+    let in_strides: Vec<Vec<isize>> = inputs.iter().map(|a| a.strides().to_vec()).collect();
+    let out_strides: Vec<Vec<isize>> = outputs.iter().map(|a| a.strides().to_vec()).collect();
+    let ins: Vec<(usize, usize)> = inputs.iter().enumerate().map(|(i, a)| (a.as_array().as_ptr() as usize, i)).collect();
+    let outs: Vec<(usize, usize)> =
+        outputs.iter_mut().enumerate().map(|(i, a)| (a.as_array_mut().as_mut_ptr() as usize, i)).collect();
+    let grid = e.grid;
+    // Pointers travel as integers across the GIL release; the borrowed arrays
+    // (held by `inputs`/`outputs` until this function returns) keep them valid.
+    let counts = py.detach(|| {
+        let ins: Vec<(*const u8, &[isize])> = ins.iter().map(|&(p, i)| (p as *const u8, in_strides[i].as_slice())).collect();
+        let outs: Vec<(*mut u8, &[isize])> = outs.iter().map(|&(p, i)| (p as *mut u8, out_strides[i].as_slice())).collect();
+        catch_unwind(AssertUnwindSafe(|| grid(&ufunc::GridCall { shape: &shape, ins: &ins, outs: &outs })))
+    });
+    match counts {
+        Ok([a, b]) => Ok((a, b)),
+        Err(_) => Err(pyo3::exceptions::PyRuntimeError::new_err("wetboil: internal error (panic) in grid_call")),
+    }
 }
 
 /// Number of threads large array calls use.
@@ -69,6 +117,7 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(front::make_function, m)?)?;
     m.add("MAX_ARGS", front::MAX_ARGS)?;
     m.add_function(wrap_pyfunction!(take_counts, m)?)?;
+    m.add_function(wrap_pyfunction!(grid_call, m)?)?;
     m.add_function(wrap_pyfunction!(models_json, m)?)?;
     m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;

@@ -53,6 +53,8 @@ pub struct Entry {
     pub nout: usize,
     loop_fn: LoopFn,
     status_fn: LoopFn,
+    /// Evaluate over a broadcast grid (see [`GridCall`]).
+    pub grid: fn(&GridCall<'_>) -> [u64; 2],
     /// Evaluate one element: `x.len() == nin`, `y.len() >= nout`.
     pub scalar: fn(&[f64], &mut [f64]) -> Status,
 }
@@ -67,6 +69,7 @@ pub fn entry<K: Kernel<N, M>, const N: usize, const M: usize>() -> Entry {
         nout: M,
         loop_fn: ufunc_loop::<K, N, M>,
         status_fn: status_loop::<K, N, M>,
+        grid: grid_eval::<K, N, M>,
         scalar: scalar::<K, N, M>,
     }
 }
@@ -159,6 +162,78 @@ unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>
     }));
     if result.is_err() {
         add_counts([unsafe { *dimensions } as u64, 0]);
+    }
+}
+
+/// Operands of a call over a broadcast N-d grid: every input and output is
+/// a float64 view of `shape` with its own byte strides (0 along broadcast
+/// axes). NumPy's ufunc machinery hands array-to-array broadcasts to the inner
+/// loop in buffered pieces of 8192 elements, too small to share between
+/// threads; this path iterates the grid itself and splits it into tiles.
+pub struct GridCall<'a> {
+    pub shape: &'a [usize],
+    pub ins: &'a [(*const u8, &'a [isize])],
+    pub outs: &'a [(*mut u8, &'a [isize])],
+}
+
+// SAFETY: as for `Operands`: the views outlive the call and tiles write
+// disjoint output elements.
+unsafe impl Sync for GridCall<'_> {}
+
+/// Evaluate a kernel over a broadcast grid, in parallel tiles of rows.
+///
+/// # Safety (of the caller's data)
+/// Pointers and strides must describe valid float64 views of `shape`;
+/// outputs must not overlap each other or the inputs (the binding allocates
+/// them fresh). Checked by the caller (`grid_call`), which owns the arrays.
+fn grid_eval<K: Kernel<N, M>, const N: usize, const M: usize>(call: &GridCall<'_>) -> [u64; 2] {
+    let ndim = call.shape.len();
+    if call.ins.len() != N || call.outs.len() != M || call.shape.contains(&0) {
+        return [0, 0];
+    }
+    let inner = if ndim == 0 { 1 } else { call.shape[ndim - 1] as isize };
+    let rows: usize = if ndim == 0 { 1 } else { call.shape[..ndim - 1].iter().product() };
+    let tile = inner.clamp(1, 1 << 14);
+    let tiles_per_row = (inner + tile - 1) / tile;
+    let total = rows as isize * tiles_per_row;
+    let step = |strides: &[isize]| if ndim == 0 { 0 } else { strides[ndim - 1] };
+    let work = move |t: isize| -> [u64; 2] {
+        let call: &GridCall<'_> = call;
+        let (row, part) = (t / tiles_per_row, t % tiles_per_row);
+        let mut op = Operands::<N, M> { ins: [std::ptr::null(); N], in_steps: [0; N], outs: [std::ptr::null_mut(); M], out_steps: [0; M] };
+        let mut off_in = [0isize; N];
+        let mut off_out = [0isize; M];
+        let mut rem = row as usize;
+        for d in (0..ndim.saturating_sub(1)).rev() {
+            let idx = (rem % call.shape[d]) as isize;
+            rem /= call.shape[d];
+            for k in 0..N {
+                off_in[k] += idx * call.ins[k].1[d];
+            }
+            for k in 0..M {
+                off_out[k] += idx * call.outs[k].1[d];
+            }
+        }
+        for k in 0..N {
+            // SAFETY: the offset stays inside the input view (see GridCall).
+            op.ins[k] = unsafe { call.ins[k].0.offset(off_in[k]) };
+            op.in_steps[k] = step(call.ins[k].1);
+        }
+        for k in 0..M {
+            op.outs[k] = unsafe { call.outs[k].0.offset(off_out[k]) };
+            op.out_steps[k] = step(call.outs[k].1);
+        }
+        let start = part * tile;
+        // SAFETY: tiles are disjoint ranges of one row; outputs do not overlap.
+        unsafe { op.run::<K>(start, (start + tile).min(inner)) }
+    };
+    let elements = total * tile;
+    match threads::pool() {
+        Some(pool) if elements >= PARALLEL_MIN && total > 1 => {
+            let work = &work;
+            pool.install(|| (0..total).into_par_iter().map(work).reduce(|| [0, 0], |a, b| [a[0] + b[0], a[1] + b[1]]))
+        }
+        _ => (0..total).map(work).fold([0, 0], |a, b| [a[0] + b[0], a[1] + b[1]]),
     }
 }
 
