@@ -11,6 +11,7 @@
 //! generic mechanism.
 
 pub mod boiling;
+pub mod chain;
 pub mod chf;
 pub mod departure;
 pub mod model;

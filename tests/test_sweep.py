@@ -166,3 +166,20 @@ def test_intrinsic_angles_go_through_wenzel():
     # Wenzel: cos(theta*) = r cos(theta)
     assert np.cos(np.radians(a.static_deg)) == pytest.approx(1.5 * np.cos(np.radians(60)), rel=1e-12)
     assert repr(s).startswith("Surface('t (invented)'")
+
+
+def test_fused_water_chain_equals_the_separate_functions_bit_for_bit():
+    from wetboil.sweep import water_chain
+
+    rng = np.random.default_rng(11)
+    n = 50_000
+    p = rng.uniform(2e3, 2e7, n)
+    th, rec = rng.uniform(1, 90, n), rng.uniform(1, 90, n)
+    q, phi = rng.uniform(1e4, 1e6, n), rng.uniform(0, 90, n)
+    r = water_chain(p, th, rec, q, phi)
+    w = water(p=p)
+    np.testing.assert_array_equal(r.T_sat, w.T)
+    np.testing.assert_array_equal(r.onset_superheat, onset_superheat(q, w, th, method="hsu"))
+    np.testing.assert_array_equal(r.departure_diameter, fritz(th, w))
+    np.testing.assert_array_equal(r.critical_heat_flux, kandlikar(rec, w, phi))
+    assert water_chain(101325.0, 70.0, 40.0, 3e5).T_sat == water(p=101325.0).T

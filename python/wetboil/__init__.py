@@ -29,7 +29,7 @@ from ._errors import (
 )
 from . import fluids, nucleation, departure, chf, wetting, boiling  # noqa: E402  (topic modules)
 from .surface import Surface, load_surfaces, save_surfaces  # noqa: E402
-from .sweep import screen, sweep  # noqa: E402
+from .sweep import screen, sweep, water_chain  # noqa: E402
 
 __version__ = "0.1.0"
 
@@ -45,6 +45,7 @@ __all__ = [
     "save_surfaces",
     "screen",
     "sweep",
+    "water_chain",
     "errstate",
     "geterr",
     "models",

@@ -2,7 +2,7 @@
 //! package adds exactly one line here.
 
 use super::ufunc::{entry, Entry};
-use crate::{boiling, chf, departure, nucleation, water, wetting};
+use crate::{boiling, chain, chf, departure, nucleation, water, wetting};
 
 pub fn entries() -> Vec<Entry> {
     vec![
@@ -58,5 +58,6 @@ pub fn entries() -> Vec<Entry> {
         entry::<wetting::PowerLawDisjoiningPressure, 3, 1>(),
         entry::<wetting::VdwFilmThickness, 5, 1>(),
         entry::<wetting::EffectiveHamaker, 2, 1>(),
+        entry::<chain::WaterScreening, 6, 4>(),
     ]
 }

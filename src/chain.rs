@@ -1,0 +1,99 @@
+//! The screening chain fused into one kernel: saturated water from pressure,
+//! Hsu onset superheat, Fritz departure diameter and Kandlikar CHF evaluated
+//! in one pass per element.
+//!
+//! Each step is the published model's own scalar function (no formula is
+//! repeated here); fusing them computes the water state once per element
+//! instead of materialising twelve property arrays, and reads the inputs
+//! and writes the outputs once. The separate public functions give the same
+//! numbers bit for bit (tests).
+
+use crate::model::{angle_deg, arg, positive, Kernel, Model};
+use crate::{chf, departure, nucleation, water};
+
+/// Onset superheat [K] (Hsu, general contact angle), departure diameter [m]
+/// (Fritz), CHF [W/m2] (Kandlikar 2001) and the saturation temperature [K] of
+/// water at pressure `p` [Pa].
+#[inline]
+pub fn water_screening(
+    p: f64,
+    contact_angle_deg: f64,
+    receding_angle_deg: f64,
+    orientation_deg: f64,
+    heat_flux: f64,
+    g: f64,
+) -> [f64; 4] {
+    let w = water::saturation_p(p);
+    let [t, _p, rho_l, rho_v, h_lv, sigma, _cp_l, k_l, ..] = w;
+    let onset = nucleation::hsu_onset(heat_flux, sigma, t, rho_l, rho_v, h_lv, k_l, contact_angle_deg)[0];
+    let d = departure::fritz(contact_angle_deg, sigma, rho_l, rho_v, g);
+    let q = chf::kandlikar(receding_angle_deg, orientation_deg, h_lv, rho_l, rho_v, sigma, g);
+    [t, onset, d, q]
+}
+
+/// Kernel of [`water_screening`].
+pub struct WaterScreening;
+impl Kernel<6, 4> for WaterScreening {
+    const MODEL: Model = Model {
+        name: "water_screening_chain",
+        summary: "Fused screening chain for water: saturation state from pressure, Hsu onset superheat, Fritz \
+                  departure diameter, Kandlikar CHF",
+        equation: "water_saturation_p(p) -> hsu_onset(q, theta) , fritz_departure(theta), kandlikar_chf(beta, phi)",
+        inputs: &[
+            arg("p", "Pa"),
+            arg("contact_angle_deg", "deg"),
+            arg("receding_angle_deg", "deg"),
+            arg("orientation_deg", "deg"),
+            arg("heat_flux", "W/m2"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[
+            arg("T_sat", "K"),
+            arg("onset_superheat", "K"),
+            arg("departure_diameter", "m"),
+            arg("critical_heat_flux", "W/m2"),
+        ],
+        domain: "as the four models: 611.655 Pa <= p <= 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
+        validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
+                   orientation_deg <= 90 (Kandlikar)",
+        reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",
+        doi: "",
+        verification: "bitwise equal to the chain of the separate kernels (tests)",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 6]) -> [f64; 4] {
+        water_screening(x[0], x[1], x[2], x[3], x[4], x[5])
+    }
+    fn possible(x: &[f64; 6]) -> bool {
+        !water::t_sat(x[0]).is_nan()
+            && angle_deg(x[1])
+            && angle_deg(x[2])
+            && angle_deg(x[3])
+            && x[4] >= 0.0
+            && x[4].is_finite()
+            && positive(x[5])
+    }
+    fn in_range(x: &[f64; 6]) -> bool {
+        x[0] <= water::P_NEAR_CRITICAL && x[1] <= 90.0 && x[3] <= 90.0
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn fused_equals_the_separate_models() {
+        for &p in &[1.0e4, 101325.0, 1.0e6, 1.0e7] {
+            for &(th, rec, phi, q) in &[(45.0, 20.0, 0.0, 1e5), (80.0, 60.0, 90.0, 5e5), (10.0, 5.0, 30.0, 0.0)] {
+                let w = water::saturation_p(p);
+                let out = water_screening(p, th, rec, phi, q, 9.80665);
+                assert_eq!(out[0], w[0]);
+                assert_eq!(out[1], nucleation::hsu_onset(q, w[5], w[0], w[2], w[3], w[4], w[7], th)[0]);
+                assert_eq!(out[2], departure::fritz(th, w[5], w[2], w[3], 9.80665));
+                assert_eq!(out[3], chf::kandlikar(rec, phi, w[4], w[2], w[3], w[5], 9.80665));
+            }
+        }
+        assert!(water_screening(-1.0, 45.0, 20.0, 0.0, 1e5, 9.80665).iter().all(|v| v.is_nan()));
+    }
+}
