@@ -161,10 +161,28 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> D
     return table
 
 
-def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation) -> Dict[str, Tuple[Any, Any, Any]]:
-    """Evaluate every quantity on NumPy arrays; return name -> (value,
-    invalid mask, out-of-range mask)."""
-    out: Dict[str, Tuple[Any, Any, Any]] = {}
+class _Results:
+    """Values of the chain in order, with their flags folded at once into two
+    int32 bit masks (bit i <-> i-th value), so no per-quantity mask is kept."""
+
+    def __init__(self, shape: Tuple[int, ...]):
+        self.shape = shape
+        self.values: Dict[str, Any] = {}
+        self.invalid = np.zeros(shape, np.int32)
+        self.out_of_range = np.zeros(shape, np.int32)
+
+    def add(self, name: str, value: Any, invalid: Any, out_of_range: Any) -> Any:
+        bit = np.int32(1 << len(self.values))
+        self.values[name] = value
+        for mask, acc in ((invalid, self.invalid), (out_of_range, self.out_of_range)):
+            if np.any(mask):
+                np.bitwise_or(acc, bit, out=acc, where=np.broadcast_to(mask, self.shape))
+        return value
+
+
+def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, shape: Tuple[int, ...]) -> _Results:
+    """Evaluate every quantity on NumPy arrays, in the order of the flag bits."""
+    res = _Results(shape)
     q = inputs["in_heat_flux"]
     phi = inputs["in_orientation"]
     sub = inputs["in_subcooling"]
@@ -173,12 +191,11 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation) -
     def run(name: str, fn: Any) -> Any:
         with capture_validity() as cap:
             value = fn()
-        out[name] = (value, cap.invalid, cap.out_of_range)
-        return value
+        return res.add(name, value, cap.invalid, cap.out_of_range)
 
     angle_flags = (inputs["angle_invalid"] > 0, inputs["angle_out_of_range"] > 0)
     for name, value in (("static_angle", static), ("advancing_angle", adv), ("receding_angle", rec)):
-        out[name] = (value,) + angle_flags
+        res.add(name, value, *angle_flags)
     onset_angle = rec if methods["onset"] == "kandlikar" else static
     run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]))
     run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]))
@@ -197,26 +214,29 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation) -
     dtw = run("nucleate_superheat", nucleate)
     # linear thermal layer carrying the design flux: delta = k_l (dT_w + dT_sub) / q
     delta = fluid.k_l * (dtw + sub) / q
-    radii = run("cavity_radius", lambda: nucleation.hsu_active_radii(dtw, fluid, static, delta, sub))
-    v, inv, oor = out.pop("cavity_radius")
-    out["cavity_radius_min"] = (radii.r_min, inv, oor)
-    out["cavity_radius_max"] = (radii.r_max, inv, oor)
+    with capture_validity() as cap:
+        radii = nucleation.hsu_active_radii(dtw, fluid, static, delta, sub)
+    del delta
+    res.add("cavity_radius_min", radii.r_min, cap.invalid, cap.out_of_range)
+    res.add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range)
     d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"]))
     run("departure_frequency", lambda: departure.frequency(d, fluid, method=methods["frequency"]))
-    values = []
     for m in methods["chf"]:
         if m == "kandlikar":
-            values.append(run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi)))
+            run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi))
         elif m == "zuber":
-            values.append(run(f"chf_{m}", lambda: chf.zuber(fluid) * np.ones_like(rec)))
+            run(f"chf_{m}", lambda: chf.zuber(fluid) * np.ones_like(rec))
         else:  # lienhard_dhir_flat: large flat heater facing up (K = 0.149)
-            values.append(run(f"chf_{m}", lambda: chf.zuber(fluid, K=0.149) * np.ones_like(rec)))
+            run(f"chf_{m}", lambda: chf.zuber(fluid, K=0.149) * np.ones_like(rec))
     # The first selected method is the design method: its CHF and margin are
     # reported as "chf" and "chf_margin"; the others stay as chf_<method>.
-    primary, inv, oor = out[f"chf_{methods['chf'][0]}"]
-    out["chf"] = (primary, inv, oor)
-    out["chf_margin"] = (primary / q, inv, oor)
-    return out
+    first = f"chf_{methods['chf'][0]}"
+    bit = np.int32(1 << list(res.values).index(first))
+    inv, oor = (res.invalid & bit) != 0, (res.out_of_range & bit) != 0
+    primary = res.values[first]
+    res.add("chf", primary, inv, oor)
+    res.add("chf_margin", primary / q, inv, oor)
+    return res
 
 
 def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], names: List[str]) -> Any:
@@ -226,19 +246,15 @@ def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], names: L
 
     arrays = {k: ds[k].values for k in ds.data_vars}
     fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in _FLUID_FIELDS}, name=fluid_name)
-    with errstate(invalid="ignore", out_of_range="ignore"):
-        res = _chain(arrays, methods, fluid)
     dims = ds[names[0]].dims
     shape = ds[names[0]].shape
+    with errstate(invalid="ignore", out_of_range="ignore"):
+        res = _chain(arrays, methods, fluid, shape)
     data: Dict[str, Any] = {}
-    invalid = np.zeros(shape, np.int32)
-    out_of_range = np.zeros(shape, np.int32)
-    for bit, (name, (value, inv, oor)) in enumerate(res.items()):
-        data[name] = (dims, np.broadcast_to(np.asarray(value, float), shape).copy())
-        invalid |= np.broadcast_to(np.asarray(inv, bool), shape) * np.int32(1 << bit)
-        out_of_range |= np.broadcast_to(np.asarray(oor, bool), shape) * np.int32(1 << bit)
-    data["invalid_flags"] = (dims, invalid)
-    data["range_flags"] = (dims, out_of_range)
+    for name, value in res.values.items():
+        data[name] = (dims, np.ascontiguousarray(np.broadcast_to(np.asarray(value, float), shape)))
+    data["invalid_flags"] = (dims, res.invalid)
+    data["range_flags"] = (dims, res.out_of_range)
     return xr.Dataset(data, coords=ds.coords)
 
 
