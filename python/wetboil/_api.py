@@ -26,7 +26,7 @@ import inspect
 import json
 import os
 import sys
-from typing import Any, Callable, Dict, Iterator, NamedTuple, Optional, Sequence, Tuple, TypeVar
+from typing import Any, Callable, Dict, Iterator, Mapping, NamedTuple, Optional, Sequence, Tuple, TypeVar
 
 import numpy as np
 
@@ -427,22 +427,8 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callabl
         fallback.__module__ = template.__module__
         fallback.__qualname__ = template.__qualname__
 
-        bare = sig.replace(
-            parameters=[p.replace(annotation=p.empty) for p in sig.parameters.values()],
-            return_annotation=sig.empty,
-        )
-        doc = f"{template.__name__}{bare}\n--\n\n{inspect.cleandoc(template.__doc__ or '')}\n"
-        f = _core.make_function(
-            name,
-            [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan],
-            list(params),
-            [None if p.default is p.empty else p.default for p in sig.parameters.values()],
-            fallback,
-            result,
-            template.__module__,
-            template.__name__,
-            doc,
-        )
+        f = _builtin(template, sig, fallback,
+                     [(None, name, [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan], -1, result)], -1)
         _FUNCTIONS[f] = spec
         return f  # type: ignore[return-value]
 
@@ -450,6 +436,64 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callabl
 
 
 _FUNCTIONS: Dict[Any, _Spec] = {}
+
+
+def _builtin(template: Callable[..., Any], sig: inspect.Signature, fallback: Callable[..., Any],
+             choices: list, selector: int) -> Any:
+    """The builtin public function: `template`'s name, signature and
+    docstring, a Rust fast path over `choices`, and `fallback` for the rest."""
+    bare = sig.replace(
+        parameters=[p.replace(annotation=p.empty) for p in sig.parameters.values()],
+        return_annotation=sig.empty,
+    )
+    doc = f"{template.__name__}{bare}\n--\n\n{inspect.cleandoc(template.__doc__ or '')}\n"
+    return _core.make_function(
+        choices,
+        selector,
+        list(sig.parameters),
+        [None if p.default is p.empty else p.default for p in sig.parameters.values()],
+        fallback,
+        template.__module__,
+        template.__name__,
+        doc,
+    )
+
+
+def dispatch(selector: str, table: Mapping[Any, Tuple[Callable[..., Any], Optional[int]]]) -> Callable[[F], F]:
+    """Give a Python function that picks a kernel by one argument (a method
+    name, a flag) a Rust fast path for scalar calls.
+
+    ``table`` maps values of the `selector` parameter to ``(kernel_function,
+    output)``: a function built with `kernel` whose parameters are named like
+    the decorated function's, and the index of the output to return (None:
+    all of them, as that kernel function returns them). Plain-number calls
+    with a selector value in the table are evaluated in Rust; every other
+    call (arrays, other values, anything the Python body checks) runs the
+    decorated function itself, which stays the single source of behaviour.
+    List only choices for which the Python body does nothing but call that
+    kernel function with the same-named arguments.
+    """
+    from .fluids import FIELDS
+
+    def build(function: F) -> F:
+        sig = inspect.signature(function)
+        params = list(sig.parameters)
+        if selector not in params:
+            raise RuntimeError(f"{function.__name__}: no parameter {selector!r}")
+        choices = []
+        for key, (kernel_fn, output) in table.items():
+            spec = _FUNCTIONS[kernel_fn]
+            plan = []
+            for (ai, field) in spec.plan:
+                pname = spec.params[ai]
+                if pname not in params:
+                    raise RuntimeError(f"{function.__name__}: kernel argument {pname!r} is not a parameter")
+                plan.append((params.index(pname), FIELDS.index(field) if field else -1))
+            choices.append((key, spec.model.name, plan, -1 if output is None else int(output), spec.result_type))
+        f = _builtin(function, sig, function, choices, params.index(selector))
+        return f  # type: ignore[no-any-return]
+
+    return build
 
 
 def ufunc_of(function: Callable[..., Any]) -> np.ufunc:

@@ -14,18 +14,17 @@ class Front:
     """State behind one public builtin function (its ``__self__``)."""
 
     @property
-    def kernel(self) -> str: ...
+    def kernels(self) -> List[str]: ...
     @property
     def fallback(self) -> Callable[..., Any]: ...
     def __reduce__(self) -> Tuple[Any, Tuple[str]]: ...
 
 def make_function(
-    kernel: str,
-    plan: Sequence[Tuple[int, int]],
+    choices: Sequence[Tuple[Any, str, Sequence[Tuple[int, int]], int, Optional[Callable[..., Any]]]],
+    selector: int,
     names: Sequence[str],
     defaults: Sequence[Optional[Any]],
     fallback: Callable[..., Any],
-    result_type: Optional[Callable[..., Any]],
     module: str,
     name: str,
     doc: str,

@@ -32,7 +32,7 @@ from typing import Any, Callable, Dict, NamedTuple, Sequence, Tuple
 
 import numpy as np
 
-from ._api import kernel
+from ._api import kernel, dispatch
 from ._errors import WetboilTypeError, WetboilValueError, errstate, report
 from .fluids import Saturation
 
@@ -106,6 +106,7 @@ _embryo_linear = _named("embryo_superheat", _embryo_linear, "embryo_superheat_li
 _embryo_exact = _named("embryo_superheat", _embryo_exact, "embryo_superheat_exact")
 
 
+@dispatch("exact", {False: (_embryo_linear, None), True: (_embryo_exact, None)})
 def embryo_superheat(radius: Any, fluid: Saturation, exact: bool = False) -> Any:
     r"""Liquid superheat at which a vapour embryo of given radius is in
     equilibrium [K].
@@ -736,6 +737,7 @@ def _onset_call(table: Dict[str, Any], method: str, heat_flux: Any, fluid: Satur
     return table[method](heat_flux, fluid)
 
 
+@dispatch("method", {m: (_ONSET[m], 0) for m in ("hsu", "davis_anderson", "kandlikar")})
 def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 90.0, method: str = "hsu") -> Any:
     r"""Wall superheat at the onset of nucleate boiling [K].
 
@@ -842,6 +844,7 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     return out if method == "bergles_rohsenow" else out.superheat
 
 
+@dispatch("method", {m: (_ONSET_RADIUS[m], 1) for m in ("hsu", "davis_anderson", "kandlikar")})
 def onset_cavity_radius(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 90.0, method: str = "hsu") -> Any:
     r"""Mouth radius of the first cavity to nucleate at the onset of nucleate
     boiling [m] (the tangency point of `onset_superheat`).

@@ -29,19 +29,31 @@ use crate::model::Status;
 /// Most parameters a public function may have.
 pub const MAX_ARGS: usize = 16;
 
-/// The state behind one public function (the builtin's `__self__`).
-#[pyclass(frozen, module = "wetboil._core")]
-pub struct Front {
+/// One kernel a public function can evaluate on the fast path.
+struct Choice {
+    /// The value of the selector parameter that picks this kernel (None for a
+    /// function with a single kernel).
+    key: Option<Py<PyAny>>,
     entry: usize,
     /// Per kernel input: (parameter index, field index in `_scalars` or -1).
     plan: Vec<(usize, isize)>,
+    /// Return only this output (a float), or all of them when negative.
+    output: isize,
+    result_type: Option<Py<PyAny>>,
+}
+
+/// The state behind one public function (the builtin's `__self__`).
+#[pyclass(frozen, module = "wetboil._core")]
+pub struct Front {
+    choices: Vec<Choice>,
+    /// Index of the parameter whose value picks the choice, or -1.
+    selector: isize,
     /// Parameter names, interned so keyword lookup is a pointer comparison.
     names: Vec<Py<PyString>>,
     /// Per parameter: its default, or None when it is required.
     defaults: Vec<Option<Py<PyAny>>>,
     /// The Python function with the same signature that does everything else.
     fallback: Py<PyAny>,
-    result_type: Option<Py<PyAny>>,
     module: String,
     /// The last scalar fluid state seen and its fields. Holding a strong
     /// reference keeps the object alive, so identity means same values
@@ -129,11 +141,24 @@ impl Front {
             }
         }
 
-        let e = &entries()[self.entry];
+        let choice = if self.selector < 0 {
+            self.choices.first()?
+        } else {
+            // SAFETY: the selector indexes a filled slot (checked in make_function).
+            let key = unsafe { Borrowed::from_ptr(py, slots[self.selector as usize]) };
+            self.choices.iter().find(|c| {
+                c.key.as_ref().is_some_and(|k| {
+                    let k = k.bind(py);
+                    // bools by identity (True is not 1 here), strings by value
+                    k.as_ptr() == key.as_ptr() || (k.is_instance_of::<PyString>() && k.eq(&key).unwrap_or(false))
+                })
+            })?
+        };
+        let e = &entries()[choice.entry];
         let mut x = [0.0f64; MAX_IN];
         // The fields of the (single, in every kernel so far) fluid argument.
         let mut fluid: Option<(usize, [f64; FLUID_FIELDS])> = None;
-        for (k, &(ai, field)) in self.plan.iter().enumerate() {
+        for (k, &(ai, field)) in choice.plan.iter().enumerate() {
             // SAFETY: every slot up to np is a live borrowed reference (argument or default).
             let obj = unsafe { Borrowed::from_ptr(py, slots[ai]) };
             x[k] = if field < 0 {
@@ -154,11 +179,14 @@ impl Front {
         if status != Status::Ok || y[..e.nout].iter().any(|v| v.is_nan()) {
             return None; // the fallback applies the element policy
         }
+        if choice.output >= 0 {
+            return Some(PyFloat::new(py, *y.get(choice.output as usize)?).into_any());
+        }
         if e.nout == 1 {
             return Some(PyFloat::new(py, y[0]).into_any());
         }
         let values = PyTuple::new(py, y[..e.nout].iter().copied()).ok()?;
-        match &self.result_type {
+        match &choice.result_type {
             Some(t) => t.bind(py).call1(values).ok(),
             None => Some(values.into_any()),
         }
@@ -249,10 +277,10 @@ impl Front {
         Ok((import.unbind(), (self.module.clone(),)))
     }
 
-    /// Name of the Rust kernel behind the function.
+    /// Names of the Rust kernels behind the function's fast path.
     #[getter]
-    fn kernel(&self) -> &'static str {
-        entries()[self.entry].model.name
+    fn kernels(&self) -> Vec<&'static str> {
+        self.choices.iter().map(|c| entries()[c.entry].model.name).collect()
     }
 
     /// The Python function that handles every call the fast path does not.
@@ -262,52 +290,65 @@ impl Front {
     }
 }
 
+/// One fast-path choice as passed from Python: (selector value or None,
+/// kernel name, plan, output index or -1, result type or None).
+type ChoiceSpec = (Option<Py<PyAny>>, String, Vec<(usize, isize)>, isize, Option<Py<PyAny>>);
+
 /// Build the public builtin function `module.name`.
 ///
-/// `doc` must start with the text signature line (`name(a, b=1.0)\n--\n\n`).
+/// `choices` lists the kernels its fast path can evaluate; with one choice
+/// `selector` is -1, otherwise it is the index of the parameter whose value
+/// picks the choice (a method name, a flag). Every other call goes to
+/// `fallback`. `doc` must start with the text signature line
+/// (`name(a, b=1.0)\n--\n\n`).
 #[pyfunction]
 #[allow(clippy::too_many_arguments)]
-#[pyo3(signature = (kernel, plan, names, defaults, fallback, result_type, module, name, doc))]
+#[pyo3(signature = (choices, selector, names, defaults, fallback, module, name, doc))]
 pub fn make_function<'py>(
     py: Python<'py>,
-    kernel: &str,
-    plan: Vec<(usize, isize)>,
+    choices: Vec<ChoiceSpec>,
+    selector: isize,
     names: Vec<String>,
     defaults: Vec<Option<Py<PyAny>>>,
     fallback: Py<PyAny>,
-    result_type: Option<Py<PyAny>>,
     module: String,
     name: &str,
     doc: &str,
 ) -> PyResult<Bound<'py, PyAny>> {
-    let entry = entries()
-        .iter()
-        .position(|e| e.model.name == kernel)
-        .ok_or_else(|| PyValueError::new_err(format!("unknown kernel {kernel:?}")))?;
-    let e = &entries()[entry];
-    if plan.len() != e.nin {
-        return Err(PyValueError::new_err(format!("kernel {kernel} takes {} inputs, plan has {}", e.nin, plan.len())));
-    }
-    if names.len() > MAX_ARGS || names.len() != defaults.len() || plan.iter().any(|&(a, _)| a >= names.len()) {
+    if names.len() > MAX_ARGS || names.len() != defaults.len() {
         return Err(PyValueError::new_err("inconsistent parameters for a front-door function"));
+    }
+    if selector >= names.len() as isize || (selector < 0 && choices.len() != 1) {
+        return Err(PyValueError::new_err("a function with several kernels needs a selector parameter"));
+    }
+    let mut built = Vec::with_capacity(choices.len());
+    for (key, kernel, plan, output, result_type) in choices {
+        let entry = entries()
+            .iter()
+            .position(|e| e.model.name == kernel)
+            .ok_or_else(|| PyValueError::new_err(format!("unknown kernel {kernel:?}")))?;
+        let e = &entries()[entry];
+        if plan.len() != e.nin || plan.iter().any(|&(a, _)| a >= names.len()) || output >= e.nout as isize {
+            return Err(PyValueError::new_err(format!("plan of kernel {kernel} does not fit")));
+        }
+        built.push(Choice { key, entry, plan, output, result_type });
     }
     let front = Bound::new(
         py,
         Front {
-            entry,
-            plan,
+            choices: built,
+            selector,
             names: names.iter().map(|n| PyString::intern(py, n).unbind()).collect(),
             defaults,
             fallback,
-            result_type,
             module: module.clone(),
             cache: GilCell(std::cell::UnsafeCell::new(None)),
         },
     )?;
     let name_c: &'static CString = Box::leak(Box::new(CString::new(name)?));
     let doc_c: &'static CString = Box::leak(Box::new(CString::new(doc.replace('\0', " "))?));
-    // NumPy and CPython keep the method definition for the life of the
-    // function object; leak it so it is 'static.
+    // CPython keeps the method definition for the life of the function
+    // object; leak it so it is 'static.
     let def: &'static mut ffi::PyMethodDef = Box::leak(Box::new(ffi::PyMethodDef {
         ml_name: name_c.as_ptr(),
         ml_meth: ffi::PyMethodDefPointer { PyCFunctionFastWithKeywords: front_call },
