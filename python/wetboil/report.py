@@ -210,7 +210,7 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
     only when everything succeeded, so a failed run leaves no partial output
     that looks complete.
     """
-    from .sweep import sweep
+    from .sweep import ranked_table, sweep
 
     out.mkdir(parents=True, exist_ok=True)
     scratch = pathlib.Path(tempfile.mkdtemp(prefix=".partial-", dir=out))
@@ -223,7 +223,7 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
                    subcooling=study.subcoolings, methods=study.methods, **kw)
         ds.attrs["title"] = study.title
         ds.to_netcdf(scratch / "sweep.nc")
-        summary = _summary(ds)
+        summary = ranked_table(ds)
         summary.to_csv(scratch / "summary.csv", index=False)
         plots = _plots(ds, study, scratch)
         report = scratch / "report.md"
@@ -233,20 +233,6 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
         return out / "report.md"
     finally:
         shutil.rmtree(scratch, ignore_errors=True)
-
-
-def _summary(ds: Any) -> Any:
-    """The ranked table: one row per surface and operating point."""
-    from .sweep import _flag_text
-
-    bits = ds["range_flags"].attrs["bits"].split(",")
-    df = ds.to_dataframe().reset_index()
-    df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
-    df["impossible"] = [_flag_text(int(m), bits) for m in df.pop("invalid_flags")]
-    units = {n: ds[n].attrs.get("units", "") for n in ds.data_vars}
-    units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K"})
-    df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
-    return df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
 
 
 def _plots(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:

@@ -32,7 +32,7 @@ from ._errors import WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation, from_coolprop, water
 from .surface import Surface
 
-__all__ = ["sweep", "screen", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES", "METHOD_CHOICES"]
+__all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES", "METHOD_CHOICES"]
 
 #: Methods used when `methods` does not say otherwise.
 DEFAULT_METHODS: Dict[str, Any] = {
@@ -470,6 +470,13 @@ def screen(
         raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
     ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
                subcooling=subcooling, methods=methods)
+    return ranked_table(ds)
+
+
+def ranked_table(ds: Any) -> Any:
+    """A sweep's Dataset as the ranked `pandas.DataFrame` of `screen`: one row
+    per grid point, best CHF margin first, units in the column names, the
+    flag bit masks spelled out as the quantities they name."""
     bits = ds["range_flags"].attrs["bits"].split(",")
     df = ds.to_dataframe().reset_index()
     df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
