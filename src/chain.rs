@@ -53,7 +53,7 @@ impl Kernel<6, 4> for WaterScreening {
             arg("departure_diameter", "m"),
             arg("critical_heat_flux", "W/m2"),
         ],
-        domain: "as the four models: 611.655 Pa <= p <= 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
+        domain: "as the four models: 611.657 Pa <= p <= 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
         validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
                    orientation_deg <= 90 (Kandlikar)",
         reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",

@@ -20,5 +20,8 @@ pub mod trig;
 pub mod water;
 pub mod wetting;
 
+#[cfg(test)]
+mod fuzz;
+
 #[cfg(feature = "python")]
 mod python;

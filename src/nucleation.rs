@@ -58,7 +58,8 @@ pub fn embryo_radius(superheat: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: 
     if !(superheat >= 0.0 && fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv)) {
         return f64::NAN;
     }
-    embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / superheat
+    // abs: a superheat of -0.0 is zero superheat, +inf radius (not -inf)
+    embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / superheat.abs()
 }
 
 const EMBRYO_FLUID_INPUTS: [Arg; 5] = [
@@ -637,6 +638,7 @@ pub fn hsu_onset(
     if !(onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) && angle_deg(contact_angle_deg)) {
         return [f64::NAN; 2];
     }
+    let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
     let half = 0.5 * contact_angle_deg;
     [
@@ -702,6 +704,7 @@ pub fn davis_anderson(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v:
     if !onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) {
         return [f64::NAN; 2];
     }
+    let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
     [(4.0 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / heat_flux).sqrt()]
 }
@@ -765,6 +768,7 @@ pub fn kandlikar_onset(
     if !(onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) && angle_deg(receding_angle_deg)) {
         return [f64::NAN; 2];
     }
+    let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
     [(4.4 * zeta * heat_flux / k_l).sqrt(), sin_deg(receding_angle_deg) * (zeta * k_l / (1.1 * heat_flux)).sqrt()]
 }
@@ -922,6 +926,10 @@ impl Kernel<7, 1> for WangDhir {
     };
     #[inline(always)]
     fn eval(x: &[f64; 7]) -> [f64; 1] {
+        // p only sets the range flag, but a missing p is missing data: NaN propagates
+        if x[6].is_nan() {
+            return [f64::NAN];
+        }
         [wang_dhir(x[0], x[1], x[2], x[3], x[4], x[5])]
     }
     fn possible(x: &[f64; 7]) -> bool {
@@ -985,6 +993,10 @@ impl Kernel<3, 1> for Basu {
     };
     #[inline(always)]
     fn eval(x: &[f64; 3]) -> [f64; 1] {
+        // p only sets the range flag, but a missing p is missing data: NaN propagates
+        if x[2].is_nan() {
+            return [f64::NAN];
+        }
         [basu(x[0], x[1])]
     }
     fn possible(x: &[f64; 3]) -> bool {
@@ -1006,7 +1018,9 @@ impl Kernel<3, 1> for Basu {
 ///
 /// Outside its data (p 0.101-19.8 MPa, θ 5-90°, N_a 10⁴-1.51×10¹⁰ m⁻²) the
 /// expression grows explosively (exp of 1/R_c); such results are flagged as out of
-/// range (they may be +inf). ΔT_w <= 0 gives 0.
+/// range (they may be +inf). ΔT_w <= 0 gives 0, θ = 0 gives 0. Where `f(ρ⁺) <= 0`
+/// (ρ_l below about 2.05 ρ_v, close to the critical point, far outside the data)
+/// the expression would give a negative density: NaN, a "no answer" flagged out of range.
 ///
 /// Reference: T. Hibiki, M. Ishii, "Active nucleation site density in boiling
 /// systems", Int. J. Heat Mass Transfer 46 (2003) 2587-2601,
@@ -1040,6 +1054,12 @@ pub fn hibiki_ishii(
     let theta = contact_angle_deg.to_radians();
     let rp = ((rho_l - rho_v) / rho_v).log10();
     let f = -0.01064 + rp * (0.48246 + rp * (-0.22712 + rp * 0.05468));
+    if !(f > 0.0) {
+        return f64::NAN; // f(rho+) <= 0 (rho_l < 2.05 rho_v, near critical): N would be <= 0, no answer
+    }
+    if contact_angle_deg == 0.0 {
+        return 0.0; // the angle factor vanishes (and would meet exp overflow as 0 x inf)
+    }
     let r = GAS_CONSTANT / molar_mass;
     let t_w = t_sat + wall_superheat;
     let rc = (2.0 * sigma * (1.0 + rho_v / rho_l) / p) / (h_lv * wall_superheat / (r * t_w * t_sat)).exp_m1();

@@ -1702,6 +1702,12 @@ pub fn saturation_t(t: f64) -> [f64; 12] {
     let (rho_l, rho_v) = (rho[0], rho[1]);
     // h'' - h' at one T: the ideal-gas parts cancel
     let h_lv = h[1] - h[0];
+    if !(rho_l > rho_v && h_lv > 0.0) {
+        // Within ~1e-9 K of T_c the two phases are not resolved in double precision
+        // (rho_v > rho_l, h_lv < 0 came out): give the critical-point limit instead.
+        let inf = f64::INFINITY;
+        return [t, p, RHO_CRIT, RHO_CRIT, 0.0, sigma, inf, inf, inf, inf, inf, inf];
+    }
     let [thl, thv] = th;
     let [(mu_l, k_l), (mu_v, k_v)] = transport(V2::new(rho_l, rho_v), t, &th);
     [
@@ -1827,7 +1833,7 @@ impl crate::model::Kernel<1, 12> for SaturationP {
         equation: "T = T_sat(p) inverting the SR1-86 saturation line, then as water_saturation_t",
         inputs: &[crate::model::arg("p", "Pa")],
         outputs: &SAT_OUTPUTS,
-        domain: "p_sat(273.16 K) = 611.655 Pa <= p <= 22.064 MPa (triple point to critical point)",
+        domain: "p_sat(273.16 K) = 611.657 Pa (SR1-86) <= p <= 22.064 MPa (triple point to critical point)",
         validity: "T_sat(p) <= 0.997 T_crit = 645.15 K",
         reference: WATER_REFERENCE,
         doi: "10.1063/1.1461829",

@@ -220,7 +220,8 @@ def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
     picklable (used by dask)."""
     cap = _CAPTURE.get()
     if cap is not None:
-        cap.add(getattr(_core, f"{name}_status")(*arrays))
+        with np.errstate(all="ignore"):  # range checks of extreme inputs raise FP flags: not the user's concern
+            cap.add(getattr(_core, f"{name}_status")(*arrays))
     shape = _grid_worthy(arrays)
     if shape is not None:
         n_out = len(MODELS[name].outputs)
@@ -291,7 +292,20 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
         return tuple(o.rename(nm) for o, nm in zip(outs, names))
     if any(_is_dask(x) for x in inputs):
         import dask.array as da
+        from dask.array.core import unify_chunks
 
+        # apply_gufunc wants equal chunks: rechunk dask inputs (and NumPy ones) to common chunks
+        ndim = max(np.ndim(x) for x in inputs)
+        pairs: list = []
+        for x in inputs:
+            if np.ndim(x):
+                pairs += [da.asarray(x), "abcdefghijklmnopqrstuvwxyz"[ndim - np.ndim(x):ndim]]
+        try:
+            unified = iter(unify_chunks(*pairs)[1])
+        except ValueError:
+            described = ", ".join(f"{lab} {np.shape(x)}" for lab, x in zip(spec.labels, inputs))
+            raise WetboilValueError(f"{spec.function}: argument shapes do not broadcast: {described}") from None
+        inputs = [next(unified) if np.ndim(x) else x for x in inputs]
         signature = ",".join(["()"] * len(inputs)) + "->" + ",".join(["()"] * n_out)
         outs = da.apply_gufunc(func, signature, *inputs, output_dtypes=(dtypes[0] if n_out == 1 else dtypes))
         return outs if n_out == 1 else tuple(outs)
@@ -322,7 +336,8 @@ VALIDITY_CODES = {0: "inside the published validity range", 1: "physically impos
 
 
 def _status_arrays(name: str, *arrays: Any) -> Any:
-    return getattr(_core, f"{name}_status")(*arrays)
+    with np.errstate(all="ignore"):  # range checks of extreme inputs raise FP flags: not the user's concern
+        return getattr(_core, f"{name}_status")(*arrays)
 
 
 def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:

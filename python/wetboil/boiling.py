@@ -507,8 +507,13 @@ def film_boiling(
     _need_saturation("boiling.film_boiling", fluid)
     _choice("boiling.film_boiling", "geometry", geometry, FILM_GEOMETRIES)
     constant = FILM_GEOMETRIES[geometry][0]
+    emissivity = _chf._real("boiling.film_boiling", "emissivity", emissivity)
     if geometry == "flat_plate":
-        length = (fluid.sigma / (g * (fluid.rho_l - fluid.rho_v))) ** 0.5
+        g = _chf._real("boiling.film_boiling", "g", g)
+        try:
+            length = (fluid.sigma / (g * (fluid.rho_l - fluid.rho_v))) ** 0.5
+        except ValueError as exc:
+            raise WetboilValueError(f"boiling.film_boiling: argument shapes do not broadcast ({exc})") from None
     else:
         if diameter is None:
             raise WetboilValueError(f"boiling.film_boiling: geometry {geometry!r} needs diameter=... [m]")
@@ -516,7 +521,8 @@ def film_boiling(
     q = _film_kernel(wall_superheat, constant, length, latent_factor, fluid, g)
     if not (isinstance(emissivity, (int, float)) and emissivity == 0.0):
         tw = fluid.T + np.asarray(wall_superheat, dtype=float) if not hasattr(wall_superheat, "dims") else fluid.T + wall_superheat
-        q = q + 0.75 * emissivity * _STEFAN_BOLTZMANN * (tw**4 - fluid.T**4)
+        with np.errstate(over="ignore", invalid="ignore"):  # huge superheats: inf, reported by the kernel's policy
+            q = q + 0.75 * emissivity * _STEFAN_BOLTZMANN * (tw**4 - fluid.T**4)
     return q
 
 
@@ -1034,7 +1040,20 @@ def curve(
     _choice(fn, "chf method", chf, CHF_METHODS)
     _choice(fn, "geometry", geometry, _chf.GEOMETRIES)
     _choice(fn, "minimum method", minimum, _chf.MINIMUM_METHODS)
-    dts = np.atleast_1d(np.asarray(superheat, dtype=float))
+    options = dict(receding_angle_deg=receding_angle_deg, contact_angle_deg=contact_angle_deg,
+                   orientation_deg=orientation_deg, C_sf=C_sf, n=n, roughness_Rp=roughness_Rp, size=size,
+                   natural_convection_coefficient=natural_convection_coefficient,
+                   expansion_coefficient=expansion_coefficient, onset_superheat=onset_superheat,
+                   largest_cavity_radius=largest_cavity_radius, latent_factor=latent_factor, emissivity=emissivity,
+                   design_heat_flux=design_heat_flux, g=g)
+    for label, value in options.items():  # one surface, one state: single numbers (or None where optional)
+        if value is not None and not (
+            isinstance(value, (int, float, np.integer, np.floating, np.ndarray))
+            and not isinstance(value, (bool, np.bool_)) and np.ndim(value) == 0
+            and np.asarray(value).dtype.kind in "fiu"
+        ):
+            raise WetboilTypeError(f"{fn}: {label} must be a single number, got {type(value).__name__}")
+    dts = np.atleast_1d(np.asarray(_chf._real(fn, "superheat", superheat), dtype=float))
     if dts.ndim != 1:
         raise WetboilValueError(f"{fn}: superheat must be one-dimensional, got shape {dts.shape}")
     if np.any(~(dts > 0)):
@@ -1066,7 +1085,8 @@ def curve(
         h_nc = float(natural_convection_coefficient)
 
         def q_nc(x: Any) -> Any:
-            return h_nc * np.asarray(x, dtype=float) if np.ndim(x) else h_nc * float(x)
+            with np.errstate(over="ignore"):  # an absurd coefficient overflows to inf, no NumPy warning
+                return h_nc * np.asarray(x, dtype=float) if np.ndim(x) else h_nc * float(x)
 
     elif expansion_coefficient is not None:
         if size is None:
@@ -1133,7 +1153,7 @@ def curve(
     q[nucl] = np.maximum(nat[nucl], nuc[nucl])
     regime[nucl] = np.where(nuc[nucl] > nat[nucl], "nucleate", "natural convection")
     if np.any(trans):
-        if math.isfinite(dt_min) and dt_min > dt_chf:
+        if math.isfinite(dt_min) and dt_min > dt_chf > 0.0 and q_max > 0.0 and q_min > 0.0:  # (q_max = 0 at 180 deg)
             slope = math.log(q_min / q_max) / math.log(dt_min / dt_chf)
             q[trans] = q_max * (dts[trans] / dt_chf) ** slope
         else:

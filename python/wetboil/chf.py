@@ -25,9 +25,19 @@ from __future__ import annotations
 import math
 from typing import Any, Dict, Tuple
 
-from ._api import kernel
+import numpy as np
+
+from ._api import _coerce, kernel
 from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
+
+
+def _real(function: str, label: str, value: Any) -> Any:
+    """A number or a float64 array (xarray and dask objects kept as they
+    are) for arithmetic done here in Python; wrong types raise the front
+    door's WetboilTypeError/WetboilValueError."""
+    v = _coerce(function, label, value)
+    return v.astype(np.float64, copy=False) if isinstance(v, np.ndarray) else v
 
 __all__ = [
     "zuber",
@@ -211,7 +221,12 @@ def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
     """
     if not isinstance(fluid, Saturation):
         raise WetboilTypeError(f"chf.dimensionless_size: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}")
-    return size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
+    size = _real("chf.dimensionless_size", "size", size)
+    g = _real("chf.dimensionless_size", "g", g)
+    try:
+        return size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
+    except ValueError as exc:
+        raise WetboilValueError(f"chf.dimensionless_size: argument shapes do not broadcast ({exc})") from None
 
 
 def lienhard_dhir(
@@ -298,6 +313,7 @@ def lienhard_dhir(
     code = _choice("chf.lienhard_dhir", "geometry", geometry, GEOMETRIES)
     coefficient = _choice("chf.lienhard_dhir", "small_plate form", small_plate, SMALL_PLATE_FORMS)
     if area is None:
+        size = _real("chf.lienhard_dhir", "size", size)
         area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
     return _lienhard_dhir_kernel(code, size, area, coefficient, fluid, g)
 

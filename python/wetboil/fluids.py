@@ -188,6 +188,15 @@ class Saturation:
             raise WetboilTypeError(f"Saturation: name must be a string or None, got {type(name).__name__}")
         object.__setattr__(self, "name", name)
         plain = all(isinstance(getattr(self, f), float) for f in FIELDS)
+        if not plain:  # NumPy fields must broadcast together (labelled ones broadcast by name)
+            arrays = [(f, np.shape(getattr(self, f))) for f in FIELDS if isinstance(getattr(self, f), np.ndarray)]
+            try:
+                np.broadcast_shapes(*(shape for _, shape in arrays))
+            except ValueError:
+                from ._errors import WetboilValueError
+
+                described = ", ".join(f"{f} {shape}" for f, shape in arrays)
+                raise WetboilValueError(f"Saturation: field shapes do not broadcast: {described}") from None
         object.__setattr__(self, "_scalars", tuple(getattr(self, f) for f in FIELDS) if plain else None)
 
     def __setattr__(self, key: str, value: Any) -> None:
@@ -368,7 +377,8 @@ def water(T: Any = None, p: Any = None) -> Saturation:
         Saturation temperature [K], 273.16 K (triple point) to 647.096 K
         (critical point).
     p : array_like, optional
-        Saturation pressure [Pa], 611.655 Pa to 22.064 MPa.
+        Saturation pressure [Pa], 611.657 Pa (SR1-86 at the triple point) to
+        22.064 MPa.
 
     Give exactly one of `T` and `p`; numbers, arrays, DataArrays and dask
     arrays broadcast as everywhere else.
@@ -476,7 +486,10 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     template = given if hasattr(given, "dims") else None
     if isinstance(given, (str, bytes)) or given is None or isinstance(given, bool):
         raise WetboilTypeError(f"from_coolprop: {'T' if p is None else 'p'} must be a number or an array of numbers")
-    raw = np.asarray(given.values if template is not None else given)
+    try:
+        raw = np.asarray(given.values if template is not None else given)
+    except (TypeError, ValueError) as exc:
+        raise WetboilValueError(f"from_coolprop: {'T' if p is None else 'p'} is not a rectangular array of numbers ({exc})") from None
     if raw.dtype.kind not in "fiu" and not (raw.dtype.kind == "O" and not any(v is None for v in raw.flat)):
         raise WetboilTypeError(f"from_coolprop: {'T' if p is None else 'p'} must hold real numbers")
     try:

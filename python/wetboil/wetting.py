@@ -786,8 +786,8 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
         raise WetboilTypeError(f"split_surface_tension: sigma_lv must be a number or an array, got {type(s).__name__}")
     if isinstance(s, (int, float)):
         s = float(s)
-    elif not hasattr(s, "dtype"):  # lists and tuples; xarray and dask keep their type
-        s = _float_array("split_surface_tension", "sigma_lv", s)
+    elif isinstance(s, (np.ndarray, np.generic)) or not hasattr(s, "dtype"):  # xarray and dask keep their type
+        s = _float_array("split_surface_tension", "sigma_lv", s)  # float64: float32, int and object arrays too
     fd, fp = liquid.dispersive / liquid.total, liquid.polar / liquid.total
     return s * fd, s * fp
 

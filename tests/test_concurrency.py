@@ -1,0 +1,294 @@
+"""Threads, dask worker processes and fork.
+
+* Several Python threads calling kernels at once (small arrays, scalars, large
+  arrays on the shared wetboil thread pool, the parallel grid path) get
+  results bitwise identical to a serial run, and their element counts (hence
+  warnings and errstate) stay per thread.
+* Changing the pool size while other threads compute is safe.
+* dask.distributed worker processes (LocalCluster, 2 workers, processes=True)
+  compute every kernel bitwise identical to the local NumPy call.
+* A child started with fork, after the parent has used the thread pool,
+  neither hangs nor computes wrong numbers (DESIGN.md section 5: it used to
+  hang; the package drops the inherited pool through os.register_at_fork).
+  These run in a child interpreter with a timeout, so a hang fails the test
+  instead of stopping the test run.
+"""
+
+from __future__ import annotations
+
+import os
+import subprocess
+import sys
+import threading
+import warnings
+
+import numpy as np
+import pytest
+
+import wetboil
+
+import kernel_cases as kc
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+SLOW = {"kinetic_superheat_water", "homogeneous_superheat_water"}
+
+
+def _workload(n_small=64, n_large=40_000, seed=0):
+    """(kernel, function, spec, small args, large args, scalar args) for every kernel."""
+    rng = np.random.default_rng(seed)
+    out = []
+    for kernel, (f, spec) in sorted(kc.BY_KERNEL.items()):
+        large = None if kernel in SLOW else kc.draw_args(spec, rng, n_large)
+        out.append((kernel, f, spec, kc.draw_args(spec, rng, n_small), large, kc.draw_args(spec, rng)))
+    return out
+
+
+def _run(f, spec, args):
+    # errstate, not warnings.catch_warnings: the policy is per thread, the warnings filters are not
+    with wetboil.errstate(invalid="ignore", out_of_range="ignore"):
+        return [np.asarray(o, dtype=float) for o in kc.outputs(kc.call(f, spec, args))]
+
+
+def _big_endian(spec, args):
+    fps = kc.fluid_params(spec)
+    return {p: (np.asarray(v, dtype=float).astype(">f8") if p not in fps and np.ndim(v) else v)
+            for p, v in args.items()}
+
+
+def _serial(work):
+    res = {}
+    for kernel, f, spec, small, large, scalar in work:
+        res[kernel, "small"] = _run(f, spec, small)
+        res[kernel, "scalar"] = _run(f, spec, scalar)
+        if large is not None:
+            res[kernel, "large"] = _run(f, spec, large)
+            res[kernel, "grid"] = _run(f, spec, _big_endian(spec, large))
+    return res
+
+
+def _same(a, b):
+    return len(a) == len(b) and all(kc.same_bits(x, y) for x, y in zip(a, b))
+
+
+def test_threads_give_the_serial_results():
+    work = _workload()
+    old = wetboil.get_num_threads()
+    try:
+        wetboil.set_num_threads(2)
+        expect = _serial(work)
+        errors = []
+
+        def worker(order):
+            try:
+                for _ in range(2):
+                    for i in order:
+                        kernel, f, spec, small, large, scalar = work[i]
+                        for kind, args in (("small", small), ("scalar", scalar), ("large", large),
+                                           ("grid", None if large is None else _big_endian(spec, large))):
+                            if args is None:
+                                continue
+                            got = _run(f, spec, args)
+                            if not _same(got, expect[kernel, kind]):
+                                errors.append(f"{kernel} {kind}")
+            except Exception as exc:  # noqa: BLE001 - reported below
+                errors.append(repr(exc))
+
+        rng = np.random.default_rng(1)
+        threads = [threading.Thread(target=worker, args=(rng.permutation(len(work)),)) for _ in range(4)]
+        for t in threads:
+            t.start()
+        for t in threads:
+            t.join(timeout=300)
+        assert not any(t.is_alive() for t in threads), "a thread hung"
+    finally:
+        wetboil.set_num_threads(old)
+    assert not errors, errors[:20]
+
+
+def test_element_counts_stay_per_thread():
+    """One thread computes clean arrays under errstate(raise) while others
+    compute arrays full of impossible and out-of-range elements: the clean
+    thread never sees their counts (on the ufunc, the pool and the grid path)."""
+    from wetboil.departure import fritz
+
+    w = wetboil.fluids.water(p=101325.0)
+    clean = np.linspace(1.0, 89.0, 50_000)
+    dirty = np.where(np.arange(50_000) % 3 == 0, 250.0, 120.0)  # impossible and out of range
+    expect = fritz(clean, w)
+    stop = threading.Event()
+    errors = []
+
+    def noisy():
+        with wetboil.errstate(invalid="ignore", out_of_range="ignore"):
+            while not stop.is_set():
+                fritz(dirty, w)
+                fritz(dirty[::2], w)  # strided: the grid path
+                fritz(dirty[:100], w)
+
+    def strict():
+        try:
+            with wetboil.errstate(invalid="raise", out_of_range="raise"):
+                for _ in range(60):
+                    for x in (clean, clean[::-1].copy()[::-1], clean[:100]):
+                        got = fritz(x, w)
+                        if not kc.same_bits(got, expect if x.size == clean.size else expect[:100]):
+                            errors.append("wrong values")
+        except Exception as exc:  # noqa: BLE001
+            errors.append(repr(exc))
+
+    others = [threading.Thread(target=noisy) for _ in range(2)]
+    main = threading.Thread(target=strict)
+    for t in others + [main]:
+        t.start()
+    main.join(timeout=300)
+    stop.set()
+    for t in others:
+        t.join(timeout=60)
+    assert not main.is_alive()
+    assert not errors, errors[:5]
+
+
+def test_resizing_the_pool_while_threads_compute():
+    from wetboil.chf import kandlikar
+
+    w = wetboil.fluids.water(p=101325.0)
+    x = np.linspace(0.0, 90.0, 200_000)
+    expect = kandlikar(x, w, 30.0)
+    old = wetboil.get_num_threads()
+    stop = threading.Event()
+    errors = []
+
+    def compute():
+        try:
+            while not stop.is_set():
+                if not kc.same_bits(kandlikar(x, w, 30.0), expect):
+                    errors.append("wrong values")
+        except Exception as exc:  # noqa: BLE001
+            errors.append(repr(exc))
+
+    threads = [threading.Thread(target=compute) for _ in range(3)]
+    try:
+        for t in threads:
+            t.start()
+        for i in range(40):
+            wetboil.set_num_threads(1 + i % 3)
+    finally:
+        stop.set()
+        for t in threads:
+            t.join(timeout=120)
+        wetboil.set_num_threads(old)
+    assert not any(t.is_alive() for t in threads)
+    assert not errors, errors[:5]
+
+
+def test_dask_worker_processes_give_identical_results():
+    distributed = pytest.importorskip("distributed")
+    da = pytest.importorskip("dask.array")
+    rng = np.random.default_rng(6)
+    cases = []
+    for kernel, (f, spec) in sorted(kc.BY_KERNEL.items()):
+        n = 40 if kernel in SLOW else 4_000
+        args = kc.draw_args(spec, rng, n)
+        fps = kc.fluid_params(spec)
+        lazy_args = {p: (da.from_array(np.asarray(v, dtype=float), chunks=n // 2) if p not in fps else v)
+                     for p, v in args.items()}
+        cases.append((kernel, f, spec, args, lazy_args))
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        with distributed.LocalCluster(n_workers=2, threads_per_worker=1, processes=True,
+                                      dashboard_address=None) as cluster, distributed.Client(cluster) as client:
+            lazy = [kc.outputs(kc.call(f, spec, lazy_args)) for _, f, spec, _, lazy_args in cases]
+            computed = client.compute(lazy, sync=True)
+            # scalar calls of the public functions themselves, shipped to the workers (they pickle
+            # by name; the kernel-backed helpers of the dispatchers carry their dispatcher's name)
+            public = [c for c in cases if getattr(sys.modules[c[1].__module__], c[1].__name__, None) is c[1]]
+            futures = [client.submit(f, *[kc.to_scalar_args(args, 0)[p] for p in spec.params], pure=False)
+                       for _, f, spec, args, _ in public]
+            remote_scalars = dict(zip([c[0] for c in public], client.gather(futures)))
+            pids = set(client.run(os.getpid).values())
+    assert len(pids) == 2 and os.getpid() not in pids
+    assert len(remote_scalars) >= 30
+    for (kernel, f, spec, args, _), got in zip(cases, computed):
+        want = _run(f, spec, args)
+        assert _same([np.asarray(g, dtype=float) for g in got], want), kernel
+        if kernel in remote_scalars:
+            local = _run(f, spec, kc.to_scalar_args(args, 0))
+            assert _same([np.asarray(s, dtype=float) for s in kc.outputs(remote_scalars[kernel])], local), kernel
+
+
+FORK_CHILD = r"""
+import multiprocessing as mp, os, sys, threading, time, warnings
+import numpy as np
+import wetboil
+from wetboil.chf import kandlikar
+from wetboil.departure import fritz
+
+warnings.simplefilter("ignore")
+w = wetboil.fluids.water(p=101325.0)
+x = np.linspace(0.0, 90.0, 400_000)            # above the pool threshold: the pool runs
+grid = np.linspace(0.0, 90.0, 300_000)[::3]    # strided: the parallel grid path
+wetboil.set_num_threads(2)
+expect = kandlikar(x, w, 30.0)                  # the parent's pool has run
+expect_grid = fritz(grid, w)
+
+def child(q):
+    try:
+        q.put((bool(np.array_equal(kandlikar(x, w, 30.0), expect)),
+               bool(np.array_equal(fritz(grid, w), expect_grid)),
+               wetboil.get_num_threads()))
+    except BaseException as exc:
+        q.put(repr(exc))
+
+ctx = mp.get_context("fork")
+for round_ in range(3):
+    q = ctx.Queue()
+    p = ctx.Process(target=child, args=(q,))
+    p.start()
+    p.join(timeout=60)
+    if p.is_alive():
+        p.kill()
+        print("HUNG", round_)
+        sys.exit(3)
+    res = q.get(timeout=10)
+    assert res == (True, True, 2), res
+    assert p.exitcode == 0, p.exitcode
+    kandlikar(x, w, 30.0)                       # the parent's pool still works
+
+# fork while another thread keeps the pool busy
+stop = threading.Event()
+def busy():
+    while not stop.is_set():
+        kandlikar(x, w, 30.0)
+t = threading.Thread(target=busy)
+t.start()
+try:
+    for round_ in range(5):
+        time.sleep(0.01 * round_)
+        pid = os.fork()
+        if pid == 0:
+            ok = np.array_equal(kandlikar(x, w, 30.0), expect) and np.array_equal(fritz(grid, w), expect_grid)
+            os._exit(0 if ok else 1)
+        deadline = time.time() + 60
+        while True:
+            done, status = os.waitpid(pid, os.WNOHANG)
+            if done:
+                break
+            if time.time() > deadline:
+                os.kill(pid, 9)
+                print("HUNG-BUSY", round_)
+                sys.exit(3)
+            time.sleep(0.01)
+        assert os.waitstatus_to_exitcode(status) == 0, status
+finally:
+    stop.set()
+    t.join()
+print("fork ok")
+"""
+
+
+@pytest.mark.skipif(not hasattr(os, "fork"), reason="no fork on this platform")
+def test_fork_after_the_pool_has_run_neither_hangs_nor_miscomputes():
+    env = dict(os.environ, PYTHONPATH=HERE + os.pathsep + os.environ.get("PYTHONPATH", ""))
+    r = subprocess.run([sys.executable, "-W", "ignore::DeprecationWarning", "-c", FORK_CHILD],
+                       capture_output=True, text=True, timeout=400, env=env)
+    assert r.returncode == 0 and "fork ok" in r.stdout, (r.returncode, r.stdout[-2000:], r.stderr[-3000:])

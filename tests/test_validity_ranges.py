@@ -1,0 +1,206 @@
+"""Published validity ranges: declared by every model, enforced by one counted
+RangeWarning per call.
+
+Every registered model declares its published validity (or says plainly that
+there is none, and why). For every kernel with a range the table below gives
+kernel inputs that leave it (chosen from the range stated in the model's own
+``validity`` text); the test mixes such elements with in-range ones and
+checks: the elements are computed (not NaN, unless the model documents a "no
+answer" there), exactly one RangeWarning per call names the public function
+and counts them, `wetboil.validity` marks exactly them with code 2, and
+``errstate(out_of_range=...)`` turns the warning off or into OutOfRangeError.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+import warnings
+
+import numpy as np
+import pytest
+
+import wetboil
+from wetboil import _core
+
+import kernel_cases as kc
+
+# kernel -> {kernel input name: value outside the published range}; the reason
+# quotes the model's validity text.
+OUT_OF_RANGE = {
+    "water_saturation_t": ({"T": 646.0}, "T <= 0.997 T_crit = 645.15 K"),
+    "water_saturation_p": ({"p": 21.8e6}, "T_sat(p) <= 0.997 T_crit"),
+    "embryo_superheat_linear": ({"radius": 2e-9}, "superheat <= 0.1 T_sat"),
+    "embryo_radius_linear": ({"superheat": 60.0}, "superheat <= 0.1 T_sat"),
+    "embryo_superheat_exact": ({"radius": 3e-8}, "superheat <= 0.1 T_sat"),
+    "bergles_rohsenow_onset": ({"fluid.p": 0.5e5}, "15 <= p <= 2000 psia"),
+    "wang_dhir_site_density": ({"contact_angle_deg": 10.0}, "18 <= theta <= 90 deg"),
+    "basu_site_density": ({"contact_angle_deg": 10.0}, "30 <= theta <= 90 deg"),
+    "hibiki_ishii_site_density": ({"contact_angle_deg": 2.0}, "5 <= theta <= 90 deg"),
+    "lemmert_chawla_site_density": ({"wall_superheat": 25.0}, "flagged above 20 K"),
+    "fritz_departure": ({"contact_angle_deg": 120.0}, "contact_angle_deg <= 90"),
+    "kocamustafaogullari_ishii_departure": ({"contact_angle_deg": 120.0}, "contact_angle_deg <= 90"),
+    "klausner_force_balance": ({"orientation_deg": 120.0}, "orientation_deg <= 90"),
+    "zuber_chf": ({"K": 0.3}, "0.10 <= K <= 0.20"),
+    "kandlikar_chf": ({"orientation_deg": 100.0}, "0 <= orientation_deg <= 90"),
+    "lienhard_dhir_chf": ({"geometry": 0.0, "size": 1e-3}, "large flat plate L' >= 27"),
+    "minimum_heat_flux": ({"C": 0.3}, "0.05 <= C <= 0.20"),
+    "rohsenow_heat_flux": ({"C_sf": 0.05}, "0.002 <= C_sf <= 0.02"),
+    "rohsenow_superheat": ({"n": 3.0}, "0.8 <= n <= 2"),
+    "cooper_heat_flux": ({"fluid.p": 21.0e6}, "0.001 <= p/p_crit <= 0.9"),
+    "cooper_superheat": ({"fluid.p": 10.0}, "0.001 <= p/p_crit <= 0.9"),
+    "rpi_partition": ({"site_density": 1e9, "departure_diameter": 2e-3}, "area_factor N pi D^2/4 <= 1"),
+    "tolubinsky_kostanchuk_departure": ({"subcooling": 70.0}, "0 <= subcooling <= 60 K"),
+    "lloyd_moran_natural_convection": ({"length": 1e-4, "superheat": 1.0}, "1e4 <= Ra_L <= 1e11"),
+    "girifalco_good": ({"phi": 1.5}, "0.5 <= phi <= 1.1"),
+    "wenzel_angle": ({"contact_angle_deg": 20.0, "roughness_ratio": 2.5}, "|r cos(theta)| <= 1"),
+    "cassie_baxter_angle": ({"contact_angle_deg": 10.0, "solid_fraction": 1.0, "roughness_ratio": 2.0},
+                            "|cos(theta*)| <= 1"),
+    "vdw_disjoining_pressure": ({"thickness": 3e-10}, "1 nm <= thickness <= 20 nm"),
+    "vdw_film_thickness": ({"height": 1e-9, "hamaker": -1e-19}, "result between 1 nm and 20 nm"),
+    "water_screening_chain": ({"contact_angle_deg": 120.0}, "contact_angle_deg <= 90 (Fritz)"),
+}
+
+# kernels whose validity text says there is no numeric range (and why)
+NO_RANGE_WORDS = re.compile(r"\b(no|none|not)\b", re.IGNORECASE)
+
+
+def _in_range_base(kernel):
+    """Public arguments of one element inside the published range."""
+    f, spec = kc.BY_KERNEL[kernel]
+    rng = np.random.default_rng(1)
+    fixed = {  # a few kernels need a hand-picked point inside a narrow range
+        "bergles_rohsenow_onset": {"fluid": wetboil.fluids.water(p=5e5)},
+        "wang_dhir_site_density": {"fluid": wetboil.fluids.water(p=101325.0), "contact_angle_deg": 45.0,
+                                   "wall_superheat": 10.0},
+        "basu_site_density": {"fluid": wetboil.fluids.water(p=101325.0), "contact_angle_deg": 45.0,
+                              "wall_superheat": 10.0},
+        "hibiki_ishii_site_density": {"fluid": wetboil.fluids.water(p=101325.0), "contact_angle_deg": 45.0,
+                                      "wall_superheat": 10.0},
+        "lienhard_dhir_chf": {"geometry": 0.0, "size": 0.5, "area": 0.25},
+        "vdw_film_thickness": {"height": 0.01, "hamaker": -1e-20},
+        "vdw_disjoining_pressure": {"thickness": 5e-9},
+        "lloyd_moran_natural_convection": {"superheat": 5.0, "length": 0.05},
+        "rpi_partition": {"site_density": 1e5, "departure_diameter": 1e-3, "area_factor": 4.0},
+        "embryo_superheat_exact": {"fluid": wetboil.fluids.water(p=101325.0), "radius": 1e-5},
+        "embryo_superheat_linear": {"fluid": wetboil.fluids.water(p=101325.0), "radius": 1e-5},
+        "embryo_radius_linear": {"fluid": wetboil.fluids.water(p=101325.0), "superheat": 5.0},
+        "cooper_heat_flux": {"fluid": wetboil.fluids.water(p=101325.0)},
+        "cooper_superheat": {"fluid": wetboil.fluids.water(p=101325.0)},
+        "klausner_force_balance": {"orientation_deg": 0.0},
+        "kandlikar_chf": {"orientation_deg": 0.0},
+    }.get(kernel, {})
+    for _ in range(500):
+        args = dict(kc.draw_args(spec, rng), **fixed)
+        x = kc.kernel_inputs(spec, args)
+        with np.errstate(all="ignore"):
+            if int(getattr(_core, f"{kernel}_status")(*x)) == 0:
+                return f, spec, args
+    raise AssertionError(f"{kernel}: no in-range point found")
+
+
+def test_every_model_declares_its_validity():
+    models = {m.name: m for m in wetboil.models()}
+    for m in models.values():
+        assert m.validity.strip(), f"{m.name}: empty validity"
+        ref = re.match(r"as (\w+)\b", m.validity)
+        if ref and ref.group(1) in models:  # "as furmidge_retention_force; ...": that model's statement
+            m = models[ref.group(1)]
+        if m.name not in OUT_OF_RANGE:
+            # no numeric range: the text must say so, with a reason (more than a bare "none")
+            assert NO_RANGE_WORDS.search(m.validity), f"{m.name}: no range tested, validity {m.validity!r}"
+            reason = NO_RANGE_WORDS.split(m.validity, maxsplit=1)[-1]
+            assert len(m.validity) > 12 and len(reason.strip(" :;,.()")) > 5, (
+                f"{m.name}: validity gives no reason: {m.validity!r}")
+
+
+def test_the_table_covers_every_kernel_that_flags():
+    """Random physical inputs never leave the range of a kernel that declares
+    none; every kernel in the table is a registered kernel."""
+    names = {m.name for m in wetboil.models()}
+    assert set(OUT_OF_RANGE) <= names
+    rng = np.random.default_rng(8)
+    for kernel, (f, spec) in kc.BY_KERNEL.items():
+        if kernel in OUT_OF_RANGE:
+            continue
+        args = kc.draw_args(spec, rng, 2000)
+        with np.errstate(all="ignore"):
+            codes = getattr(_core, f"{kernel}_status")(*kc.kernel_inputs(spec, args))
+        assert not (codes == 2).any(), f"{kernel} flags elements out of range but has no entry in OUT_OF_RANGE"
+
+
+@pytest.mark.parametrize("kernel", sorted(set(OUT_OF_RANGE) & set(kc.BY_KERNEL)))
+def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
+    f, spec, base = _in_range_base(kernel)
+    changes, reason = OUT_OF_RANGE[kernel]
+    names = [a.name for a in spec.model.inputs]
+    for name in changes:
+        assert name in names, f"{kernel}: no input {name}"
+    x_in = kc.kernel_inputs(spec, base)
+    x_out = [changes.get(n, v) for n, v in zip(names, x_in)]
+    with np.errstate(all="ignore"):
+        code = int(getattr(_core, f"{kernel}_status")(*x_out))
+    assert code == 2, f"{kernel}: {changes} is not out of range ({reason})"
+
+    # 7 elements, 3 of them out of range
+    pattern = np.array([0, 1, 0, 0, 1, 1, 0], dtype=bool)
+    x_mix = [np.where(pattern, vo, vi) if vo != vi else vi for vi, vo in zip(x_in, x_out)]
+    args = kc.args_from_inputs(spec, x_mix, base)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        out = kc.call(f, spec, args)
+    ranges = [w for w in rec if w.category is wetboil.RangeWarning]
+    assert len(ranges) == 1, (kernel, [str(w.message) for w in rec])
+    msg = str(ranges[0].message)
+    assert msg.startswith(spec.function + ":") and "3 of 7" in msg, msg
+    assert not [w for w in rec if w.category is wetboil.InvalidValueWarning], kernel
+    # the elements are computed, not blanked
+    for k, o in enumerate(kc.outputs(out)):
+        o = np.broadcast_to(np.asarray(o, dtype=float), pattern.shape)
+        assert np.isfinite(o[~pattern]).all() or kernel in kc.NO_ANSWER, (kernel, o)
+        computed = ~np.isnan(o[pattern])
+        assert computed.all() or kernel in kc.NO_ANSWER, (kernel, spec.model.outputs[k].name, o)
+    # validity marks exactly those elements
+    codes = np.broadcast_to(wetboil.validity(f, *[args[p] for p in spec.params]), pattern.shape)
+    assert codes.tolist() == np.where(pattern, 2, 0).tolist(), (kernel, codes)
+
+    # a scalar call out of range: the fast path hands over to the counted path
+    scalar_args = kc.args_from_inputs(spec, x_out, base)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        kc.call(f, spec, scalar_args)
+    msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
+    assert len(msgs) == 1 and "1 of 1" in msgs[0], (kernel, msgs)
+
+    # errstate: ignore silences, raise raises OutOfRangeError (a ValueError and a WetboilError)
+    with warnings.catch_warnings(record=True) as rec, wetboil.errstate(out_of_range="ignore"):
+        warnings.simplefilter("always")
+        kc.call(f, spec, args)
+    assert not [w for w in rec if w.category is wetboil.RangeWarning]
+    with wetboil.errstate(out_of_range="raise"), pytest.raises(wetboil.OutOfRangeError, match="3 of 7"):
+        kc.call(f, spec, args)
+    assert issubclass(wetboil.OutOfRangeError, ValueError) and issubclass(wetboil.OutOfRangeError, wetboil.WetboilError)
+
+
+def test_in_range_calls_do_not_warn():
+    for kernel in sorted(set(OUT_OF_RANGE) & set(kc.BY_KERNEL)):
+        f, spec, base = _in_range_base(kernel)
+        with warnings.catch_warnings():
+            warnings.simplefilter("error", wetboil.WetboilWarning)
+            kc.call(f, spec, base)
+
+
+def test_one_warning_per_category_when_both_happen():
+    """Impossible and out-of-range elements in one call: one warning of each
+    kind, each with its own count."""
+    from wetboil.departure import fritz
+
+    w = wetboil.fluids.water(p=101325.0)
+    theta = np.array([30.0, 120.0, 200.0, 150.0, -5.0, math.nan])
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        d = fritz(theta, w)
+    by = {w_.category: str(w_.message) for w_ in rec}
+    assert len(rec) == 2
+    assert "2 of 6" in by[wetboil.InvalidValueWarning] and "2 of 6" in by[wetboil.RangeWarning]
+    assert np.isnan(d[[2, 4, 5]]).all() and np.isfinite(d[[0, 1, 3]]).all()
