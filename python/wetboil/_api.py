@@ -144,6 +144,30 @@ def _coerce(function: str, label: str, value: Any) -> Any:
     raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {arr.dtype}")
 
 
+def need_saturation(function: str, fluid: Any) -> Any:
+    """`fluid` itself when it is a `wetboil.fluids.Saturation`, else a
+    `WetboilTypeError` naming `function`."""
+    from .fluids import Saturation
+
+    if not isinstance(fluid, Saturation):
+        raise WetboilTypeError(
+            f"{function}: fluid must be a wetboil.fluids.Saturation "
+            f"(for example wetboil.fluids.water(p=101325.0)), got {type(fluid).__name__}"
+        )
+    return fluid
+
+
+def check_choice(function: str, label: str, value: Any, known: Any) -> str:
+    """`value` when it is one of the names in `known` (a sequence or mapping);
+    else `WetboilTypeError` (not a string) or `WetboilValueError` listing the
+    choices. Every ``method=``/``geometry=`` argument goes through here."""
+    if not isinstance(value, str):
+        raise WetboilTypeError(f"{function}: {label} must be a string, got {type(value).__name__}")
+    if value not in known:
+        raise WetboilValueError(f"{function}: unknown {label} {value!r}; choices are {', '.join(known)}")
+    return value
+
+
 # ----------------------------------------------------------------------------
 # evaluation
 

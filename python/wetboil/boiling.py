@@ -29,7 +29,7 @@ from typing import Any, Callable, Dict, NamedTuple, Optional, Tuple
 import numpy as np
 
 from . import chf as _chf
-from ._api import kernel
+from ._api import check_choice, kernel, need_saturation
 from ._errors import WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation
 
@@ -59,21 +59,8 @@ G = 9.80665
 _STEFAN_BOLTZMANN = 5.670374419e-8  # W/(m2 K4), CODATA 2018 (exact from the SI definitions)
 
 
-def _need_saturation(function: str, fluid: Any) -> Saturation:
-    if not isinstance(fluid, Saturation):
-        raise WetboilTypeError(
-            f"{function}: fluid must be a wetboil.fluids.Saturation "
-            f"(for example wetboil.fluids.water(p=101325.0)), got {type(fluid).__name__}"
-        )
-    return fluid
 
 
-def _choice(function: str, label: str, value: Any, known: Any) -> Any:
-    if not isinstance(value, str):
-        raise WetboilTypeError(f"{function}: {label} must be a string, got {type(value).__name__}")
-    if value not in known:
-        raise WetboilValueError(f"{function}: unknown {label} {value!r}; choices are {', '.join(known)}")
-    return value
 
 
 # --------------------------------------------------------------------------- Rohsenow
@@ -348,7 +335,7 @@ def surface_constant(liquid: str, surface: str, book: Optional[str] = None) -> S
     if not (isinstance(liquid, str) and isinstance(surface, str)):
         raise WetboilTypeError("boiling.surface_constant: liquid and surface must be strings")
     if book is not None:
-        _choice("boiling.surface_constant", "book", book, _BOOKS)
+        check_choice("boiling.surface_constant", "book", book, _BOOKS)
     rows = [r for r in SURFACE_CONSTANTS if r.liquid == liquid.lower() and r.surface == surface.lower()]
     if not rows:
         pairs = sorted({f"{r.liquid} / {r.surface}" for r in SURFACE_CONSTANTS})
@@ -504,8 +491,8 @@ def film_boiling(
     >>> round(film_boiling(155.0, w, "cylinder", diameter=5e-3) / 1e3, 1)   # kW/m2
     43.5
     """
-    _need_saturation("boiling.film_boiling", fluid)
-    _choice("boiling.film_boiling", "geometry", geometry, FILM_GEOMETRIES)
+    need_saturation("boiling.film_boiling", fluid)
+    check_choice("boiling.film_boiling", "geometry", geometry, FILM_GEOMETRIES)
     constant = FILM_GEOMETRIES[geometry][0]
     emissivity = _chf._real("boiling.film_boiling", "emissivity", emissivity)
     if geometry == "flat_plate":
@@ -595,7 +582,7 @@ def _site_density(method: Any, wall_superheat: Any, fluid: Saturation, contact_a
         return method(wall_superheat, fluid, contact_angle_deg)
     if not isinstance(method, str):
         return method  # a number or an array: the site density itself [1/m2]
-    _choice("boiling.partition", "site_density closure", method, SITE_DENSITY_CLOSURES)
+    check_choice("boiling.partition", "site_density closure", method, SITE_DENSITY_CLOSURES)
     from . import nucleation
 
     fn = getattr(nucleation, "site_density", None)
@@ -618,7 +605,7 @@ def _departure(
         return method(wall_superheat, fluid, contact_angle_deg)
     if not isinstance(method, str):
         return method
-    _choice("boiling.partition", "departure closure", method, DEPARTURE_CLOSURES)
+    check_choice("boiling.partition", "departure closure", method, DEPARTURE_CLOSURES)
     if method == "tolubinsky_kostanchuk":
         return _tolubinsky(subcooling)
     from . import departure
@@ -646,7 +633,7 @@ def _frequency(method: Any, diameter: Any, fluid: Saturation, g: Any) -> Any:
         return method
     from . import departure
 
-    _choice("boiling.partition", "frequency closure", method, departure.FREQUENCY_METHODS)
+    check_choice("boiling.partition", "frequency closure", method, departure.FREQUENCY_METHODS)
     return departure.frequency(diameter, fluid, method=method, g=g)
 
 
@@ -776,12 +763,12 @@ def partition(
     >>> [round(x / 1e3, 1) for x in r[:4]]
     [3.4, 56.7, 18.4, 78.6]
     """
-    _need_saturation("boiling.partition", fluid)
+    need_saturation("boiling.partition", fluid)
     n_a = _site_density(site_density, wall_superheat, fluid, contact_angle_deg)
     d = _departure(departure, wall_superheat, fluid, contact_angle_deg, receding_angle_deg, subcooling, g)
     f = _frequency(frequency, d, fluid, g)
     if isinstance(area_factor, str):
-        _choice("boiling.partition", "area_factor", area_factor, AREA_FACTORS)
+        check_choice("boiling.partition", "area_factor", area_factor, AREA_FACTORS)
         if area_factor == "kurul_podowski":
             k: Any = 4.0
         else:
@@ -1032,14 +1019,14 @@ def curve(
     ['film', 'natural convection', 'nucleate', 'transition']
     """
     fn = "boiling.curve"
-    _need_saturation(fn, fluid)
+    need_saturation(fn, fluid)
     _scalar_state(fluid)
-    _choice(fn, "nucleate method", nucleate, NUCLEATE_METHODS)
+    check_choice(fn, "nucleate method", nucleate, NUCLEATE_METHODS)
     if chf is None:
         chf = "kandlikar" if receding_angle_deg is not None else "lienhard_dhir"
-    _choice(fn, "chf method", chf, CHF_METHODS)
-    _choice(fn, "geometry", geometry, _chf.GEOMETRIES)
-    _choice(fn, "minimum method", minimum, _chf.MINIMUM_METHODS)
+    check_choice(fn, "chf method", chf, CHF_METHODS)
+    check_choice(fn, "geometry", geometry, _chf.GEOMETRIES)
+    check_choice(fn, "minimum method", minimum, _chf.MINIMUM_METHODS)
     options = dict(receding_angle_deg=receding_angle_deg, contact_angle_deg=contact_angle_deg,
                    orientation_deg=orientation_deg, C_sf=C_sf, n=n, roughness_Rp=roughness_Rp, size=size,
                    natural_convection_coefficient=natural_convection_coefficient,

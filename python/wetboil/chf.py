@@ -27,7 +27,7 @@ from typing import Any, Dict, Tuple
 
 import numpy as np
 
-from ._api import _coerce, kernel
+from ._api import _coerce, check_choice, kernel
 from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
 
@@ -201,12 +201,6 @@ _lienhard_dhir_kernel.__name__ = "lienhard_dhir"
 _lienhard_dhir_kernel = kernel("lienhard_dhir_chf")(_lienhard_dhir_kernel)
 
 
-def _choice(function: str, label: str, value: Any, known: Dict[str, Any]) -> Any:
-    if not isinstance(value, str):
-        raise WetboilTypeError(f"{function}: {label} must be a string, got {type(value).__name__}")
-    if value not in known:
-        raise WetboilValueError(f"{function}: unknown {label} {value!r}; choices are {', '.join(known)}")
-    return known[value]
 
 
 def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
@@ -310,8 +304,8 @@ def lienhard_dhir(
     ...
     wetboil._errors.WetboilValueError: chf.lienhard_dhir: unknown geometry 'cone'; choices are flat_plate, small_flat_plate, cylinder, sphere
     """
-    code = _choice("chf.lienhard_dhir", "geometry", geometry, GEOMETRIES)
-    coefficient = _choice("chf.lienhard_dhir", "small_plate form", small_plate, SMALL_PLATE_FORMS)
+    code = GEOMETRIES[check_choice("chf.lienhard_dhir", "geometry", geometry, GEOMETRIES)]
+    coefficient = SMALL_PLATE_FORMS[check_choice("chf.lienhard_dhir", "small_plate form", small_plate, SMALL_PLATE_FORMS)]
     if area is None:
         size = _real("chf.lienhard_dhir", "size", size)
         area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
@@ -385,5 +379,5 @@ def minimum_heat_flux(fluid: Saturation, method: str = "berenson", g: Any = G) -
     >>> round(minimum_heat_flux(w, method="zuber", g=9.8) / 1e3, 1)
     27.6
     """
-    C = _choice("chf.minimum_heat_flux", "method", method, MINIMUM_METHODS)
+    C = MINIMUM_METHODS[check_choice("chf.minimum_heat_flux", "method", method, MINIMUM_METHODS)]
     return _minimum_kernel(C, fluid, g)

@@ -20,7 +20,7 @@ from typing import Any, Dict, NamedTuple, Sequence, Tuple
 
 import numpy as np
 
-from ._api import kernel
+from ._api import check_choice, kernel
 from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
 
@@ -532,12 +532,6 @@ _ivey_transition = kernel("ivey_transition_frequency")(_ivey_transition)
 FREQUENCY_METHODS: Tuple[str, ...] = ("cole", "zuber", "kocamustafaogullari_ishii", "ivey", "ivey_transition")
 
 
-def _check_method(function: str, method: Any, known: Sequence[str]) -> str:
-    if not isinstance(method, str):
-        raise WetboilTypeError(f"{function}: method must be a string (or a list of strings), got {type(method).__name__}")
-    if method not in known:
-        raise WetboilValueError(f"{function}: unknown method {method!r}; methods are {', '.join(known)}")
-    return method
 
 
 def _methods(function: str, method: Any, known: Sequence[str]) -> Tuple[list, bool]:
@@ -545,11 +539,11 @@ def _methods(function: str, method: Any, known: Sequence[str]) -> Tuple[list, bo
     if isinstance(method, (list, tuple)):
         if not method:
             raise WetboilValueError(f"{function}: method list is empty; methods are {', '.join(known)}")
-        names = [_check_method(function, m, known) for m in method]
+        names = [check_choice(function, "method", m, known) for m in method]
         if len(set(names)) != len(names):
             raise WetboilValueError(f"{function}: method list has repeated names {names}")
         return names, True
-    return [_check_method(function, method, known)], False
+    return [check_choice(function, "method", method, known)], False
 
 
 def _stack(results: list, names: list, name: str, units: str) -> Any:

@@ -32,7 +32,7 @@ from typing import Any, Callable, Dict, NamedTuple, Sequence, Tuple
 
 import numpy as np
 
-from ._api import kernel, dispatch
+from ._api import check_choice, dispatch, kernel, need_saturation
 from ._errors import WetboilTypeError, WetboilValueError, errstate, report
 from .fluids import Saturation
 
@@ -66,21 +66,8 @@ def _is_water(name: Any) -> bool:
     return isinstance(name, str) and name.strip().lower() in _WATER_NAMES
 
 
-def _need_saturation(function: str, fluid: Any) -> Saturation:
-    if not isinstance(fluid, Saturation):
-        raise WetboilTypeError(
-            f"{function}: fluid must be a wetboil.fluids.Saturation "
-            f"(for example wetboil.fluids.water(p=101325.0)), got {type(fluid).__name__}"
-        )
-    return fluid
 
 
-def _check_method(function: str, method: Any, known: Sequence[str]) -> str:
-    if not isinstance(method, str):
-        raise WetboilTypeError(f"{function}: method must be a string, got {type(method).__name__}")
-    if method not in known:
-        raise WetboilValueError(f"{function}: unknown method {method!r}; methods are {', '.join(known)}")
-    return method
 
 
 def _named(name: str, template: Callable[..., Any], kernel_name: str, result: Any = None) -> Any:
@@ -836,8 +823,8 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     3.21
     """
     function = "nucleation.onset_superheat"
-    method = _check_method(function, method, ONSET_METHODS)
-    fluid = _need_saturation(function, fluid)
+    method = check_choice(function, "method", method, ONSET_METHODS)
+    fluid = need_saturation(function, fluid)
     if method == "bergles_rohsenow" and fluid.name is not None and not _is_water(fluid.name):
         raise WetboilValueError(f"{function}: method 'bergles_rohsenow' is a correlation for water, got fluid {fluid.name!r}")
     out = _onset_call(_ONSET, method, heat_flux, fluid, contact_angle_deg)
@@ -909,8 +896,8 @@ def onset_cavity_radius(heat_flux: Any, fluid: Saturation, contact_angle_deg: An
     9.11
     """
     function = "nucleation.onset_cavity_radius"
-    method = _check_method(function, method, ONSET_RADIUS_METHODS)
-    fluid = _need_saturation(function, fluid)
+    method = check_choice(function, "method", method, ONSET_RADIUS_METHODS)
+    fluid = need_saturation(function, fluid)
     return _onset_call(_ONSET_RADIUS, method, heat_flux, fluid, contact_angle_deg).cavity_radius
 
 
@@ -1053,8 +1040,8 @@ def site_density(wall_superheat: Any, fluid: Saturation, contact_angle_deg: Any,
     '9.96e+04'
     """
     function = "nucleation.site_density"
-    method = _check_method(function, method, SITE_DENSITY_METHODS)
-    fluid = _need_saturation(function, fluid)
+    method = check_choice(function, "method", method, SITE_DENSITY_METHODS)
+    fluid = need_saturation(function, fluid)
     if method == "hibiki_ishii":
         mm = fluid.molar_mass
         if isinstance(mm, float) and math.isnan(mm):
