@@ -148,19 +148,23 @@ impl Kernel<6, 1> for EmbryoRadius {
 /// Solved for the liquid temperature T_l:
 ///
 /// * Young-Laplace: `p_v = p + 2σ/r` (σ at T_sat);
-/// * vapour in the embryo: `p_v = p_sat(T_l) exp[−(p_sat(T_l) − p)/(ρ_l R* T_l)]`
-///   (equal chemical potentials of an ideal-gas vapour and an incompressible liquid);
+/// * vapour in the embryo: `p_v = p_sat(T_l) exp[−(p_sat(T_l) − p)/(ρ_l R_v T_l)]`
+///   (equal chemical potentials of an ideal-gas vapour and an incompressible liquid),
+///   with `R_v = p/(ρ_v T_sat)`, the gas constant that reproduces the saturated
+///   vapour density;
 /// * saturation line, integrated with constant h_lv:
-///   `ln[p_sat(T_l)/p] = (h_lv/R*)(1/T_sat − 1/T_l)`;
-/// * `R* = p v_lv / T_sat`, `v_lv = 1/ρ_v − 1/ρ_l`: the gas constant that makes the
-///   slope of this saturation line at T_sat equal the exact Clapeyron slope
-///   `h_lv/(T v_lv)`. For an ideal-gas vapour far from the critical point R* is the
-///   specific gas constant (water at 1 atm: 454 against 461.5 J/(kg K)).
+///   `ln[p_sat(T_l)/p] = (h_lv/R_s)(1/T_sat − 1/T_l)`, with `R_s = p v_lv / T_sat`,
+///   `v_lv = 1/ρ_v − 1/ρ_l`: the constant that makes the slope of this line at
+///   T_sat equal the exact Clapeyron slope `h_lv/(T v_lv)`. Far from the critical
+///   point both are close to the specific gas constant (water at 1 atm: 454 against
+///   461.5 J/(kg K)).
 ///
-/// As r grows the result tends to `2σT_sat/(ρ_v h_lv r)`: the first-order
-/// equilibrium *including* the liquid's lower pressure. The v_lv form of
-/// [`embryo_superheat`] (the saturation line at `p + 2σ/r`, no Poynting term) is
-/// smaller by the factor `1 − ρ_v/ρ_l` (0.06 % at 1 atm, 5 % at 70 bar for water).
+/// As r grows the result tends to `2σT_sat/(ρ_v h_lv r)` exactly: the first-order
+/// equilibrium `ΔT = v_v Δp T/h_lv` *including* the liquid's lower pressure (the two
+/// constants above are what makes the limit exact up to the critical point). The
+/// v_lv form of [`embryo_superheat`] (the saturation line at `p + 2σ/r`, no
+/// Poynting term) is smaller by the factor `1 − ρ_v/ρ_l` (0.06 % at 1 atm, 5 % at
+/// 70 bar for water).
 ///
 /// Newton iteration on `z = ln(p_sat(T_l)/p)` from `z = ln(1 + 2σ/(p r))` (from the
 /// left on a concave increasing function: monotone, at most 60 steps). NaN (no
@@ -169,7 +173,7 @@ impl Kernel<6, 1> for EmbryoRadius {
 ///
 /// What stays approximate: σ is taken at T_sat (the true σ(T_l) is lower, which
 /// lowers the superheat: for water about 5 % at 1 µm, 15 % at 0.1 µm), h_lv is
-/// constant, the vapour is ideal with R*.
+/// constant, the vapour is ideal with R_v.
 ///
 /// References: Clausius-Clapeyron and the Poynting correction as in M. Blander,
 /// J.L. Katz, "Bubble nucleation in liquids", AIChE J. 21 (1975) 833-848,
@@ -190,7 +194,8 @@ pub fn embryo_superheat_exact(
     let v_lv = 1.0 / rho_v - 1.0 / rho_l;
     let r_eff = p * v_lv / t_sat;
     let k = r_eff / h_lv; // [1/K]
-    let c = 1.0 / (rho_l * r_eff); // v_l / R*  [K/Pa]
+    // v_l / R_v [K/Pa] with R_v = p/(rho_v T_sat): the vapour's ideal-gas constant.
+    let c = rho_v * t_sat / (rho_l * p);
     let inv_t0 = 1.0 / t_sat;
     let z_v = (2.0 * sigma / (radius * p)).ln_1p(); // ln(p_v/p)
     // F(z) = z - z_v - p (e^z - 1) c (1/T_sat - k z), increasing and concave.
@@ -230,7 +235,7 @@ impl Kernel<7, 1> for EmbryoSuperheatExact {
     const MODEL: Model = Model {
         name: "embryo_superheat_exact",
         summary: "Equilibrium superheat of a vapour embryo (integrated Clausius-Clapeyron with ideal-gas vapour and Poynting correction)",
-        equation: "p + 2 sigma/r = P exp(-(P - p)/(rho_l R* T_l)), ln(P/p) = (h_lv/R*)(1/T_sat - 1/T_l), R* = p (1/rho_v - 1/rho_l)/T_sat; dT = T_l - T_sat",
+        equation: "p + 2 sigma/r = P exp(-(P - p)/(rho_l R_v T_l)), ln(P/p) = (h_lv/R_s)(1/T_sat - 1/T_l), R_v = p/(rho_v T_sat), R_s = p (1/rho_v - 1/rho_l)/T_sat; dT = T_l - T_sat",
         inputs: &[
             arg("radius", "m"),
             arg("fluid.sigma", "N/m"),
@@ -1202,14 +1207,19 @@ mod tests {
 
     #[test]
     fn exact_embryo_tends_to_the_linear_form_and_lies_below_it() {
-        // Large radius: the integrated form with R* = p v_lv/T_sat has the exact
-        // Clapeyron slope at T_sat; with the Poynting term the first-order limit is
-        // 2 sigma T_sat/(rho_v h_lv r) = the linear v_lv form / (1 - rho_v/rho_l) [D].
+        // Large radius: the integrated form with R_s = p v_lv/T_sat has the exact
+        // Clapeyron slope at T_sat; with the Poynting term (R_v = p/(rho_v T_sat))
+        // the first-order limit is 2 sigma T_sat/(rho_v h_lv r) = the linear v_lv
+        // form / (1 - rho_v/rho_l) [D, chemical-potential balance].
         let p = 101325.0;
         let big = embryo_superheat_exact(1.0, W.0, W.1, p, W.2, W.3, W.4);
         let lin = embryo_superheat(1.0, W.0, W.1, W.2, W.3, W.4);
         assert_relative_eq!(big, lin / (1.0 - W.3 / W.2), max_relative = 2e-5);
         assert_relative_eq!(big, 2.0 * W.0 * W.1 / (W.3 * W.4), max_relative = 2e-5);
+        // ... also near the critical point (water at about 21 MPa: rho_v/rho_l = 0.35).
+        let (s, t, rl, rv, h, pc) = (3.5e-4, 643.0, 480.0, 170.0, 4.0e5, 21.0e6);
+        let big = embryo_superheat_exact(1.0, s, t, pc, rl, rv, h);
+        assert_relative_eq!(big, 2.0 * s * t / (rv * h), max_relative = 1e-4);
         // Small radius: the linear form over-predicts (about 40 % at 1 um at 1 atm).
         let lin = embryo_superheat(1e-6, W.0, W.1, W.2, W.3, W.4);
         let ex = embryo_superheat_exact(1e-6, W.0, W.1, p, W.2, W.3, W.4);
