@@ -68,12 +68,18 @@ pub fn cos_deg(deg: f64) -> f64 {
         return f64::NAN;
     }
     let (q, t) = reduce(deg);
-    match q {
-        0 => kernel_cos(t),
-        1 => -kernel_sin(t),
-        2 => -kernel_cos(t),
-        _ => kernel_sin(t),
-    }
+    // Branch-free quadrant selection: angles in a sweep fall in random
+    // quadrants, and a mispredicted branch costs more than both polynomials.
+    // q = 0: cos t, 1: -sin t, 2: -cos t, 3: sin t.
+    select(q & 1 == 1, kernel_sin(t), kernel_cos(t), (q + 1) & 2 != 0)
+}
+
+/// `a` if `pick_a` else `b`, negated when `negate`, without branches.
+#[inline(always)]
+fn select(pick_a: bool, a: f64, b: f64, negate: bool) -> f64 {
+    let mask = (pick_a as u64).wrapping_neg();
+    let bits = (a.to_bits() & mask) | (b.to_bits() & !mask);
+    f64::from_bits(bits ^ ((negate as u64) << 63))
 }
 
 /// sin of an angle in degrees. NaN for NaN or infinite input.
@@ -83,12 +89,8 @@ pub fn sin_deg(deg: f64) -> f64 {
         return f64::NAN;
     }
     let (q, t) = reduce(deg);
-    match q {
-        0 => kernel_sin(t),
-        1 => kernel_cos(t),
-        2 => -kernel_sin(t),
-        _ => -kernel_cos(t),
-    }
+    // q = 0: sin t, 1: cos t, 2: -sin t, 3: -cos t.
+    select(q & 1 == 0, kernel_sin(t), kernel_cos(t), q & 2 != 0)
 }
 
 #[cfg(test)]
