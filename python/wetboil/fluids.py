@@ -337,8 +337,25 @@ WATER_T_TRIPLE = 273.16
 
 def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, cp_l: Any, k_l: Any,
                  mu_l: Any, mu_v: Any, cp_v: Any, k_v: Any) -> Saturation:
+    if type(T) is float:  # the scalar fast path hands over twelve Python floats
+        return _scalar_state((T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v,
+                              WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT), "water")
     return Saturation(T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v,
                       WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT, name="water")
+
+
+_set = object.__setattr__
+
+
+def _scalar_state(values: tuple, name: Optional[str]) -> Saturation:
+    """A Saturation from 15 Python floats in FIELDS order, without the checks
+    of the constructor (for values produced by our own kernels)."""
+    s = Saturation.__new__(Saturation)
+    for f, v in zip(FIELDS, values):
+        _set(s, f, v)
+    _set(s, "name", name)
+    _set(s, "_scalars", values)
+    return s
 
 
 from ._api import kernel as _kernel  # noqa: E402  (fluids is imported by _api lazily)
