@@ -68,6 +68,8 @@ class Table:
         self.rows.append((section, what, ours, base, ratio, target, note))
 
     def show(self):
+        order = {s: i for i, s in enumerate(sorted({r[0] for r in self.rows}))}
+        self.rows.sort(key=lambda r: order[r[0]])  # stable: keeps each section's order
         w = max(len(r[1]) for r in self.rows)
         print(f"\n{'':2} {'benchmark':<{w}}  {'wetboil':>10}  {'baseline':>10}  {'ratio':>7}  {'target':<8} note")
         last = None
@@ -175,6 +177,20 @@ def kernel_cases(n):
 
 def section_kernels(table, n, repeat):
     cases, _, _ = kernel_cases(n)
+    # The foundation pair, together (the foundation issue's headline ratio).
+    pair = {label: (ours, base) for label, ours, base, _py, _args in cases}
+    f_ours, f_base = pair["departure.fritz"]
+    k_ours, k_base = pair["chf.kandlikar"]
+    both, both_np = (lambda: (f_ours(), k_ours())), (lambda: (f_base(), k_base()))
+    t_both = best(both, repeat)
+    table.add("1. kernels, contiguous", f"fritz + kandlikar, {n:.0e} points vs NumPy", t_both, best(both_np, repeat), ">= 5x")
+    threads = wetboil.get_num_threads()
+    try:
+        wetboil.set_num_threads(1)
+        t_one = best(both, repeat)
+    finally:
+        wetboil.set_num_threads(threads)
+    table.add("3. threads", f"fritz + kandlikar, contiguous, {threads} threads vs 1", t_both, t_one, ">= 1.8x")
     for label, ours, base, _py, _args in cases:
         a, b = ours(), base()
         assert np.allclose(a, b, rtol=1e-9, equal_nan=True), f"{label}: benchmark formulas disagree"

@@ -157,22 +157,10 @@ impl Front {
         let e = &entries()[choice.entry];
         let mut x = [0.0f64; MAX_IN];
         // The fields of the (single, in every kernel so far) fluid argument.
-        let mut fluid: Option<(usize, [f64; FLUID_FIELDS])> = None;
         for (k, &(ai, field)) in choice.plan.iter().enumerate() {
             // SAFETY: every slot up to np is a live borrowed reference (argument or default).
             let obj = unsafe { Borrowed::from_ptr(py, slots[ai]) };
-            x[k] = if field < 0 {
-                plain_number(obj)?
-            } else {
-                match fluid {
-                    Some((a, v)) if a == ai => v[field as usize],
-                    _ => {
-                        let v = self.fluid(obj)?;
-                        fluid = Some((ai, v));
-                        v[field as usize]
-                    }
-                }
-            };
+            x[k] = if field < 0 { plain_number(obj)? } else { self.fluid_field(obj, field as usize)? };
         }
         let mut y = [0.0f64; MAX_OUT];
         let status = (e.scalar)(&x[..e.nin], &mut y[..e.nout]);
@@ -193,22 +181,23 @@ impl Front {
     }
 
     /// The fields of a fluid argument, through the one-entry identity cache.
-    fn fluid(&self, obj: Borrowed<'_, '_, PyAny>) -> Option<[f64; FLUID_FIELDS]> {
+    /// One field of a fluid argument, read from the one-entry identity cache
+    /// (filled on a miss) without copying the state.
+    #[inline]
+    fn fluid_field(&self, obj: Borrowed<'_, '_, PyAny>, field: usize) -> Option<f64> {
         // SAFETY: GIL held (we are inside a call from Python); the shared
         // borrow ends before any Python code can run.
-        let hit = unsafe { &*self.cache.0.get() }
-            .as_ref()
-            .filter(|(o, _)| o.as_ptr() == obj.as_ptr())
-            .map(|(_, v)| *v);
-        if hit.is_some() {
-            return hit;
+        if let Some((o, v)) = unsafe { &*self.cache.0.get() }.as_ref() {
+            if o.as_ptr() == obj.as_ptr() {
+                return v.get(field).copied();
+            }
         }
         let v = fluid_values(obj)?; // may run Python code (and re-enter)
         // Swap without running Python code, then drop the old entry (its
         // decref may run a finalizer) once the cell is consistent again.
         let old = std::mem::replace(unsafe { &mut *self.cache.0.get() }, Some((obj.to_owned().unbind(), v)));
         drop(old);
-        Some(v)
+        v.get(field).copied()
     }
 
     /// Forward the call unchanged to the Python fallback.
