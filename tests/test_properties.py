@@ -358,10 +358,12 @@ def test_wenzel_amplifies(theta, rs):
     # cos t* = r cos t (Wenzel 1936): roughness pushes the angle away from 90 deg
     r1, r2 = rs
     t1, t2 = _quiet(wetting.wenzel, theta, [r1, r2])
+    # acos amplifies one ulp of cos t by 1/sin t: allow that much (in degrees)
+    slack = 1e-12 + 4 * np.finfo(float).eps / max(np.sin(np.radians(theta)), 1e-300) * 180 / np.pi
     if theta < 90.0:
-        assert t2 <= t1 <= theta + 1e-12
+        assert t2 <= t1 + slack and t1 <= theta + slack
     elif theta > 90.0:
-        assert t2 >= t1 >= theta - 1e-12
+        assert t2 >= t1 - slack and t1 >= theta - slack
     else:
         assert t1 == t2 == 90.0
     # (acos near 1 resolves angles to about 1e-6 deg)
