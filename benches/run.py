@@ -56,6 +56,7 @@ def per_call(fn, args, n=100_000, repeat=5):
     (no *args unpacking in the timed loop), the way user code calls it."""
     ns = {"fn": fn, **{f"a{i}": a for i, a in enumerate(args)}}
     call = f"fn({', '.join(f'a{i}' for i in range(len(args)))})"
+    timeit.timeit(call, number=n, globals=ns)  # warm up (caches, branch predictors, CPU clock)
     return min(timeit.repeat(call, number=n, repeat=repeat, globals=ns)) / n
 
 
