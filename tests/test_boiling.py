@@ -200,8 +200,6 @@ def test_contact_angle_enters_through_the_closures(water):
     assert hi.departure_diameter == pytest.approx(2 * lo.departure_diameter, rel=1e-12)
     assert hi.evaporation > lo.evaporation
     # Site-density closures of wetboil.nucleation, chosen by name at call time.
-    if not hasattr(wetboil.nucleation, "site_density"):
-        pytest.skip("wetboil.nucleation.site_density not in this build")
     with wetboil.errstate(out_of_range="ignore"):
         wd = [partition(10.0, water, a, convection_coefficient=1000.0, site_density="wang_dhir",
                         departure="fritz").site_density for a in (20.0, 60.0, 90.0)]

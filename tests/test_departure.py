@@ -184,17 +184,6 @@ def static_lift_off(adv, rec, s, k=0.2, g=G):
     return math.sqrt(6 * k * s.sigma * (s_y - k / 5) / (g * (s.rho_l - s.rho_v)))
 
 
-def test_no_published_klausner_case_was_found():
-    """Klausner et al. (1993) compared their balance with R113 flow-boiling
-    data on a nichrome strip (alpha = pi/4, beta = pi/5, d_w = 0.09 mm
-    [memory, medium]). Neither that paper nor a restatement giving the inputs
-    together with measured and predicted diameters could be found, so no case
-    is reproduced here; the tests below check the model's limiting identities
-    and the trends the paper reports [memory, medium]: departure diameters
-    fall with flow velocity and rise with wall superheat."""
-    assert "no published case" in force_balance.__doc__
-
-
 def test_pool_boiling_reduces_to_buoyancy_against_surface_tension(water):
     for adv, rec in [(45.0, 45.0), (60.0, 40.0), (90.0, 70.0), (20.0, 10.0)]:
         r = force_balance(adv, rec, water, wall_superheat=0.0)
