@@ -114,7 +114,6 @@ def kernel_cases(n):
     ssv, ssl, slv = u(0.04, 0.06), u(0.001, 0.02), u(0.05, 0.07)
     rough, frac = u(1.0, 1.5), u(0.2, 1.0)
     sd, sp, ld, lp = u(0.02, 0.04), u(0.0, 0.02), u(0.02, 0.03), u(0.0, 0.05)
-    rad = np.radians
     cosd = lambda x: np.cos(np.radians(x))  # noqa: E731
     cosm = lambda x: math.cos(math.radians(x))  # noqa: E731
     lc = lambda s: np.sqrt(s.sigma / (G * (s.rho_l - s.rho_v)))  # noqa: E731

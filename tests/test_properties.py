@@ -33,7 +33,7 @@ from hypothesis import strategies as st
 
 import wetboil
 from wetboil import _core, chf, departure, nucleation, wetting, boiling
-from wetboil.fluids import FIELDS, Saturation, water, water_at_pressure, water_at_temperature
+from wetboil.fluids import FIELDS, water, water_at_pressure, water_at_temperature
 
 import kernel_cases as kc
 

@@ -3,7 +3,6 @@ project. Each check names its source; values recalled from memory say so."""
 
 import math
 
-import numpy as np
 import pytest
 
 from wetboil.chf import kandlikar, zuber

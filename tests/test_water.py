@@ -9,7 +9,7 @@ import numpy as np
 import pytest
 
 import wetboil
-from wetboil.fluids import FIELDS, Saturation, from_coolprop, water
+from wetboil.fluids import FIELDS, from_coolprop, water
 
 CP = pytest.importorskip("CoolProp.CoolProp")
 iapws = pytest.importorskip("iapws")

@@ -23,7 +23,7 @@ for the same reason (two restatements disagree on the sign of an exponent).
 from __future__ import annotations
 
 import math
-from typing import Any, Dict, Tuple
+from typing import Any, Dict
 
 import numpy as np
 

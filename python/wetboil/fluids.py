@@ -9,7 +9,6 @@ other and against the other arguments of the kernels.
 from __future__ import annotations
 
 import math
-from numbers import Real
 from typing import Any, Optional
 
 import numpy as np

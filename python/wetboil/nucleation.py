@@ -28,7 +28,7 @@ faithful copy), **[V2]** seen only in a secondary source, **[M]** from memory
 from __future__ import annotations
 
 import math
-from typing import Any, Callable, Dict, NamedTuple, Sequence, Tuple
+from typing import Any, Callable, Dict, NamedTuple, Tuple
 
 import numpy as np
 

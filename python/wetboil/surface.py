@@ -8,7 +8,7 @@ import io
 import math
 import pathlib
 import re
-from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Union
+from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Union
 
 import numpy as np
 

@@ -22,7 +22,7 @@ so that a result table can say which rows are extrapolations.
 from __future__ import annotations
 
 import math
-from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
+from typing import Any, Dict, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
 
 import numpy as np
 
@@ -239,15 +239,15 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     return res
 
 
-def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], names: List[str]) -> Any:
+def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str]) -> Any:
     """Evaluate the chain on one block of the broadcast input Dataset (NumPy
     data); module-level so that dask can ship it to workers."""
     import xarray as xr
 
     arrays = {k: ds[k].values for k in ds.data_vars}
     fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in _FLUID_FIELDS}, name=fluid_name)
-    dims = ds[names[0]].dims
-    shape = ds[names[0]].shape
+    dims = ds["static_angle"].dims
+    shape = ds["static_angle"].shape
     with errstate(invalid="ignore", out_of_range="ignore"):
         res = _chain(arrays, methods, fluid, shape)
     data: Dict[str, Any] = {}
@@ -361,20 +361,17 @@ def sweep(
     order = ["surface"] + ([state_dim] if state_dim else []) + ["heat_flux", "orientation", "subcooling"]
     ds_in = xr.Dataset(parts)
     ds_in = xr.broadcast(ds_in)[0].transpose(*order)
-    names = list(QUANTITIES)
-
-    template_needed = chunks is not None
-    if template_needed:
+    if chunks is not None:
         ds_in = ds_in.chunk(chunks if isinstance(chunks, Mapping) else {d: chunks for d in order})
         template = _template(ds_in, meth, order)
-        result = xr.map_blocks(_block, ds_in, args=(meth, states.name, ["static_angle"]), template=template)
+        result = xr.map_blocks(_block, ds_in, args=(meth, states.name), template=template)
         if compute:
             if progress:
                 result = _compute_with_progress(result)
             else:
                 result = result.compute()
     else:
-        result = _block(ds_in.compute(), meth, states.name, ["static_angle"])
+        result = _block(ds_in.compute(), meth, states.name)
     return _decorate(result, meth, state_dim)
 
 
@@ -383,10 +380,8 @@ def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
     import xarray as xr
 
     like = ds_in["static_angle"]
-    names = list(QUANTITIES)[:3] + list(QUANTITIES)[3:5] + ["nucleate_superheat", "cavity_radius_min",
-                                                             "cavity_radius_max", "departure_diameter",
-                                                             "departure_frequency"]
-    names += [f"chf_{m}" for m in meth["chf"]] + ["chf", "chf_margin"]
+    # the order in which _chain produces them (it is also the flag-bit order)
+    names = list(QUANTITIES)[:-2] + [f"chf_{m}" for m in meth["chf"]] + ["chf", "chf_margin"]
     data = {n: (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=float)) for n in names}
     for n in ("invalid_flags", "range_flags"):
         data[n] = (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=np.int32))

@@ -33,7 +33,7 @@ from __future__ import annotations
 
 import math
 import re
-from typing import Any, Dict, List, Mapping, NamedTuple, Sequence, Tuple
+from typing import Any, Dict, List, Mapping, NamedTuple, Tuple
 
 import numpy as np
 
