@@ -12,7 +12,7 @@ use std::f64::consts::PI;
 
 #[inline(always)]
 fn liquid_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
-    positive(h_lv) && densities(rho_l, rho_v) && positive(rho_v) && positive(sigma) && positive(g)
+    positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(g)
 }
 
 // ---------------------------------------------------------------------------
@@ -43,13 +43,7 @@ fn rohsenow_possible(
     mu_l: f64,
     g: f64,
 ) -> bool {
-    non_negative(x)
-        && positive(c_sf)
-        && positive(n)
-        && liquid_possible(h_lv, rho_l, rho_v, sigma, g)
-        && positive(cp_l)
-        && positive(k_l)
-        && positive(mu_l)
+    non_negative(x) & positive(c_sf) & positive(n) & liquid_possible(h_lv, rho_l, rho_v, sigma, g) & positive(cp_l) & positive(k_l) & positive(mu_l)
 }
 
 /// Rohsenow (1952) nucleate pool-boiling heat flux [W/m2] from the wall superheat.
@@ -215,7 +209,7 @@ fn cooper_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f
 
 #[inline(always)]
 fn cooper_possible(x: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> bool {
-    non_negative(x) && positive(p) && positive(p_crit) && p < p_crit && positive(molar_mass) && positive(roughness)
+    non_negative(x) & positive(p) & positive(p_crit) & (p < p_crit) & positive(molar_mass) & positive(roughness)
 }
 
 /// Cooper (1984) exponent of the heat flux in `h = A q^0.67`.

@@ -1,6 +1,6 @@
 //! Critical heat flux (maximum of the nucleate boiling curve).
 
-use crate::model::{angle_deg, arg, densities, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, nan_unless, positive, Kernel, Model};
 use crate::trig::cos_deg;
 use std::f64::consts::PI;
 
@@ -24,12 +24,10 @@ pub const LIENHARD_DHIR_K: f64 = 0.149;
 /// AEC Report AECU-4439 (1959); J.H. Lienhard and V.K. Dhir, "Hydrodynamic
 /// prediction of peak pool-boiling heat fluxes from finite bodies",
 /// J. Heat Transfer 95 (1973) 152-158, doi:10.1115/1.3450013.
-#[inline]
+#[inline(always)]
 pub fn zuber(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, k: f64, g: f64) -> f64 {
-    if !(positive(h_lv) && densities(rho_l, rho_v) && positive(rho_v) && positive(sigma) && positive(k) && positive(g)) {
-        return f64::NAN;
-    }
-    k * h_lv * rho_v.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt()
+    let ok = positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(k) & positive(g);
+    nan_unless(ok, k * h_lv * rho_v.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt())
 }
 
 /// Kernel of [`zuber`].
@@ -82,7 +80,7 @@ impl Kernel<6, 1> for Zuber {
 /// Reference: S.G. Kandlikar, "A theoretical model to predict pool boiling CHF
 /// incorporating effects of contact angle and orientation", J. Heat Transfer
 /// 123 (2001) 1071-1079, doi:10.1115/1.1409265.
-#[inline]
+#[inline(always)]
 pub fn kandlikar(
     receding_angle_deg: f64,
     orientation_deg: f64,
@@ -92,22 +90,17 @@ pub fn kandlikar(
     sigma: f64,
     g: f64,
 ) -> f64 {
-    if !(angle_deg(receding_angle_deg)
-        && angle_deg(orientation_deg)
-        && positive(h_lv)
-        && densities(rho_l, rho_v)
-        && positive(rho_v)
-        && positive(sigma)
-        && positive(g))
-    {
-        return f64::NAN;
-    }
+    let ok = angle_deg(receding_angle_deg)
+        & angle_deg(orientation_deg)
+        & positive(h_lv)
+        & densities(rho_l, rho_v)
+        & positive(rho_v)
+        & positive(sigma)
+        & positive(g);
     let c = 1.0 + cos_deg(receding_angle_deg);
     let bracket = 2.0 / PI + PI / 4.0 * c * cos_deg(orientation_deg);
-    if bracket <= 0.0 {
-        return f64::NAN;
-    }
-    h_lv * rho_v.sqrt() * (c / 16.0) * bracket.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt()
+    let q = h_lv * rho_v.sqrt() * (c / 16.0) * bracket.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt();
+    nan_unless(ok & (bracket > 0.0), q)
 }
 
 /// Kernel of [`kandlikar`].
@@ -179,7 +172,7 @@ fn chf_scale(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
 
 #[inline(always)]
 fn scale_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
-    positive(h_lv) && densities(rho_l, rho_v) && positive(rho_v) && positive(sigma) && positive(g)
+    positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(g)
 }
 
 #[inline(always)]
@@ -337,13 +330,11 @@ pub const ZUBER_MIN_K: f64 = PI / 24.0;
 /// References: N. Zuber, AECU-4439 (1959); P.J. Berenson, "Film-boiling heat
 /// transfer from a horizontal surface", J. Heat Transfer 83 (1961) 351-358,
 /// doi:10.1115/1.3682280 (DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn minimum_heat_flux(c: f64, h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
-    if !(positive(c) && scale_possible(h_lv, rho_l, rho_v, sigma, g)) {
-        return f64::NAN;
-    }
+    let ok = positive(c) & scale_possible(h_lv, rho_l, rho_v, sigma, g);
     let s = rho_l + rho_v;
-    c * rho_v * h_lv * (sigma * g * (rho_l - rho_v) / (s * s)).sqrt().sqrt()
+    nan_unless(ok, c * rho_v * h_lv * (sigma * g * (rho_l - rho_v) / (s * s)).sqrt().sqrt())
 }
 
 /// Kernel of [`minimum_heat_flux`].

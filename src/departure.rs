@@ -13,7 +13,7 @@
 //! general-purpose open code); **\[M\]** from memory, not seen in any source
 //! (confidence given); **\[D\]** derived here from the other entries.
 
-use crate::model::{angle_deg, arg, densities, non_negative, positive, Kernel, Model};
+use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Kernel, Model};
 use std::f64::consts::PI;
 
 // ---------------------------------------------------------------------------
@@ -36,12 +36,10 @@ use std::f64::consts::PI;
 ///
 /// Reference: W. Fritz, "Berechnung des Maximalvolumens von Dampfblasen",
 /// Physikalische Zeitschrift 36 (1935) 379-384 (no DOI).
-#[inline]
+#[inline(always)]
 pub fn fritz(contact_angle_deg: f64, sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
-    if !(angle_deg(contact_angle_deg) && positive(sigma) && densities(rho_l, rho_v) && positive(g)) {
-        return f64::NAN;
-    }
-    FRITZ_CONSTANT_PER_DEG * contact_angle_deg * (sigma / (g * (rho_l - rho_v))).sqrt()
+    let ok = angle_deg(contact_angle_deg) & positive(sigma) & densities(rho_l, rho_v) & positive(g);
+    nan_unless(ok, FRITZ_CONSTANT_PER_DEG * contact_angle_deg * (sigma / (g * (rho_l - rho_v))).sqrt())
 }
 
 /// The Fritz constant per degree of contact angle [1/deg].
@@ -123,14 +121,7 @@ pub fn cole_rohsenow(sigma: f64, rho_l: f64, rho_v: f64, cp_l: f64, t_sat: f64, 
 #[inline(always)]
 #[allow(clippy::too_many_arguments)]
 fn cole_rohsenow_possible(sigma: f64, rho_l: f64, rho_v: f64, cp_l: f64, t_sat: f64, h_lv: f64, c: f64, g: f64) -> bool {
-    positive(sigma)
-        && densities(rho_l, rho_v)
-        && positive(rho_v)
-        && positive(cp_l)
-        && positive(t_sat)
-        && positive(h_lv)
-        && positive(c)
-        && positive(g)
+    positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(cp_l) & positive(t_sat) & positive(h_lv) & positive(c) & positive(g)
 }
 
 /// Kernel of [`cole_rohsenow`].
@@ -208,7 +199,7 @@ pub fn kocamustafaogullari_ishii(contact_angle_deg: f64, sigma: f64, rho_l: f64,
 
 #[inline(always)]
 fn ki_possible(contact_angle_deg: f64, sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    angle_deg(contact_angle_deg) && positive(sigma) && densities(rho_l, rho_v) && positive(rho_v) && positive(g)
+    angle_deg(contact_angle_deg) & positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(g)
 }
 
 /// Kernel of [`kocamustafaogullari_ishii`].
@@ -799,7 +790,7 @@ pub const ZUBER_FREQUENCY_CONSTANT: f64 = 0.59;
 
 #[inline(always)]
 fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    positive(diameter) && densities(rho_l, rho_v) && positive(g)
+    positive(diameter) & densities(rho_l, rho_v) & positive(g)
 }
 
 /// Cole (1960) departure frequency [Hz].
@@ -816,12 +807,10 @@ fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
 /// Reference: R. Cole, "A photographic study of pool boiling in the region of
 /// the critical heat flux", AIChE J. 6 (1960) 533-538, doi:10.1002/aic.690060405
 /// (DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn cole_frequency(diameter: f64, rho_l: f64, rho_v: f64, drag_coefficient: f64, g: f64) -> f64 {
-    if !(freq_possible(diameter, rho_l, rho_v, g) && positive(drag_coefficient)) {
-        return f64::NAN;
-    }
-    (4.0 * g * (rho_l - rho_v) / (3.0 * drag_coefficient * diameter * rho_l)).sqrt()
+    let ok = freq_possible(diameter, rho_l, rho_v, g) & positive(drag_coefficient);
+    nan_unless(ok, (4.0 * g * (rho_l - rho_v) / (3.0 * drag_coefficient * diameter * rho_l)).sqrt())
 }
 
 /// Kernel of [`cole_frequency`].
@@ -871,12 +860,10 @@ impl Kernel<5, 1> for ColeFrequency {
 /// the similarity with natural convection", Int. J. Heat Mass Transfer 6 (1963)
 /// 53-78; G. Kocamustafaogullari, M. Ishii, Int. J. Heat Mass Transfer 38 (1995)
 /// 481-493 (DOIs not verified here, so not given).
-#[inline]
+#[inline(always)]
 pub fn zuber_frequency(diameter: f64, sigma: f64, rho_l: f64, rho_v: f64, constant: f64, g: f64) -> f64 {
-    if !(freq_possible(diameter, rho_l, rho_v, g) && positive(sigma) && positive(constant)) {
-        return f64::NAN;
-    }
-    constant / diameter * (sigma * g * (rho_l - rho_v) / (rho_l * rho_l)).sqrt().sqrt()
+    let ok = freq_possible(diameter, rho_l, rho_v, g) & positive(sigma) & positive(constant);
+    nan_unless(ok, constant / diameter * (sigma * g * (rho_l - rho_v) / (rho_l * rho_l)).sqrt().sqrt())
 }
 
 /// Kernel of [`zuber_frequency`].
@@ -926,12 +913,10 @@ impl Kernel<6, 1> for ZuberFrequency {
 /// Reference: H.J. Ivey, "Relationships between bubble frequency, departure
 /// diameter and rise velocity in nucleate boiling", Int. J. Heat Mass Transfer
 /// 10 (1967) 1023-1040 (DOI not verified here, so not given).
-#[inline]
+#[inline(always)]
 pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
-    if !(positive(diameter) && positive(g)) {
-        return f64::NAN;
-    }
-    IVEY_HYDRODYNAMIC * (g / diameter).sqrt()
+    let ok = positive(diameter) & positive(g);
+    nan_unless(ok, IVEY_HYDRODYNAMIC * (g / diameter).sqrt())
 }
 
 /// Ivey (1967) departure frequency, transition region [Hz].
@@ -947,12 +932,10 @@ pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
 ///   the tests against the CGS evaluation.
 ///
 /// Reference: as [`ivey_hydrodynamic_frequency`].
-#[inline]
+#[inline(always)]
 pub fn ivey_transition_frequency(diameter: f64, g: f64) -> f64 {
-    if !(positive(diameter) && positive(g)) {
-        return f64::NAN;
-    }
-    IVEY_TRANSITION_SI * g.sqrt() * diameter.powf(-0.75)
+    let ok = positive(diameter) & positive(g);
+    nan_unless(ok, IVEY_TRANSITION_SI * g.sqrt() * diameter.powf(-0.75))
 }
 
 const IVEY_REFERENCE: &str = "H.J. Ivey, Relationships between bubble frequency, departure diameter and rise velocity \

@@ -94,7 +94,15 @@ pub enum Status {
 /// one. Only NaN results take the slower classification.
 #[inline(always)]
 pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> ([f64; M], Status) {
-    let y = K::eval(x);
+    settle::<K, N, M>(x, K::eval(x))
+}
+
+/// Classify the outputs `y = K::eval(x)` of one element (and blank them when
+/// the input is impossible). [`evaluate`] is `settle(x, eval(x))`; the block
+/// loops of the binding evaluate a whole block first, so the kernel
+/// vectorises, and then settle each element with this same function.
+#[inline(always)]
+pub fn settle<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], y: [f64; M]) -> ([f64; M], Status) {
     if !y.iter().any(|v| v.is_nan()) {
         let status = if K::in_range(x) { Status::Ok } else { Status::OutOfRange };
         return (y, status);
@@ -107,6 +115,20 @@ pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
         (y, Status::OutOfRange)
     } else {
         (y, Status::Ok)
+    }
+}
+
+/// `value` where `ok`, NaN elsewhere: the branch-free form of a kernel's
+/// "impossible input gives NaN" guard. An early `return f64::NAN` inside a
+/// kernel stops the compiler from vectorising the block loops; computing the
+/// value unconditionally (NaN-safe arithmetic, no traps) and selecting at the
+/// end does not.
+#[inline(always)]
+pub fn nan_unless(ok: bool, value: f64) -> f64 {
+    if ok {
+        value
+    } else {
+        f64::NAN
     }
 }
 
@@ -127,28 +149,31 @@ pub fn classify<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
     }
 }
 
+// The predicates below combine their tests with `&`, not `&&`: short-circuit
+// jumps inside a kernel keep the block loops of the binding from vectorising.
+
 /// True when `x` is a finite number strictly above zero.
 #[inline(always)]
 pub fn positive(x: f64) -> bool {
-    x > 0.0 && x.is_finite()
+    (x > 0.0) & x.is_finite()
 }
 
 /// True when `x` is finite and not negative.
 #[inline(always)]
 pub fn non_negative(x: f64) -> bool {
-    x >= 0.0 && x.is_finite()
+    (x >= 0.0) & x.is_finite()
 }
 
 /// True for a contact angle in degrees inside [0, 180].
 #[inline(always)]
 pub fn angle_deg(x: f64) -> bool {
-    (0.0..=180.0).contains(&x)
+    (x >= 0.0) & (x <= 180.0)
 }
 
 /// True when the densities describe a liquid denser than its vapour.
 #[inline(always)]
 pub fn densities(rho_l: f64, rho_v: f64) -> bool {
-    positive(rho_l) && non_negative(rho_v) && rho_l > rho_v
+    positive(rho_l) & non_negative(rho_v) & (rho_l > rho_v)
 }
 
 /// Standard acceleration of gravity [m/s2] (CGPM 1901, exact by definition).

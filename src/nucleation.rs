@@ -9,7 +9,7 @@
 //!
 //! Contact angles are in degrees, measured through the liquid.
 
-use crate::model::{angle_deg, arg, densities, non_negative, positive, Arg, Kernel, Model};
+use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Arg, Kernel, Model};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
@@ -22,7 +22,7 @@ fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f6
 
 #[inline(always)]
 fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> bool {
-    positive(sigma) && positive(t_sat) && densities(rho_l, rho_v) && positive(rho_v) && positive(h_lv)
+    positive(sigma) & positive(t_sat) & densities(rho_l, rho_v) & positive(rho_v) & positive(h_lv)
 }
 
 /// Equilibrium superheat of a vapour embryo of radius `r` [K], linearised form.
@@ -43,23 +43,19 @@ fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> 
 /// linearised embryo superheat is the one used by Y.Y. Hsu, "On the size range
 /// of active nucleation cavities on a heating surface", J. Heat Transfer 84
 /// (1962) 207-213, doi:10.1115/1.3684339.
-#[inline]
+#[inline(always)]
 pub fn embryo_superheat(radius: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
-    if !(positive(radius) && fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv)) {
-        return f64::NAN;
-    }
-    embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / radius
+    let ok = positive(radius) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
+    nan_unless(ok, embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / radius)
 }
 
 /// Radius of the vapour embryo in equilibrium at a liquid superheat [m]; the
 /// inverse of [`embryo_superheat`]. Zero superheat gives an infinite radius.
-#[inline]
+#[inline(always)]
 pub fn embryo_radius(superheat: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
-    if !(superheat >= 0.0 && fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv)) {
-        return f64::NAN;
-    }
+    let ok = (superheat >= 0.0) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
     // abs: a superheat of -0.0 is zero superheat, +inf radius (not -inf)
-    embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / superheat.abs()
+    nan_unless(ok, embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / superheat.abs())
 }
 
 const EMBRYO_FLUID_INPUTS: [Arg; 5] = [
@@ -395,7 +391,7 @@ pub fn cnt_superheat_water(f: f64, p: f64, rate: f64, exponent: f64) -> f64 {
 
 #[inline(always)]
 fn water_pressure(p: f64) -> bool {
-    p >= water::p_sat(water::T_TRIPLE) && p < water::P_CRIT
+    (p >= water::p_sat(water::T_TRIPLE)) & (p < water::P_CRIT)
 }
 
 /// Kernel of the heterogeneous (wall) kinetic superheat of water.
@@ -465,16 +461,11 @@ impl Kernel<2, 1> for HomogeneousSuperheatWater {
 ///
 /// Reference: S.G. Bankoff, "Entrapment of gas in the spreading of a liquid over
 /// a rough surface", AIChE J. 4 (1958) 24-26, doi:10.1002/aic.690040105 (DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn traps_vapour(cavity_half_angle_deg: f64, advancing_deg: f64) -> f64 {
-    if !((0.0..=90.0).contains(&cavity_half_angle_deg) && angle_deg(advancing_deg)) {
-        return f64::NAN;
-    }
-    if advancing_deg > 2.0 * cavity_half_angle_deg {
-        1.0
-    } else {
-        0.0
-    }
+    let ok = (0.0..=90.0).contains(&cavity_half_angle_deg) & angle_deg(advancing_deg);
+    let traps = if advancing_deg > 2.0 * cavity_half_angle_deg { 1.0 } else { 0.0 };
+    nan_unless(ok, traps)
 }
 
 /// Kernel of [`traps_vapour`].
@@ -611,7 +602,7 @@ impl Kernel<9, 2> for HsuActiveRadii {
 
 #[inline(always)]
 fn onset_possible(q: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> bool {
-    non_negative(q) && fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv) && positive(k_l)
+    non_negative(q) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv) & positive(k_l)
 }
 
 /// Onset-of-nucleate-boiling wall superheat [K] and critical cavity mouth
@@ -830,13 +821,11 @@ pub const BERGLES_ROHSENOW_P_MAX: f64 = 2000.0 * PSI;
 /// Reference: A.E. Bergles, W.M. Rohsenow, "The determination of forced-convection
 /// surface-boiling heat transfer", J. Heat Transfer 86 (1964) 365-372,
 /// doi:10.1115/1.3688697 (DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn bergles_rohsenow(heat_flux: f64, p: f64) -> f64 {
-    if !(non_negative(heat_flux) && positive(p)) {
-        return f64::NAN;
-    }
+    let ok = non_negative(heat_flux) & positive(p);
     let bar = p * 1e-5;
-    (heat_flux / (1082.0 * bar.powf(1.156))).powf(bar.powf(0.0234) / 2.16) / 1.8
+    nan_unless(ok, (heat_flux / (1082.0 * bar.powf(1.156))).powf(bar.powf(0.0234) / 2.16) / 1.8)
 }
 
 /// Kernel of [`bergles_rohsenow`].
@@ -880,7 +869,7 @@ pub const NEAR_ATMOSPHERIC: (f64, f64) = (0.09e6, 0.12e6);
 
 #[inline(always)]
 fn site_possible(dt: f64, angle: f64) -> bool {
-    dt.is_finite() && angle_deg(angle)
+    dt.is_finite() & angle_deg(angle)
 }
 
 /// Wang & Dhir (1993) active site density [sites/m²]:

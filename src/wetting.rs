@@ -14,7 +14,7 @@
 //! (or a faithful copy of it); **[V2]** seen in a secondary source only;
 //! **[M]** from memory, not seen in any source during this work.
 
-use crate::model::{angle_deg, arg, densities, non_negative, positive, Kernel, Model};
+use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Kernel, Model};
 use crate::trig::cos_deg;
 
 // ---------------------------------------------------------------------------
@@ -41,7 +41,7 @@ fn finite(x: f64) -> bool {
 /// Three tensions of Young's equation: σ_sv ≥ 0, σ_sl ≥ 0, σ_lv > 0, finite.
 #[inline(always)]
 fn young_tensions(sigma_sv: f64, sigma_sl: f64, sigma_lv: f64) -> bool {
-    non_negative(sigma_sv) && non_negative(sigma_sl) && positive(sigma_lv)
+    non_negative(sigma_sv) & non_negative(sigma_sl) & positive(sigma_lv)
 }
 
 // ---------------------------------------------------------------------------
@@ -157,12 +157,10 @@ impl Kernel<3, 1> for SpreadingCoefficient {
 ///
 /// References: A. Dupré, Théorie mécanique de la chaleur (Gauthier-Villars,
 /// Paris, 1869) [M, bibliographic]; Fox & Zisman (1950) eqs. 4-8 [V].
-#[inline]
+#[inline(always)]
 pub fn adhesion_work(sigma_lv: f64, contact_angle_deg: f64) -> f64 {
-    if !(positive(sigma_lv) && angle_deg(contact_angle_deg)) {
-        return f64::NAN;
-    }
-    sigma_lv * (1.0 + cos_deg(contact_angle_deg))
+    let ok = positive(sigma_lv) & angle_deg(contact_angle_deg);
+    nan_unless(ok, sigma_lv * (1.0 + cos_deg(contact_angle_deg)))
 }
 
 /// Kernel of [`adhesion_work`].
@@ -208,12 +206,10 @@ impl Kernel<2, 1> for AdhesionWork {
 /// doi:10.1021/j150553a013 [M, bibliographic]; equation form [V2] (abstract of
 /// J. Colloid Interface Sci. 529 (2018) 243-246: Φ = (1 − γ_12/γ_1)^(1/2)
 /// reduces it to Antonov's rule, which holds for this form only).
-#[inline]
+#[inline(always)]
 pub fn interfacial_tension(sigma_s: f64, sigma_l: f64, phi: f64) -> f64 {
-    if !(non_negative(sigma_s) && non_negative(sigma_l) && non_negative(phi)) {
-        return f64::NAN;
-    }
-    sigma_s + sigma_l - 2.0 * phi * (sigma_s * sigma_l).sqrt()
+    let ok = non_negative(sigma_s) & non_negative(sigma_l) & non_negative(phi);
+    nan_unless(ok, sigma_s + sigma_l - 2.0 * phi * (sigma_s * sigma_l).sqrt())
 }
 
 /// Kernel of [`interfacial_tension`].
@@ -279,7 +275,7 @@ pub fn owrk_angle(solid_dispersive: f64, solid_polar: f64, liquid_dispersive: f6
 
 #[inline(always)]
 fn owrk_possible(sd: f64, sp: f64, ld: f64, lp: f64) -> bool {
-    non_negative(sd) && non_negative(sp) && non_negative(ld) && non_negative(lp) && ld + lp > 0.0
+    non_negative(sd) & non_negative(sp) & non_negative(ld) & non_negative(lp) & (ld + lp > 0.0)
 }
 
 /// Kernel of [`owrk_angle`].
@@ -341,7 +337,7 @@ pub fn wenzel(contact_angle_deg: f64, roughness_ratio: f64) -> f64 {
 
 #[inline(always)]
 fn wenzel_possible(theta: f64, r: f64) -> bool {
-    angle_deg(theta) && r >= 1.0 && finite(r)
+    angle_deg(theta) & (r >= 1.0) & finite(r)
 }
 
 /// Kernel of [`wenzel`].
@@ -407,7 +403,7 @@ fn cassie_cos(theta: f64, f: f64, r: f64) -> f64 {
 
 #[inline(always)]
 fn cassie_possible(theta: f64, f: f64, r: f64) -> bool {
-    angle_deg(theta) && (0.0..=1.0).contains(&f) && r >= 1.0 && finite(r)
+    angle_deg(theta) & (0.0..=1.0).contains(&f) & (r >= 1.0) & finite(r)
 }
 
 /// Kernel of [`cassie_baxter`].
@@ -442,7 +438,7 @@ impl Kernel<3, 1> for CassieBaxter {
 
 #[inline(always)]
 fn hysteresis_possible(sigma_lv: f64, advancing: f64, receding: f64, width: f64, k: f64) -> bool {
-    positive(sigma_lv) && angle_deg(advancing) && angle_deg(receding) && advancing >= receding && non_negative(width) && positive(k)
+    positive(sigma_lv) & angle_deg(advancing) & angle_deg(receding) & (advancing >= receding) & non_negative(width) & positive(k)
 }
 
 /// Furmidge retention force [N] of a drop pinned by contact-angle hysteresis.
@@ -589,12 +585,10 @@ pub const VDW_FILM_MAX: f64 = 20e-9;
 /// doi:10.1016/S0031-8914(37)80203-7 (W = −A/(12πD²), A = π² C ρ₁ ρ₂)
 /// [V2]; P.G. de Gennes, Rev. Mod. Phys. 57 (1985) 827-863 (Π form and
 /// sign) [M, high].
-#[inline]
+#[inline(always)]
 pub fn disjoining_pressure(thickness: f64, hamaker: f64) -> f64 {
-    if !(positive(thickness) && finite(hamaker)) {
-        return f64::NAN;
-    }
-    -hamaker / (6.0 * std::f64::consts::PI * thickness * thickness * thickness)
+    let ok = positive(thickness) & finite(hamaker);
+    nan_unless(ok, -hamaker / (6.0 * std::f64::consts::PI * thickness * thickness * thickness))
 }
 
 /// Kernel of [`disjoining_pressure`].
@@ -635,12 +629,10 @@ impl Kernel<2, 1> for VdwDisjoiningPressure {
 ///   takes them from.
 ///
 /// Reference: de Gennes (1985) [M, high].
-#[inline]
+#[inline(always)]
 pub fn power_law_disjoining_pressure(thickness: f64, coefficient: f64, exponent: f64) -> f64 {
-    if !(positive(thickness) && finite(coefficient) && positive(exponent)) {
-        return f64::NAN;
-    }
-    coefficient / thickness.powf(exponent)
+    let ok = positive(thickness) & finite(coefficient) & positive(exponent);
+    nan_unless(ok, coefficient / thickness.powf(exponent))
 }
 
 /// Kernel of [`power_law_disjoining_pressure`].
@@ -691,7 +683,7 @@ pub fn film_thickness(height: f64, hamaker: f64, rho_l: f64, rho_v: f64, g: f64)
 
 #[inline(always)]
 fn film_possible(height: f64, hamaker: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    positive(height) && hamaker < 0.0 && finite(hamaker) && densities(rho_l, rho_v) && positive(g)
+    positive(height) & (hamaker < 0.0) & finite(hamaker) & densities(rho_l, rho_v) & positive(g)
 }
 
 /// Kernel of [`film_thickness`].
@@ -746,12 +738,10 @@ impl Kernel<5, 1> for VdwFilmThickness {
 ///
 /// Reference: J.N. Israelachvili, Intermolecular and Surface Forces, 3rd ed.
 /// (Academic Press, 2011), ch. 13, combining relations [M].
-#[inline]
+#[inline(always)]
 pub fn effective_hamaker(hamaker_solid: f64, hamaker_liquid: f64) -> f64 {
-    if !(non_negative(hamaker_solid) && non_negative(hamaker_liquid)) {
-        return f64::NAN;
-    }
-    hamaker_liquid - (hamaker_solid * hamaker_liquid).sqrt()
+    let ok = non_negative(hamaker_solid) & non_negative(hamaker_liquid);
+    nan_unless(ok, hamaker_liquid - (hamaker_solid * hamaker_liquid).sqrt())
 }
 
 /// Kernel of [`effective_hamaker`].

@@ -178,6 +178,20 @@ def test_ufunc_out_and_aliasing():
     np.testing.assert_allclose(z[1:], expect, rtol=1e-15)
 
 
+@pytest.mark.parametrize("n", [1, 3, 63, 64, 65, 130, 40_000])
+def test_ufunc_raises_no_floating_point_warning_on_valid_input(n):
+    # The loop evaluates blocks of 64 elements; the unused tail of the last
+    # block must not raise floating-point flags the caller's data never raised
+    # (NumPy would report them as "invalid value encountered" warnings).
+    x = np.linspace(1.0, 89.0, n)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        d = wetboil.ufunc_of(fritz)(x, WATER.sigma, WATER.rho_l, WATER.rho_v, G)
+        q = wetboil.ufunc_of(kandlikar)(x, 0.0, WATER.h_lv, WATER.rho_l, WATER.rho_v, WATER.sigma, G)
+    np.testing.assert_allclose(d, np_fritz(x), rtol=1e-15)
+    np.testing.assert_allclose(q, np_kandlikar(x), rtol=1e-13)
+
+
 def test_ufunc_pickles_by_name():
     uf = wetboil.ufunc_of(fritz)
     assert pickle.loads(pickle.dumps(uf)) is uf

@@ -15,7 +15,7 @@ use pyo3::prelude::*;
 use rayon::prelude::*;
 
 use super::threads;
-use crate::model::{classify, evaluate, Kernel, Model, Status};
+use crate::model::{classify, evaluate, settle, Kernel, Model, Status};
 
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
 
@@ -105,26 +105,144 @@ impl<const N: usize, const M: usize> Operands<N, M> {
     /// thread may write the same output elements.
     #[inline(always)]
     unsafe fn run<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
+        #[cfg(target_arch = "x86_64")]
+        if std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma") {
+            // SAFETY: the CPU has the features the clone was compiled for.
+            return unsafe { self.run_avx2::<K>(start, end) };
+        }
+        unsafe { self.run_blocks::<K>(start, end) }
+    }
+
+    /// [`Self::run_blocks`] compiled for AVX2 and FMA, chosen at run time so
+    /// that the wheel still runs on any x86-64. Rust never contracts `a*b + c`
+    /// into an FMA by itself, so both clones give bit-identical results.
+    ///
+    /// # Safety
+    /// As for [`Self::run`], and the CPU must support AVX2 and FMA.
+    #[cfg(target_arch = "x86_64")]
+    #[target_feature(enable = "avx2,fma")]
+    unsafe fn run_avx2<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
+        unsafe { self.run_blocks::<K>(start, end) }
+    }
+
+    /// The loop itself, in blocks of [`BLOCK`] elements: gather the inputs of
+    /// a block into local arrays, evaluate the kernel over the whole block
+    /// (a loop without branches or strides, which the compiler vectorises
+    /// when the kernel allows it), then settle each element (validity and
+    /// counts, exactly as [`evaluate`]) and scatter the outputs.
+    ///
+    /// # Safety
+    /// As for [`Self::run`].
+    #[inline(always)]
+    unsafe fn run_blocks<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
         let mut counts = [0u64; 2];
-        for i in start..end {
-            let mut x = [0.0f64; N];
+        let mut xb = [[0.0f64; BLOCK]; N];
+        let mut yb = [[0.0f64; BLOCK]; M];
+        let mut i = start;
+        while i < end {
+            let len = ((end - i) as usize).min(BLOCK);
             for k in 0..N {
-                // Unaligned reads cost nothing on the targets we build for and
-                // keep us safe should NumPy ever hand over an unaligned view.
-                x[k] = unsafe { (self.ins[k].offset(i * self.in_steps[k]) as *const f64).read_unaligned() };
+                let base = unsafe { self.ins[k].offset(i * self.in_steps[k]) };
+                if self.in_steps[k] == 8 {
+                    // SAFETY: `len` contiguous elements of the input view; a
+                    // byte copy needs no alignment.
+                    // A full block copies a constant size, which compiles to
+                    // vector moves instead of a call to memcpy.
+                    let dst = xb[k].as_mut_ptr() as *mut u8;
+                    if len == BLOCK {
+                        unsafe { std::ptr::copy_nonoverlapping(base, dst, 8 * BLOCK) };
+                    } else {
+                        unsafe { std::ptr::copy_nonoverlapping(base, dst, 8 * len) };
+                    }
+                } else {
+                    for (j, v) in xb[k][..len].iter_mut().enumerate() {
+                        // Unaligned reads cost nothing on the targets we build
+                        // for and keep us safe should NumPy hand over an
+                        // unaligned view.
+                        *v = unsafe { (base.offset(j as isize * self.in_steps[k]) as *const f64).read_unaligned() };
+                    }
+                }
             }
-            let (y, status) = evaluate::<K, N, M>(&x);
+            // The whole block is evaluated, tail included, so that the loop
+            // has a constant trip count. The tail repeats the block's first
+            // element: stale or zero inputs could raise floating-point flags
+            // (which NumPy reports as warnings) that the caller's data never
+            // raised. Kernels are pure and cannot trap.
+            if len < BLOCK {
+                for col in xb.iter_mut() {
+                    let first = col[0];
+                    col[len..].fill(first);
+                }
+            }
+            for j in 0..BLOCK {
+                let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
+                let y = K::eval(&x);
+                for k in 0..M {
+                    yb[k][j] = y[k];
+                }
+            }
+            // The common case of `settle`: every output of the block is a
+            // number, so only the range check remains; both reductions are
+            // branch-free (sweeps straddle range limits at random).
+            let any_nan = yb.iter().fold(false, |a, y| a | y[..len].iter().fold(false, |b, v| b | v.is_nan()));
+            if !any_nan {
+                let mut out_of_range = 0u64;
+                for j in 0..len {
+                    let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
+                    out_of_range += !K::in_range(&x) as u64;
+                }
+                counts[1] += out_of_range;
+            } else {
+                counts = settle_block::<K, N, M>(&xb, &mut yb, len, counts);
+            }
             for k in 0..M {
-                unsafe { (self.outs[k].offset(i * self.out_steps[k]) as *mut f64).write_unaligned(y[k]) };
+                let base = unsafe { self.outs[k].offset(i * self.out_steps[k]) };
+                if self.out_steps[k] == 8 {
+                    // SAFETY: `len` contiguous elements of the output view.
+                    let src = yb[k].as_ptr() as *const u8;
+                    if len == BLOCK {
+                        unsafe { std::ptr::copy_nonoverlapping(src, base, 8 * BLOCK) };
+                    } else {
+                        unsafe { std::ptr::copy_nonoverlapping(src, base, 8 * len) };
+                    }
+                } else {
+                    for (j, v) in yb[k][..len].iter().enumerate() {
+                        unsafe { (base.offset(j as isize * self.out_steps[k]) as *mut f64).write_unaligned(*v) };
+                    }
+                }
             }
-            match status {
-                Status::Ok => {}
-                Status::Invalid => counts[0] += 1,
-                Status::OutOfRange => counts[1] += 1,
-            }
+            i += len as isize;
         }
         counts
     }
+}
+
+/// Elements per block of [`Operands::run_blocks`]: large enough to amortise
+/// the gather and scatter, small enough that `N + M` blocks stay in L1.
+const BLOCK: usize = 64;
+
+/// Settle a block element by element (some output is NaN: find out whether
+/// the input was missing, impossible or out of range).
+#[inline(always)]
+fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize>(
+    xb: &[[f64; BLOCK]; N],
+    yb: &mut [[f64; BLOCK]; M],
+    len: usize,
+    mut counts: [u64; 2],
+) -> [u64; 2] {
+    for j in 0..len {
+        let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
+        let (y, status) = settle::<K, N, M>(&x, std::array::from_fn(|k| yb[k][j]));
+        for k in 0..M {
+            yb[k][j] = y[k];
+        }
+        match status {
+            Status::Ok => {}
+            Status::Invalid => counts[0] += 1,
+            Status::OutOfRange => counts[1] += 1,
+        }
+    }
+    counts
 }
 
 /// Below this many elements a call runs on the calling thread only.
