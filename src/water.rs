@@ -229,6 +229,7 @@ fn dd_sqrt(a: Dd) -> Dd {
 /// doubles T is 8 ulp (near T_c) to 22 ulp (triple point) of p, so this makes p_sat strictly increasing
 /// and one-to-one on the doubles in [T_TRIPLE, T_CRIT], which is what makes t_sat(p_sat(T)) == T exact.
 /// (Plain double evaluation of ln(p/p_c) ~ -10 loses ~5 ulp of p and maps neighbouring T to equal p.)
+#[inline(always)]
 fn psat_dd(t: f64) -> f64 {
     // tau = (T_c - T)/T_c and 1/theta = T_c/T, each rounded to double-double (independent chains)
     let d = two_sum(T_CRIT, -t);
@@ -1656,6 +1657,22 @@ fn newton_step(dp: f64, dpdrho: f64, rho: f64) -> f64 {
 /// their critical limits: rho_l = rho_v = RHO_CRIT, h_lv = sigma = 0, and cp, k, mu are +infinity (all
 /// three diverge at the critical point; mu only weakly). See [`near_critical`] for where accuracy degrades.
 pub fn saturation_t(t: f64) -> [f64; 12] {
+    #[cfg(target_arch = "x86_64")]
+    if std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma") {
+        // SAFETY: the CPU has the features the clone was compiled for.
+        return unsafe { saturation_t_avx2(t) };
+    }
+    saturation_t_body(t)
+}
+
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx2,fma")]
+unsafe fn saturation_t_avx2(t: f64) -> [f64; 12] {
+    saturation_t_body(t)
+}
+
+#[inline(always)]
+fn saturation_t_body(t: f64) -> [f64; 12] {
     if !in_sat_range(t) {
         return NAN12;
     }
@@ -1857,6 +1874,27 @@ pub const P_NEAR_CRITICAL: f64 = 2.155_486_311_476_951_8e7;
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// The AVX2/FMA clone of `saturation_t` must agree with the baseline build to the last bit (Rust never
+    /// contracts to FMA by itself, and the clone only changes instruction selection), so that results do not
+    /// depend on the machine.
+    #[cfg(target_arch = "x86_64")]
+    #[test]
+    fn avx2_clone_is_bit_identical() {
+        if !(std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma")) {
+            return;
+        }
+        let mut t = T_TRIPLE;
+        while t <= T_CRIT {
+            let a = saturation_t_body(t);
+            // SAFETY: the features were detected above.
+            let b = unsafe { saturation_t_avx2(t) };
+            for k in 0..12 {
+                assert_eq!(a[k].to_bits(), b[k].to_bits(), "T = {t}, field {k}");
+            }
+            t += 0.0173;
+        }
+    }
 
     fn rel(a: f64, b: f64) -> f64 {
         ((a - b) / b).abs()
