@@ -1,6 +1,6 @@
 //! Critical heat flux (maximum of the nucleate boiling curve).
 
-use crate::model::{angle_deg, arg, densities, nan_unless, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, nan_unless, positive, Factored, Kernel, Model};
 use crate::trig::cos_deg;
 use std::f64::consts::PI;
 
@@ -90,17 +90,18 @@ pub fn kandlikar(
     sigma: f64,
     g: f64,
 ) -> f64 {
-    let ok = angle_deg(receding_angle_deg)
-        & angle_deg(orientation_deg)
-        & positive(h_lv)
-        & densities(rho_l, rho_v)
-        & positive(rho_v)
-        & positive(sigma)
-        & positive(g);
+    kandlikar_angle_factor(receding_angle_deg, orientation_deg) * hydrodynamic_group(h_lv, rho_l, rho_v, sigma, g)
+}
+
+/// The angle factor of [`kandlikar`], `(1 + cos β)/16 [2/π + (π/4)(1 + cos β) cos φ]^(1/2)`
+/// (Zuber's K as a function of the receding angle and orientation). NaN for
+/// angles outside 0..180 deg and where the bracket is not positive (facing down).
+#[inline(always)]
+pub fn kandlikar_angle_factor(receding_angle_deg: f64, orientation_deg: f64) -> f64 {
+    let ok = angle_deg(receding_angle_deg) & angle_deg(orientation_deg);
     let c = 1.0 + cos_deg(receding_angle_deg);
     let bracket = 2.0 / PI + PI / 4.0 * c * cos_deg(orientation_deg);
-    let q = h_lv * rho_v.sqrt() * (c / 16.0) * bracket.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt();
-    nan_unless(ok & (bracket > 0.0), q)
+    nan_unless(ok & (bracket > 0.0), c / 16.0 * bracket.sqrt())
 }
 
 /// Kernel of [`kandlikar`].
@@ -132,16 +133,27 @@ impl Kernel<7, 1> for Kandlikar {
         [kandlikar(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
     }
     fn possible(x: &[f64; 7]) -> bool {
-        angle_deg(x[0])
-            && angle_deg(x[1])
-            && positive(x[2])
-            && densities(x[3], x[4])
-            && positive(x[4])
-            && positive(x[5])
-            && positive(x[6])
+        Self::side_possible(0, x) && Self::side_possible(1, x)
     }
     fn in_range(x: &[f64; 7]) -> bool {
-        x[1] <= 90.0
+        Self::side_in_range(0, x)
+    }
+}
+impl Factored<7, 1> for Kandlikar {
+    const SIDES: [u8; 7] = [0, 0, 1, 1, 1, 1, 1];
+    #[inline(always)]
+    fn factor(s: u8, x: &[f64; 7]) -> [f64; 1] {
+        [if s == 0 { kandlikar_angle_factor(x[0], x[1]) } else { hydrodynamic_group(x[2], x[3], x[4], x[5], x[6]) }]
+    }
+    fn side_possible(s: u8, x: &[f64; 7]) -> bool {
+        if s == 0 {
+            angle_deg(x[0]) & angle_deg(x[1])
+        } else {
+            scale_possible(x[2], x[3], x[4], x[5], x[6])
+        }
+    }
+    fn side_in_range(s: u8, x: &[f64; 7]) -> bool {
+        s != 0 || x[1] <= 90.0
     }
 }
 
@@ -168,6 +180,12 @@ pub const SMALL_PLATE_TABULATED: f64 = 18.9;
 #[inline(always)]
 fn chf_scale(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
     h_lv * rho_v.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt()
+}
+
+/// [`chf_scale`], NaN for impossible properties.
+#[inline(always)]
+fn hydrodynamic_group(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
+    nan_unless(scale_possible(h_lv, rho_l, rho_v, sigma, g), chf_scale(h_lv, rho_l, rho_v, sigma, g))
 }
 
 #[inline(always)]

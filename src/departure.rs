@@ -13,7 +13,7 @@
 //! general-purpose open code); **\[M\]** from memory, not seen in any source
 //! (confidence given); **\[D\]** derived here from the other entries.
 
-use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Factored, Kernel, Model};
 use std::f64::consts::PI;
 
 // ---------------------------------------------------------------------------
@@ -38,8 +38,24 @@ use std::f64::consts::PI;
 /// Physikalische Zeitschrift 36 (1935) 379-384 (no DOI).
 #[inline(always)]
 pub fn fritz(contact_angle_deg: f64, sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
-    let ok = angle_deg(contact_angle_deg) & positive(sigma) & densities(rho_l, rho_v) & positive(g);
-    nan_unless(ok, FRITZ_CONSTANT_PER_DEG * contact_angle_deg * (sigma / (g * (rho_l - rho_v))).sqrt())
+    fritz_angle_factor(contact_angle_deg) * capillary_length(sigma, rho_l, rho_v, g)
+}
+
+/// The angle factor `0.0208 θ` of [`fritz`]; NaN outside 0..180 deg.
+#[inline(always)]
+fn fritz_angle_factor(contact_angle_deg: f64) -> f64 {
+    nan_unless(angle_deg(contact_angle_deg), FRITZ_CONSTANT_PER_DEG * contact_angle_deg)
+}
+
+/// Capillary length `[σ / (g (ρ_l − ρ_v))]^(1/2)` [m]; NaN for impossible properties.
+#[inline(always)]
+fn capillary_length(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
+    nan_unless(capillary_possible(sigma, rho_l, rho_v, g), (sigma / (g * (rho_l - rho_v))).sqrt())
+}
+
+#[inline(always)]
+fn capillary_possible(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
+    positive(sigma) & densities(rho_l, rho_v) & positive(g)
 }
 
 /// The Fritz constant per degree of contact angle [1/deg].
@@ -71,10 +87,27 @@ impl Kernel<5, 1> for Fritz {
         [fritz(x[0], x[1], x[2], x[3], x[4])]
     }
     fn possible(x: &[f64; 5]) -> bool {
-        angle_deg(x[0]) && positive(x[1]) && densities(x[2], x[3]) && positive(x[4])
+        Self::side_possible(0, x) && Self::side_possible(1, x)
     }
     fn in_range(x: &[f64; 5]) -> bool {
-        x[0] <= 90.0
+        Self::side_in_range(0, x)
+    }
+}
+impl Factored<5, 1> for Fritz {
+    const SIDES: [u8; 5] = [0, 1, 1, 1, 1];
+    #[inline(always)]
+    fn factor(s: u8, x: &[f64; 5]) -> [f64; 1] {
+        [if s == 0 { fritz_angle_factor(x[0]) } else { capillary_length(x[1], x[2], x[3], x[4]) }]
+    }
+    fn side_possible(s: u8, x: &[f64; 5]) -> bool {
+        if s == 0 {
+            angle_deg(x[0])
+        } else {
+            capillary_possible(x[1], x[2], x[3], x[4])
+        }
+    }
+    fn side_in_range(s: u8, x: &[f64; 5]) -> bool {
+        s != 0 || x[0] <= 90.0
     }
 }
 

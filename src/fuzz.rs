@@ -28,7 +28,7 @@
 use std::panic::{catch_unwind, AssertUnwindSafe};
 use std::time::{Duration, Instant};
 
-use crate::model::{classify, evaluate, Kernel, Status};
+use crate::model::{check_factored, classify, evaluate, Factored, Kernel, Status};
 use crate::{boiling, chain, chf, departure, nucleation, water, wetting};
 
 // ---------------------------------------------------------------------------
@@ -524,6 +524,58 @@ kernels! {
     chain::WaterScreening, 6, 4;
 }
 
+/// Check the product contract of a factored kernel on `n` samples (special,
+/// physical and adversarial); the first violation, if any.
+fn run_factored<K: Factored<N, M>, const N: usize, const M: usize>(rng: &mut Rng, n: usize) -> Option<String> {
+    let ranges: [Range; N] = std::array::from_fn(|k| physical_range(K::MODEL.name, K::MODEL.inputs[k].name));
+    let mut samples: Vec<[f64; N]> = Vec::new();
+    for k in 0..N {
+        for &v in SPECIALS {
+            let mut x: [f64; N] = std::array::from_fn(|j| draw(rng, ranges[j]));
+            x[k] = v;
+            samples.push(x);
+        }
+    }
+    for i in 0..n {
+        let mut x: [f64; N] = std::array::from_fn(|j| draw(rng, ranges[j]));
+        if i % 2 == 1 {
+            let j = rng.below(N);
+            x[j] = adversarial(rng, ranges[j]);
+        }
+        samples.push(x);
+    }
+    samples.iter().find_map(|x| {
+        catch_unwind(AssertUnwindSafe(|| check_factored::<K, N, M>(x))).err().map(|e| {
+            e.downcast_ref::<String>().cloned().unwrap_or_else(|| format!("{}: contract violated at {x:?}", K::MODEL.name))
+        })
+    })
+}
+
+type FactoredRunner = fn(&mut Rng, usize) -> Option<String>;
+
+/// The kernels registered with `factored::<...>()` in `src/python/registry.rs`.
+macro_rules! factored {
+    ($($k:ty, $n:literal, $m:literal;)*) => {
+        const FACTORED: &[(&str, FactoredRunner)] = &[$((
+            concat!(stringify!($k), ",", stringify!($n), ",", stringify!($m)),
+            run_factored::<$k, $n, $m> as FactoredRunner,
+        )),*];
+    };
+}
+
+factored! {
+    nucleation::HsuOnset, 8, 2;
+    departure::Fritz, 5, 1;
+    chf::Kandlikar, 7, 1;
+}
+
+#[test]
+fn factored_kernels_keep_the_product_contract() {
+    let mut rng = Rng(0x4641_4354_4f52_5321);
+    let failures: Vec<String> = FACTORED.iter().filter_map(|(_, run)| run(&mut rng, 20_000)).collect();
+    assert!(failures.is_empty(), "{}", failures.join("\n"));
+}
+
 fn compact(s: &str) -> String {
     s.chars().filter(|c| !c.is_whitespace()).collect()
 }
@@ -537,11 +589,19 @@ fn fuzz_list_matches_the_registry() {
         .lines()
         .filter_map(|l| {
             let l = l.trim();
-            let rest = l.strip_prefix("entry::<")?;
+            let rest = l.strip_prefix("entry::<").or_else(|| l.strip_prefix("factored::<"))?;
             let inner = rest.strip_suffix(">(),")?;
             Some(compact(inner))
         })
         .collect();
+    let mut registered_factored: Vec<String> = registry
+        .lines()
+        .filter_map(|l| Some(compact(l.trim().strip_prefix("factored::<")?.strip_suffix(">(),")?)))
+        .collect();
+    let mut factored: Vec<String> = FACTORED.iter().map(|(k, _)| compact(k)).collect();
+    factored.sort();
+    registered_factored.sort();
+    assert_eq!(factored, registered_factored, "src/fuzz.rs FACTORED must list the factored::<...>() lines of the registry");
     let mut fuzzed: Vec<String> = KERNELS.iter().map(|(k, _, _)| compact(k)).collect();
     assert!(!registered.is_empty(), "no entry::<...>() lines found in src/python/registry.rs");
     fuzzed.sort();

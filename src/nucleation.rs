@@ -9,7 +9,7 @@
 //!
 //! Contact angles are in degrees, measured through the liquid.
 
-use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Arg, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
@@ -620,7 +620,7 @@ fn onset_possible(q: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: 
 /// Reference: Y.Y. Hsu, J. Heat Transfer 84 (1962) 207-213, doi:10.1115/1.3684339
 /// (the general-C₃ tangency is derived here from Hsu's nucleus geometry).
 #[allow(clippy::too_many_arguments)]
-#[inline]
+#[inline(always)]
 pub fn hsu_onset(
     heat_flux: f64,
     sigma: f64,
@@ -631,16 +631,25 @@ pub fn hsu_onset(
     k_l: f64,
     contact_angle_deg: f64,
 ) -> [f64; 2] {
-    if !(onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) && angle_deg(contact_angle_deg)) {
-        return [f64::NAN; 2];
-    }
+    let a = hsu_angle_factors(contact_angle_deg);
+    let b = hsu_fluid_factors(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
+    [a[0] * b[0], a[1] * b[1]]
+}
+
+/// The angle factors `[2 cos(θ/2), sin(θ/2)]` of [`hsu_onset`]; NaN outside 0..180 deg.
+#[inline(always)]
+fn hsu_angle_factors(contact_angle_deg: f64) -> [f64; 2] {
+    let half = 0.5 * contact_angle_deg;
+    nans_unless(angle_deg(contact_angle_deg), [2.0 * cos_deg(half), sin_deg(half)])
+}
+
+/// The fluid factors `[√(2ζ q''/k_l), √(2ζ k_l/q'')]` of [`hsu_onset`]; NaN for impossible input.
+#[inline(always)]
+fn hsu_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
+    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    let half = 0.5 * contact_angle_deg;
-    [
-        2.0 * cos_deg(half) * (2.0 * zeta * heat_flux / k_l).sqrt(),
-        sin_deg(half) * (2.0 * zeta * k_l / heat_flux).sqrt(),
-    ]
+    nans_unless(ok, [(2.0 * zeta * heat_flux / k_l).sqrt(), (2.0 * zeta * k_l / heat_flux).sqrt()])
 }
 
 const ONSET_FLUID: [Arg; 6] = [
@@ -681,7 +690,25 @@ impl Kernel<8, 2> for HsuOnset {
         hsu_onset(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])
     }
     fn possible(x: &[f64; 8]) -> bool {
-        onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6]) && angle_deg(x[7])
+        Self::side_possible(0, x) && Self::side_possible(1, x)
+    }
+}
+impl Factored<8, 2> for HsuOnset {
+    const SIDES: [u8; 8] = [1, 1, 1, 1, 1, 1, 1, 0];
+    #[inline(always)]
+    fn factor(s: u8, x: &[f64; 8]) -> [f64; 2] {
+        if s == 0 {
+            hsu_angle_factors(x[7])
+        } else {
+            hsu_fluid_factors(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
+        }
+    }
+    fn side_possible(s: u8, x: &[f64; 8]) -> bool {
+        if s == 0 {
+            angle_deg(x[7])
+        } else {
+            onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
+        }
     }
 }
 
@@ -695,14 +722,12 @@ impl Kernel<8, 2> for HsuOnset {
 /// References: E.J. Davis, G.H. Anderson, "The incipience of nucleate boiling in
 /// forced convection flow", AIChE J. 12 (1966) 774-780, doi:10.1002/aic.690120426 (DOI from memory);
 /// Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398 (same criterion).
-#[inline]
+#[inline(always)]
 pub fn davis_anderson(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    if !onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) {
-        return [f64::NAN; 2];
-    }
+    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    [(4.0 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / heat_flux).sqrt()]
+    nans_unless(ok, [(4.0 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / heat_flux).sqrt()])
 }
 
 /// Kernel of [`davis_anderson`].
@@ -750,7 +775,7 @@ impl Kernel<7, 2> for DavisAnderson {
 /// nucleation and growth characteristics in subcooled flow boiling of water",
 /// ASME National Heat Transfer Conference, HTD-Vol. 342 (1997) 11-18.
 #[allow(clippy::too_many_arguments)]
-#[inline]
+#[inline(always)]
 pub fn kandlikar_onset(
     heat_flux: f64,
     sigma: f64,
@@ -761,12 +786,13 @@ pub fn kandlikar_onset(
     k_l: f64,
     receding_angle_deg: f64,
 ) -> [f64; 2] {
-    if !(onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) && angle_deg(receding_angle_deg)) {
-        return [f64::NAN; 2];
-    }
+    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) & angle_deg(receding_angle_deg);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    [(4.4 * zeta * heat_flux / k_l).sqrt(), sin_deg(receding_angle_deg) * (zeta * k_l / (1.1 * heat_flux)).sqrt()]
+    nans_unless(
+        ok,
+        [(4.4 * zeta * heat_flux / k_l).sqrt(), sin_deg(receding_angle_deg) * (zeta * k_l / (1.1 * heat_flux)).sqrt()],
+    )
 }
 
 /// Kernel of [`kandlikar_onset`].

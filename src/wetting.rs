@@ -14,7 +14,7 @@
 //! (or a faithful copy of it); **[V2]** seen in a secondary source only;
 //! **[M]** from memory, not seen in any source during this work.
 
-use crate::model::{nan_unless, angle_deg, arg, densities, non_negative, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Kernel, Model};
 use crate::trig::cos_deg;
 
 // ---------------------------------------------------------------------------

@@ -236,23 +236,74 @@ def _grid_worthy(arrays: Sequence[Any]) -> Optional[Tuple[int, ...]]:
     return None
 
 
+#: Side (0: surface, 1: fluid) of each input of the kernels in product form.
+SIDES: Dict[str, Tuple[int, ...]] = {k: tuple(v) for k, v in _core.factored_sides().items()}
+
+
+def _factor_axes(arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int, ...]) -> bool:
+    """True when the inputs of the two sides vary along disjoint axes of the
+    broadcast `shape` (an outer product, such as angles x pressures)."""
+    used: list = [set(), set()]
+    for a, s in zip(arrays, sides):
+        sh = np.shape(a)
+        used[s].update(len(shape) - len(sh) + i for i, n in enumerate(sh) if n > 1)
+    return not (used[0] & used[1])
+
+
+def _factorised(name: str, arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int, ...]) -> Tuple[Any, int, int]:
+    """The factorised grid path: each side's factors once per point of its own
+    axes, then one parallel multiplication per grid point. Bit-identical to
+    the element path (the kernels compute exactly this product; Rust tests
+    check it)."""
+    n_out = len(MODELS[name].outputs)
+    factors, hist = [], []
+    for s in (0, 1):
+        mine = [np.asarray(a, dtype=np.float64) for a, sd in zip(arrays, sides) if sd == s]
+        sub = np.broadcast_shapes(*(a.shape for a in mine))
+        size = int(np.prod(sub))
+        ins = [np.ascontiguousarray(np.broadcast_to(np.asarray(a, dtype=np.float64), sub)).reshape(-1)
+               if sd == s else np.ones(1) for a, sd in zip(arrays, sides)]
+        outs = [np.empty(size) for _ in range(n_out)]
+        codes = np.empty(size, dtype=np.int8)
+        _core.factor_call(name, s, ins, outs, codes)
+        factors.append([o.reshape(sub) for o in outs])
+        hist.append(np.bincount(codes, minlength=4))
+    # element code = 3 if either side is 3, else 1 if either is 1, else 2 if either is 2, else 0
+    (a_ok, a_bad, a_out, a_nan), (b_ok, b_bad, b_out, b_nan) = (h.tolist() for h in hist)
+    a_real, b_real = a_ok + a_bad + a_out, b_ok + b_bad + b_out
+    a_pos, b_pos = a_ok + a_out, b_ok + b_out
+    invalid = a_real * b_real - a_pos * b_pos
+    out_of_range = a_pos * b_pos - a_ok * b_ok
+    results = []
+    for fa, fb in zip(*factors):
+        out = np.empty(shape)
+        _core.product_call(np.broadcast_to(fa, shape), np.broadcast_to(fb, shape), out)
+        results.append(out)
+    return (results[0] if n_out == 1 else tuple(results)), invalid, out_of_range
+
+
 def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
     """Evaluate kernel `name` on NumPy-compatible arrays and apply the element
     policy. Whole contiguous float64 arrays (and arrays against scalars) go
-    through the ufunc, which threads them itself; large broadcast grids and
-    other layouts go through the parallel grid path. Module-level and
-    picklable (used by dask)."""
+    through the ufunc, which threads them itself; large broadcast grids go
+    through the factorised grid path when the kernel is in product form and
+    the grid is an outer product of its two sides, else through the parallel
+    grid path, as do other layouts. Module-level and picklable (used by dask)."""
     cap = _CAPTURE.get()
     if cap is not None:
         with np.errstate(all="ignore"):  # range checks of extreme inputs raise FP flags: not the user's concern
             cap.add(getattr(_core, f"{name}_status")(*arrays))
     shape = _grid_worthy(arrays)
-    if shape is not None:
+    sides = SIDES.get(name)
+    outs: Any
+    if shape is not None and sides is not None and _factor_axes(arrays, sides, shape):
+        outs, invalid, out_of_range = _factorised(name, arrays, sides, shape)
+    elif shape is not None:
         n_out = len(MODELS[name].outputs)
         ins = [np.broadcast_to(np.asarray(a, dtype=np.float64), shape) for a in arrays]
         outs_list = [np.empty(shape) for _ in range(n_out)]
         invalid, out_of_range = _core.grid_call(name, ins, outs_list)
-        outs: Any = outs_list[0] if n_out == 1 else tuple(outs_list)
+        outs = outs_list[0] if n_out == 1 else tuple(outs_list)
     else:
         uf = getattr(_core, name)
         _core.take_counts()  # discard counts of direct ufunc calls made earlier

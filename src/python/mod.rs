@@ -40,6 +40,13 @@ fn models_json() -> String {
     serde_json::to_string(&models).unwrap_or_else(|_| "[]".to_owned())
 }
 
+fn find(kernel: &str) -> PyResult<&'static Entry> {
+    entries()
+        .iter()
+        .find(|e| e.model.name == kernel)
+        .ok_or_else(|| pyo3::exceptions::PyValueError::new_err(format!("unknown kernel {kernel:?}")))
+}
+
 /// Evaluate kernel `kernel` over a broadcast grid: `inputs` are float64
 /// arrays already broadcast to one shape (zero strides allowed), `outputs`
 /// fresh float64 arrays of that shape. Runs in parallel with the GIL
@@ -49,19 +56,39 @@ fn grid_call<'py>(
     py: Python<'py>,
     kernel: &str,
     inputs: Vec<numpy::PyReadonlyArrayDyn<'py, f64>>,
-    mut outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
+    outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
 ) -> PyResult<(u64, u64)> {
-    use numpy::PyUntypedArrayMethods;
-    let e = entries()
-        .iter()
-        .find(|e| e.model.name == kernel)
-        .ok_or_else(|| pyo3::exceptions::PyValueError::new_err(format!("unknown kernel {kernel:?}")))?;
+    let e = find(kernel)?;
     if inputs.len() != e.nin || outputs.len() != e.nout {
         return Err(pyo3::exceptions::PyValueError::new_err(format!(
             "kernel {kernel} takes {} inputs and {} outputs",
             e.nin, e.nout
         )));
     }
+    run_grid(py, e.grid, inputs, outputs)
+}
+
+/// `out = a * b` for float64 arrays broadcast to `out`'s shape (zero strides
+/// allowed): the combining step of the factorised grid path, in parallel
+/// with the GIL released.
+#[pyfunction]
+fn product_call<'py>(
+    py: Python<'py>,
+    a: numpy::PyReadonlyArrayDyn<'py, f64>,
+    b: numpy::PyReadonlyArrayDyn<'py, f64>,
+    out: numpy::PyReadwriteArrayDyn<'py, f64>,
+) -> PyResult<()> {
+    run_grid(py, ufunc::product_grid, vec![a, b], vec![out]).map(|_| ())
+}
+
+/// Run a grid evaluator over operands that share one shape.
+fn run_grid<'py>(
+    py: Python<'py>,
+    grid: fn(&ufunc::GridCall<'_>) -> [u64; 2],
+    inputs: Vec<numpy::PyReadonlyArrayDyn<'py, f64>>,
+    mut outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
+) -> PyResult<(u64, u64)> {
+    use numpy::PyUntypedArrayMethods;
     let shape: Vec<usize> = outputs[0].shape().to_vec();
     for a in inputs.iter().map(|a| a.shape()).chain(outputs.iter().map(|a| a.shape())) {
         if a != shape.as_slice() {
@@ -73,7 +100,6 @@ fn grid_call<'py>(
     let ins: Vec<(usize, usize)> = inputs.iter().enumerate().map(|(i, a)| (a.as_array().as_ptr() as usize, i)).collect();
     let outs: Vec<(usize, usize)> =
         outputs.iter_mut().enumerate().map(|(i, a)| (a.as_array_mut().as_mut_ptr() as usize, i)).collect();
-    let grid = e.grid;
     // Pointers travel as integers across the GIL release; the borrowed arrays
     // (held by `inputs`/`outputs` until this function returns) keep them valid.
     let counts = py.detach(|| {
@@ -85,6 +111,55 @@ fn grid_call<'py>(
         Ok([a, b]) => Ok((a, b)),
         Err(_) => Err(pyo3::exceptions::PyRuntimeError::new_err("wetboil: internal error (panic) in grid_call")),
     }
+}
+
+/// Side (0: surface, 1: fluid) of each input of every kernel in product
+/// form, by kernel name.
+#[pyfunction]
+fn factored_sides() -> std::collections::HashMap<&'static str, Vec<u8>> {
+    entries().iter().filter_map(|e| Some((e.model.name, e.sides.as_ref()?.of_input.clone()))).collect()
+}
+
+/// Evaluate the factors of side `side` of a kernel in product form at `n`
+/// points: each input is a contiguous float64 array of `n` elements or of
+/// one (used for every point; the other side's inputs are never read);
+/// `outputs` (one per kernel output) and `codes` (int8, the side's validity
+/// codes) have `n` elements. Serial: the sides of a grid are its axes, small
+/// next to the grid itself.
+#[pyfunction]
+fn factor_call<'py>(
+    kernel: &str,
+    side: u8,
+    inputs: Vec<numpy::PyReadonlyArray1<'py, f64>>,
+    mut outputs: Vec<numpy::PyReadwriteArray1<'py, f64>>,
+    mut codes: numpy::PyReadwriteArray1<'py, i8>,
+) -> PyResult<()> {
+    let e = find(kernel)?;
+    let Some(sides) = &e.sides else {
+        return Err(pyo3::exceptions::PyValueError::new_err(format!("kernel {kernel} is not in product form")));
+    };
+    let bad = |m: &str| pyo3::exceptions::PyValueError::new_err(format!("factor_call({kernel}): {m}"));
+    if side > 1 || inputs.len() != e.nin || outputs.len() != e.nout {
+        return Err(bad("side must be 0 or 1, with one array per kernel input and output"));
+    }
+    let codes = codes.as_slice_mut().map_err(|_| bad("codes must be contiguous"))?;
+    let n = codes.len();
+    let ins: Vec<&[f64]> =
+        inputs.iter().map(|a| a.as_slice()).collect::<Result<_, _>>().map_err(|_| bad("inputs must be contiguous"))?;
+    if ins.iter().any(|a| a.len() != n && a.len() != 1) {
+        return Err(bad("every input must have n elements or one"));
+    }
+    let mut outs: Vec<&mut [f64]> = outputs
+        .iter_mut()
+        .map(|a| a.as_slice_mut())
+        .collect::<Result<_, _>>()
+        .map_err(|_| bad("outputs must be contiguous"))?;
+    if outs.iter().any(|a| a.len() != n) {
+        return Err(bad("every output must have n elements"));
+    }
+    let eval = sides.eval;
+    catch_unwind(AssertUnwindSafe(|| eval(side, &ins, &mut outs, codes)))
+        .map_err(|_| pyo3::exceptions::PyRuntimeError::new_err("wetboil: internal error (panic) in factor_call"))
 }
 
 /// Number of threads large array calls use.
@@ -118,6 +193,9 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add("MAX_ARGS", front::MAX_ARGS)?;
     m.add_function(wrap_pyfunction!(take_counts, m)?)?;
     m.add_function(wrap_pyfunction!(grid_call, m)?)?;
+    m.add_function(wrap_pyfunction!(product_call, m)?)?;
+    m.add_function(wrap_pyfunction!(factored_sides, m)?)?;
+    m.add_function(wrap_pyfunction!(factor_call, m)?)?;
     m.add_function(wrap_pyfunction!(models_json, m)?)?;
     m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;

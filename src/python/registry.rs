@@ -1,7 +1,8 @@
 //! The registration table: one line per kernel. Adding a model to the Python
-//! package adds exactly one line here.
+//! package adds exactly one line here: `entry::<K, N, M>()`, or
+//! `factored::<K, N, M>()` for a kernel in product form (`model::Factored`).
 
-use super::ufunc::{entry, Entry};
+use super::ufunc::{entry, factored, Entry};
 use crate::{boiling, chain, chf, departure, nucleation, water, wetting};
 
 pub fn entries() -> Vec<Entry> {
@@ -16,7 +17,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<nucleation::HomogeneousSuperheatWater, 2, 1>(),
         entry::<nucleation::Bankoff, 2, 1>(),
         entry::<nucleation::HsuActiveRadii, 9, 2>(),
-        entry::<nucleation::HsuOnset, 8, 2>(),
+        factored::<nucleation::HsuOnset, 8, 2>(),
         entry::<nucleation::DavisAnderson, 7, 2>(),
         entry::<nucleation::KandlikarOnset, 8, 2>(),
         entry::<nucleation::BerglesRohsenow, 2, 1>(),
@@ -24,7 +25,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<nucleation::Basu, 3, 1>(),
         entry::<nucleation::HibikiIshii, 9, 1>(),
         entry::<nucleation::LemmertChawla, 1, 1>(),
-        entry::<departure::Fritz, 5, 1>(),
+        factored::<departure::Fritz, 5, 1>(),
         entry::<departure::ColeRohsenow, 8, 1>(),
         entry::<departure::KocamustafaogullariIshii, 5, 1>(),
         entry::<departure::ForceBalance, 17, 5>(),
@@ -34,7 +35,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<departure::IveyTransitionFrequency, 2, 1>(),
         entry::<departure::WaitingTime, 10, 1>(),
         entry::<chf::Zuber, 6, 1>(),
-        entry::<chf::Kandlikar, 7, 1>(),
+        factored::<chf::Kandlikar, 7, 1>(),
         entry::<chf::LienhardDhir, 9, 1>(),
         entry::<chf::MinimumHeatFlux, 6, 1>(),
         entry::<boiling::Rohsenow, 11, 1>(),

@@ -15,7 +15,7 @@ use pyo3::prelude::*;
 use rayon::prelude::*;
 
 use super::threads;
-use crate::model::{classify, evaluate, settle, Kernel, Model, Status};
+use crate::model::{classify, classify_side, evaluate, settle, Factored, Kernel, Model, Status};
 
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
 
@@ -57,6 +57,20 @@ pub struct Entry {
     pub grid: fn(&GridCall<'_>) -> [u64; 2],
     /// Evaluate one element: `x.len() == nin`, `y.len() >= nout`.
     pub scalar: fn(&[f64], &mut [f64]) -> Status,
+    /// For kernels in product form ([`Factored`]): the side of each input,
+    /// and the evaluation of one side's factors (see [`Sides`]).
+    pub sides: Option<Sides>,
+}
+
+/// The product form of a factored kernel, type-erased.
+pub struct Sides {
+    /// Side (0 or 1) of each input.
+    pub of_input: Vec<u8>,
+    /// `eval(s, ins, outs, codes)`: for each of `codes.len()` points, the
+    /// factors of side `s` into `outs` (one slice per output) and the side's
+    /// validity code (see `model::classify_side`) into `codes`. Each input
+    /// slice has one element per point, or a single element for all.
+    pub eval: fn(u8, &[&[f64]], &mut [&mut [f64]], &mut [i8]),
 }
 
 /// Build the registry entry of a kernel: the only thing a new model adds to
@@ -71,7 +85,64 @@ pub fn entry<K: Kernel<N, M>, const N: usize, const M: usize>() -> Entry {
         status_fn: status_loop::<K, N, M>,
         grid: grid_eval::<K, N, M>,
         scalar: scalar::<K, N, M>,
+        sides: None,
     }
+}
+
+/// The registry entry of a kernel in product form: as [`entry`], plus its
+/// factors for the factorised grid path.
+pub fn factored<K: Factored<N, M>, const N: usize, const M: usize>() -> Entry {
+    Entry { sides: Some(Sides { of_input: K::SIDES.to_vec(), eval: side_eval::<K, N, M> }), ..entry::<K, N, M>() }
+}
+
+fn side_eval<K: Factored<N, M>, const N: usize, const M: usize>(
+    s: u8,
+    ins: &[&[f64]],
+    outs: &mut [&mut [f64]],
+    codes: &mut [i8],
+) {
+    if ins.len() != N || outs.len() != M {
+        return;
+    }
+    for i in 0..codes.len() {
+        let x: [f64; N] = std::array::from_fn(|k| if ins[k].len() == 1 { ins[k][0] } else { ins[k][i] });
+        let y = K::factor(s, &x);
+        for m in 0..M {
+            outs[m][i] = y[m];
+        }
+        codes[i] = classify_side::<K, N, M>(s, &x);
+    }
+}
+
+/// Multiplication, the combining step of the factorised grid path. Not a
+/// model: it is never registered, only run through [`product_grid`].
+struct Product;
+impl Kernel<2, 1> for Product {
+    const MODEL: Model = Model {
+        name: "product",
+        summary: "a * b",
+        equation: "a * b",
+        inputs: &[],
+        outputs: &[],
+        domain: "",
+        validity: "",
+        reference: "",
+        doi: "",
+        verification: "",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 2]) -> [f64; 1] {
+        [x[0] * x[1]]
+    }
+    fn possible(_x: &[f64; 2]) -> bool {
+        true
+    }
+}
+
+/// `out = a * b` over a broadcast grid, through the generic parallel grid
+/// loop (`call` has two inputs and one output).
+pub fn product_grid(call: &GridCall<'_>) -> [u64; 2] {
+    grid_eval::<Product, 2, 1>(call)
 }
 
 fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64], y: &mut [f64]) -> Status {
@@ -154,6 +225,9 @@ impl<const N: usize, const M: usize> Operands<N, M> {
                     } else {
                         unsafe { std::ptr::copy_nonoverlapping(base, dst, 8 * len) };
                     }
+                } else if self.in_steps[k] == 0 {
+                    // A broadcast operand (a grid axis, a scalar): one read.
+                    xb[k].fill(unsafe { (base as *const f64).read_unaligned() });
                 } else {
                     for (j, v) in xb[k][..len].iter_mut().enumerate() {
                         // Unaligned reads cost nothing on the targets we build
