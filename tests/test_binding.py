@@ -425,3 +425,15 @@ def test_factorised_grid_path_equals_the_element_path(name):
         assert same_bits(o, e)
     assert (invalid, out_of_range) == counts
     assert invalid > 0 and out_of_range > 0 or name == "hsu_onset"  # Hsu has no range limit
+
+
+def test_factorised_grid_path_takes_unaligned_and_readonly_input():
+    # Blocks unpickled on a dask worker can be unaligned views: the factorised
+    # path must copy them to aligned memory, not fail (found by the LocalCluster test).
+    n = 40_000
+    buf = np.zeros(n * 8 + 1, dtype=np.uint8)
+    x = np.frombuffer(buf.data, dtype=np.float64, count=n, offset=1)  # unaligned, read-only
+    assert not x.flags.aligned
+    x_ = np.linspace(1.0, 89.0, n)
+    buf[1:] = x_.view(np.uint8)
+    np.testing.assert_array_equal(kandlikar(x, WATER, 30.0), kandlikar(x_, WATER, 30.0))

@@ -261,7 +261,7 @@ def _factorised(name: str, arrays: Sequence[Any], sides: Tuple[int, ...], shape:
         mine = [np.asarray(a, dtype=np.float64) for a, sd in zip(arrays, sides) if sd == s]
         sub = np.broadcast_shapes(*(a.shape for a in mine))
         size = int(np.prod(sub))
-        ins = [np.ascontiguousarray(np.broadcast_to(np.asarray(a, dtype=np.float64), sub)).reshape(-1)
+        ins = [np.require(np.broadcast_to(np.asarray(a, dtype=np.float64), sub), requirements=["C", "A"]).reshape(-1)
                if sd == s else np.ones(1) for a, sd in zip(arrays, sides)]
         outs = [np.empty(size) for _ in range(n_out)]
         codes = np.empty(size, dtype=np.int8)

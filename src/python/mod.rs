@@ -142,10 +142,10 @@ fn factor_call<'py>(
     if side > 1 || inputs.len() != e.nin || outputs.len() != e.nout {
         return Err(bad("side must be 0 or 1, with one array per kernel input and output"));
     }
-    let codes = codes.as_slice_mut().map_err(|_| bad("codes must be contiguous"))?;
+    let codes = codes.as_slice_mut().map_err(|_| bad("codes must be contiguous int8"))?;
     let n = codes.len();
     let ins: Vec<&[f64]> =
-        inputs.iter().map(|a| a.as_slice()).collect::<Result<_, _>>().map_err(|_| bad("inputs must be contiguous"))?;
+        inputs.iter().map(|a| a.as_slice()).collect::<Result<_, _>>().map_err(|_| bad("inputs must be contiguous, aligned float64"))?;
     if ins.iter().any(|a| a.len() != n && a.len() != 1) {
         return Err(bad("every input must have n elements or one"));
     }
@@ -153,7 +153,7 @@ fn factor_call<'py>(
         .iter_mut()
         .map(|a| a.as_slice_mut())
         .collect::<Result<_, _>>()
-        .map_err(|_| bad("outputs must be contiguous"))?;
+        .map_err(|_| bad("outputs must be contiguous, aligned float64"))?;
     if outs.iter().any(|a| a.len() != n) {
         return Err(bad("every output must have n elements"));
     }
