@@ -7,7 +7,8 @@
 //! general-purpose open code, a textbook worked example); **\[M\]** from memory,
 //! not seen in any source (confidence given); **\[D\]** derived here.
 
-use crate::model::{arg, densities, non_negative, positive, Kernel, Model};
+use crate::fastmath;
+use crate::model::{arg, densities, nan_unless, non_negative, positive, Kernel, Model};
 use std::f64::consts::PI;
 
 #[inline(always)]
@@ -24,7 +25,7 @@ fn liquid_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> boo
 #[allow(clippy::too_many_arguments)]
 fn rohsenow_group(c_sf: f64, n: f64, h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, cp_l: f64, k_l: f64, mu_l: f64, g: f64) -> f64 {
     let pr = cp_l * mu_l / k_l;
-    let b = cp_l / (c_sf * h_lv * pr.powf(n));
+    let b = cp_l / (c_sf * h_lv * fastmath::pow(pr, n));
     mu_l * h_lv * (g * (rho_l - rho_v) / sigma).sqrt() * b * b * b
 }
 
@@ -78,10 +79,8 @@ pub fn rohsenow(
     mu_l: f64,
     g: f64,
 ) -> f64 {
-    if !rohsenow_possible(superheat, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) {
-        return f64::NAN;
-    }
-    rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) * superheat * superheat * superheat
+    let ok = rohsenow_possible(superheat, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g);
+    nan_unless(ok, rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) * superheat * superheat * superheat)
 }
 
 /// Inverse of [`rohsenow`]: the wall superheat [K] at a nucleate-boiling heat flux [W/m2].
@@ -102,10 +101,8 @@ pub fn rohsenow_superheat(
     mu_l: f64,
     g: f64,
 ) -> f64 {
-    if !rohsenow_possible(heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) {
-        return f64::NAN;
-    }
-    (heat_flux / rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g)).cbrt()
+    let ok = rohsenow_possible(heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g);
+    nan_unless(ok, fastmath::cbrt(heat_flux / rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g)))
 }
 
 const ROHSENOW_INPUTS_TAIL: [crate::model::Arg; 10] = [
@@ -204,7 +201,8 @@ fn cooper_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f
     let pr = p / p_crit;
     let rp_um = roughness * 1e6;
     let m = molar_mass * 1e3;
-    55.0 * pr.powf(0.12 - 0.2 * rp_um.log10()) * (-pr.log10()).powf(-0.55) / m.sqrt()
+    let log10 = |x: f64| fastmath::ln(x) * std::f64::consts::LOG10_E;
+    55.0 * fastmath::pow(pr, 0.12 - 0.2 * log10(rp_um)) * fastmath::pow(-log10(pr), -0.55) / m.sqrt()
 }
 
 #[inline(always)]
@@ -232,31 +230,25 @@ pub const COOPER_EXPONENT: f64 = 0.67;
 ///
 /// Reference: M.G. Cooper, "Saturation nucleate pool boiling - a simple
 /// correlation", IChemE Symp. Ser. 86 (1984) 785-793.
-#[inline]
+#[inline(always)]
 pub fn cooper(superheat: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
-    if !cooper_possible(superheat, p, p_crit, molar_mass, roughness) {
-        return f64::NAN;
-    }
-    (cooper_coefficient(p, p_crit, molar_mass, roughness) * superheat).powf(1.0 / (1.0 - COOPER_EXPONENT))
+    let ok = cooper_possible(superheat, p, p_crit, molar_mass, roughness);
+    nan_unless(ok, fastmath::pow(cooper_coefficient(p, p_crit, molar_mass, roughness) * superheat, 1.0 / (1.0 - COOPER_EXPONENT)))
 }
 
 /// Inverse of [`cooper`]: wall superheat [K] at a heat flux [W/m2],
 /// `ΔT = q / h = q^0.33 / A`.
-#[inline]
+#[inline(always)]
 pub fn cooper_superheat(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
-    if !cooper_possible(heat_flux, p, p_crit, molar_mass, roughness) {
-        return f64::NAN;
-    }
-    heat_flux.powf(1.0 - COOPER_EXPONENT) / cooper_coefficient(p, p_crit, molar_mass, roughness)
+    let ok = cooper_possible(heat_flux, p, p_crit, molar_mass, roughness);
+    nan_unless(ok, fastmath::pow(heat_flux, 1.0 - COOPER_EXPONENT) / cooper_coefficient(p, p_crit, molar_mass, roughness))
 }
 
 /// Cooper heat transfer coefficient [W/(m2 K)] at a heat flux [W/m2], `h = A q^0.67`.
-#[inline]
+#[inline(always)]
 pub fn cooper_coefficient_at_flux(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
-    if !cooper_possible(heat_flux, p, p_crit, molar_mass, roughness) {
-        return f64::NAN;
-    }
-    cooper_coefficient(p, p_crit, molar_mass, roughness) * heat_flux.powf(COOPER_EXPONENT)
+    let ok = cooper_possible(heat_flux, p, p_crit, molar_mass, roughness);
+    nan_unless(ok, cooper_coefficient(p, p_crit, molar_mass, roughness) * fastmath::pow(heat_flux, COOPER_EXPONENT))
 }
 
 const COOPER_REFERENCE: &str = "M.G. Cooper, Saturation nucleate pool boiling - a simple correlation, IChemE Symp. Ser. 86 \
@@ -488,7 +480,7 @@ pub fn tolubinsky_kostanchuk(subcooling: f64) -> f64 {
     if !subcooling.is_finite() {
         return f64::NAN;
     }
-    (0.6e-3 * (-subcooling / 45.0).exp()).min(1.4e-3)
+    (0.6e-3 * fastmath::exp(-subcooling / 45.0)).min(1.4e-3)
 }
 
 /// Kernel of [`tolubinsky_kostanchuk`].
@@ -539,12 +531,10 @@ impl Kernel<1, 1> for TolubinskyKostanchuk {
 #[inline]
 #[allow(clippy::too_many_arguments)]
 pub fn natural_convection(superheat: f64, length: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: f64, mu_l: f64, g: f64) -> f64 {
-    if !natural_possible(&[superheat, length, beta, k_l, rho_l, cp_l, mu_l, g]) {
-        return f64::NAN;
-    }
+    let ok = natural_possible(&[superheat, length, beta, k_l, rho_l, cp_l, mu_l, g]);
     let ra = rayleigh(superheat, length, beta, k_l, rho_l, cp_l, mu_l, g);
     let nu = if ra <= 1e7 { 0.54 * ra.sqrt().sqrt() } else { 0.15 * ra.cbrt() };
-    nu * k_l / length * superheat
+    nan_unless(ok, nu * k_l / length * superheat)
 }
 
 #[inline(always)]
@@ -636,12 +626,10 @@ pub fn film_boiling(
     mu_v: f64,
     g: f64,
 ) -> f64 {
-    if !film_possible(&[superheat, constant, length, latent_factor, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g]) {
-        return f64::NAN;
-    }
+    let ok = film_possible(&[superheat, constant, length, latent_factor, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g]);
     let h_mod = h_lv + latent_factor * cp_v * superheat;
     let group = g * k_v * k_v * k_v * rho_v * (rho_l - rho_v) * h_mod / (mu_v * length * superheat);
-    constant * group.sqrt().sqrt() * superheat
+    nan_unless(ok, constant * group.sqrt().sqrt() * superheat)
 }
 
 #[inline(always)]

@@ -14,6 +14,7 @@ pub mod boiling;
 pub mod chain;
 pub mod chf;
 pub mod departure;
+pub mod fastmath;
 pub mod model;
 pub mod nucleation;
 pub mod trig;

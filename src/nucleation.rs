@@ -9,6 +9,7 @@
 //!
 //! Contact angles are in degrees, measured through the liquid.
 
+use crate::fastmath;
 use crate::model::{angle_deg, arg, densities, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
@@ -274,13 +275,11 @@ impl Kernel<7, 1> for EmbryoSuperheatExact {
 ///
 /// References: M. Volmer, Kinetik der Phasenbildung (Steinkopff, Dresden 1939);
 /// M. Blander, J.L. Katz, AIChE J. 21 (1975) 833-848, doi:10.1002/aic.690210502 (DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn barrier_factor(contact_angle_deg: f64) -> f64 {
-    if !angle_deg(contact_angle_deg) {
-        return f64::NAN;
-    }
+    let ok = angle_deg(contact_angle_deg);
     let c = cos_deg(contact_angle_deg);
-    (2.0 - c) * (1.0 + c) * (1.0 + c) * 0.25
+    nan_unless(ok, (2.0 - c) * (1.0 + c) * (1.0 + c) * 0.25)
 }
 
 /// Kernel of [`barrier_factor`].
@@ -851,7 +850,8 @@ pub const BERGLES_ROHSENOW_P_MAX: f64 = 2000.0 * PSI;
 pub fn bergles_rohsenow(heat_flux: f64, p: f64) -> f64 {
     let ok = non_negative(heat_flux) & positive(p);
     let bar = p * 1e-5;
-    nan_unless(ok, (heat_flux / (1082.0 * bar.powf(1.156))).powf(bar.powf(0.0234) / 2.16) / 1.8)
+    let pw = fastmath::pow;
+    nan_unless(ok, pw(heat_flux / (1082.0 * pw(bar, 1.156)), pw(bar, 0.0234) / 2.16) / 1.8)
 }
 
 /// Kernel of [`bergles_rohsenow`].
@@ -988,7 +988,7 @@ pub fn basu(wall_superheat: f64, contact_angle_deg: f64) -> f64 {
     let per_cm2 = if wall_superheat < 15.0 {
         0.34 * w * wall_superheat * wall_superheat
     } else {
-        3.4e-5 * w * wall_superheat.powf(5.3)
+        3.4e-5 * w * fastmath::pow(wall_superheat, 5.3)
     };
     per_cm2 * 1e4
 }
@@ -1155,7 +1155,7 @@ pub fn lemmert_chawla(wall_superheat: f64) -> f64 {
     if wall_superheat <= 0.0 {
         return 0.0;
     }
-    (210.0 * wall_superheat).powf(1.805)
+    fastmath::pow(210.0 * wall_superheat, 1.805)
 }
 
 /// Kernel of [`lemmert_chawla`].

@@ -14,6 +14,7 @@
 //! (or a faithful copy of it); **[V2]** seen in a secondary source only;
 //! **[M]** from memory, not seen in any source during this work.
 
+use crate::fastmath;
 use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Kernel, Model};
 use crate::trig::cos_deg;
 
@@ -29,7 +30,7 @@ fn angle_from_cos(c: f64) -> f64 {
     } else if c <= -1.0 {
         180.0
     } else {
-        c.acos().to_degrees()
+        fastmath::acos(c).to_degrees()
     }
 }
 
@@ -68,12 +69,10 @@ fn young_tensions(sigma_sv: f64, sigma_sl: f64, sigma_lv: f64) -> bool {
 /// J. Colloid Sci. 5 (1950) 514-531, doi:10.1016/0095-8522(50)90044-4:
 /// eqs. 1-3 (Young, with the spreading pressure π_e) [V, first pages seen;
 /// DOI M].
-#[inline]
+#[inline(always)]
 pub fn young_angle(sigma_sv: f64, sigma_sl: f64, sigma_lv: f64) -> f64 {
-    if !young_tensions(sigma_sv, sigma_sl, sigma_lv) {
-        return f64::NAN;
-    }
-    angle_from_cos((sigma_sv - sigma_sl) / sigma_lv)
+    let ok = young_tensions(sigma_sv, sigma_sl, sigma_lv);
+    nan_unless(ok, angle_from_cos((sigma_sv - sigma_sl) / sigma_lv))
 }
 
 /// Kernel of [`young_angle`].
@@ -114,12 +113,10 @@ impl Kernel<3, 1> for YoungAngle {
 ///
 /// Reference: the definition as used by de Gennes, Rev. Mod. Phys. 57 (1985)
 /// 827-863, doi:10.1103/RevModPhys.57.827 [M, standard identity].
-#[inline]
+#[inline(always)]
 pub fn spreading_coefficient(sigma_sv: f64, sigma_sl: f64, sigma_lv: f64) -> f64 {
-    if !young_tensions(sigma_sv, sigma_sl, sigma_lv) {
-        return f64::NAN;
-    }
-    sigma_sv - sigma_sl - sigma_lv
+    let ok = young_tensions(sigma_sv, sigma_sl, sigma_lv);
+    nan_unless(ok, sigma_sv - sigma_sl - sigma_lv)
 }
 
 /// Kernel of [`spreading_coefficient`].
@@ -263,14 +260,12 @@ impl Kernel<3, 1> for GirifalcoGood {
 /// abstract: water and methylene iodide, "dispersion" and "dipole-hydrogen
 /// bonding" components]; D.H. Kaelble, J. Adhesion 2 (1970) 66-81 [M];
 /// W. Rabel, Farbe und Lack 77 (1971) 997-1005 [M].
-#[inline]
+#[inline(always)]
 pub fn owrk_angle(solid_dispersive: f64, solid_polar: f64, liquid_dispersive: f64, liquid_polar: f64) -> f64 {
-    if !owrk_possible(solid_dispersive, solid_polar, liquid_dispersive, liquid_polar) {
-        return f64::NAN;
-    }
+    let ok = owrk_possible(solid_dispersive, solid_polar, liquid_dispersive, liquid_polar);
     let sigma_l = liquid_dispersive + liquid_polar;
     let wa = 2.0 * ((solid_dispersive * liquid_dispersive).sqrt() + (solid_polar * liquid_polar).sqrt());
-    angle_from_cos(wa / sigma_l - 1.0)
+    nan_unless(ok, angle_from_cos(wa / sigma_l - 1.0))
 }
 
 #[inline(always)]
@@ -327,12 +322,10 @@ impl Kernel<4, 1> for OwrkAngle {
 /// Reference: R.N. Wenzel, Resistance of solid surfaces to wetting by water,
 /// Ind. Eng. Chem. 28 (1936) 988-994, doi:10.1021/ie50320a024 [M, high; the
 /// paper was not seen; equation form [V2] in several restatements].
-#[inline]
+#[inline(always)]
 pub fn wenzel(contact_angle_deg: f64, roughness_ratio: f64) -> f64 {
-    if !wenzel_possible(contact_angle_deg, roughness_ratio) {
-        return f64::NAN;
-    }
-    angle_from_cos(roughness_ratio * cos_deg(contact_angle_deg))
+    let ok = wenzel_possible(contact_angle_deg, roughness_ratio);
+    nan_unless(ok, angle_from_cos(roughness_ratio * cos_deg(contact_angle_deg)))
 }
 
 #[inline(always)]
@@ -388,12 +381,10 @@ impl Kernel<2, 1> for Wenzel {
 /// the paper was not seen]. The general form `cos θ* = f_1 cos θ_1 − f_2`
 /// (with `f_1 + f_2 ≥ 1` on rough tops) [V2]: A.J.B. Milne, A. Amirfazli,
 /// Adv. Colloid Interface Sci. 170 (2012) 48-55 (abstract).
-#[inline]
+#[inline(always)]
 pub fn cassie_baxter(contact_angle_deg: f64, solid_fraction: f64, roughness_ratio: f64) -> f64 {
-    if !cassie_possible(contact_angle_deg, solid_fraction, roughness_ratio) {
-        return f64::NAN;
-    }
-    angle_from_cos(cassie_cos(contact_angle_deg, solid_fraction, roughness_ratio))
+    let ok = cassie_possible(contact_angle_deg, solid_fraction, roughness_ratio);
+    nan_unless(ok, angle_from_cos(cassie_cos(contact_angle_deg, solid_fraction, roughness_ratio)))
 }
 
 #[inline(always)]
@@ -460,12 +451,10 @@ fn hysteresis_possible(sigma_lv: f64, advancing: f64, receding: f64, width: f64,
 /// work; title and DOI M]. A.I. ElSherbini, A.M. Jacobi, J. Colloid
 /// Interface Sci. 299 (2006) 841-849, doi:10.1016/j.jcis.2006.02.018
 /// [V2 per MODELS.md (abstract); DOI M].
-#[inline]
+#[inline(always)]
 pub fn retention_force(sigma_lv: f64, advancing_deg: f64, receding_deg: f64, width: f64, k: f64) -> f64 {
-    if !hysteresis_possible(sigma_lv, advancing_deg, receding_deg, width, k) {
-        return f64::NAN;
-    }
-    k * width * sigma_lv * (cos_deg(receding_deg) - cos_deg(advancing_deg))
+    let ok = hysteresis_possible(sigma_lv, advancing_deg, receding_deg, width, k);
+    nan_unless(ok, k * width * sigma_lv * (cos_deg(receding_deg) - cos_deg(advancing_deg)))
 }
 
 /// Kernel of [`retention_force`].
@@ -632,7 +621,7 @@ impl Kernel<2, 1> for VdwDisjoiningPressure {
 #[inline(always)]
 pub fn power_law_disjoining_pressure(thickness: f64, coefficient: f64, exponent: f64) -> f64 {
     let ok = positive(thickness) & finite(coefficient) & positive(exponent);
-    nan_unless(ok, coefficient / thickness.powf(exponent))
+    nan_unless(ok, coefficient / fastmath::pow(thickness, exponent))
 }
 
 /// Kernel of [`power_law_disjoining_pressure`].
@@ -673,12 +662,10 @@ impl Kernel<3, 1> for PowerLawDisjoiningPressure {
 ///   film is thicker and retardation matters: flagged).
 ///
 /// References: de Gennes (1985) [M, high]; MODELS A8 [M, high].
-#[inline]
+#[inline(always)]
 pub fn film_thickness(height: f64, hamaker: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
-    if !film_possible(height, hamaker, rho_l, rho_v, g) {
-        return f64::NAN;
-    }
-    (-hamaker / (6.0 * std::f64::consts::PI * (rho_l - rho_v) * g * height)).cbrt()
+    let ok = film_possible(height, hamaker, rho_l, rho_v, g);
+    nan_unless(ok, (-hamaker / (6.0 * std::f64::consts::PI * (rho_l - rho_v) * g * height)).cbrt())
 }
 
 #[inline(always)]

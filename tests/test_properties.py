@@ -282,6 +282,7 @@ def test_grid_path_bitwise_equal_to_the_ufunc(kernel):
 
 # --------------------------------------------------------------------------- physical invariants
 
+EPS = float(np.finfo(float).eps)
 angle = st.floats(0.0, 180.0)
 WATER_STATE = st.floats(275.0, 640.0).map(lambda T: water(T=T))
 WATER_1ATM = water(p=101325.0)
@@ -333,7 +334,7 @@ def test_onset_superheat_against_angle_as_each_model_says(pair, q, w):
 def test_onset_superheat_rises_with_heat_flux(pair, w, theta, method):
     lo, hi = pair
     dt = _quiet(nucleation.onset_superheat, [lo, hi], w, theta, method=method)
-    assert dt[0] <= dt[1]
+    assert dt[0] <= dt[1] * (1 + 4 * EPS)  # up to rounding of neighbouring doubles
 
 
 @FEW
@@ -443,7 +444,7 @@ def test_embryo_radius_inverts_embryo_superheat(w, r):
 def test_departure_frequency_falls_with_diameter(pair, w, method):
     lo, hi = pair
     f = _quiet(departure.frequency, [lo, hi], w, method=method)
-    assert f[0] >= f[1] > 0
+    assert f[0] * (1 + 4 * EPS) >= f[1] > 0  # up to rounding of neighbouring doubles
 
 
 @FEW
@@ -452,7 +453,7 @@ def test_site_density_rises_with_superheat(pair, w, theta, method):
     lo, hi = pair
     n = _quiet(nucleation.site_density, [lo, hi], w, theta, method=method)
     assume(not np.isinf(n).any())
-    assert 0 <= n[0] <= n[1]
+    assert 0 <= n[0] <= n[1] * (1 + 4 * EPS)  # up to rounding of neighbouring doubles
 
 
 @FEW
@@ -462,7 +463,7 @@ def test_site_density_rises_with_angle(pair, w, dt, method):
     lo, hi = pair
     n = _quiet(nucleation.site_density, dt, w, [lo, hi], method=method)
     assume(not np.isinf(n).any())
-    assert 0 <= n[0] <= n[1]
+    assert 0 <= n[0] <= n[1] * (1 + 4 * EPS)  # up to rounding of neighbouring doubles
 
 
 @FEW
@@ -514,7 +515,8 @@ def test_vapour_trapping_is_monotone_in_the_advancing_angle(adv, beta):
 def test_natural_convection_rises_with_superheat(pair, w, length, beta):
     lo, hi = pair
     q = _quiet(boiling.natural_convection, [lo, hi], w, length, beta)
-    assert 0 <= q[0] <= q[1]
+    # rounding may reverse the order of neighbouring doubles by an ulp or two
+    assert 0 <= q[0] <= q[1] * (1 + 4 * EPS)
 
 
 @FEW
@@ -522,7 +524,9 @@ def test_natural_convection_rises_with_superheat(pair, w, length, beta):
 def test_film_boiling_rises_with_superheat(pair, w, d):
     lo, hi = pair
     q = _quiet(boiling.film_boiling, [lo, hi], w, "cylinder", diameter=d)
-    assert 0 < q[0] <= q[1]
+    # rounding may reverse the order of neighbouring doubles by an ulp or two
+    # (found by hypothesis at 800 K - 1 ulp against 800 K)
+    assert 0 < q[0] <= q[1] * (1 + 4 * EPS)
 
 
 # --------------------------------------------------------------------------- the method dispatchers

@@ -1,0 +1,307 @@
+//! `exp`, `ln`, `pow`, `cbrt` and `acos` as plain arithmetic: no libm calls and no
+//! branches, so that a kernel using them still vectorises in the binding's
+//! block loops (a call to the platform's scalar `pow` or `acos` keeps the
+//! whole loop scalar, and NumPy's SIMD versions then win on long arrays).
+//!
+//! Special cases are handled by selects at the end; results are
+//! deterministic (the same bits on every x86-64 and with or without AVX2).
+//! Accuracy against the platform functions (tests below): `exp`, `ln`,
+//! `cbrt` and `acos` within 1 ulp; `pow(x, y) = exp(y ln x)` within about
+//! `(1 + |y ln x|)` ulp, which for the exponents of boiling correlations
+//! (|y ln x| < 40) is below 1e-14 relative.
+//!
+//! Algorithms and coefficients: K.C. Ng et al., fdlibm 5.3 (Sun
+//! Microsystems, 1993; public domain), `e_exp.c` (Remez rational form of
+//! exp on |r| <= ln2/2), `e_log.c` (Remez polynomial in s = f/(2+f)) and
+//! `e_acos.c` (rational approximation of asin on [0, 0.25] with the
+//! half-angle reduction), here without their branches.
+
+const LN2_HI: f64 = 6.931_471_803_691_238_164_90e-01; // low 21 bits zero: k * LN2_HI is exact
+const LN2_LO: f64 = 1.908_214_929_270_587_700_02e-10;
+const INV_LN2: f64 = 1.442_695_040_888_963_387_00;
+
+const P1: f64 = 1.666_666_666_666_660_190_37e-01;
+const P2: f64 = -2.777_777_777_701_559_338_42e-03;
+const P3: f64 = 6.613_756_321_437_934_361_17e-05;
+const P4: f64 = -1.653_390_220_546_525_153_90e-06;
+const P5: f64 = 4.138_136_797_057_238_460_39e-08;
+
+const LG1: f64 = 6.666_666_666_666_735_130e-01;
+const LG2: f64 = 3.999_999_999_940_941_908e-01;
+const LG3: f64 = 2.857_142_874_366_239_149e-01;
+const LG4: f64 = 2.222_219_843_214_978_396e-01;
+const LG5: f64 = 1.818_357_216_161_805_012e-01;
+const LG6: f64 = 1.531_383_769_920_937_332e-01;
+const LG7: f64 = 1.479_819_860_511_658_591e-01;
+
+const PIO2_HI: f64 = 1.570_796_326_794_896_558_00;
+const PIO2_LO: f64 = 6.123_233_995_736_766_035_87e-17;
+const PS0: f64 = 1.666_666_666_666_666_574_15e-01;
+const PS1: f64 = -3.255_658_186_224_009_154_05e-01;
+const PS2: f64 = 2.012_125_321_348_629_258_81e-01;
+const PS3: f64 = -4.005_553_450_067_941_140_27e-02;
+const PS4: f64 = 7.915_349_942_898_145_321_76e-04;
+const PS5: f64 = 3.479_331_075_960_211_675_70e-05;
+const QS1: f64 = -2.403_394_911_734_414_218_78;
+const QS2: f64 = 2.020_945_760_233_505_694_71;
+const QS3: f64 = -6.882_839_716_054_532_930_30e-01;
+const QS4: f64 = 7.703_815_055_590_193_527_91e-02;
+
+/// `2^k` for integer `k` in [-1022, 1023], from its bits.
+#[inline(always)]
+fn two_to(k: i64) -> f64 {
+    f64::from_bits(((k + 1023) as u64) << 52)
+}
+
+/// e^x.
+#[inline(always)]
+pub fn exp(x: f64) -> f64 {
+    const MAGIC: f64 = 6_755_399_441_055_744.0; // 1.5 * 2^52: round to nearest
+    // Beyond these the result is 0 or inf anyway; the clamp keeps k in range.
+    let xc = x.clamp(-746.0, 710.0);
+    let m = xc * INV_LN2 + MAGIC;
+    let kf = m - MAGIC;
+    let k = m.to_bits() as i64 - MAGIC.to_bits() as i64;
+    let r = (xc - kf * LN2_HI) - kf * LN2_LO;
+    let t = r * r;
+    let c = r - t * (P1 + t * (P2 + t * (P3 + t * (P4 + t * P5))));
+    let y = 1.0 - ((r * c) / (c - 2.0) - r);
+    // 2^k in two exact steps, so that k down to -1076 (subnormal and zero
+    // results) and up to 1025 (overflow to inf) need no branch.
+    let k1 = k >> 1;
+    let v = y * two_to(k1) * two_to(k - k1);
+    if x.is_nan() {
+        x
+    } else {
+        v
+    }
+}
+
+/// Natural logarithm; NaN for x < 0 or NaN, -inf at 0, inf at inf.
+#[inline(always)]
+pub fn ln(x: f64) -> f64 {
+    const SQRT2: f64 = std::f64::consts::SQRT_2;
+    // subnormals: scale into the normal range first
+    let sub = x < f64::MIN_POSITIVE;
+    let xs = if sub { x * 18_014_398_509_481_984.0 } else { x }; // 2^54
+    let bits = xs.to_bits();
+    let e = ((bits >> 52) & 0x7ff) as i64 - 1023 - if sub { 54 } else { 0 };
+    let m = f64::from_bits((bits & 0x000f_ffff_ffff_ffff) | 0x3ff0_0000_0000_0000); // [1, 2)
+    let big = m > SQRT2;
+    let m = if big { 0.5 * m } else { m }; // [sqrt(2)/2, sqrt(2)]
+    let dk = (e + big as i64) as f64;
+    let f = m - 1.0;
+    let s = f / (2.0 + f);
+    let z = s * s;
+    let w = z * z;
+    let t1 = w * (LG2 + w * (LG4 + w * LG6));
+    let t2 = z * (LG1 + w * (LG3 + w * (LG5 + w * LG7)));
+    let r = t2 + t1;
+    let hfsq = 0.5 * f * f;
+    let v = dk * LN2_HI - ((hfsq - (s * (hfsq + r) + dk * LN2_LO)) - f);
+    if x > 0.0 && x < f64::INFINITY {
+        v
+    } else if x == 0.0 {
+        f64::NEG_INFINITY
+    } else if x == f64::INFINITY {
+        x
+    } else {
+        f64::NAN
+    }
+}
+
+/// x^y for x >= 0, as `exp(y ln x)`: NaN for x < 0 (the kernels only raise
+/// positive quantities to real powers); exactly 1 for y = 0 or x = 1, and
+/// exactly x for y = 1 (an exponent of 1 is a common parameter value).
+#[inline(always)]
+pub fn pow(x: f64, y: f64) -> f64 {
+    let v = exp(y * ln(x));
+    if y == 0.0 || x == 1.0 {
+        1.0
+    } else if y == 1.0 {
+        x
+    } else {
+        v
+    }
+}
+
+/// Cube root, for any sign: `exp(ln|x|/3)` polished by one Newton step.
+#[inline(always)]
+pub fn cbrt(x: f64) -> f64 {
+    let a = x.abs();
+    let y = exp(ln(a) * (1.0 / 3.0));
+    // Newton on y^3 = a, with a/y^3 formed by successive divisions so that no
+    // intermediate leaves the normal range for subnormal or huge `a`
+    let r = a / y / y / y;
+    let y = y + y * (r - 1.0) * (1.0 / 3.0);
+    let v = if a > 0.0 && a < f64::INFINITY { y } else { a };
+    v.copysign(x)
+}
+
+/// Arc cosine [rad]; NaN outside [-1, 1].
+#[inline(always)]
+pub fn acos(x: f64) -> f64 {
+    let a = x.abs();
+    let small = a < 0.5;
+    // one rational evaluation: of z = x^2 (|x| < 0.5) or of z = (1 - |x|)/2
+    let z = if small { x * x } else { (1.0 - a) * 0.5 };
+    let p = z * (PS0 + z * (PS1 + z * (PS2 + z * (PS3 + z * (PS4 + z * PS5)))));
+    let q = 1.0 + z * (QS1 + z * (QS2 + z * (QS3 + z * QS4)));
+    let r = p / q;
+    // |x| < 0.5: pi/2 - asin(x)
+    let v_small = PIO2_HI - (x - (PIO2_LO - x * r));
+    // |x| >= 0.5: acos(|x|) = 2 asin(sqrt(z)), with sqrt(z) split for accuracy
+    let s = z.sqrt();
+    let df = f64::from_bits(s.to_bits() & 0xffff_ffff_0000_0000);
+    let c = if s > 0.0 { (z - df * df) / (s + df) } else { 0.0 }; // |x| = 1: s = 0
+    let v_pos = 2.0 * (df + (r * s + c));
+    let v_neg = std::f64::consts::PI - 2.0 * (s + (r * s - PIO2_LO));
+    let v = if small {
+        v_small
+    } else if x > 0.0 {
+        v_pos
+    } else {
+        v_neg
+    };
+    if a <= 1.0 {
+        v
+    } else {
+        f64::NAN
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Distance in units in the last place (same sign, finite).
+    fn ulps(a: f64, b: f64) -> u64 {
+        if a == b {
+            return 0;
+        }
+        (a.to_bits() as i64 - b.to_bits() as i64).unsigned_abs()
+    }
+
+    /// splitmix64 for reproducible samples
+    fn samples(n: usize, seed: u64) -> impl Iterator<Item = f64> {
+        let mut s = seed;
+        (0..n).map(move |_| {
+            s = s.wrapping_add(0x9E37_79B9_7F4A_7C15);
+            let mut z = s;
+            z = (z ^ (z >> 30)).wrapping_mul(0xBF58_476D_1CE4_E5B9);
+            z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
+            ((z ^ (z >> 31)) >> 11) as f64 / (1u64 << 53) as f64
+        })
+    }
+
+    // Reference: Rust's std (the platform libm, correctly rounded or within
+    // 1 ulp), on 10^6 random arguments per function plus the special values.
+
+    #[test]
+    fn exp_within_one_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 1) {
+            let x = -745.0 + 1454.0 * u;
+            let (a, b) = (exp(x), x.exp());
+            if b.is_finite() && b >= f64::MIN_POSITIVE {
+                worst = worst.max(ulps(a, b));
+            } else {
+                assert!((a - b).abs() <= 5e-324 * 2.0 || a == b, "exp({x}) = {a}, std {b}");
+            }
+        }
+        for u in samples(200_000, 2) {
+            let x = -2.0 + 4.0 * u;
+            worst = worst.max(ulps(exp(x), x.exp()));
+        }
+        assert!(worst <= 1, "exp worst {worst} ulp");
+        assert_eq!(exp(0.0), 1.0);
+        assert_eq!(exp(f64::NEG_INFINITY), 0.0);
+        assert_eq!(exp(f64::INFINITY), f64::INFINITY);
+        assert_eq!(exp(709.9), f64::INFINITY);
+        assert_eq!(exp(-800.0), 0.0);
+        assert!(exp(f64::NAN).is_nan());
+    }
+
+    #[test]
+    fn ln_within_one_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 3) {
+            // log-uniform over the whole positive range, subnormals included
+            let x = (2.0f64).powf(-1074.0 + 2097.0 * u);
+            if x > 0.0 && x.is_finite() {
+                worst = worst.max(ulps(ln(x), x.ln()));
+            }
+        }
+        for u in samples(200_000, 4) {
+            let x = 0.5 + 1.5 * u; // around 1, where ln is small
+            worst = worst.max(ulps(ln(x), x.ln()));
+        }
+        assert!(worst <= 1, "ln worst {worst} ulp");
+        assert_eq!(ln(1.0), 0.0);
+        assert_eq!(ln(0.0), f64::NEG_INFINITY);
+        assert_eq!(ln(-0.0), f64::NEG_INFINITY);
+        assert_eq!(ln(f64::INFINITY), f64::INFINITY);
+        assert!(ln(-1.0).is_nan() && ln(f64::NAN).is_nan() && ln(f64::NEG_INFINITY).is_nan());
+        assert_eq!(ln(5e-324), (5e-324f64).ln());
+    }
+
+    #[test]
+    fn pow_within_bound() {
+        // relative error bound (1 + |y ln x|) ulp, on the argument ranges of
+        // boiling correlations (bases 1e-9..1e9, exponents -5..5)
+        let mut worst: f64 = 0.0;
+        let mut us = samples(2_000_000, 5);
+        for _ in 0..1_000_000 {
+            let x = 10f64.powf(-9.0 + 18.0 * us.next().unwrap());
+            let y = -5.0 + 10.0 * us.next().unwrap();
+            let (a, b) = (pow(x, y), x.powf(y));
+            let rel = ((a - b) / b).abs() / f64::EPSILON / (1.0 + (y * x.ln()).abs());
+            worst = worst.max(rel);
+        }
+        assert!(worst <= 1.0, "pow worst {worst} x (1 + |y ln x|) eps");
+        assert_eq!(pow(2.0, 0.0), 1.0);
+        assert_eq!(pow(1.0, 1e300), 1.0);
+        assert_eq!(pow(0.0, 2.0), 0.0);
+        assert_eq!(pow(0.0, -2.0), f64::INFINITY);
+        assert_eq!(pow(f64::INFINITY, 0.5), f64::INFINITY);
+        assert!(pow(-2.0, 0.5).is_nan());
+        assert_eq!(pow(0.3, 1.0), 0.3);
+        assert!((pow(10.0, 2.0) / 100.0 - 1.0).abs() <= 4.0 * f64::EPSILON);
+    }
+
+    #[test]
+    fn cbrt_within_one_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 8) {
+            let x = (2.0f64).powf(-1074.0 + 2097.0 * u);
+            if x > 0.0 && x.is_finite() {
+                worst = worst.max(ulps(cbrt(x), x.cbrt())).max(ulps(cbrt(-x), (-x).cbrt()));
+            }
+        }
+        assert!(worst <= 1, "cbrt worst {worst} ulp");
+        assert_eq!(cbrt(27.0), 3.0);
+        assert_eq!(cbrt(-8.0), -2.0);
+        assert_eq!(cbrt(0.0).to_bits(), 0.0f64.to_bits());
+        assert_eq!(cbrt(-0.0).to_bits(), (-0.0f64).to_bits());
+        assert_eq!(cbrt(f64::INFINITY), f64::INFINITY);
+        assert!(cbrt(f64::NAN).is_nan());
+    }
+
+    #[test]
+    fn acos_within_one_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 6) {
+            let x = -1.0 + 2.0 * u;
+            worst = worst.max(ulps(acos(x), x.acos()));
+        }
+        for u in samples(100_000, 7) {
+            let x = 1.0 - 1e-6 * u; // near the ends
+            worst = worst.max(ulps(acos(x), x.acos())).max(ulps(acos(-x), (-x).acos()));
+        }
+        assert!(worst <= 1, "acos worst {worst} ulp");
+        assert_eq!(acos(1.0), 0.0);
+        assert_eq!(acos(-1.0), std::f64::consts::PI);
+        assert_eq!(acos(0.0), std::f64::consts::FRAC_PI_2);
+        assert!(acos(1.0 + f64::EPSILON).is_nan() && acos(f64::NAN).is_nan());
+    }
+}
