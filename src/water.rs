@@ -59,6 +59,7 @@
     clippy::needless_range_loop
 )]
 
+use crate::fastmath;
 use std::f64::consts::PI;
 use std::sync::OnceLock;
 
@@ -424,7 +425,7 @@ pub fn surface_tension(t: f64) -> f64 {
     if tau <= 0.0 {
         return 0.0;
     }
-    0.2358 * tau.powf(1.256) * (1.0 - 0.625 * tau)
+    0.2358 * fastmath::pow(tau, 1.256) * (1.0 - 0.625 * tau)
 }
 
 /// True where the accuracy of some saturation field degrades: T > 0.997 T_c (645.15 K).
@@ -1520,7 +1521,7 @@ fn corr_length(dbar: [f64; 2], tbar: f64, th: &[Thermo; 2]) -> [f64; 2] {
     for l in 0..2 {
         let dx = dbar[l] * (th[l].zeta - th[l].zeta_ref * 1.5 / tbar);
         if dx > 0.0 {
-            lx[l] = (dx / 0.06).ln();
+            lx[l] = fastmath::ln(dx / 0.06);
         }
     }
     // exp(-inf) = 0 gives xi = 0 for the lanes without enhancement
@@ -1685,7 +1686,7 @@ fn saturation_t_body(t: f64) -> [f64; 12] {
     }
     // SR1-86 densities: the starting point
     let tau_s = 1.0 - t / T_CRIT;
-    let c = tau_s.cbrt();
+    let c = fastmath::cbrt(tau_s);
     let rho0 = V2::new(rho_l_tau(tau_s, c), rho_v_tau(tau_s, c));
     let sigma = surface_tension(t);
     let tp = TauPart::new(T_CRIT / t);
