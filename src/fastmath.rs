@@ -153,7 +153,8 @@ pub fn acos(x: f64) -> f64 {
     // |x| >= 0.5: acos(|x|) = 2 asin(sqrt(z)), with sqrt(z) split for accuracy
     let s = z.sqrt();
     let df = f64::from_bits(s.to_bits() & 0xffff_ffff_0000_0000);
-    let c = if s > 0.0 { (z - df * df) / (s + df) } else { 0.0 }; // |x| = 1: s = 0
+    let c = (z - df * df) / (s + df);
+    let c = if s > 0.0 { c } else { 0.0 }; // |x| = 1: s = 0 and c = 0/0
     let v_pos = 2.0 * (df + (r * s + c));
     let v_neg = std::f64::consts::PI - 2.0 * (s + (r * s - PIO2_LO));
     let v = if small {

@@ -25,13 +25,8 @@ use crate::trig::cos_deg;
 /// 180 deg for `c <= -1`. NaN stays NaN.
 #[inline(always)]
 fn angle_from_cos(c: f64) -> f64 {
-    if c >= 1.0 {
-        0.0
-    } else if c <= -1.0 {
-        180.0
-    } else {
-        fastmath::acos(c).to_degrees()
-    }
+    // clamp keeps NaN; acos(1) = 0 and acos(-1) * 180/pi = 180 exactly (tests)
+    fastmath::acos(c.clamp(-1.0, 1.0)).to_degrees()
 }
 
 #[inline(always)]
@@ -758,6 +753,16 @@ impl Kernel<2, 1> for EffectiveHamaker {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn angle_from_cos_is_exact_at_the_ends() {
+        assert_eq!(angle_from_cos(1.0), 0.0);
+        assert_eq!(angle_from_cos(1.5), 0.0);
+        assert_eq!(angle_from_cos(-1.0), 180.0);
+        assert_eq!(angle_from_cos(-7.0), 180.0);
+        assert_eq!(angle_from_cos(0.0), 90.0);
+        assert!(angle_from_cos(f64::NAN).is_nan());
+    }
     use crate::model::{evaluate, Status, G_STANDARD};
     use approx::assert_relative_eq;
 
