@@ -53,15 +53,25 @@ fn two_to(k: i64) -> f64 {
     f64::from_bits(((k + 1023) as u64) << 52)
 }
 
+/// Round-to-nearest of `x` for |x| < 2^51, as `(the integer as f64, as i64)`.
+///
+/// Adding and subtracting 1.5 * 2^52 rounds in the FPU's round-to-nearest
+/// mode and leaves the integer in the low mantissa bits. Unlike `as i64`
+/// (a saturating conversion) or `f64::round` (a libm call on baseline
+/// x86-64) this is plain arithmetic, so loops over arrays vectorise.
+#[inline(always)]
+pub fn round_nearest(x: f64) -> (f64, i64) {
+    const MAGIC: f64 = 6_755_399_441_055_744.0; // 1.5 * 2^52
+    let m = x + MAGIC;
+    (m - MAGIC, m.to_bits() as i64 - MAGIC.to_bits() as i64)
+}
+
 /// e^x.
 #[inline(always)]
 pub fn exp(x: f64) -> f64 {
-    const MAGIC: f64 = 6_755_399_441_055_744.0; // 1.5 * 2^52: round to nearest
     // Beyond these the result is 0 or inf anyway; the clamp keeps k in range.
     let xc = x.clamp(-746.0, 710.0);
-    let m = xc * INV_LN2 + MAGIC;
-    let kf = m - MAGIC;
-    let k = m.to_bits() as i64 - MAGIC.to_bits() as i64;
+    let (kf, k) = round_nearest(xc * INV_LN2);
     let r = (xc - kf * LN2_HI) - kf * LN2_LO;
     let t = r * r;
     let c = r - t * (P1 + t * (P2 + t * (P3 + t * (P4 + t * P5))));

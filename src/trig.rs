@@ -12,6 +12,8 @@
 //! Kernels: K.C. Ng et al., fdlibm 5.3 (Sun Microsystems, 1993), `k_sin.c`
 //! and `k_cos.c` (coefficients of the minimax polynomials; public domain).
 
+use crate::fastmath::round_nearest;
+
 const S1: f64 = -1.666_666_666_666_663_243_48e-01;
 const S2: f64 = 8.333_333_333_322_489_461_24e-03;
 const S3: f64 = -1.984_126_982_985_794_931_34e-04;
@@ -47,19 +49,6 @@ fn kernel_cos(x: f64) -> f64 {
     w + (((1.0 - w) - hz) + z * r)
 }
 
-/// Round-to-nearest of `x` for |x| < 2^51, as `(integer as f64, low bits)`.
-///
-/// Adding and subtracting 1.5 * 2^52 rounds in the FPU's round-to-nearest
-/// mode and leaves the integer in the low mantissa bits. Unlike `as i64`
-/// (a saturating conversion) or `f64::round` (a libm call on baseline
-/// x86-64) this is plain arithmetic, so loops over arrays vectorise.
-#[inline(always)]
-fn round_magic(x: f64) -> (f64, i64) {
-    const MAGIC: f64 = 6_755_399_441_055_744.0; // 1.5 * 2^52
-    let m = x + MAGIC;
-    (m - MAGIC, m.to_bits() as i64)
-}
-
 /// Largest |angle| in degrees the reduction handles exactly; beyond it the
 /// functions return NaN (no physical angle comes near 10^15 degrees).
 pub const MAX_ANGLE_DEG: f64 = 1_125_899_906_842_624.0; // 2^50
@@ -73,9 +62,9 @@ pub const MAX_ANGLE_DEG: f64 = 1_125_899_906_842_624.0; // 2^50
 /// two and the result is no larger than |d|.
 #[inline(always)]
 fn reduce(deg: f64) -> (i64, f64) {
-    let (k, _) = round_magic(deg * (1.0 / 360.0));
+    let (k, _) = round_nearest(deg * (1.0 / 360.0));
     let d = deg - 360.0 * k;
-    let (q, qi) = round_magic(d * (1.0 / 90.0));
+    let (q, qi) = round_nearest(d * (1.0 / 90.0));
     let rem = d - 90.0 * q;
     (qi & 3, rem * DEG)
 }
