@@ -222,14 +222,25 @@ pub const KOCAMUSTAFAOGULLARI_ISHII_CONSTANT: f64 = 2.5e-5;
 /// (1983) 1377-1387 (DOI not verified here, so not given).
 #[inline(always)]
 pub fn kocamustafaogullari_ishii(contact_angle_deg: f64, sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
-    let ok = ki_possible(contact_angle_deg, sigma, rho_l, rho_v, g);
+    ki_angle_factor(contact_angle_deg) * ki_fluid_factor(sigma, rho_l, rho_v, g)
+}
+
+/// The angle factor `C θ` of [`kocamustafaogullari_ishii`]; NaN outside 0..180 deg.
+#[inline(always)]
+fn ki_angle_factor(contact_angle_deg: f64) -> f64 {
+    nan_unless(angle_deg(contact_angle_deg), KOCAMUSTAFAOGULLARI_ISHII_CONSTANT * contact_angle_deg)
+}
+
+/// The fluid factor `(Δρ/ρ_v)^0.9 [σ/(g Δρ)]^(1/2)` of [`kocamustafaogullari_ishii`] [m].
+#[inline(always)]
+fn ki_fluid_factor(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
     let drho = rho_l - rho_v;
-    nan_unless(ok, KOCAMUSTAFAOGULLARI_ISHII_CONSTANT * fastmath::pow(drho / rho_v, 0.9) * contact_angle_deg * (sigma / (g * drho)).sqrt())
+    nan_unless(ki_fluid_possible(sigma, rho_l, rho_v, g), fastmath::pow(drho / rho_v, 0.9) * (sigma / (g * drho)).sqrt())
 }
 
 #[inline(always)]
-fn ki_possible(contact_angle_deg: f64, sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    angle_deg(contact_angle_deg) & positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(g)
+fn ki_fluid_possible(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
+    positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(g)
 }
 
 /// Kernel of [`kocamustafaogullari_ishii`].
@@ -260,10 +271,27 @@ impl Kernel<5, 1> for KocamustafaogullariIshii {
         [kocamustafaogullari_ishii(x[0], x[1], x[2], x[3], x[4])]
     }
     fn possible(x: &[f64; 5]) -> bool {
-        ki_possible(x[0], x[1], x[2], x[3], x[4])
+        Self::side_possible(0, x) && Self::side_possible(1, x)
     }
     fn in_range(x: &[f64; 5]) -> bool {
-        x[0] <= 90.0
+        Self::side_in_range(0, x)
+    }
+}
+impl Factored<5, 1> for KocamustafaogullariIshii {
+    const SIDES: [u8; 5] = [0, 1, 1, 1, 1];
+    #[inline(always)]
+    fn factor(s: u8, x: &[f64; 5]) -> [f64; 1] {
+        [if s == 0 { ki_angle_factor(x[0]) } else { ki_fluid_factor(x[1], x[2], x[3], x[4]) }]
+    }
+    fn side_possible(s: u8, x: &[f64; 5]) -> bool {
+        if s == 0 {
+            angle_deg(x[0])
+        } else {
+            ki_fluid_possible(x[1], x[2], x[3], x[4])
+        }
+    }
+    fn side_in_range(s: u8, x: &[f64; 5]) -> bool {
+        s != 0 || x[0] <= 90.0
     }
 }
 

@@ -565,7 +565,9 @@ macro_rules! factored {
 
 factored! {
     nucleation::HsuOnset, 8, 2;
+    nucleation::KandlikarOnset, 8, 2;
     departure::Fritz, 5, 1;
+    departure::KocamustafaogullariIshii, 5, 1;
     chf::Kandlikar, 7, 1;
 }
 

@@ -785,13 +785,25 @@ pub fn kandlikar_onset(
     k_l: f64,
     receding_angle_deg: f64,
 ) -> [f64; 2] {
-    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l) & angle_deg(receding_angle_deg);
+    let a = kandlikar_onset_angle_factors(receding_angle_deg);
+    let b = kandlikar_onset_fluid_factors(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
+    [a[0] * b[0], a[1] * b[1]]
+}
+
+/// The angle factors `[1, sin θ_r]` of [`kandlikar_onset`] (the superheat does
+/// not depend on the angle); NaN outside 0..180 deg.
+#[inline(always)]
+fn kandlikar_onset_angle_factors(receding_angle_deg: f64) -> [f64; 2] {
+    nans_unless(angle_deg(receding_angle_deg), [1.0, sin_deg(receding_angle_deg)])
+}
+
+/// The fluid factors `[√(4.4 ζ q''/k_l), √(ζ k_l/(1.1 q''))]` of [`kandlikar_onset`].
+#[inline(always)]
+fn kandlikar_onset_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
+    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    nans_unless(
-        ok,
-        [(4.4 * zeta * heat_flux / k_l).sqrt(), sin_deg(receding_angle_deg) * (zeta * k_l / (1.1 * heat_flux)).sqrt()],
-    )
+    nans_unless(ok, [(4.4 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / (1.1 * heat_flux)).sqrt()])
 }
 
 /// Kernel of [`kandlikar_onset`].
@@ -823,7 +835,25 @@ impl Kernel<8, 2> for KandlikarOnset {
         kandlikar_onset(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])
     }
     fn possible(x: &[f64; 8]) -> bool {
-        onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6]) && angle_deg(x[7])
+        Self::side_possible(0, x) && Self::side_possible(1, x)
+    }
+}
+impl Factored<8, 2> for KandlikarOnset {
+    const SIDES: [u8; 8] = [1, 1, 1, 1, 1, 1, 1, 0];
+    #[inline(always)]
+    fn factor(s: u8, x: &[f64; 8]) -> [f64; 2] {
+        if s == 0 {
+            kandlikar_onset_angle_factors(x[7])
+        } else {
+            kandlikar_onset_fluid_factors(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
+        }
+    }
+    fn side_possible(s: u8, x: &[f64; 8]) -> bool {
+        if s == 0 {
+            angle_deg(x[7])
+        } else {
+            onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
+        }
     }
 }
 

@@ -425,7 +425,7 @@ pub fn surface_tension(t: f64) -> f64 {
     if tau <= 0.0 {
         return 0.0;
     }
-    0.2358 * fastmath::pow(tau, 1.256) * (1.0 - 0.625 * tau)
+    0.2358 * tau.powf(1.256) * (1.0 - 0.625 * tau)
 }
 
 /// True where the accuracy of some saturation field degrades: T > 0.997 T_c (645.15 K).
