@@ -287,6 +287,18 @@ def outputs(result: Any) -> List[Any]:
     return list(result) if isinstance(result, tuple) else [result]
 
 
+def output_names(spec: Any) -> List[str]:
+    """Names of the outputs a kernel-backed function returns: all of the
+    kernel's, or the one it selects (``kernel(..., output=k)``)."""
+    names = [o.name for o in spec.model.outputs]
+    return names if spec.output is None else [names[spec.output]]
+
+
+def select(spec: Any, kernel_outputs: List[Any]) -> List[Any]:
+    """The kernel's outputs (from the raw ufunc) that the function returns."""
+    return kernel_outputs if spec.output is None else [kernel_outputs[spec.output]]
+
+
 def to_scalar_args(args: Dict[str, Any], i: int) -> Dict[str, Any]:
     """Element i of array arguments (fluids included)."""
     out = {}

@@ -250,11 +250,12 @@ def _factor_axes(arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int
     return not (used[0] & used[1])
 
 
-def _factorised(name: str, arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int, ...]) -> Tuple[Any, int, int]:
+def _factorised(name: str, arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int, ...],
+                output: Optional[int] = None) -> Tuple[Any, int, int]:
     """The factorised grid path: each side's factors once per point of its own
-    axes, then one parallel multiplication per grid point. Bit-identical to
-    the element path (the kernels compute exactly this product; Rust tests
-    check it)."""
+    axes, then one parallel multiplication per grid point (for output `output`
+    only, when given). Bit-identical to the element path (the kernels compute
+    exactly this product; Rust tests check it)."""
     n_out = len(MODELS[name].outputs)
     factors, hist = [], []
     for s in (0, 1):
@@ -275,20 +276,23 @@ def _factorised(name: str, arrays: Sequence[Any], sides: Tuple[int, ...], shape:
     invalid = a_real * b_real - a_pos * b_pos
     out_of_range = a_pos * b_pos - a_ok * b_ok
     results = []
-    for fa, fb in zip(*factors):
+    for k, (fa, fb) in enumerate(zip(*factors)):
+        if output is not None and k != output:
+            continue
         out = np.empty(shape)
         _core.product_call(np.broadcast_to(fa, shape), np.broadcast_to(fb, shape), out)
         results.append(out)
-    return (results[0] if n_out == 1 else tuple(results)), invalid, out_of_range
+    return (results[0] if len(results) == 1 else tuple(results)), invalid, out_of_range
 
 
-def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
+def evaluate_arrays(name: str, function: str, *arrays: Any, output: Optional[int] = None) -> Any:
     """Evaluate kernel `name` on NumPy-compatible arrays and apply the element
     policy. Whole contiguous float64 arrays (and arrays against scalars) go
     through the ufunc, which threads them itself; large broadcast grids go
     through the factorised grid path when the kernel is in product form and
     the grid is an outer product of its two sides, else through the parallel
-    grid path, as do other layouts. Module-level and picklable (used by dask)."""
+    grid path, as do other layouts. `output=k` returns output k only.
+    Module-level and picklable (used by dask)."""
     cap = _CAPTURE.get()
     if cap is not None:
         with np.errstate(all="ignore"):  # range checks of extreme inputs raise FP flags: not the user's concern
@@ -297,7 +301,8 @@ def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
     sides = SIDES.get(name)
     outs: Any
     if shape is not None and sides is not None and _factor_axes(arrays, sides, shape):
-        outs, invalid, out_of_range = _factorised(name, arrays, sides, shape)
+        outs, invalid, out_of_range = _factorised(name, arrays, sides, shape, output)
+        output = None  # already selected
     elif shape is not None:
         n_out = len(MODELS[name].outputs)
         ins = [np.broadcast_to(np.asarray(a, dtype=np.float64), shape) for a in arrays]
@@ -313,7 +318,7 @@ def evaluate_arrays(name: str, function: str, *arrays: Any) -> Any:
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
         report(function, size, invalid, out_of_range)
-    return outs
+    return outs if output is None else outs[output]
 
 
 def _scalarise(x: Any) -> Any:
@@ -331,6 +336,7 @@ class _Spec(NamedTuple):
     labels: Tuple[str, ...]  # per kernel input: how to name it in messages
     params: Tuple[str, ...]
     result_type: Optional[Callable[..., Any]]
+    output: Optional[int] = None  # the one output returned, for `kernel(..., output=k)`
 
 
 def _gather(spec: _Spec, args: Sequence[Any]) -> list:
@@ -399,6 +405,9 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
 def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
     """The array path: gather the kernel inputs, check them, dispatch."""
     inputs = _gather(spec, args)
+    if spec.output is not None:
+        func = functools.partial(evaluate_arrays, spec.model.name, spec.function, output=spec.output)
+        return _dispatch(spec, inputs, func, [np.float64], [spec.model.outputs[spec.output].name])
     n_out = len(spec.model.outputs)
     func = functools.partial(evaluate_arrays, spec.model.name, spec.function)
     outs = _dispatch(spec, inputs, func, [np.float64] * n_out, [o.name for o in spec.model.outputs])
@@ -454,14 +463,17 @@ def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
 F = TypeVar("F", bound=Callable[..., Any])
 
 
-def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callable[[F], F]:
+def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Optional[int] = None) -> Callable[[F], F]:
     """Make a public function from kernel `name` and a template.
 
     The template supplies the public signature and docstring; its body is
     never run. Every kernel input must be a template argument (``"radius"``)
     or a field of one (``"fluid.sigma"``), and every template argument must
     feed the kernel, so the two cannot drift apart: a mismatch fails at import.
-    `result` is the named tuple type of a multi-output kernel.
+    `result` is the named tuple type of a multi-output kernel; `output=k`
+    instead makes a function that returns output k only (and computes only
+    that one where the evaluation path allows, as the factorised grid path
+    does).
 
     The result is a builtin function (no Python frame on the scalar path) with
     the template's signature, docstring and module; it pickles by name. Calls
@@ -489,14 +501,16 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callabl
         unused = set(params) - used
         if unused:
             raise RuntimeError(f"{function}: template arguments {sorted(unused)} feed no kernel input")
-        if len(model.outputs) > 1 and result is None:
-            raise RuntimeError(f"{function}: a multi-output kernel needs a result type")
+        if len(model.outputs) > 1 and result is None and output is None:
+            raise RuntimeError(f"{function}: a multi-output kernel needs a result type or an output index")
+        if output is not None and not 0 <= output < len(model.outputs):
+            raise RuntimeError(f"{function}: kernel {name} has no output {output}")
         if len(params) > _core.MAX_ARGS:
             raise RuntimeError(f"{function}: at most {_core.MAX_ARGS} parameters")
         for p in sig.parameters.values():
             if p.kind not in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY):
                 raise RuntimeError(f"{function}: only plain or keyword-only parameters are supported")
-        spec = _Spec(model, function, tuple(plan), tuple(labels), params, result)
+        spec = _Spec(model, function, tuple(plan), tuple(labels), params, None if output is not None else result, output)
 
         # The fallback: a Python function with exactly the template's
         # parameters (so binding errors read like any Python function's),
@@ -518,7 +532,8 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None) -> Callabl
         fallback.__qualname__ = template.__qualname__
 
         f = _builtin(template, sig, fallback,
-                     [(None, name, [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan], -1, result)], -1)
+                     [(None, name, [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan],
+                       -1 if output is None else output, spec.result_type)], -1)
         _FUNCTIONS[f] = spec
         return f  # type: ignore[return-value]
 
@@ -579,6 +594,10 @@ def dispatch(selector: str, table: Mapping[Any, Tuple[Callable[..., Any], Option
                 if pname not in params:
                     raise RuntimeError(f"{function.__name__}: kernel argument {pname!r} is not a parameter")
                 plan.append((params.index(pname), FIELDS.index(field) if field else -1))
+            if spec.output is not None:  # the kernel function already returns one output
+                if output not in (None, 0):
+                    raise RuntimeError(f"{function.__name__}: {kernel_fn.__name__} returns one output only")
+                output = spec.output
             choices.append((key, spec.model.name, plan, -1 if output is None else int(output), spec.result_type))
         f = _builtin(function, sig, function, choices, params.index(selector))
         return f  # type: ignore[no-any-return]

@@ -28,7 +28,7 @@ faithful copy), **[V2]** seen only in a secondary source, **[M]** from memory
 from __future__ import annotations
 
 import math
-from typing import Any, Callable, Dict, NamedTuple, Tuple
+from typing import Any, Callable, Dict, NamedTuple, Optional, Tuple
 
 import numpy as np
 
@@ -70,11 +70,12 @@ def _is_water(name: Any) -> bool:
 
 
 
-def _named(name: str, template: Callable[..., Any], kernel_name: str, result: Any = None) -> Any:
+def _named(name: str, template: Callable[..., Any], kernel_name: str, result: Any = None,
+           output: Optional[int] = None) -> Any:
     """Build a kernel-backed helper whose warnings and errors name the public
-    function `name` the user called."""
+    function `name` the user called (returning only output `output` if given)."""
     template.__name__ = name
-    return kernel(kernel_name, result=result)(template)
+    return kernel(kernel_name, result=result, output=output)(template)
 
 
 # =============================================================================
@@ -681,12 +682,7 @@ def hsu_active_radii(  # type: ignore[empty-body]  # a template: the front door 
 # Onset of nucleate boiling
 
 
-class _Onset(NamedTuple):
-    superheat: Any
-    cavity_radius: Any
-
-
-def _onset_kernels(public: str) -> Dict[str, Any]:
+def _onset_kernels(public: str, output: int) -> Dict[str, Any]:
     def hsu(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any) -> Any:
         """Hsu tangency onset."""
 
@@ -702,15 +698,15 @@ def _onset_kernels(public: str) -> Dict[str, Any]:
     for t in (hsu, davis_anderson, kandlikar, bergles_rohsenow):
         t.__qualname__ = public
     return {
-        "hsu": _named(public, hsu, "hsu_onset", _Onset),
-        "davis_anderson": _named(public, davis_anderson, "davis_anderson_onset", _Onset),
-        "kandlikar": _named(public, kandlikar, "kandlikar_onset", _Onset),
+        "hsu": _named(public, hsu, "hsu_onset", output=output),
+        "davis_anderson": _named(public, davis_anderson, "davis_anderson_onset", output=output),
+        "kandlikar": _named(public, kandlikar, "kandlikar_onset", output=output),
         "bergles_rohsenow": _named(public, bergles_rohsenow, "bergles_rohsenow_onset"),
     }
 
 
-_ONSET = _onset_kernels("onset_superheat")
-_ONSET_RADIUS = _onset_kernels("onset_cavity_radius")
+_ONSET = _onset_kernels("onset_superheat", 0)
+_ONSET_RADIUS = _onset_kernels("onset_cavity_radius", 1)
 
 #: Methods of `onset_superheat`.
 ONSET_METHODS: Tuple[str, ...] = ("hsu", "davis_anderson", "kandlikar", "bergles_rohsenow")
@@ -724,7 +720,7 @@ def _onset_call(table: Dict[str, Any], method: str, heat_flux: Any, fluid: Satur
     return table[method](heat_flux, fluid)
 
 
-@dispatch("method", {m: (_ONSET[m], 0) for m in ("hsu", "davis_anderson", "kandlikar")})
+@dispatch("method", {m: (_ONSET[m], None) for m in ("hsu", "davis_anderson", "kandlikar")})
 def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 90.0, method: str = "hsu") -> Any:
     r"""Wall superheat at the onset of nucleate boiling [K].
 
@@ -827,11 +823,10 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     fluid = need_saturation(function, fluid)
     if method == "bergles_rohsenow" and fluid.name is not None and not _is_water(fluid.name):
         raise WetboilValueError(f"{function}: method 'bergles_rohsenow' is a correlation for water, got fluid {fluid.name!r}")
-    out = _onset_call(_ONSET, method, heat_flux, fluid, contact_angle_deg)
-    return out if method == "bergles_rohsenow" else out.superheat
+    return _onset_call(_ONSET, method, heat_flux, fluid, contact_angle_deg)
 
 
-@dispatch("method", {m: (_ONSET_RADIUS[m], 1) for m in ("hsu", "davis_anderson", "kandlikar")})
+@dispatch("method", {m: (_ONSET_RADIUS[m], None) for m in ("hsu", "davis_anderson", "kandlikar")})
 def onset_cavity_radius(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 90.0, method: str = "hsu") -> Any:
     r"""Mouth radius of the first cavity to nucleate at the onset of nucleate
     boiling [m] (the tangency point of `onset_superheat`).
@@ -898,7 +893,7 @@ def onset_cavity_radius(heat_flux: Any, fluid: Saturation, contact_angle_deg: An
     function = "nucleation.onset_cavity_radius"
     method = check_choice(function, "method", method, ONSET_RADIUS_METHODS)
     fluid = need_saturation(function, fluid)
-    return _onset_call(_ONSET_RADIUS, method, heat_flux, fluid, contact_angle_deg).cavity_radius
+    return _onset_call(_ONSET_RADIUS, method, heat_flux, fluid, contact_angle_deg)
 
 
 # =============================================================================
