@@ -50,7 +50,7 @@ const QS4: f64 = 7.703_815_055_590_193_527_91e-02;
 /// `2^k` for integer `k` in [-1022, 1023], from its bits.
 #[inline(always)]
 fn two_to(k: i64) -> f64 {
-    f64::from_bits(((k + 1023) as u64) << 52)
+    f64::from_bits((k.wrapping_add(1023) as u64) << 52)
 }
 
 /// Round-to-nearest of `x` for |x| < 2^51, as `(the integer as f64, as i64)`.
@@ -63,7 +63,9 @@ fn two_to(k: i64) -> f64 {
 pub fn round_nearest(x: f64) -> (f64, i64) {
     const MAGIC: f64 = 6_755_399_441_055_744.0; // 1.5 * 2^52
     let m = x + MAGIC;
-    (m - MAGIC, m.to_bits() as i64 - MAGIC.to_bits() as i64)
+    // wrapping: outside |x| < 2^51 (and for NaN, inf) the integer is garbage
+    // that callers mask or select away, and must not trip overflow checks
+    (m - MAGIC, (m.to_bits() as i64).wrapping_sub(MAGIC.to_bits() as i64))
 }
 
 /// e^x.
