@@ -645,10 +645,19 @@ fn hsu_angle_factors(contact_angle_deg: f64) -> [f64; 2] {
 /// The fluid factors `[√(2ζ q''/k_l), √(2ζ k_l/q'')]` of [`hsu_onset`]; NaN for impossible input.
 #[inline(always)]
 fn hsu_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
+    tangency(2.0, 2.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
+}
+
+/// The fluid part shared by the tangency onset models (Hsu, Davis-Anderson,
+/// Kandlikar): `[√(c_t ζ q''/k_l), √(c_r ζ k_l/q'')]` with ζ = 2σT_sat v_lv/h_lv,
+/// NaN for impossible input. q'' = 0 gives (0, ∞).
+#[allow(clippy::too_many_arguments)]
+#[inline(always)]
+fn tangency(c_t: f64, c_r: f64, heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
     let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
     let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    nans_unless(ok, [(2.0 * zeta * heat_flux / k_l).sqrt(), (2.0 * zeta * k_l / heat_flux).sqrt()])
+    nans_unless(ok, [(c_t * zeta * heat_flux / k_l).sqrt(), (c_r * zeta * k_l / heat_flux).sqrt()])
 }
 
 const ONSET_FLUID: [Arg; 6] = [
@@ -723,10 +732,7 @@ impl Factored<8, 2> for HsuOnset {
 /// Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398 (same criterion).
 #[inline(always)]
 pub fn davis_anderson(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
-    let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
-    let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    nans_unless(ok, [(4.0 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / heat_flux).sqrt()])
+    tangency(4.0, 1.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
 }
 
 /// Kernel of [`davis_anderson`].
@@ -800,10 +806,7 @@ fn kandlikar_onset_angle_factors(receding_angle_deg: f64) -> [f64; 2] {
 /// The fluid factors `[√(4.4 ζ q''/k_l), √(ζ k_l/(1.1 q''))]` of [`kandlikar_onset`].
 #[inline(always)]
 fn kandlikar_onset_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
-    let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
-    let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
-    nans_unless(ok, [(4.4 * zeta * heat_flux / k_l).sqrt(), (zeta * k_l / (1.1 * heat_flux)).sqrt()])
+    tangency(4.4, 1.0 / 1.1, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
 }
 
 /// Kernel of [`kandlikar_onset`].
