@@ -10,7 +10,7 @@
 //! Contact angles are in degrees, measured through the liquid.
 
 use crate::fastmath;
-use crate::model::{angle_deg, arg, densities, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, finite, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
@@ -928,7 +928,7 @@ pub const NEAR_ATMOSPHERIC: (f64, f64) = (0.09e6, 0.12e6);
 
 #[inline(always)]
 fn site_possible(dt: f64, angle: f64) -> bool {
-    dt.is_finite() & angle_deg(angle)
+    finite(dt) & angle_deg(angle)
 }
 
 /// Wang & Dhir (1993) active site density [sites/m²]:

@@ -15,7 +15,7 @@
 //! **[M]** from memory, not seen in any source during this work.
 
 use crate::fastmath;
-use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, densities, finite, nan_unless, non_negative, positive, Kernel, Model};
 use crate::trig::cos_deg;
 
 // ---------------------------------------------------------------------------
@@ -27,11 +27,6 @@ use crate::trig::cos_deg;
 fn angle_from_cos(c: f64) -> f64 {
     // clamp keeps NaN; acos(1) = 0 and acos(-1) * 180/pi = 180 exactly (tests)
     fastmath::acos(c.clamp(-1.0, 1.0)).to_degrees()
-}
-
-#[inline(always)]
-fn finite(x: f64) -> bool {
-    x.is_finite()
 }
 
 /// Three tensions of Young's equation: σ_sv ≥ 0, σ_sl ≥ 0, σ_lv > 0, finite.
