@@ -177,16 +177,23 @@ impl<const N: usize, const M: usize> Operands<N, M> {
     #[inline(always)]
     unsafe fn run<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
         #[cfg(target_arch = "x86_64")]
-        if std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma") {
-            // SAFETY: the CPU has the features the clone was compiled for.
-            return unsafe { self.run_avx2::<K>(start, end) };
+        {
+            use std::arch::is_x86_feature_detected as has;
+            if has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
+                // SAFETY: the CPU has the features the clone was compiled for.
+                return unsafe { self.run_avx512::<K>(start, end) };
+            }
+            if has!("avx2") && has!("fma") {
+                // SAFETY: as above.
+                return unsafe { self.run_avx2::<K>(start, end) };
+            }
         }
         unsafe { self.run_blocks::<K>(start, end) }
     }
 
     /// [`Self::run_blocks`] compiled for AVX2 and FMA, chosen at run time so
     /// that the wheel still runs on any x86-64. Rust never contracts `a*b + c`
-    /// into an FMA by itself, so both clones give bit-identical results.
+    /// into an FMA by itself, so every clone gives bit-identical results.
     ///
     /// # Safety
     /// As for [`Self::run`], and the CPU must support AVX2 and FMA.
@@ -196,8 +203,21 @@ impl<const N: usize, const M: usize> Operands<N, M> {
         unsafe { self.run_blocks::<K>(start, end) }
     }
 
-    /// The loop itself, in blocks of [`BLOCK`] elements: gather the inputs of
-    /// a block into local arrays, evaluate the kernel over the whole block
+    /// [`Self::run_blocks`] compiled for AVX-512 (8 lanes): twice the work
+    /// per instruction for kernels whose polynomial chains (trig, exp, log)
+    /// are latency-bound; bit-identical to the other clones.
+    ///
+    /// # Safety
+    /// As for [`Self::run`], and the CPU must support AVX-512 F, DQ and VL.
+    #[cfg(target_arch = "x86_64")]
+    #[target_feature(enable = "avx512f,avx512dq,avx512vl,avx2,fma")]
+    unsafe fn run_avx512<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
+        unsafe { self.run_blocks::<K>(start, end) }
+    }
+
+    /// The loop itself, in blocks of [`BLOCK`] elements: read the inputs of
+    /// a block (contiguous ones in place, others gathered into local arrays),
+    /// evaluate the kernel over the whole block
     /// (a loop without branches or strides, which the compiler vectorises
     /// when the kernel allows it), then settle each element (validity and
     /// counts, exactly as [`evaluate`]) and scatter the outputs.
@@ -212,20 +232,18 @@ impl<const N: usize, const M: usize> Operands<N, M> {
         let mut i = start;
         while i < end {
             let len = ((end - i) as usize).min(BLOCK);
+            // Where each input of the block is read from: a contiguous input
+            // of a full block in place (its loads then interleave with the
+            // arithmetic, as in a plain loop, which keeps the memory system
+            // busy); anything else is first copied into its column of `xb`.
+            let mut src = [std::ptr::null::<f64>(); N];
             for k in 0..N {
                 let base = unsafe { self.ins[k].offset(i * self.in_steps[k]) };
-                if self.in_steps[k] == 8 {
-                    // SAFETY: `len` contiguous elements of the input view; a
-                    // byte copy needs no alignment.
-                    // A full block copies a constant size, which compiles to
-                    // vector moves instead of a call to memcpy.
-                    let dst = xb[k].as_mut_ptr() as *mut u8;
-                    if len == BLOCK {
-                        unsafe { std::ptr::copy_nonoverlapping(base, dst, 8 * BLOCK) };
-                    } else {
-                        unsafe { std::ptr::copy_nonoverlapping(base, dst, 8 * len) };
-                    }
-                } else if self.in_steps[k] == 0 {
+                if self.in_steps[k] == 8 && len == BLOCK {
+                    src[k] = base as *const f64;
+                    continue;
+                }
+                if self.in_steps[k] == 0 {
                     // A broadcast operand (a grid axis, a scalar): one read.
                     xb[k].fill(unsafe { (base as *const f64).read_unaligned() });
                 } else {
@@ -235,22 +253,23 @@ impl<const N: usize, const M: usize> Operands<N, M> {
                         // unaligned view.
                         *v = unsafe { (base.offset(j as isize * self.in_steps[k]) as *const f64).read_unaligned() };
                     }
+                    // The whole block is evaluated, tail included, so that the
+                    // loop has a constant trip count. The tail repeats the
+                    // block's first element: stale or zero inputs could raise
+                    // floating-point flags (which NumPy reports as warnings)
+                    // that the caller's data never raised. Kernels are pure
+                    // and cannot trap.
+                    let first = xb[k][0];
+                    xb[k][len..].fill(first);
                 }
+                src[k] = xb[k].as_ptr();
             }
-            // The whole block is evaluated, tail included, so that the loop
-            // has a constant trip count. The tail repeats the block's first
-            // element: stale or zero inputs could raise floating-point flags
-            // (which NumPy reports as warnings) that the caller's data never
-            // raised. Kernels are pure and cannot trap.
-            if len < BLOCK {
-                for col in xb.iter_mut() {
-                    let first = col[0];
-                    col[len..].fill(first);
-                }
-            }
+            // SAFETY (all reads through `src`): each column holds BLOCK
+            // readable elements, in place (a full block inside the input
+            // view) or in `xb`.
+            let at = |j: usize| -> [f64; N] { std::array::from_fn(|k| unsafe { src[k].add(j).read_unaligned() }) };
             for j in 0..BLOCK {
-                let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
-                let y = K::eval(&x);
+                let y = K::eval(&at(j));
                 for k in 0..M {
                     yb[k][j] = y[k];
                 }
@@ -262,12 +281,11 @@ impl<const N: usize, const M: usize> Operands<N, M> {
             if !any_nan {
                 let mut out_of_range = 0u64;
                 for j in 0..len {
-                    let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
-                    out_of_range += !K::in_range(&x) as u64;
+                    out_of_range += !K::in_range(&at(j)) as u64;
                 }
                 counts[1] += out_of_range;
             } else {
-                counts = settle_block::<K, N, M>(&xb, &mut yb, len, counts);
+                counts = settle_block::<K, N, M>(at, &mut yb, len, counts);
             }
             for k in 0..M {
                 let base = unsafe { self.outs[k].offset(i * self.out_steps[k]) };
@@ -299,14 +317,13 @@ const BLOCK: usize = 64;
 /// the input was missing, impossible or out of range).
 #[inline(always)]
 fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize>(
-    xb: &[[f64; BLOCK]; N],
+    at: impl Fn(usize) -> [f64; N],
     yb: &mut [[f64; BLOCK]; M],
     len: usize,
     mut counts: [u64; 2],
 ) -> [u64; 2] {
     for j in 0..len {
-        let x: [f64; N] = std::array::from_fn(|k| xb[k][j]);
-        let (y, status) = settle::<K, N, M>(&x, std::array::from_fn(|k| yb[k][j]));
+        let (y, status) = settle::<K, N, M>(&at(j), std::array::from_fn(|k| yb[k][j]));
         for k in 0..M {
             yb[k][j] = y[k];
         }
