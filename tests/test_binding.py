@@ -152,6 +152,34 @@ def test_large_arrays_use_threads_and_match_serial():
     np.testing.assert_allclose(parallel, expect, rtol=1e-13)
 
 
+def test_outputs_larger_than_the_caches_take_streaming_stores_with_the_same_bits():
+    # Outputs of 2**22 elements or more are written with non-temporal stores
+    # (full, 16-byte aligned blocks; the tail and misaligned outputs by plain
+    # copies). Same numbers as small calls, aligned or not, in place or not.
+    rng = np.random.default_rng(5)
+    n = (1 << 22) + 37
+    x = rng.uniform(0, 120, n)
+    x[::1000] = np.nan
+    sig = rng.uniform(0.05, 0.07, n)
+    uf = wetboil.ufunc_of(fritz)
+    with np.errstate(invalid="ignore"):
+        big = uf(x, sig, WATER.rho_l, WATER.rho_v, G)
+        pieces = np.concatenate([uf(x[i:i + 100_000], sig[i:i + 100_000], WATER.rho_l, WATER.rho_v, G)
+                                 for i in range(0, n, 100_000)])
+        raw = np.empty(n + 1)
+        misaligned = raw[1:]  # 8 bytes past a 16-byte boundary: the plain-copy path
+        assert misaligned.ctypes.data % 16 == 8
+        uf(x, sig, WATER.rho_l, WATER.rho_v, G, out=misaligned)
+        inplace = x.copy()
+        uf(inplace, sig, WATER.rho_l, WATER.rho_v, G, out=inplace)
+    np.testing.assert_array_equal(big, pieces)
+    np.testing.assert_array_equal(misaligned, pieces)
+    np.testing.assert_array_equal(inplace, pieces)
+    ok = np.isfinite(x) & (x <= 90)
+    np.testing.assert_allclose(big[ok], 0.0208 * x[ok] * np.sqrt(sig[ok] / (G * (WATER.rho_l - WATER.rho_v))),
+                               rtol=1e-15)
+
+
 def test_set_num_threads_rejects_nonsense():
     for bad in (0, -1, 1.5, "2", True):
         with pytest.raises(wetboil.WetboilValueError):
