@@ -76,7 +76,11 @@ pub fn exp(x: f64) -> f64 {
     let (kf, k) = round_nearest(xc * INV_LN2);
     let r = (xc - kf * LN2_HI) - kf * LN2_LO;
     let t = r * r;
-    let c = r - t * (P1 + t * (P2 + t * (P3 + t * (P4 + t * P5))));
+    // Estrin's scheme: the same polynomial as fdlibm's Horner form with a
+    // dependency chain of 4 operations instead of 10 (latency is what limits
+    // both a scalar call and the vectorised block loops).
+    let t2 = t * t;
+    let c = r - t * ((P1 + t * P2) + t2 * ((P3 + t * P4) + t2 * P5));
     let y = 1.0 - ((r * c) / (c - 2.0) - r);
     // 2^k in two exact steps, so that k down to -1076 (subnormal and zero
     // results) and up to 1025 (overflow to inf) need no branch.
@@ -157,8 +161,11 @@ pub fn acos(x: f64) -> f64 {
     let small = a < 0.5;
     // one rational evaluation: of z = x^2 (|x| < 0.5) or of z = (1 - |x|)/2
     let z = if small { x * x } else { (1.0 - a) * 0.5 };
-    let p = z * (PS0 + z * (PS1 + z * (PS2 + z * (PS3 + z * (PS4 + z * PS5)))));
-    let q = 1.0 + z * (QS1 + z * (QS2 + z * (QS3 + z * QS4)));
+    // Estrin's scheme for both polynomials (see `exp`)
+    let z2 = z * z;
+    let z4 = z2 * z2;
+    let p = z * ((PS0 + z * PS1) + z2 * (PS2 + z * PS3) + z4 * (PS4 + z * PS5));
+    let q = (1.0 + z * QS1) + z2 * (QS2 + z * QS3) + z4 * QS4;
     let r = p / q;
     // |x| < 0.5: pi/2 - asin(x)
     let v_small = PIO2_HI - (x - (PIO2_LO - x * r));
