@@ -177,9 +177,16 @@ fn two_sum(a: f64, b: f64) -> Dd {
         lo: (a - (s - bb)) + (b - bb),
     }
 }
-/// Dekker's exact product (no FMA needed).
+/// The exact product `a b = hi + lo`: one fused multiply-add when the caller
+/// is compiled for FMA (`FMA = true`), else Dekker's splitting. Both give the
+/// same two doubles (the rounding error of a product is unique and exactly
+/// representable), so the clones of `saturation_t` stay bit-identical.
 #[inline(always)]
-fn two_prod(a: f64, b: f64) -> Dd {
+fn two_prod<const FMA: bool>(a: f64, b: f64) -> Dd {
+    if FMA {
+        let p = a * b;
+        return Dd { hi: p, lo: a.mul_add(b, -p) };
+    }
     #[inline(always)]
     fn split(a: f64) -> (f64, f64) {
         let c = 134217729.0 * a; // 2^27 + 1
@@ -200,23 +207,23 @@ fn dd_add(a: Dd, b: Dd) -> Dd {
     fast_two_sum(s.hi, s.lo + a.lo + b.lo)
 }
 #[inline(always)]
-fn dd_mul(a: Dd, b: Dd) -> Dd {
-    let p = two_prod(a.hi, b.hi);
+fn dd_mul<const FMA: bool>(a: Dd, b: Dd) -> Dd {
+    let p = two_prod::<FMA>(a.hi, b.hi);
     fast_two_sum(p.hi, p.lo + (a.hi * b.lo + a.lo * b.hi))
 }
 #[inline(always)]
-fn dd_mul_d(a: Dd, b: f64) -> Dd {
-    let p = two_prod(a.hi, b);
+fn dd_mul_d<const FMA: bool>(a: Dd, b: f64) -> Dd {
+    let p = two_prod::<FMA>(a.hi, b);
     fast_two_sum(p.hi, p.lo + a.lo * b)
 }
 #[inline(always)]
-fn dd_sqrt(a: Dd) -> Dd {
+fn dd_sqrt<const FMA: bool>(a: Dd) -> Dd {
     if !(a.hi > 0.0) {
         return Dd { hi: 0.0, lo: 0.0 };
     }
     let s = a.hi.sqrt();
     let r = dd_add(a, {
-        let p = two_prod(s, s);
+        let p = two_prod::<FMA>(s, s);
         Dd {
             hi: -p.hi,
             lo: -p.lo,
@@ -231,27 +238,27 @@ fn dd_sqrt(a: Dd) -> Dd {
 /// and one-to-one on the doubles in [T_TRIPLE, T_CRIT], which is what makes t_sat(p_sat(T)) == T exact.
 /// (Plain double evaluation of ln(p/p_c) ~ -10 loses ~5 ulp of p and maps neighbouring T to equal p.)
 #[inline(always)]
-fn psat_dd(t: f64) -> f64 {
+fn psat_dd<const FMA: bool>(t: f64) -> f64 {
     // tau = (T_c - T)/T_c and 1/theta = T_c/T, each rounded to double-double (independent chains)
     let d = two_sum(T_CRIT, -t);
     let qt = d.hi / T_CRIT;
-    let pt = two_prod(qt, T_CRIT);
+    let pt = two_prod::<FMA>(qt, T_CRIT);
     let tau = fast_two_sum(qt, (((d.hi - pt.hi) - pt.lo) + d.lo) / T_CRIT);
     let qi = T_CRIT / t;
-    let pi = two_prod(qi, t);
+    let pi = two_prod::<FMA>(qi, t);
     let inv_theta = fast_two_sum(qi, ((T_CRIT - pi.hi) - pi.lo) / t);
-    let sq = dd_sqrt(tau);
-    let t2 = dd_mul(tau, tau);
-    let t3 = dd_mul(t2, tau);
-    let t4 = dd_mul(t2, t2);
-    let t15 = dd_mul(tau, sq);
-    let t35 = dd_mul(t3, sq);
-    let t75 = dd_mul(t4, t35);
-    let s01 = dd_add(dd_mul_d(tau, SAT_A[0]), dd_mul_d(t15, SAT_A[1]));
-    let s23 = dd_add(dd_mul_d(t3, SAT_A[2]), dd_mul_d(t35, SAT_A[3]));
-    let s45 = dd_add(dd_mul_d(t4, SAT_A[4]), dd_mul_d(t75, SAT_A[5]));
+    let sq = dd_sqrt::<FMA>(tau);
+    let t2 = dd_mul::<FMA>(tau, tau);
+    let t3 = dd_mul::<FMA>(t2, tau);
+    let t4 = dd_mul::<FMA>(t2, t2);
+    let t15 = dd_mul::<FMA>(tau, sq);
+    let t35 = dd_mul::<FMA>(t3, sq);
+    let t75 = dd_mul::<FMA>(t4, t35);
+    let s01 = dd_add(dd_mul_d::<FMA>(tau, SAT_A[0]), dd_mul_d::<FMA>(t15, SAT_A[1]));
+    let s23 = dd_add(dd_mul_d::<FMA>(t3, SAT_A[2]), dd_mul_d::<FMA>(t35, SAT_A[3]));
+    let s45 = dd_add(dd_mul_d::<FMA>(t4, SAT_A[4]), dd_mul_d::<FMA>(t75, SAT_A[5]));
     let s = dd_add(dd_add(s01, s23), s45);
-    let lnp = dd_mul(s, inv_theta);
+    let lnp = dd_mul::<FMA>(s, inv_theta);
     let e = P_CRIT * lnp.hi.exp();
     e + e * lnp.lo
 }
@@ -265,7 +272,7 @@ pub fn p_sat(t: f64) -> f64 {
     if !in_sat_range(t) {
         return f64::NAN;
     }
-    psat_dd(t)
+    psat_dd::<false>(t)
 }
 
 /// Slope of the saturation line dp_sat/dT [Pa/K], analytic derivative of SR1-86(1992) Eq. 1.
@@ -329,7 +336,7 @@ fn rho_v_tau(tau: f64, c: f64) -> f64 {
 /// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [p_sat(T_TRIPLE), P_CRIT] or for NaN.
 pub fn t_sat(p: f64) -> f64 {
     // p_sat(T_TRIPLE) = 611.65... Pa; the exact bound is only evaluated for p next to it
-    if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd(T_TRIPLE)) {
+    if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd::<false>(T_TRIPLE)) {
         return f64::NAN;
     }
     if p == P_CRIT {
@@ -379,7 +386,7 @@ pub fn t_sat(p: f64) -> f64 {
     // Polish: Newton runs on the plain-double ln p_sat, which carries a few ulp of rounding noise, so its
     // T can be an ulp or two from the T whose (double-double, strictly increasing) p_sat is nearest to p.
     // Walk one ulp at a time towards p while that gets nearer.
-    let mut e0 = psat_dd(t) - p;
+    let mut e0 = psat_dd::<false>(t) - p;
     for _ in 0..4 {
         if e0 == 0.0 {
             break;
@@ -388,7 +395,7 @@ pub fn t_sat(p: f64) -> f64 {
         if !(t1 >= T_TRIPLE && t1 <= T_CRIT) {
             break;
         }
-        let e1 = psat_dd(t1) - p;
+        let e1 = psat_dd::<false>(t1) - p;
         if e1.abs() < e0.abs() {
             t = t1;
             let crossed = (e1 < 0.0) != (e0 < 0.0);
@@ -1242,7 +1249,7 @@ fn nonanalytic<const FULL: bool>(delta: f64, tau: f64, psi_in: [f64; 2]) -> [f64
     let dm = delta - 1.0;
     let q = dm * dm;
     let qb = {
-        let c = q.cbrt();
+        let c = fastmath::cbrt(q);
         c * c
     }; // q^(1/(2 beta) - 1) = q^(2/3)
     let q53 = q * qb; // q^(1/(2 beta)) = q^(5/3)
@@ -1663,21 +1670,21 @@ pub fn saturation_t(t: f64) -> [f64; 12] {
         // SAFETY: the CPU has the features the clone was compiled for.
         return unsafe { saturation_t_avx2(t) };
     }
-    saturation_t_body(t)
+    saturation_t_body::<false>(t)
 }
 
 #[cfg(target_arch = "x86_64")]
 #[target_feature(enable = "avx2,fma")]
 unsafe fn saturation_t_avx2(t: f64) -> [f64; 12] {
-    saturation_t_body(t)
+    saturation_t_body::<true>(t)
 }
 
 #[inline(always)]
-fn saturation_t_body(t: f64) -> [f64; 12] {
+fn saturation_t_body<const FMA: bool>(t: f64) -> [f64; 12] {
     if !in_sat_range(t) {
         return NAN12;
     }
-    let p = psat_dd(t);
+    let p = psat_dd::<FMA>(t);
     if t == T_CRIT {
         let inf = f64::INFINITY;
         return [
@@ -1887,7 +1894,7 @@ mod tests {
         }
         let mut t = T_TRIPLE;
         while t <= T_CRIT {
-            let a = saturation_t_body(t);
+            let a = saturation_t_body::<false>(t);
             // SAFETY: the features were detected above.
             let b = unsafe { saturation_t_avx2(t) };
             for k in 0..12 {
