@@ -146,10 +146,12 @@ pub fn product_grid(call: &GridCall<'_>) -> [u64; 2] {
 }
 
 fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64], y: &mut [f64]) -> Status {
-    let mut xa = [f64::NAN; N];
-    xa.copy_from_slice(&x[..N]);
+    // element-wise copies (a slice copy of runtime length would call memmove)
+    let xa: [f64; N] = std::array::from_fn(|k| x[k]);
     let (out, status) = evaluate::<K, N, M>(&xa);
-    y[..M].copy_from_slice(&out);
+    for (slot, v) in y.iter_mut().zip(out) {
+        *slot = v;
+    }
     status
 }
 
@@ -529,8 +531,11 @@ fn run_parallel<K: Kernel<N, M>, const N: usize, const M: usize>(op: Operands<N,
         // SAFETY: the whole range on this thread.
         return unsafe { op.run::<K>(0, n) };
     };
+    // Many more chunks than threads: the cost per element varies along real
+    // inputs (water properties near the critical point, a sorted sweep), and
+    // work stealing can only even out the threads to within one chunk.
     let workers = pool.current_num_threads() as isize;
-    let chunk = (n / (4 * workers)).max(PARALLEL_MIN / 4);
+    let chunk = (n / (32 * workers)).max(PARALLEL_MIN / 4);
     let chunks = (n + chunk - 1) / chunk;
     pool.install(|| {
         (0..chunks)
