@@ -51,13 +51,32 @@ def best(fn, repeat):
     return min(timeit.repeat(fn, number=1, repeat=repeat))
 
 
-def per_call(fn, args, n=100_000, repeat=5):
-    """Seconds per call of fn(*args), called with its arguments spelled out
-    (no *args unpacking in the timed loop), the way user code calls it."""
-    ns = {"fn": fn, **{f"a{i}": a for i, a in enumerate(args)}}
-    call = f"fn({', '.join(f'a{i}' for i in range(len(args)))})"
-    timeit.timeit(call, number=n, globals=ns)  # warm up (caches, branch predictors, CPU clock)
-    return min(timeit.repeat(call, number=n, repeat=repeat, globals=ns)) / n
+def paired(fn_a, fn_b, repeat):
+    """Best times of two functions measured in alternation (a, b, a, b, ...),
+    so that a slow spell of this shared machine hits both sides of a ratio
+    alike instead of whichever happened to run during it."""
+    fn_a(), fn_b()  # warm up
+    ta, tb = [], []
+    for _ in range(repeat):
+        ta.append(timeit.timeit(fn_a, number=1))
+        tb.append(timeit.timeit(fn_b, number=1))
+    return min(ta), min(tb)
+
+
+def paired_calls(fn_a, args_a, fn_b, args_b, n=100_000, repeat=7):
+    """Seconds per call of fn_a(*args_a) and fn_b(*args_b), each called with
+    its arguments spelled out (no *args unpacking in the timed loop), the way
+    user code calls it; measured in alternation as in `paired`."""
+    def timer(fn, args):
+        ns = {"fn": fn, **{f"a{i}": a for i, a in enumerate(args)}}
+        return timeit.Timer(f"fn({', '.join(f'a{i}' for i in range(len(args)))})", globals=ns)
+    a, b = timer(fn_a, args_a), timer(fn_b, args_b)
+    a.timeit(n), b.timeit(n)  # warm up (caches, branch predictors, CPU clock)
+    ta, tb = [], []
+    for _ in range(repeat):
+        ta.append(a.timeit(n))
+        tb.append(b.timeit(n))
+    return min(ta) / n, min(tb) / n
 
 
 class Table:
@@ -175,6 +194,18 @@ def kernel_cases(n):
     return cases, scalar_args, s0
 
 
+def one_thread(fn):
+    """fn run on one wetboil thread."""
+    def run():
+        threads = wetboil.get_num_threads()
+        wetboil.set_num_threads(1)
+        try:
+            return fn()
+        finally:
+            wetboil.set_num_threads(threads)
+    return run
+
+
 def section_kernels(table, n, repeat):
     cases, _, _ = kernel_cases(n)
     # The foundation pair, together (the foundation issue's headline ratio).
@@ -182,19 +213,15 @@ def section_kernels(table, n, repeat):
     f_ours, f_base = pair["departure.fritz"]
     k_ours, k_base = pair["chf.kandlikar"]
     both, both_np = (lambda: (f_ours(), k_ours())), (lambda: (f_base(), k_base()))
-    t_both = best(both, repeat)
-    table.add("1. kernels, contiguous", f"fritz + kandlikar, {n:.0e} points vs NumPy", t_both, best(both_np, repeat), ">= 5x")
+    t_both, t_both_np = paired(both, both_np, repeat)
+    table.add("1. kernels, contiguous", f"fritz + kandlikar, {n:.0e} points vs NumPy", t_both, t_both_np, ">= 5x")
     threads = wetboil.get_num_threads()
-    try:
-        wetboil.set_num_threads(1)
-        t_one = best(both, repeat)
-    finally:
-        wetboil.set_num_threads(threads)
-    table.add("3. threads", f"fritz + kandlikar, contiguous, {threads} threads vs 1", t_both, t_one, ">= 1.8x")
+    t_all, t_one = paired(both, one_thread(both), repeat + 2)
+    table.add("3. threads", f"fritz + kandlikar, contiguous, {threads} threads vs 1", t_all, t_one, ">= 1.8x")
     for label, ours, base, _py, _args in cases:
         a, b = ours(), base()
         assert np.allclose(a, b, rtol=1e-9, equal_nan=True), f"{label}: benchmark formulas disagree"
-        table.add("1. kernels, contiguous", f"{label}, {n:.0e} points vs NumPy", best(ours, repeat), best(base, repeat), ">= 4x")
+        table.add("1. kernels, contiguous", f"{label}, {n:.0e} points vs NumPy", *paired(ours, base, repeat), ">= 4x")
 
 
 def section_scalar(table, repeat):
@@ -225,7 +252,7 @@ def section_scalar(table, repeat):
             fn, ours_args = calls[label]
             pargs = py_args[label]
         assert math.isclose(fn(*ours_args), py(*pargs), rel_tol=1e-9), label
-        t_ours, t_py = per_call(fn, ours_args, repeat=repeat), per_call(py, pargs, repeat=repeat)
+        t_ours, t_py = paired_calls(fn, ours_args, py, pargs, repeat=2 * repeat + 1)
         table.add("4. scalar calls", f"{label} vs pure-Python math", t_ours, t_py, "<= 0.5x", note="(ratio = speed-up)")
 
 
@@ -307,25 +334,21 @@ def section_chain(table, n, repeat):
 
     for a, b in zip(grid_ours(), grid_numpy()):
         assert np.allclose(a, b, rtol=1e-9)
-    t_grid, t_grid_np = best(grid_ours, repeat), best(grid_numpy, repeat)
+    t_grid, t_grid_np = paired(grid_ours, grid_numpy, repeat)
     table.add("2. screening chain", f"grid {na} angles x {npr} pressures vs NumPy broadcasting", t_grid, t_grid_np, ">= 1x")
 
     # 3. thread scaling
     threads = wetboil.get_num_threads()
-    try:
-        wetboil.set_num_threads(1)
-        t_pub1, t_grid1 = best(public, repeat), best(grid_ours, repeat)
-    finally:
-        wetboil.set_num_threads(threads)
-    table.add("3. threads", f"public chain, contiguous, {threads} threads vs 1", t_pub, t_pub1, ">= 1.8x")
-    table.add("3. threads", f"grid, {threads} threads vs 1", t_grid, t_grid1, ">= 1.8x")
+    t_pub2, t_pub1 = paired(public, one_thread(public), repeat)
+    t_grid2, t_grid1 = paired(grid_ours, one_thread(grid_ours), repeat + 2)
+    table.add("3. threads", f"public chain, contiguous, {threads} threads vs 1", t_pub2, t_pub1, ">= 1.8x")
+    table.add("3. threads", f"grid, {threads} threads vs 1", t_grid2, t_grid1, ">= 1.8x")
 
 
 def section_water(table, repeat, n_points):
     import CoolProp.CoolProp as CP
 
     T = np.linspace(280.0, 620.0, n_points)
-    t_ours = best(lambda: water(T=T), repeat) / n_points
     st = CP.AbstractState("HEOS", "Water")
     sub = T[:: max(1, n_points // 4000)]
 
@@ -336,7 +359,8 @@ def section_water(table, repeat, n_points):
             st.update(CP.QT_INPUTS, 1.0, t)
             st.rhomass(); st.hmass(); st.cpmass(); st.conductivity(); st.viscosity()
 
-    t_base = best(coolprop, max(2, repeat // 2)) / len(sub)
+    t_ours, t_base = paired(lambda: water(T=T), coolprop, repeat + 2)
+    t_ours, t_base = t_ours / n_points, t_base / len(sub)
     table.add("5. water()", f"water(T) per state point, {n_points:.0e} points vs CoolProp AbstractState", t_ours, t_base, ">= 100x")
     t_scalar = min(timeit.repeat(lambda: water(T=300.0), number=20_000, repeat=repeat)) / 20_000
     table.add("5. water()", "water(T=300.0) scalar call vs CoolProp AbstractState", t_scalar, t_base, "(context)")
