@@ -15,10 +15,11 @@ use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
 /// The group `2 σ T_sat v_lv / h_lv` [K m] shared by the embryo and onset models,
-/// with `v_lv = 1/ρ_v − 1/ρ_l`.
+/// with `v_lv = 1/ρ_v − 1/ρ_l = (ρ_l − ρ_v)/(ρ_l ρ_v)`, written with one
+/// division instead of three (divisions bound the vectorised loops).
 #[inline(always)]
 fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
-    2.0 * sigma * t_sat * (1.0 / rho_v - 1.0 / rho_l) / h_lv
+    2.0 * sigma * t_sat * (rho_l - rho_v) / (rho_l * rho_v * h_lv)
 }
 
 #[inline(always)]
