@@ -193,16 +193,19 @@ impl Kernel<11, 1> for RohsenowSuperheat {
 // ---------------------------------------------------------------------------
 // Cooper
 
-/// Cooper's coefficient `A` of `h = A q^0.67` [W^0.33 m^-0.66 K^-1]:
+/// Natural logarithm of Cooper's coefficient `A` of `h = A q^0.67`
+/// [W^0.33 m^-0.66 K^-1]:
 /// `A = 55 p_r^(0.12 − 0.2 log10 R_p) (−log10 p_r)^(−0.55) M^(−0.5)` with R_p in
-/// µm and M in kg/kmol (converted here from metres and kg/mol).
+/// µm and M in kg/kmol (converted here from metres and kg/mol). The Cooper
+/// kernels work with `ln A` and take one exponential at the end: five
+/// logarithms and one exponential per element instead of three powers.
 #[inline(always)]
-fn cooper_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
-    let pr = p / p_crit;
-    let rp_um = roughness * 1e6;
-    let m = molar_mass * 1e3;
-    let log10 = |x: f64| fastmath::ln(x) * std::f64::consts::LOG10_E;
-    55.0 * fastmath::pow(pr, 0.12 - 0.2 * log10(rp_um)) * fastmath::pow(-log10(pr), -0.55) / m.sqrt()
+fn cooper_ln_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
+    use std::f64::consts::LOG10_E;
+    const LN_55: f64 = 4.007_333_185_232_471; // ln 55
+    let ln_pr = fastmath::ln(p / p_crit);
+    let m = 0.12 - 0.2 * LOG10_E * fastmath::ln(roughness * 1e6);
+    LN_55 + m * ln_pr - 0.55 * fastmath::ln(-LOG10_E * ln_pr) - 0.5 * fastmath::ln(molar_mass * 1e3)
 }
 
 #[inline(always)]
@@ -233,7 +236,8 @@ pub const COOPER_EXPONENT: f64 = 0.67;
 #[inline(always)]
 pub fn cooper(superheat: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
     let ok = cooper_possible(superheat, p, p_crit, molar_mass, roughness);
-    nan_unless(ok, fastmath::pow(cooper_coefficient(p, p_crit, molar_mass, roughness) * superheat, 1.0 / (1.0 - COOPER_EXPONENT)))
+    let ln_a = cooper_ln_coefficient(p, p_crit, molar_mass, roughness);
+    nan_unless(ok, fastmath::exp((ln_a + fastmath::ln(superheat)) * (1.0 / (1.0 - COOPER_EXPONENT))))
 }
 
 /// Inverse of [`cooper`]: wall superheat [K] at a heat flux [W/m2],
@@ -241,14 +245,16 @@ pub fn cooper(superheat: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f
 #[inline(always)]
 pub fn cooper_superheat(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
     let ok = cooper_possible(heat_flux, p, p_crit, molar_mass, roughness);
-    nan_unless(ok, fastmath::pow(heat_flux, 1.0 - COOPER_EXPONENT) / cooper_coefficient(p, p_crit, molar_mass, roughness))
+    let ln_a = cooper_ln_coefficient(p, p_crit, molar_mass, roughness);
+    nan_unless(ok, fastmath::exp((1.0 - COOPER_EXPONENT) * fastmath::ln(heat_flux) - ln_a))
 }
 
 /// Cooper heat transfer coefficient [W/(m2 K)] at a heat flux [W/m2], `h = A q^0.67`.
 #[inline(always)]
 pub fn cooper_coefficient_at_flux(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
     let ok = cooper_possible(heat_flux, p, p_crit, molar_mass, roughness);
-    nan_unless(ok, cooper_coefficient(p, p_crit, molar_mass, roughness) * fastmath::pow(heat_flux, COOPER_EXPONENT))
+    let ln_a = cooper_ln_coefficient(p, p_crit, molar_mass, roughness);
+    nan_unless(ok, fastmath::exp(ln_a + COOPER_EXPONENT * fastmath::ln(heat_flux)))
 }
 
 const COOPER_REFERENCE: &str = "M.G. Cooper, Saturation nucleate pool boiling - a simple correlation, IChemE Symp. Ser. 86 \
