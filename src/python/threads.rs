@@ -40,6 +40,12 @@ pub fn num_threads() -> usize {
 pub fn set_num_threads(n: usize) {
     let n = n.max(1);
     REQUESTED.store(n, Ordering::Relaxed);
+    // One thread needs no pool (`pool` returns None), so the pool is kept for
+    // a later return to its size: switching 2 -> 1 -> 2 threads costs no
+    // thread start-up.
+    if n == 1 {
+        return;
+    }
     if let Ok(mut guard) = POOL.lock() {
         if guard.as_ref().is_some_and(|p| p.current_num_threads() != n) {
             *guard = None; // running calls keep their Arc; the pool ends when they finish
