@@ -17,6 +17,8 @@ import pytest
 
 import wetboil
 from wetboil import _core
+
+import kernel_cases as kc
 from wetboil.chf import kandlikar, zuber
 from wetboil.departure import fritz
 from wetboil.fluids import Saturation
@@ -178,6 +180,51 @@ def test_outputs_larger_than_the_caches_take_streaming_stores_with_the_same_bits
     ok = np.isfinite(x) & (x <= 90)
     np.testing.assert_allclose(big[ok], 0.0208 * x[ok] * np.sqrt(sig[ok] / (G * (WATER.rho_l - WATER.rho_v))),
                                rtol=1e-15)
+
+
+@pytest.mark.parametrize("name", sorted(kc.BY_KERNEL))
+def test_every_simd_clone_gives_the_same_bits(name):
+    # The block loops are compiled for baseline x86-64, AVX2/FMA and AVX-512
+    # and picked at run time; Rust never contracts to FMA, so all three must
+    # agree to the last bit (on a CPU without a level, the cap is a no-op).
+    _f, spec = kc.BY_KERNEL[name]
+    rng = np.random.default_rng(11)
+    n = 1000 + 37  # full blocks and a tail
+    inputs = [np.ascontiguousarray(np.broadcast_to(np.asarray(v, dtype=float), (n,)))
+              for v in kc.kernel_inputs(spec, kc.draw_args(spec, rng, n))]
+    uf = getattr(_core, name)
+    results = []
+    old = _core._set_simd_cap(2)
+    try:
+        for level in (2, 1, 0):
+            _core._set_simd_cap(level)
+            with np.errstate(all="ignore"):
+                out = uf(*inputs)
+            results.append(out if isinstance(out, tuple) else (out,))
+    finally:
+        _core._set_simd_cap(old)
+    for other in results[1:]:
+        for a, b in zip(results[0], other):
+            np.testing.assert_array_equal(a.view(np.int64), b.view(np.int64))
+
+
+def test_input_running_ahead_of_its_output_is_evaluated_in_order():
+    # NumPy passes an input that overlaps the output one element ahead
+    # uncopied; evaluated in parallel chunks, a chunk would read elements the
+    # next chunk has already overwritten. Such calls run in order.
+    # The race shows at chunk boundaries and depends on timing: ten calls.
+    n = 1_000_000
+    uf = wetboil.ufunc_of(fritz)
+    old = wetboil.get_num_threads()
+    try:
+        wetboil.set_num_threads(2)
+        for _ in range(10):
+            x = np.linspace(1.0, 89.0, n + 1)
+            expect = np_fritz(x[1:])
+            uf(x[1:], WATER.sigma, WATER.rho_l, WATER.rho_v, G, out=x[:-1])
+            np.testing.assert_allclose(x[:-1], expect, rtol=1e-15)
+    finally:
+        wetboil.set_num_threads(old)
 
 
 def test_set_num_threads_rejects_nonsense():

@@ -27,6 +27,14 @@ fn entries() -> &'static [Entry] {
 
 /// Return and reset the element counts `(invalid, out_of_range)` of the ufunc
 /// calls made on this thread since the last call.
+/// Limit the SIMD clone of the kernel loops (2 AVX-512, 1 AVX2/FMA, 0
+/// baseline; each only where the CPU has it) and return the previous limit.
+/// For the tests that check every clone gives the same bits.
+#[pyfunction]
+fn _set_simd_cap(level: u8) -> u8 {
+    ufunc::set_simd_cap(level)
+}
+
 #[pyfunction]
 fn take_counts() -> (u64, u64) {
     let [a, b] = ufunc::take_counts();
@@ -192,6 +200,7 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(front::make_function, m)?)?;
     m.add("MAX_ARGS", front::MAX_ARGS)?;
     m.add_function(wrap_pyfunction!(take_counts, m)?)?;
+    m.add_function(wrap_pyfunction!(_set_simd_cap, m)?)?;
     m.add_function(wrap_pyfunction!(grid_call, m)?)?;
     m.add_function(wrap_pyfunction!(product_call, m)?)?;
     m.add_function(wrap_pyfunction!(factored_sides, m)?)?;

@@ -9,6 +9,7 @@
 use std::cell::Cell;
 use std::ffi::{c_char, c_int, c_void, CString};
 use std::panic::{catch_unwind, AssertUnwindSafe};
+use std::sync::atomic::{AtomicU8, Ordering};
 
 use numpy::npyffi::{npy_intp, PyUFuncGenericFunction, NPY_TYPES, PY_UFUNC_API};
 use pyo3::prelude::*;
@@ -18,6 +19,16 @@ use super::threads;
 use crate::model::{classify, classify_side, evaluate, settle, Factored, Kernel, Model, Status};
 
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
+
+/// The widest clone of the block loop that calls may use: 2 AVX-512, 1
+/// AVX2/FMA, 0 baseline x86-64 (each only where the CPU has it). Lowered by
+/// the tests, which check that every clone gives the same bits.
+static SIMD_CAP: AtomicU8 = AtomicU8::new(2);
+
+/// Set [`SIMD_CAP`] and return its previous value.
+pub fn set_simd_cap(level: u8) -> u8 {
+    SIMD_CAP.swap(level.min(2), Ordering::Relaxed)
+}
 
 /// Inputs per kernel that the scalar entry point can take (and the registry
 /// allows): ufunc loops themselves have no such limit.
@@ -184,11 +195,13 @@ impl<const N: usize, const M: usize> Operands<N, M> {
         #[cfg(target_arch = "x86_64")]
         {
             use std::arch::is_x86_feature_detected as has;
-            if has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
+            let cap = SIMD_CAP.load(Ordering::Relaxed);
+            let avx2 = has!("avx2") && has!("fma");
+            if cap >= 2 && avx2 && has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
                 // SAFETY: the CPU has the features the clone was compiled for.
                 return unsafe { self.run_avx512::<K>(start, end) };
             }
-            if has!("avx2") && has!("fma") {
+            if cap >= 1 && avx2 {
                 // SAFETY: as above.
                 return unsafe { self.run_avx2::<K>(start, end) };
             }
@@ -385,8 +398,10 @@ const PARALLEL_MIN: isize = 1 << 15;
 /// Called by NumPy only, with `args` holding `N + M` data pointers to float64
 /// elements, `dimensions[0]` the element count and `steps` the `N + M` byte
 /// strides. NumPy may pass an output aliasing an input (`out=`): each element
-/// is read completely before it is written, so exact aliasing is safe, and
-/// NumPy resolves partial overlap by copying before the call.
+/// is read completely before it is written, so exact aliasing is safe. NumPy
+/// copies partly overlapping operands before the call except when the input
+/// runs ahead of the output; such calls run in order on this thread (see
+/// [`partly_overlapping`]).
 unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>(
     args: *mut *mut c_char,
     dimensions: *mut npy_intp,
@@ -412,12 +427,36 @@ unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>
             op.outs[k] = *args.add(N + k) as *mut u8;
             op.out_steps[k] = *steps.add(N + k) as isize;
         }
-        let counts = if n >= PARALLEL_MIN { run_parallel::<K, N, M>(op, n) } else { op.run::<K>(0, n) };
+        let counts = if n >= PARALLEL_MIN && !partly_overlapping(&op, n) {
+            run_parallel::<K, N, M>(op, n)
+        } else {
+            op.run::<K>(0, n)
+        };
         add_counts(counts);
     }));
     if result.is_err() {
         add_counts([unsafe { *dimensions } as u64, 0]);
     }
+}
+
+/// True when an input shares memory with an output without being exactly the
+/// same elements. NumPy hands such operands over uncopied when the input runs
+/// ahead of the output (`uf(a[1:], out=a[:-1])`): safe in order, since each
+/// block reads its inputs before writing, but not for chunks run in parallel,
+/// where one chunk would read what the next one writes.
+fn partly_overlapping<const N: usize, const M: usize>(op: &Operands<N, M>, n: isize) -> bool {
+    let span = |p: *const u8, step: isize| {
+        let (a, b) = (p as isize, p as isize + (n - 1) * step);
+        (a.min(b), a.max(b) + 8)
+    };
+    (0..N).any(|k| {
+        let (a0, a1) = span(op.ins[k], op.in_steps[k]);
+        (0..M).any(|m| {
+            let (b0, b1) = span(op.outs[m] as *const u8, op.out_steps[m]);
+            let same = op.ins[k] == op.outs[m] as *const u8 && op.in_steps[k] == op.out_steps[m];
+            a0 < b1 && b0 < a1 && !same
+        })
+    })
 }
 
 /// Operands of a call over a broadcast N-d grid: every input and output is
