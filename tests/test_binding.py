@@ -182,6 +182,26 @@ def test_outputs_larger_than_the_caches_take_streaming_stores_with_the_same_bits
                                rtol=1e-15)
 
 
+def test_large_grids_stream_their_outputs_with_the_same_bits():
+    # Broadcast grids of 2**22 points or more (the grid path and the
+    # factorised path's product) also write with non-temporal stores; blocks
+    # of 256 rows (537,600 points) do not.
+    from wetboil.wetting import wenzel
+    ang = np.linspace(0.0, 120.0, 2048)[:, None]
+    rough = np.linspace(1.0, 1.6, 2100)
+    with wetboil.errstate(out_of_range="ignore"):
+        grid = wenzel(ang, rough)  # array-to-array broadcast: the grid path
+        rows = np.vstack([wenzel(ang[i:i + 256], rough) for i in range(0, 2048, 256)])
+    np.testing.assert_array_equal(grid, rows)
+    p_fluid = Saturation(T=np.full(2100, 373.124), p=101325.0, rho_l=np.linspace(900.0, 1000.0, 2100), rho_v=0.59817,
+                         h_lv=2.2564e6, sigma=0.058912)
+    with wetboil.errstate(out_of_range="ignore"):
+        big = fritz(ang, p_fluid)  # outer product of the two sides: the factorised path
+        pieces = np.vstack([fritz(ang[i:i + 256], p_fluid) for i in range(0, 2048, 256)])
+    assert big.size >= 1 << 22 and grid.size >= 1 << 22
+    np.testing.assert_array_equal(big, pieces)
+
+
 @pytest.mark.parametrize("name", sorted(kc.BY_KERNEL))
 def test_every_simd_clone_gives_the_same_bits(name):
     # The block loops are compiled for baseline x86-64, AVX2/FMA and AVX-512
