@@ -17,6 +17,7 @@ pub mod departure;
 pub mod fastmath;
 pub mod model;
 pub mod nucleation;
+pub mod simd;
 pub mod trig;
 pub mod water;
 pub mod wetting;

@@ -1666,7 +1666,7 @@ fn newton_step(dp: f64, dpdrho: f64, rho: f64) -> f64 {
 /// three diverge at the critical point; mu only weakly). See [`near_critical`] for where accuracy degrades.
 pub fn saturation_t(t: f64) -> [f64; 12] {
     #[cfg(target_arch = "x86_64")]
-    if std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma") {
+    if crate::simd::level() >= crate::simd::AVX2 {
         // SAFETY: the CPU has the features the clone was compiled for.
         return unsafe { saturation_t_avx2(t) };
     }
@@ -1889,7 +1889,7 @@ mod tests {
     #[cfg(target_arch = "x86_64")]
     #[test]
     fn avx2_clone_is_bit_identical() {
-        if !(std::arch::is_x86_feature_detected!("avx2") && std::arch::is_x86_feature_detected!("fma")) {
+        if crate::simd::level() < crate::simd::AVX2 {
             return;
         }
         let mut t = T_TRIPLE;

@@ -27,12 +27,13 @@ fn entries() -> &'static [Entry] {
 
 /// Return and reset the element counts `(invalid, out_of_range)` of the ufunc
 /// calls made on this thread since the last call.
-/// Limit the SIMD clone of the kernel loops (2 AVX-512, 1 AVX2/FMA, 0
-/// baseline; each only where the CPU has it) and return the previous limit.
-/// For the tests that check every clone gives the same bits.
+/// Limit the SIMD clones of the kernel loops and of the water properties
+/// (2 AVX-512, 1 AVX2/FMA, 0 baseline; each only where the CPU has it) and
+/// return the previous limit. For the tests that check every clone gives the
+/// same bits.
 #[pyfunction]
 fn _set_simd_cap(level: u8) -> u8 {
-    ufunc::set_simd_cap(level)
+    crate::simd::set_cap(level)
 }
 
 #[pyfunction]

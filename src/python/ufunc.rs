@@ -9,7 +9,6 @@
 use std::cell::Cell;
 use std::ffi::{c_char, c_int, c_void, CString};
 use std::panic::{catch_unwind, AssertUnwindSafe};
-use std::sync::atomic::{AtomicU8, Ordering};
 
 use numpy::npyffi::{npy_intp, PyUFuncGenericFunction, NPY_TYPES, PY_UFUNC_API};
 use pyo3::prelude::*;
@@ -17,18 +16,9 @@ use rayon::prelude::*;
 
 use super::threads;
 use crate::model::{classify, classify_side, evaluate, settle, Factored, Kernel, Model, Status};
+use crate::simd;
 
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
-
-/// The widest clone of the block loop that calls may use: 2 AVX-512, 1
-/// AVX2/FMA, 0 baseline x86-64 (each only where the CPU has it). Lowered by
-/// the tests, which check that every clone gives the same bits.
-static SIMD_CAP: AtomicU8 = AtomicU8::new(2);
-
-/// Set [`SIMD_CAP`] and return its previous value.
-pub fn set_simd_cap(level: u8) -> u8 {
-    SIMD_CAP.swap(level.min(2), Ordering::Relaxed)
-}
 
 /// Inputs per kernel that the scalar entry point can take (and the registry
 /// allows): ufunc loops themselves have no such limit.
@@ -193,18 +183,11 @@ impl<const N: usize, const M: usize> Operands<N, M> {
     #[inline(always)]
     unsafe fn run<K: Kernel<N, M>>(&self, start: isize, end: isize) -> [u64; 2] {
         #[cfg(target_arch = "x86_64")]
-        {
-            use std::arch::is_x86_feature_detected as has;
-            let cap = SIMD_CAP.load(Ordering::Relaxed);
-            let avx2 = has!("avx2") && has!("fma");
-            if cap >= 2 && avx2 && has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
-                // SAFETY: the CPU has the features the clone was compiled for.
-                return unsafe { self.run_avx512::<K>(start, end) };
-            }
-            if cap >= 1 && avx2 {
-                // SAFETY: as above.
-                return unsafe { self.run_avx2::<K>(start, end) };
-            }
+        match simd::level() {
+            // SAFETY: the CPU has the features the clone was compiled for.
+            simd::AVX512 => return unsafe { self.run_avx512::<K>(start, end) },
+            simd::AVX2 => return unsafe { self.run_avx2::<K>(start, end) },
+            _ => {}
         }
         unsafe { self.run_blocks::<K>(start, end) }
     }

@@ -1,0 +1,41 @@
+//! Which SIMD clone of a hot loop to run: the one run-time dispatch shared
+//! by the binding's block loops and `water::saturation_t`.
+//!
+//! Clones are compiled with `#[target_feature]` for AVX2/FMA and for AVX-512
+//! beside the baseline x86-64 code. Rust never contracts `a*b + c` into a
+//! fused multiply-add by itself, so every clone gives the same bits; the
+//! tests lower the cap with [`set_cap`] and compare them.
+
+use std::sync::atomic::{AtomicU8, Ordering};
+
+/// Baseline x86-64 (SSE2) or any other architecture.
+pub const BASELINE: u8 = 0;
+/// AVX2 and FMA.
+pub const AVX2: u8 = 1;
+/// AVX-512 F, DQ and VL, with AVX2 and FMA.
+pub const AVX512: u8 = 2;
+
+static CAP: AtomicU8 = AtomicU8::new(AVX512);
+
+/// The widest clone this CPU supports, within the cap.
+#[inline(always)]
+pub fn level() -> u8 {
+    let cap = CAP.load(Ordering::Relaxed);
+    #[cfg(target_arch = "x86_64")]
+    {
+        use std::arch::is_x86_feature_detected as has;
+        if cap >= AVX2 && has!("avx2") && has!("fma") {
+            if cap >= AVX512 && has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
+                return AVX512;
+            }
+            return AVX2;
+        }
+    }
+    let _ = cap;
+    BASELINE
+}
+
+/// Cap the clones used from now on (for tests) and return the previous cap.
+pub fn set_cap(level: u8) -> u8 {
+    CAP.swap(level.min(AVX512), Ordering::Relaxed)
+}
