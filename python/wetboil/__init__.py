@@ -14,7 +14,17 @@ one warning per call (see `errstate`).
 """
 
 from . import _core
-from ._api import VALIDITY_CODES, get_num_threads, model_of, models, set_num_threads, ufunc_of, validity
+from ._api import (
+    VALIDITY_CODES,
+    buffer_cache_info,
+    get_num_threads,
+    model_of,
+    models,
+    set_buffer_cache,
+    set_num_threads,
+    ufunc_of,
+    validity,
+)
 from ._errors import (
     InvalidValueError,
     InvalidValueWarning,
@@ -55,6 +65,8 @@ __all__ = [
     "VALIDITY_CODES",
     "set_num_threads",
     "get_num_threads",
+    "set_buffer_cache",
+    "buffer_cache_info",
     "WetboilError",
     "WetboilTypeError",
     "WetboilValueError",

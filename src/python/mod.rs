@@ -6,6 +6,7 @@
 //! * through [`front::make_function`], the public builtin function that the
 //!   Python front door builds once per public function, with a fast scalar path.
 
+mod alloc;
 mod front;
 mod registry;
 mod threads;
@@ -190,6 +191,32 @@ fn _after_fork_child() {
     threads::after_fork_child()
 }
 
+/// Install the buffer cache as NumPy's memory handler in this context and
+/// return the previous handler (a token for `_cache_exit`), or None.
+#[pyfunction]
+fn _cache_enter(py: Python<'_>) -> PyResult<Option<Py<PyAny>>> {
+    alloc::enter(py)
+}
+
+/// Restore the handler returned by `_cache_enter`.
+#[pyfunction]
+fn _cache_exit(py: Python<'_>, token: Option<Py<PyAny>>) -> PyResult<()> {
+    alloc::exit(py, token)
+}
+
+/// Set the most bytes of freed output buffers kept for reuse (0 turns the
+/// cache off and frees what it holds); returns the previous limit.
+#[pyfunction]
+fn set_buffer_cache(max_bytes: usize) -> usize {
+    alloc::set_max_bytes(max_bytes)
+}
+
+/// The buffer cache's `(max_bytes, held_bytes, held_blocks, hits, misses)`.
+#[pyfunction]
+fn buffer_cache_info() -> (usize, usize, usize, u64, u64) {
+    alloc::info()
+}
+
 #[pymodule]
 fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     let py = m.py();
@@ -210,6 +237,10 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(_after_fork_child, m)?)?;
+    m.add_function(wrap_pyfunction!(_cache_enter, m)?)?;
+    m.add_function(wrap_pyfunction!(_cache_exit, m)?)?;
+    m.add_function(wrap_pyfunction!(set_buffer_cache, m)?)?;
+    m.add_function(wrap_pyfunction!(buffer_cache_info, m)?)?;
     m.add("MAX_INPUTS", MAX_IN)?;
     m.add("MAX_OUTPUTS", MAX_OUT)?;
     Ok(())
