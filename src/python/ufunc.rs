@@ -269,21 +269,23 @@ impl<const N: usize, const M: usize> Operands<N, M> {
             // readable elements, in place (a full block inside the input
             // view) or in `xb`.
             let at = |j: usize| -> [f64; N] { std::array::from_fn(|k| unsafe { src[k].add(j).read_unaligned() }) };
+            // One pass: the outputs, whether any is NaN, and the range count
+            // (the common case of `settle`: when every output of the block is
+            // a number, only the range check remains). Both reductions are
+            // branch-free (sweeps straddle range limits at random); the tail
+            // of a short block repeats its first element and is masked out.
+            let mut any_nan = false;
+            let mut out_of_range = 0u64;
             for j in 0..BLOCK {
-                let y = K::eval(&at(j));
+                let x = at(j);
+                let y = K::eval(&x);
                 for k in 0..M {
                     yb[k][j] = y[k];
+                    any_nan |= y[k].is_nan();
                 }
+                out_of_range += (!K::in_range(&x) & (j < len)) as u64;
             }
-            // The common case of `settle`: every output of the block is a
-            // number, so only the range check remains; both reductions are
-            // branch-free (sweeps straddle range limits at random).
-            let any_nan = yb.iter().fold(false, |a, y| a | y[..len].iter().fold(false, |b, v| b | v.is_nan()));
             if !any_nan {
-                let mut out_of_range = 0u64;
-                for j in 0..len {
-                    out_of_range += !K::in_range(&at(j)) as u64;
-                }
                 counts[1] += out_of_range;
             } else {
                 counts = settle_block::<K, N, M>(at, &mut yb, len, counts);
