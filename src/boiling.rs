@@ -8,13 +8,9 @@
 //! not seen in any source (confidence given); **\[D\]** derived here.
 
 use crate::fastmath;
+use crate::all_positive;
 use crate::model::{arg, densities, nan_unless, non_negative, positive, Kernel, Model};
 use std::f64::consts::PI;
-
-#[inline(always)]
-fn liquid_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
-    positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(g)
-}
 
 // ---------------------------------------------------------------------------
 // Rohsenow
@@ -44,7 +40,7 @@ fn rohsenow_possible(
     mu_l: f64,
     g: f64,
 ) -> bool {
-    non_negative(x) & positive(c_sf) & positive(n) & liquid_possible(h_lv, rho_l, rho_v, sigma, g) & positive(cp_l) & positive(k_l) & positive(mu_l)
+    all_positive!(c_sf, n, h_lv, sigma, g, cp_l, k_l, mu_l, rho_l - rho_v; x, rho_v)
 }
 
 /// Rohsenow (1952) nucleate pool-boiling heat flux [W/m2] from the wall superheat.
@@ -64,7 +60,7 @@ fn rohsenow_possible(
 ///
 /// Reference: W.M. Rohsenow, "A method of correlating heat-transfer data for
 /// surface boiling of liquids", Trans. ASME 74 (1952) 969-976.
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn rohsenow(
     superheat: f64,
@@ -86,7 +82,7 @@ pub fn rohsenow(
 /// Inverse of [`rohsenow`]: the wall superheat [K] at a nucleate-boiling heat flux [W/m2].
 ///
 /// `ΔT = (C_sf h_lv Pr_l^n / c_pl) [q / (μ_l h_lv [g Δρ/σ]^(1/2))]^(1/3)`
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn rohsenow_superheat(
     heat_flux: f64,
@@ -102,7 +98,12 @@ pub fn rohsenow_superheat(
     g: f64,
 ) -> f64 {
     let ok = rohsenow_possible(heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g);
-    nan_unless(ok, fastmath::cbrt(heat_flux / rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g)))
+    // Pr^n and the cube root through one exponential: (C_sf h_lv / c_pl) exp(n ln Pr + ln(X)/3),
+    // X = q / (mu_l h_lv [g (rho_l - rho_v)/sigma]^(1/2)); q = 0 gives ln 0 = -inf and a zero superheat.
+    let pr = cp_l * mu_l / k_l;
+    let x = heat_flux / (mu_l * h_lv * (g * (rho_l - rho_v) / sigma).sqrt());
+    let e = fastmath::exp(n * fastmath::ln(pr) + fastmath::ln(x) * (1.0 / 3.0));
+    nan_unless(ok, c_sf * h_lv / cp_l * e)
 }
 
 const ROHSENOW_INPUTS_TAIL: [crate::model::Arg; 10] = [
@@ -210,7 +211,7 @@ fn cooper_ln_coefficient(p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -
 
 #[inline(always)]
 fn cooper_possible(x: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> bool {
-    non_negative(x) & positive(p) & positive(p_crit) & (p < p_crit) & positive(molar_mass) & positive(roughness)
+    all_positive!(p, molar_mass, roughness, p_crit - p; x)
 }
 
 /// Cooper (1984) exponent of the heat flux in `h = A q^0.67`.

@@ -1,5 +1,6 @@
 //! Critical heat flux (maximum of the nucleate boiling curve).
 
+use crate::all_positive;
 use crate::model::{angle_deg, arg, densities, nan_unless, positive, Factored, Kernel, Model};
 use crate::trig::cos_deg;
 use std::f64::consts::PI;
@@ -190,7 +191,7 @@ fn hydrodynamic_group(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> 
 
 #[inline(always)]
 fn scale_possible(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> bool {
-    positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(g)
+    all_positive!(h_lv, rho_v, sigma, g, rho_l - rho_v)
 }
 
 #[inline(always)]

@@ -14,6 +14,7 @@
 //! (confidence given); **\[D\]** derived here from the other entries.
 
 use crate::fastmath;
+use crate::all_positive;
 use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Factored, Kernel, Model};
 use std::f64::consts::PI;
 
@@ -56,7 +57,7 @@ fn capillary_length(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
 
 #[inline(always)]
 fn capillary_possible(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    positive(sigma) & densities(rho_l, rho_v) & positive(g)
+    all_positive!(sigma, g, rho_l - rho_v; rho_v)
 }
 
 /// The Fritz constant per degree of contact angle [1/deg].
@@ -142,7 +143,7 @@ pub const COLE_ROHSENOW_OTHER: f64 = 4.65e-4;
 /// Reference: R. Cole, W.M. Rohsenow, "Correlation of bubble departure
 /// diameters for boiling of saturated liquids", Chem. Eng. Prog. Symp. Ser.
 /// 65(92) (1969) 211-213 (no DOI).
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn cole_rohsenow(sigma: f64, rho_l: f64, rho_v: f64, cp_l: f64, t_sat: f64, h_lv: f64, c: f64, g: f64) -> f64 {
     let ok = cole_rohsenow_possible(sigma, rho_l, rho_v, cp_l, t_sat, h_lv, c, g);
@@ -153,7 +154,7 @@ pub fn cole_rohsenow(sigma: f64, rho_l: f64, rho_v: f64, cp_l: f64, t_sat: f64, 
 #[inline(always)]
 #[allow(clippy::too_many_arguments)]
 fn cole_rohsenow_possible(sigma: f64, rho_l: f64, rho_v: f64, cp_l: f64, t_sat: f64, h_lv: f64, c: f64, g: f64) -> bool {
-    positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(cp_l) & positive(t_sat) & positive(h_lv) & positive(c) & positive(g)
+    all_positive!(sigma, rho_v, cp_l, t_sat, h_lv, c, g, rho_l - rho_v)
 }
 
 /// Kernel of [`cole_rohsenow`].
@@ -240,7 +241,7 @@ fn ki_fluid_factor(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
 
 #[inline(always)]
 fn ki_fluid_possible(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    positive(sigma) & densities(rho_l, rho_v) & positive(rho_v) & positive(g)
+    all_positive!(sigma, g, rho_v, rho_l - rho_v)
 }
 
 /// Kernel of [`kocamustafaogullari_ishii`].
@@ -848,7 +849,7 @@ pub const ZUBER_FREQUENCY_CONSTANT: f64 = 0.59;
 
 #[inline(always)]
 fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    positive(diameter) & densities(rho_l, rho_v) & positive(g)
+    all_positive!(diameter, g, rho_l - rho_v; rho_v)
 }
 
 /// Cole (1960) departure frequency [Hz].

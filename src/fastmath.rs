@@ -99,7 +99,7 @@ pub fn ln(x: f64) -> f64 {
     const SQRT2: f64 = std::f64::consts::SQRT_2;
     // subnormals: scale into the normal range first
     let sub = x < f64::MIN_POSITIVE;
-    let xs = if sub { x * 18_014_398_509_481_984.0 } else { x }; // 2^54
+    let xs = x * if sub { 18_014_398_509_481_984.0 } else { 1.0 }; // 2^54
     let bits = xs.to_bits();
     let e = ((bits >> 52) & 0x7ff) as i64 - 1023 - if sub { 54 } else { 0 };
     let m = f64::from_bits((bits & 0x000f_ffff_ffff_ffff) | 0x3ff0_0000_0000_0000); // [1, 2)

@@ -212,6 +212,44 @@ pub fn positive(x: f64) -> bool {
     (x > 0.0) & (x < f64::INFINITY)
 }
 
+/// True when every argument is a finite number strictly above zero:
+/// `positive(a) & positive(b) & ...`, computed in the floating-point lanes.
+/// Each comparison of a vector of doubles yields a 256-bit mask, and joining
+/// many masks with `&` makes the compiler narrow every one of them first (a
+/// third of a Rohsenow evaluation went into that). Here two comparisons settle
+/// any number of values: their minimum is above zero (for non-NaN values the
+/// plain `a < b ? a : b` minimum, one instruction, is exact), and the sum of
+/// `x * 0` is zero (it is NaN as soon as one value is infinite or NaN,
+/// whatever the minimum did with it). A macro, not a function over an array:
+/// a loop inside the block loops of the binding would stop them vectorising.
+///
+/// `all_positive!(a, b; c, d)` also requires the values after the semicolon
+/// to be finite and not negative (one more comparison).
+#[macro_export]
+macro_rules! all_positive {
+    ($first:expr $(, $rest:expr)* ; $($nn:expr),+ $(,)?) => {{
+        let nn = $crate::all_positive!(@fold $($nn),+);
+        let pos = $crate::all_positive!(@fold $first $(, $rest)*);
+        (pos.0 > 0.0) & (nn.0 >= 0.0) & (pos.1 + nn.1 == 0.0)
+    }};
+    ($first:expr $(, $rest:expr)* $(,)?) => {{
+        let pos = $crate::all_positive!(@fold $first $(, $rest)*);
+        (pos.0 > 0.0) & (pos.1 == 0.0)
+    }};
+    // (minimum, sum of x * 0)
+    (@fold $first:expr $(, $rest:expr)*) => {{
+        let first: f64 = $first;
+        let lo = first;
+        let zero = first * 0.0;
+        $(
+            let x: f64 = $rest;
+            let lo = if x < lo { x } else { lo };
+            let zero = zero + x * 0.0;
+        )*
+        (lo, zero)
+    }};
+}
+
 /// True when `x` is finite and not negative.
 #[inline(always)]
 pub fn non_negative(x: f64) -> bool {

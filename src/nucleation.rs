@@ -10,7 +10,8 @@
 //! Contact angles are in degrees, measured through the liquid.
 
 use crate::fastmath;
-use crate::model::{angle_deg, arg, densities, finite, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
+use crate::all_positive;
+use crate::model::{angle_deg, arg, finite, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
@@ -24,7 +25,7 @@ fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f6
 
 #[inline(always)]
 fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> bool {
-    positive(sigma) & positive(t_sat) & densities(rho_l, rho_v) & positive(rho_v) & positive(h_lv)
+    all_positive!(sigma, t_sat, rho_v, h_lv, rho_l - rho_v)
 }
 
 /// Equilibrium superheat of a vapour embryo of radius `r` [K], linearised form.
@@ -48,7 +49,8 @@ fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> 
 #[inline(always)]
 pub fn embryo_superheat(radius: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
     let ok = positive(radius) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
-    nan_unless(ok, embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) / radius)
+    // embryo_group / radius with one division
+    nan_unless(ok, 2.0 * sigma * t_sat * (rho_l - rho_v) / (rho_l * rho_v * h_lv * radius))
 }
 
 /// Radius of the vapour embryo in equilibrium at a liquid superheat [m]; the
@@ -98,7 +100,9 @@ impl Kernel<6, 1> for EmbryoSuperheat {
         positive(x[0]) && fluid_possible(x[1], x[2], x[3], x[4], x[5])
     }
     fn in_range(x: &[f64; 6]) -> bool {
-        Self::eval(x)[0] <= 0.1 * x[2]
+        // superheat <= 0.1 T_sat, divided through by T_sat and multiplied by the (positive) denominator
+        let [r, sigma, _, rho_l, rho_v, h_lv] = *x;
+        20.0 * sigma * (rho_l - rho_v) <= rho_l * rho_v * h_lv * r
     }
 }
 
@@ -176,7 +180,7 @@ impl Kernel<6, 1> for EmbryoRadius {
 /// References: Clausius-Clapeyron and the Poynting correction as in M. Blander,
 /// J.L. Katz, "Bubble nucleation in liquids", AIChE J. 21 (1975) 833-848,
 /// doi:10.1002/aic.690210502 (their eta factor; form and DOI from memory).
-#[inline]
+#[inline(always)]
 pub fn embryo_superheat_exact(
     radius: f64,
     sigma: f64,
@@ -516,7 +520,7 @@ impl Kernel<2, 1> for Bankoff {
 /// Reference: Y.Y. Hsu, "On the size range of active nucleation cavities on a
 /// heating surface", J. Heat Transfer 84 (1962) 207-213, doi:10.1115/1.3684339.
 #[allow(clippy::too_many_arguments)]
-#[inline]
+#[inline(always)]
 pub fn hsu_active_radii(
     wall_superheat: f64,
     sigma: f64,
@@ -602,7 +606,7 @@ impl Kernel<9, 2> for HsuActiveRadii {
 
 #[inline(always)]
 fn onset_possible(q: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> bool {
-    non_negative(q) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv) & positive(k_l)
+    all_positive!(sigma, t_sat, rho_v, h_lv, k_l, rho_l - rho_v; q)
 }
 
 /// Onset-of-nucleate-boiling wall superheat [K] and critical cavity mouth
@@ -1010,7 +1014,7 @@ impl Kernel<7, 1> for WangDhir {
 /// Reference: N. Basu, G.R. Warrier, V.K. Dhir, "Onset of nucleate boiling and
 /// active nucleation site density during subcooled flow boiling", J. Heat Transfer
 /// 124 (2002) 717-728, doi:10.1115/1.1471522.
-#[inline]
+#[inline(always)]
 pub fn basu(wall_superheat: f64, contact_angle_deg: f64) -> f64 {
     if !site_possible(wall_superheat, contact_angle_deg) {
         return f64::NAN;
@@ -1080,7 +1084,7 @@ impl Kernel<3, 1> for Basu {
 /// systems", Int. J. Heat Mass Transfer 46 (2003) 2587-2601,
 /// doi:10.1016/S0017-9310(03)00031-0 (DOI from memory).
 #[allow(clippy::too_many_arguments)]
-#[inline]
+#[inline(always)]
 pub fn hibiki_ishii(
     wall_superheat: f64,
     sigma: f64,

@@ -492,7 +492,7 @@ impl Kernel<5, 1> for RetentionForce {
 /// * Validity: as [`retention_force`]; α measured from the horizontal.
 ///
 /// References: as [`retention_force`].
-#[inline]
+#[inline(always)]
 pub fn sliding_angle(mass: f64, sigma_lv: f64, advancing_deg: f64, receding_deg: f64, width: f64, k: f64, g: f64) -> f64 {
     if !(positive(mass) && positive(g)) {
         return f64::NAN;

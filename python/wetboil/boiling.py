@@ -1142,7 +1142,8 @@ def curve(
     if np.any(trans):
         if math.isfinite(dt_min) and dt_min > dt_chf > 0.0 and q_max > 0.0 and q_min > 0.0:  # (q_max = 0 at 180 deg)
             slope = math.log(q_min / q_max) / math.log(dt_min / dt_chf)
-            q[trans] = q_max * (dts[trans] / dt_chf) ** slope
+            with np.errstate(over="ignore"):  # a subnormal dt_chf (absurd C_sf, flagged already) overflows
+                q[trans] = q_max * (dts[trans] / dt_chf) ** slope
         else:
             q[trans] = np.nan
     regime[trans] = "transition"
