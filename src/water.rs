@@ -340,12 +340,30 @@ fn rho_v_tau(tau: f64, c: f64) -> f64 {
 /// ln p started from the IAPWS-IF97 Eq. 31 backward equation, then polished to the double T whose p_sat(T)
 /// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [p_sat(T_TRIPLE), P_CRIT] or for NaN.
 pub fn t_sat(p: f64) -> f64 {
+    #[cfg(target_arch = "x86_64")]
+    if crate::simd::level() >= crate::simd::AVX2 {
+        // SAFETY: the CPU has the features the clone was compiled for.
+        return unsafe { t_sat_avx2(p) }.0;
+    }
+    t_sat_body::<false>(p).0
+}
+
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx2,fma")]
+unsafe fn t_sat_avx2(p: f64) -> (f64, f64) {
+    t_sat_body::<true>(p)
+}
+
+/// `(t_sat(p), p_sat(t_sat(p)))`: the polish evaluates the second anyway. NaN twice outside the range.
+#[inline(always)]
+fn t_sat_body<const FMA: bool>(p: f64) -> (f64, f64) {
+    const NONE: (f64, f64) = (f64::NAN, f64::NAN);
     // p_sat(T_TRIPLE) = 611.65... Pa; the exact bound is only evaluated for p next to it
-    if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd::<false>(T_TRIPLE)) {
-        return f64::NAN;
+    if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd::<FMA>(T_TRIPLE)) {
+        return NONE;
     }
     if p == P_CRIT {
-        return T_CRIT;
+        return (T_CRIT, psat_dd::<FMA>(T_CRIT));
     }
     // IF97 Eq. 31 starting value (pressure in MPa).
     const N: [f64; 10] = [
@@ -391,7 +409,8 @@ pub fn t_sat(p: f64) -> f64 {
     // Polish: Newton runs on the plain-double ln p_sat, which carries a few ulp of rounding noise, so its
     // T can be an ulp or two from the T whose (double-double, strictly increasing) p_sat is nearest to p.
     // Walk one ulp at a time towards p while that gets nearer.
-    let mut e0 = psat_dd::<false>(t) - p;
+    let mut ps = psat_dd::<FMA>(t);
+    let mut e0 = ps - p;
     for _ in 0..4 {
         if e0 == 0.0 {
             break;
@@ -400,9 +419,11 @@ pub fn t_sat(p: f64) -> f64 {
         if !(t1 >= T_TRIPLE && t1 <= T_CRIT) {
             break;
         }
-        let e1 = psat_dd::<false>(t1) - p;
+        let ps1 = psat_dd::<FMA>(t1);
+        let e1 = ps1 - p;
         if e1.abs() < e0.abs() {
             t = t1;
+            ps = ps1;
             let crossed = (e1 < 0.0) != (e0 < 0.0);
             e0 = e1;
             if crossed {
@@ -412,7 +433,7 @@ pub fn t_sat(p: f64) -> f64 {
             break;
         }
     }
-    t
+    (t, ps)
 }
 
 #[inline]
@@ -1698,7 +1719,12 @@ fn saturation_t_body<const FMA: bool>(t: f64) -> [f64; 12] {
     if !in_sat_range(t) {
         return NAN12;
     }
-    let p = psat_dd::<FMA>(t);
+    state_at::<FMA>(t, psat_dd::<FMA>(t))
+}
+
+/// The saturated state at `t` in [T_TRIPLE, T_CRIT] with `p` = p_sat(t) given.
+#[inline(always)]
+fn state_at<const FMA: bool>(t: f64, p: f64) -> [f64; 12] {
     // tau = (T_c - T)/T_c: the difference is exact (Sterbenz) wherever tau is small
     let tau = (T_CRIT - t) / T_CRIT;
     if !(tau >= table::TAU_MIN) {
@@ -1785,11 +1811,28 @@ fn enhancement_switches(t: f64) -> [f64; 4] {
 /// ulp of T is the resolution limit). For p = p_sat(T) the round trip returns exactly T.
 /// NaN in every field outside [p_sat(T_TRIPLE), P_CRIT] or for NaN input.
 pub fn saturation_p(p: f64) -> [f64; 12] {
-    let t = t_sat(p);
+    #[cfg(target_arch = "x86_64")]
+    if crate::simd::level() >= crate::simd::AVX2 {
+        // SAFETY: the CPU has the features the clone was compiled for.
+        return unsafe { saturation_p_avx2(p) };
+    }
+    saturation_p_body::<false>(p)
+}
+
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx2,fma")]
+unsafe fn saturation_p_avx2(p: f64) -> [f64; 12] {
+    saturation_p_body::<true>(p)
+}
+
+/// `saturation_t(t_sat(p))`, reusing the p_sat(t) that the inversion's polish computed.
+#[inline(always)]
+fn saturation_p_body<const FMA: bool>(p: f64) -> [f64; 12] {
+    let (t, ps) = t_sat_body::<FMA>(p);
     if t.is_nan() {
         return NAN12;
     }
-    saturation_t(t)
+    state_at::<FMA>(t, ps)
 }
 
 /// Density [kg/m3] of (possibly metastable) liquid water at temperature `t` [K] and pressure `p` [Pa],
@@ -1939,6 +1982,18 @@ mod tests {
                 assert_eq!(a[k].to_bits(), b[k].to_bits(), "T = {t}, field {k}");
             }
             t += 0.0173;
+        }
+        // the pressure route: inversion and state
+        let (lo, hi) = (p_sat(T_TRIPLE).ln(), P_CRIT.ln());
+        for i in 0..=20_000 {
+            let p = (lo + (hi - lo) * i as f64 / 20_000.0).exp();
+            let a = saturation_p_body::<false>(p);
+            // SAFETY: the features were detected above.
+            let b = unsafe { saturation_p_avx2(p) };
+            for k in 0..12 {
+                assert_eq!(a[k].to_bits(), b[k].to_bits(), "p = {p}, field {k}");
+            }
+            assert_eq!(t_sat_body::<false>(p).0.to_bits(), unsafe { t_sat_avx2(p) }.0.to_bits());
         }
     }
 
