@@ -39,3 +39,27 @@ pub fn level() -> u8 {
 pub fn set_cap(level: u8) -> u8 {
     CAP.swap(level.min(AVX512), Ordering::Relaxed)
 }
+
+/// `$vis fn $name($arg: $t) -> $r` running `$body::<true>` in a clone `$clone` compiled for AVX2 and
+/// FMA where [`level`] allows it, else `$body::<false>` (the const parameter tells the body whether it
+/// may use `mul_add` as one instruction). Written once for the entry points of `water`.
+macro_rules! fma_dispatch {
+    ($(#[$meta:meta])* $vis:vis fn $name:ident / $clone:ident ($arg:ident: $t:ty) -> $r:ty = $body:ident) => {
+        $(#[$meta])*
+        $vis fn $name($arg: $t) -> $r {
+            #[cfg(target_arch = "x86_64")]
+            if $crate::simd::level() >= $crate::simd::AVX2 {
+                // SAFETY: the CPU has the features the clone was compiled for.
+                return unsafe { $clone($arg) };
+            }
+            $body::<false>($arg)
+        }
+
+        #[cfg(target_arch = "x86_64")]
+        #[target_feature(enable = "avx2,fma")]
+        unsafe fn $clone($arg: $t) -> $r {
+            $body::<true>($arg)
+        }
+    };
+}
+pub(crate) use fma_dispatch;

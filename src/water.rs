@@ -66,6 +66,7 @@
 )]
 
 use crate::fastmath;
+use crate::simd::fma_dispatch;
 use std::f64::consts::PI;
 use std::sync::OnceLock;
 
@@ -340,18 +341,12 @@ fn rho_v_tau(tau: f64, c: f64) -> f64 {
 /// ln p started from the IAPWS-IF97 Eq. 31 backward equation, then polished to the double T whose p_sat(T)
 /// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [p_sat(T_TRIPLE), P_CRIT] or for NaN.
 pub fn t_sat(p: f64) -> f64 {
-    #[cfg(target_arch = "x86_64")]
-    if crate::simd::level() >= crate::simd::AVX2 {
-        // SAFETY: the CPU has the features the clone was compiled for.
-        return unsafe { t_sat_avx2(p) }.0;
-    }
-    t_sat_body::<false>(p).0
+    t_sat_with_p(p).0
 }
 
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2,fma")]
-unsafe fn t_sat_avx2(p: f64) -> (f64, f64) {
-    t_sat_body::<true>(p)
+fma_dispatch! {
+/// `(t_sat(p), p_sat(t_sat(p)))`.
+fn t_sat_with_p / t_sat_avx2 (p: f64) -> (f64, f64) = t_sat_body
 }
 
 /// `(t_sat(p), p_sat(t_sat(p)))`: the polish evaluates the second anyway. NaN twice outside the range.
@@ -1680,6 +1675,7 @@ fn newton_step(dp: f64, dpdrho: f64, rho: f64) -> f64 {
     }
 }
 
+fma_dispatch! {
 /// Saturated state at temperature `t` [K]: `[T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v]`
 /// (order in [`SAT_FIELDS`]), SI units (K, Pa, kg/m3, J/kg, N/m, J/(kg K), W/(m K), Pa s).
 ///
@@ -1699,19 +1695,7 @@ fn newton_step(dp: f64, dpdrho: f64, rho: f64) -> f64 {
 /// NaN in every field outside [T_TRIPLE, T_CRIT] or for NaN input. At exactly T = T_CRIT the fields are
 /// their critical limits: rho_l = rho_v = RHO_CRIT, h_lv = sigma = 0, and cp, k, mu are +infinity (all
 /// three diverge at the critical point; mu only weakly). See [`near_critical`] for where accuracy degrades.
-pub fn saturation_t(t: f64) -> [f64; 12] {
-    #[cfg(target_arch = "x86_64")]
-    if crate::simd::level() >= crate::simd::AVX2 {
-        // SAFETY: the CPU has the features the clone was compiled for.
-        return unsafe { saturation_t_avx2(t) };
-    }
-    saturation_t_body::<false>(t)
-}
-
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2,fma")]
-unsafe fn saturation_t_avx2(t: f64) -> [f64; 12] {
-    saturation_t_body::<true>(t)
+pub fn saturation_t / saturation_t_avx2 (t: f64) -> [f64; 12] = saturation_t_body
 }
 
 #[inline(always)]
@@ -1804,25 +1788,14 @@ fn enhancement_switches(t: f64) -> [f64; 4] {
     [dchi[0], dchi[1], xi(dchi[0]) - XI_SERIES_MAX, xi(dchi[1]) - XI_SERIES_MAX]
 }
 
+fma_dispatch! {
 /// Saturated state at pressure `p` [Pa]: `saturation_t(t_sat(p))`. The saturation temperature is the
 /// double T whose `p_sat(T)` (the same function `saturation_t` uses) is nearest to `p`, so
 /// `saturation_t(saturation_p(p)[0])[1]` reproduces `p` to within half the step of p_sat between two
 /// neighbouring doubles T: <= 2.1e-15 relative at the triple point, ~7e-16 near T_c (8 to 22 ulp of p per
 /// ulp of T is the resolution limit). For p = p_sat(T) the round trip returns exactly T.
 /// NaN in every field outside [p_sat(T_TRIPLE), P_CRIT] or for NaN input.
-pub fn saturation_p(p: f64) -> [f64; 12] {
-    #[cfg(target_arch = "x86_64")]
-    if crate::simd::level() >= crate::simd::AVX2 {
-        // SAFETY: the CPU has the features the clone was compiled for.
-        return unsafe { saturation_p_avx2(p) };
-    }
-    saturation_p_body::<false>(p)
-}
-
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2,fma")]
-unsafe fn saturation_p_avx2(p: f64) -> [f64; 12] {
-    saturation_p_body::<true>(p)
+pub fn saturation_p / saturation_p_avx2 (p: f64) -> [f64; 12] = saturation_p_body
 }
 
 /// `saturation_t(t_sat(p))`, reusing the p_sat(t) that the inversion's polish computed.
