@@ -52,6 +52,9 @@ pub struct Front {
     names: Vec<Py<PyString>>,
     /// Per parameter: its default, or None when it is required.
     defaults: Vec<Option<Py<PyAny>>>,
+    /// Per parameter: its default as a number, when it is a plain number
+    /// (read once here instead of at every call).
+    default_numbers: Vec<Option<f64>>,
     /// The Python function with the same signature that does everything else.
     fallback: Py<PyAny>,
     module: String,
@@ -135,9 +138,12 @@ impl Front {
                 slots[idx] = unsafe { *args.add(nargs + j) };
             }
         }
+        // parameters left to their defaults (bit i: parameter i)
+        let mut defaulted = 0u32;
         for (i, slot) in slots.iter_mut().enumerate().take(np) {
             if slot.is_null() {
                 *slot = self.defaults[i].as_ref()?.as_ptr();
+                defaulted |= 1 << i;
             }
         }
 
@@ -160,10 +166,17 @@ impl Front {
         for (k, &(ai, field)) in choice.plan.iter().enumerate() {
             // SAFETY: every slot up to np is a live borrowed reference (argument or default).
             let obj = unsafe { Borrowed::from_ptr(py, slots[ai]) };
-            x[k] = if field < 0 { plain_number(obj)? } else { self.fluid_field(obj, field as usize)? };
+            x[k] = match (field < 0, defaulted >> ai & 1 == 1) {
+                (true, true) => match self.default_numbers[ai] {
+                    Some(v) => v,
+                    None => plain_number(obj)?,
+                },
+                (true, false) => plain_number(obj)?,
+                (false, _) => self.fluid_field(obj, field as usize)?,
+            };
         }
         let mut y = [0.0f64; MAX_OUT];
-        let status = (e.scalar)(&x[..e.nin], &mut y[..e.nout]);
+        let status = (e.scalar)(&x, &mut y);
         if status != Status::Ok || y[..e.nout].iter().any(|v| v.is_nan()) {
             return None; // the fallback applies the element policy
         }
@@ -322,6 +335,7 @@ pub fn make_function<'py>(
         }
         built.push(Choice { key, entry, plan, output, result_type });
     }
+    let default_numbers = defaults.iter().map(|d| d.as_ref().and_then(|d| plain_number(d.bind(py).as_borrowed()))).collect();
     let front = Bound::new(
         py,
         Front {
@@ -329,6 +343,7 @@ pub fn make_function<'py>(
             selector,
             names: names.iter().map(|n| PyString::intern(py, n).unbind()).collect(),
             defaults,
+            default_numbers,
             fallback,
             module: module.clone(),
             cache: GilCell(std::cell::UnsafeCell::new(None)),

@@ -56,8 +56,10 @@ pub struct Entry {
     status_fn: LoopFn,
     /// Evaluate over a broadcast grid (see [`GridCall`]).
     pub grid: fn(&GridCall<'_>) -> [u64; 2],
-    /// Evaluate one element: `x.len() == nin`, `y.len() >= nout`.
-    pub scalar: fn(&[f64], &mut [f64]) -> Status,
+    /// Evaluate one element: the first `nin` entries of `x` in, the first
+    /// `nout` of `y` out (fixed-size arrays: no slicing or bounds checks on the
+    /// scalar fast path).
+    pub scalar: fn(&[f64; MAX_IN], &mut [f64; MAX_OUT]) -> Status,
     /// For kernels in product form ([`Factored`]): the side of each input,
     /// and the evaluation of one side's factors (see [`Sides`]).
     pub sides: Option<Sides>,
@@ -146,13 +148,11 @@ pub fn product_grid(call: &GridCall<'_>) -> [u64; 2] {
     grid_eval::<Product, 2, 1>(call)
 }
 
-fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64], y: &mut [f64]) -> Status {
-    // element-wise copies (a slice copy of runtime length would call memmove)
+fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; MAX_IN], y: &mut [f64; MAX_OUT]) -> Status {
+    // N <= MAX_IN and M <= MAX_OUT (checked in `entry`): constant indices, no bounds checks
     let xa: [f64; N] = std::array::from_fn(|k| x[k]);
     let (out, status) = evaluate::<K, N, M>(&xa);
-    for (slot, v) in y.iter_mut().zip(out) {
-        *slot = v;
-    }
+    y[..M].copy_from_slice(&out);
     status
 }
 
