@@ -360,4 +360,48 @@ mod tests {
         assert!(y[0].is_nan());
         assert_eq!(s, Status::Ok);
     }
+
+    /// Special values for the predicate truth tables: NaN, infinities, signed zeros, subnormals, extremes.
+    const SPECIAL: [f64; 11] =
+        [f64::NAN, f64::NEG_INFINITY, -1.0, -0.0, 0.0, 5e-324, 1e-300, 1.0, 2.5, 1e308, f64::INFINITY];
+
+    /// `all_positive!` has the truth table of the chains of `positive`/`non_negative` it replaces, and
+    /// `rho_l - rho_v` among its positive values that of `densities(rho_l, rho_v)` with rho_v after the
+    /// semicolon (or among the positive values, for the kernels that also require rho_v > 0).
+    #[test]
+    fn all_positive_truth_table() {
+        for &a in &SPECIAL {
+            for &b in &SPECIAL {
+                assert_eq!(crate::all_positive!(a, b), positive(a) & positive(b), "{a} {b}");
+                assert_eq!(crate::all_positive!(a; b), positive(a) & non_negative(b), "{a}; {b}");
+                for &c in &SPECIAL {
+                    assert_eq!(crate::all_positive!(a, b, c), positive(a) & positive(b) & positive(c), "{a} {b} {c}");
+                    assert_eq!(
+                        crate::all_positive!(a, b; c),
+                        positive(a) & positive(b) & non_negative(c),
+                        "{a} {b}; {c}"
+                    );
+                    // (sigma, rho_l, rho_v) as in capillary_possible and ki_fluid_possible
+                    let (sigma, rho_l, rho_v) = (a, b, c);
+                    assert_eq!(
+                        crate::all_positive!(sigma, rho_l - rho_v; rho_v),
+                        positive(sigma) & densities(rho_l, rho_v),
+                        "sigma {a} rho_l {b} rho_v {c}"
+                    );
+                    assert_eq!(
+                        crate::all_positive!(sigma, rho_v, rho_l - rho_v),
+                        positive(sigma) & densities(rho_l, rho_v) & positive(rho_v),
+                        "sigma {a} rho_l {b} rho_v {c}"
+                    );
+                    // (p, p_crit) as in cooper_possible
+                    let (p, p_crit) = (b, c);
+                    assert_eq!(
+                        crate::all_positive!(a, p, p_crit - p),
+                        positive(a) & positive(p) & positive(p_crit) & (p < p_crit),
+                        "{a} p {b} p_crit {c}"
+                    );
+                }
+            }
+        }
+    }
 }
