@@ -1,4 +1,4 @@
-//! `exp`, `ln`, `pow`, `cbrt` and `acos` as plain arithmetic: no libm calls and no
+//! `exp`, `exp_m1`, `ln`, `ln_1p`, `pow`, `cbrt`, `acos` and `asin` as plain arithmetic: no libm calls and no
 //! branches, so that a kernel using them still vectorises in the binding's
 //! block loops (a call to the platform's scalar `pow` or `acos` keeps the
 //! whole loop scalar, and NumPy's SIMD versions then win on long arrays).
@@ -6,15 +6,19 @@
 //! Special cases are handled by selects at the end; results are
 //! deterministic (the same bits on every x86-64 and with or without AVX2).
 //! Accuracy against the platform functions (tests below): `exp`, `ln`,
-//! `cbrt` and `acos` within 1 ulp; `pow(x, y) = exp(y ln x)` within about
+//! `cbrt`, `acos` and `asin` within 1 ulp, `exp_m1` and `ln_1p` within 2 ulp; `pow(x, y) = exp(y ln x)` within about
 //! `(1 + |y ln x|)` ulp, which for the exponents of boiling correlations
 //! (|y ln x| < 40) is below 1e-14 relative.
 //!
 //! Algorithms and coefficients: K.C. Ng et al., fdlibm 5.3 (Sun
 //! Microsystems, 1993; public domain), `e_exp.c` (Remez rational form of
 //! exp on |r| <= ln2/2), `e_log.c` (Remez polynomial in s = f/(2+f)) and
-//! `e_acos.c` (rational approximation of asin on [0, 0.25] with the
-//! half-angle reduction), here without their branches.
+//! `e_acos.c` and `e_asin.c` (rational approximation of asin on [0, 0.25]
+//! with the half-angle reduction), here without their branches.
+
+// The coefficients are fdlibm's, digit for digit as published (some spell
+// constants such as pi/2 split in two parts on purpose).
+#![allow(clippy::approx_constant, clippy::excessive_precision)]
 
 const LN2_HI: f64 = 6.931_471_803_691_238_164_90e-01; // low 21 bits zero: k * LN2_HI is exact
 const LN2_LO: f64 = 1.908_214_929_270_587_700_02e-10;
@@ -154,6 +158,33 @@ pub fn cbrt(x: f64) -> f64 {
     v.copysign(x)
 }
 
+/// The rational part of fdlibm's asin/acos: `r(z)` with
+/// `asin(x) = x + x r(x^2)` for |x| <= 0.5.
+#[inline(always)]
+fn asin_rational(z: f64) -> f64 {
+    // Estrin's scheme for both polynomials (see `exp`)
+    let z2 = z * z;
+    let z4 = z2 * z2;
+    let p = z * ((PS0 + z * PS1) + z2 * (PS2 + z * PS3) + z4 * (PS4 + z * PS5));
+    let q = (1.0 + z * QS1) + z2 * (QS2 + z * QS3) + z4 * QS4;
+    p / q
+}
+
+/// `(s, df, c)` for |x| >= 0.5: `s = sqrt(z)` with `z = (1 - |x|)/2`, `df` its
+/// high 26 bits and `c` the correction with `df + c = sqrt(z)` to double
+/// precision. z below 0 (|x| > 1, the caller's NaN) is taken as 0 and at
+/// z = 0 the correction is 0, without an invalid operation (a floating-point
+/// flag NumPy would report as a warning).
+#[inline(always)]
+fn half_angle_sqrt(z: f64) -> (f64, f64, f64) {
+    let z = z.max(0.0);
+    let s = z.sqrt();
+    let df = f64::from_bits(s.to_bits() & 0xffff_ffff_0000_0000);
+    // s + df >= s >= 1e-154 wherever z > 0: the floor only acts at z = 0
+    let c = (z - df * df) / (s + df).max(f64::MIN_POSITIVE);
+    (s, df, c)
+}
+
 /// Arc cosine [rad]; NaN outside [-1, 1].
 #[inline(always)]
 pub fn acos(x: f64) -> f64 {
@@ -161,19 +192,11 @@ pub fn acos(x: f64) -> f64 {
     let small = a < 0.5;
     // one rational evaluation: of z = x^2 (|x| < 0.5) or of z = (1 - |x|)/2
     let z = if small { x * x } else { (1.0 - a) * 0.5 };
-    // Estrin's scheme for both polynomials (see `exp`)
-    let z2 = z * z;
-    let z4 = z2 * z2;
-    let p = z * ((PS0 + z * PS1) + z2 * (PS2 + z * PS3) + z4 * (PS4 + z * PS5));
-    let q = (1.0 + z * QS1) + z2 * (QS2 + z * QS3) + z4 * QS4;
-    let r = p / q;
+    let r = asin_rational(z);
     // |x| < 0.5: pi/2 - asin(x)
     let v_small = PIO2_HI - (x - (PIO2_LO - x * r));
     // |x| >= 0.5: acos(|x|) = 2 asin(sqrt(z)), with sqrt(z) split for accuracy
-    let s = z.sqrt();
-    let df = f64::from_bits(s.to_bits() & 0xffff_ffff_0000_0000);
-    let c = (z - df * df) / (s + df);
-    let c = if s > 0.0 { c } else { 0.0 }; // |x| = 1: s = 0 and c = 0/0
+    let (s, df, c) = half_angle_sqrt(z);
     let v_pos = 2.0 * (df + (r * s + c));
     let v_neg = std::f64::consts::PI - 2.0 * (s + (r * s - PIO2_LO));
     let v = if small {
@@ -187,6 +210,84 @@ pub fn acos(x: f64) -> f64 {
         v
     } else {
         f64::NAN
+    }
+}
+
+/// Arc sine [rad]; NaN outside [-1, 1]. fdlibm's `e_asin.c` with its
+/// |x| >= 0.975 shortcut dropped (the split form below is as accurate there).
+#[inline(always)]
+pub fn asin(x: f64) -> f64 {
+    const PIO4_HI: f64 = 7.853_981_633_974_482_789_99e-01;
+    let a = x.abs();
+    let small = a < 0.5;
+    let z = if small { x * x } else { (1.0 - a) * 0.5 };
+    let r = asin_rational(z);
+    let v_small = x + x * r;
+    // |x| >= 0.5: asin(|x|) = pi/2 - 2 asin(sqrt(z)), in two halves of pi/4
+    let (s, df, c) = half_angle_sqrt(z);
+    let v_big = (PIO4_HI - ((2.0 * s * r - (PIO2_LO - 2.0 * c)) - (PIO4_HI - 2.0 * df))).copysign(x);
+    let v = if small { v_small } else { v_big };
+    if a <= 1.0 {
+        v
+    } else {
+        f64::NAN
+    }
+}
+
+/// `ln(1 + x)`, accurate also where x is small: `ln(u) x / (u - 1)` with
+/// `u = 1 + x` rounded (D. Goldberg, "What every computer scientist should
+/// know about floating-point arithmetic", ACM Comput. Surv. 23 (1991) 5-48,
+/// theorem 4: the quotient cancels the rounding of u), and x itself where u
+/// rounds to 1. NaN below -1, -inf at -1. Within 2 ulp.
+#[inline(always)]
+pub fn ln_1p(x: f64) -> f64 {
+    let u = 1.0 + x;
+    let v = ln(u) * (x / (u - 1.0));
+    if u == 1.0 {
+        x
+    } else if u == f64::INFINITY || u == 0.0 {
+        ln(u) // inf, or -inf at x = -1
+    } else {
+        v
+    }
+}
+
+/// `e^x - 1`, accurate also where it is small: the Taylor series to x^16 on
+/// |x| < 1/2 (truncation below 2e-18 relative), `exp(x) - 1` beyond (an exact
+/// subtraction there by Sterbenz's lemma down to x = -ln 2, then within
+/// 1 ulp of the result since |e^x - 1| >= 0.39). Within 2 ulp overall.
+#[inline(always)]
+pub fn exp_m1(x: f64) -> f64 {
+    const C: [f64; 15] = [
+        1.0 / 2.0,
+        1.0 / 6.0,
+        1.0 / 24.0,
+        1.0 / 120.0,
+        1.0 / 720.0,
+        1.0 / 5_040.0,
+        1.0 / 40_320.0,
+        1.0 / 362_880.0,
+        1.0 / 3_628_800.0,
+        1.0 / 39_916_800.0,
+        1.0 / 479_001_600.0,
+        1.0 / 6_227_020_800.0,
+        1.0 / 87_178_291_200.0,
+        1.0 / 1_307_674_368_000.0,
+        1.0 / 20_922_789_888_000.0,
+    ];
+    let x2 = x * x;
+    let x4 = x2 * x2;
+    let x8 = x4 * x4;
+    // Estrin's scheme for the coefficients of x^2 .. x^16
+    let lo = (C[0] + x * C[1]) + x2 * (C[2] + x * C[3]) + x4 * ((C[4] + x * C[5]) + x2 * (C[6] + x * C[7]));
+    let hi = (C[8] + x * C[9]) + x2 * (C[10] + x * C[11]) + x4 * ((C[12] + x * C[13]) + x2 * C[14]);
+    // (-0.0 + 0.0 would give +0.0: keep the sign of a zero argument)
+    let series = if x == 0.0 { x } else { x + x2 * (lo + x8 * hi) };
+    let direct = exp(x) - 1.0;
+    if x.abs() < 0.5 {
+        series
+    } else {
+        direct
     }
 }
 
@@ -323,5 +424,69 @@ mod tests {
         assert_eq!(acos(-1.0), std::f64::consts::PI);
         assert_eq!(acos(0.0), std::f64::consts::FRAC_PI_2);
         assert!(acos(1.0 + f64::EPSILON).is_nan() && acos(f64::NAN).is_nan());
+    }
+
+    #[test]
+    fn asin_within_one_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 9) {
+            let x = -1.0 + 2.0 * u;
+            worst = worst.max(ulps(asin(x), x.asin()));
+        }
+        for u in samples(100_000, 10) {
+            let x = 1.0 - 1e-6 * u; // near the ends
+            worst = worst.max(ulps(asin(x), x.asin())).max(ulps(asin(-x), (-x).asin()));
+            let t = 1e-300 * (1.0 + u); // tiny: asin(x) = x
+            assert_eq!(asin(t), t);
+        }
+        assert!(worst <= 1, "asin worst {worst} ulp");
+        assert_eq!(asin(1.0), std::f64::consts::FRAC_PI_2);
+        assert_eq!(asin(-1.0), -std::f64::consts::FRAC_PI_2);
+        assert_eq!(asin(0.0).to_bits(), 0.0f64.to_bits());
+        assert_eq!(asin(-0.0).to_bits(), (-0.0f64).to_bits());
+        assert!(asin(1.0 + f64::EPSILON).is_nan() && asin(f64::NAN).is_nan());
+    }
+
+    #[test]
+    fn exp_m1_within_two_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 11) {
+            let x = -40.0 + 750.0 * u;
+            let b = x.exp_m1();
+            if b.is_finite() {
+                worst = worst.max(ulps(exp_m1(x), b));
+            }
+        }
+        for u in samples(1_000_000, 12) {
+            // log-uniform magnitudes 1e-300..2, both signs: the series and the switch at 1/2
+            let x = 10f64.powf(-300.0 + 300.3 * u) * if u > 0.5 { 1.0 } else { -1.0 };
+            worst = worst.max(ulps(exp_m1(x), x.exp_m1()));
+        }
+        assert!(worst <= 2, "exp_m1 worst {worst} ulp");
+        assert_eq!(exp_m1(0.0).to_bits(), 0.0f64.to_bits());
+        assert_eq!(exp_m1(-0.0).to_bits(), (-0.0f64).to_bits());
+        assert_eq!(exp_m1(-800.0), -1.0);
+        assert_eq!(exp_m1(f64::NEG_INFINITY), -1.0);
+        assert_eq!(exp_m1(710.0), f64::INFINITY);
+        assert!(exp_m1(f64::NAN).is_nan());
+    }
+
+    #[test]
+    fn ln_1p_within_two_ulp() {
+        let mut worst = 0;
+        for u in samples(1_000_000, 13) {
+            // log-uniform magnitudes 1e-300..1e300 above zero, and (-1, 0)
+            let x = 10f64.powf(-300.0 + 600.0 * u);
+            worst = worst.max(ulps(ln_1p(x), x.ln_1p()));
+            let y = -(10f64.powf(-300.0 + 300.0 * u)).min(1.0 - f64::EPSILON);
+            worst = worst.max(ulps(ln_1p(y), y.ln_1p()));
+        }
+        assert!(worst <= 2, "ln_1p worst {worst} ulp");
+        assert_eq!(ln_1p(0.0).to_bits(), 0.0f64.to_bits());
+        assert_eq!(ln_1p(-0.0).to_bits(), (-0.0f64).to_bits());
+        assert_eq!(ln_1p(-1.0), f64::NEG_INFINITY);
+        assert_eq!(ln_1p(f64::INFINITY), f64::INFINITY);
+        assert_eq!(ln_1p(f64::MAX), f64::MAX.ln());
+        assert!(ln_1p(-1.5).is_nan() && ln_1p(f64::NAN).is_nan());
     }
 }
