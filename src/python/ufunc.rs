@@ -15,7 +15,7 @@ use pyo3::prelude::*;
 use rayon::prelude::*;
 
 use super::threads;
-use crate::model::{classify, classify_side, evaluate, settle, Factored, Kernel, Model, Status};
+use crate::model::{classify, classify_side, evaluate, Factored, Kernel, Model, Status};
 use crate::simd;
 
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
@@ -351,27 +351,47 @@ unsafe fn stream_block(src: *const f64, dst: *mut f64) {
 /// the gather and scatter, small enough that `N + M` blocks stay in L1.
 const BLOCK: usize = 64;
 
-/// Settle a block element by element (some output is NaN: find out whether
-/// the input was missing, impossible or out of range).
+/// Settle a block in which some output is NaN: find out, for every element,
+/// whether its input was missing, impossible or out of range, and blank the
+/// outputs of impossible ones. The same decisions as [`crate::model::settle`] per element,
+/// written without branches over the whole block (the tail repeats the first
+/// element and is masked out of the counts) so that it vectorises like the
+/// kernel itself: sweeps that cross a model's "no answer" region put a NaN in
+/// most blocks, and an element-by-element pass there cost more than the
+/// kernel (a range check that recomputes the result, a scalar libm call).
+///
+/// Per element, with `y_nan`/`x_nan` "some output/input is NaN":
+/// invalid = y_nan & !x_nan & !possible;
+/// out of range = !in_range & (!y_nan | (!x_nan & possible)).
 #[inline(always)]
 fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize>(
     at: impl Fn(usize) -> [f64; N],
     yb: &mut [[f64; BLOCK]; M],
     len: usize,
-    mut counts: [u64; 2],
+    counts: [u64; 2],
 ) -> [u64; 2] {
-    for j in 0..len {
-        let (y, status) = settle::<K, N, M>(&at(j), std::array::from_fn(|k| yb[k][j]));
-        for k in 0..M {
-            yb[k][j] = y[k];
+    let (mut invalid, mut out_of_range) = (0u64, 0u64);
+    for j in 0..BLOCK {
+        let x = at(j);
+        let mut y_nan = false;
+        for column in yb.iter() {
+            y_nan |= column[j].is_nan();
         }
-        match status {
-            Status::Ok => {}
-            Status::Invalid => counts[0] += 1,
-            Status::OutOfRange => counts[1] += 1,
+        let mut x_nan = false;
+        for v in x {
+            x_nan |= v.is_nan();
         }
+        let possible = K::possible(&x);
+        let in_range = K::in_range(&x);
+        let live = j < len;
+        let blank = y_nan & !x_nan & !possible;
+        for column in yb.iter_mut() {
+            column[j] = if blank { f64::NAN } else { column[j] };
+        }
+        invalid += (blank & live) as u64;
+        out_of_range += (!in_range & (!y_nan | (!x_nan & possible)) & live) as u64;
     }
-    counts
+    [counts[0] + invalid, counts[1] + out_of_range]
 }
 
 /// Below this many elements a call runs on the calling thread only.
@@ -395,6 +415,7 @@ unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>
 ) {
     // Nothing may unwind into NumPy's C code: a panic (none is expected, the
     // kernels are panic-free) is caught, its elements counted as invalid.
+    let flags = fp_flags::save();
     let result = catch_unwind(AssertUnwindSafe(|| unsafe {
         let n = *dimensions as isize;
         let mut op = Operands::<N, M> {
@@ -422,6 +443,7 @@ unsafe extern "C" fn ufunc_loop<K: Kernel<N, M>, const N: usize, const M: usize>
     if result.is_err() {
         add_counts([unsafe { *dimensions } as u64, 0]);
     }
+    fp_flags::restore(flags);
 }
 
 /// True when an input shares memory with an output without being exactly the
@@ -535,6 +557,7 @@ unsafe extern "C" fn status_loop<K: Kernel<N, M>, const N: usize, const M: usize
     steps: *mut npy_intp,
     _data: *mut c_void,
 ) {
+    let flags = fp_flags::save();
     let _ = catch_unwind(AssertUnwindSafe(|| unsafe {
         let n = *dimensions as isize;
         let out = *args.add(N) as *mut i8;
@@ -547,6 +570,75 @@ unsafe extern "C" fn status_loop<K: Kernel<N, M>, const N: usize, const M: usize
             ((out as *mut u8).offset(i * out_step) as *mut i8).write_unaligned(classify::<K, N, M>(&x));
         }
     }));
+    fp_flags::restore(flags);
+}
+
+/// The floating-point exception flags of the calling thread, saved before an
+/// inner loop and put back after it.
+///
+/// NumPy clears these flags before a ufunc call and reports the ones set after
+/// it as RuntimeWarnings ("invalid value encountered"). Our kernels compute
+/// branch-free and select their answer at the end, so the discarded side of a
+/// select (a square root of a negative where the model has no answer, a
+/// division by a zero superheat whose answer is 0) can raise a flag for input
+/// that is perfectly valid; the compiler may also evaluate both sides of a
+/// select. What a ufunc has to say about its elements it says through NaN and
+/// the validity counts (the element policy), so the loops leave the flags as
+/// they found them: flags NumPy's own casting raised before the loop stay.
+/// (Worker threads' flags never reached the caller anyway; this makes the
+/// calling thread's part behave the same.)
+mod fp_flags {
+    /// The flags now.
+    #[inline]
+    pub fn save() -> u32 {
+        #[cfg(target_arch = "x86_64")]
+        {
+            let mut csr: u32 = 0;
+            // SAFETY: stores MXCSR into a local.
+            unsafe { std::arch::asm!("stmxcsr [{}]", in(reg) &mut csr, options(nostack, preserves_flags)) };
+            csr & 0x3f
+        }
+        #[cfg(target_arch = "aarch64")]
+        {
+            let fpsr: u64;
+            // SAFETY: reads FPSR.
+            unsafe { std::arch::asm!("mrs {}, fpsr", out(reg) fpsr, options(nomem, nostack, preserves_flags)) };
+            (fpsr & 0x9f) as u32
+        }
+        #[cfg(not(any(target_arch = "x86_64", target_arch = "aarch64")))]
+        {
+            0
+        }
+    }
+
+    /// Put the flags back to `saved` (the control bits are left alone).
+    #[inline]
+    pub fn restore(saved: u32) {
+        #[cfg(target_arch = "x86_64")]
+        {
+            let mut csr: u32 = 0;
+            // SAFETY: reads MXCSR, then writes it back with only its six
+            // exception-flag bits (0-5) replaced.
+            unsafe {
+                std::arch::asm!("stmxcsr [{}]", in(reg) &mut csr, options(nostack, preserves_flags));
+                csr = (csr & !0x3f) | (saved & 0x3f);
+                std::arch::asm!("ldmxcsr [{}]", in(reg) &csr, options(nostack, preserves_flags, readonly));
+            }
+        }
+        #[cfg(target_arch = "aarch64")]
+        {
+            let mut fpsr: u64;
+            // SAFETY: reads FPSR and writes it back with only its cumulative
+            // exception bits (IOC, DZC, OFC, UFC, IXC, IDC) replaced.
+            unsafe {
+                std::arch::asm!("mrs {}, fpsr", out(reg) fpsr, options(nomem, nostack, preserves_flags));
+                fpsr = (fpsr & !0x9f) | (saved as u64 & 0x9f);
+                std::arch::asm!("msr fpsr, {}", in(reg) fpsr, options(nomem, nostack, preserves_flags));
+            }
+        }
+        #[cfg(not(any(target_arch = "x86_64", target_arch = "aarch64")))]
+        let _ = saved;
+    }
 }
 
 /// Split `0..n` into chunks evaluated on the wetboil thread pool.
