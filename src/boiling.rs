@@ -9,7 +9,7 @@
 
 use crate::fastmath;
 use crate::all_positive;
-use crate::model::{arg, densities, nan_unless, non_negative, positive, Kernel, Model};
+use crate::model::{arg, densities, nan_unless, nans_unless, Kernel, Model};
 use std::f64::consts::PI;
 
 // ---------------------------------------------------------------------------
@@ -156,9 +156,11 @@ impl Kernel<11, 1> for Rohsenow {
     fn eval(x: &[f64; 11]) -> [f64; 1] {
         [rohsenow(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 11]) -> bool {
         rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 11]) -> bool {
         rohsenow_in_range(x)
     }
@@ -183,9 +185,11 @@ impl Kernel<11, 1> for RohsenowSuperheat {
     fn eval(x: &[f64; 11]) -> [f64; 1] {
         [rohsenow_superheat(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 11]) -> bool {
         rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 11]) -> bool {
         rohsenow_in_range(x)
     }
@@ -294,9 +298,11 @@ impl Kernel<5, 1> for Cooper {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [cooper(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         cooper_possible(x[0], x[1], x[2], x[3], x[4])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
         cooper_in_range(x)
     }
@@ -327,9 +333,11 @@ impl Kernel<5, 1> for CooperSuperheat {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [cooper_superheat(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         cooper_possible(x[0], x[1], x[2], x[3], x[4])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
         cooper_in_range(x)
     }
@@ -373,7 +381,7 @@ pub const RPI_WAITING_FRACTION: f64 = 0.8;
 /// Jerusalem (1990) vol. 2, 21-26 (pages from memory); N. Kurul, M.Z. Podowski,
 /// "On the modeling of multidimensional effects in boiling channels", ANS
 /// Proc. National Heat Transfer Conf., Minneapolis (1991) 30-40.
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn rpi_partition(
     site_density: f64,
@@ -389,9 +397,7 @@ pub fn rpi_partition(
     k_l: f64,
     cp_l: f64,
 ) -> [f64; 5] {
-    if !rpi_possible(&[site_density, diameter, frequency, superheat, subcooling, h_c, area_factor, rho_l, rho_v, h_lv, k_l, cp_l]) {
-        return [f64::NAN; 5];
-    }
+    let ok = rpi_possible(&[site_density, diameter, frequency, superheat, subcooling, h_c, area_factor, rho_l, rho_v, h_lv, k_l, cp_l]);
     let dt = superheat + subcooling;
     let evaporation = site_density * frequency * (PI * diameter * diameter * diameter / 6.0) * rho_v * h_lv;
     let area = (area_factor * site_density * PI * diameter * diameter / 4.0).min(1.0);
@@ -400,23 +406,12 @@ pub fn rpi_partition(
     let h_q = 2.0 * k_l * frequency * (t_w / (PI * alpha)).sqrt();
     let quenching = area * h_q * dt;
     let convection = h_c * (1.0 - area) * dt;
-    [evaporation, quenching, convection, evaporation + quenching + convection, area]
+    nans_unless(ok, [evaporation, quenching, convection, evaporation + quenching + convection, area])
 }
 
 #[inline(always)]
 fn rpi_possible(x: &[f64; 12]) -> bool {
-    non_negative(x[0])
-        && positive(x[1])
-        && positive(x[2])
-        && non_negative(x[3])
-        && non_negative(x[4])
-        && non_negative(x[5])
-        && positive(x[6])
-        && densities(x[7], x[8])
-        && positive(x[8])
-        && positive(x[9])
-        && positive(x[10])
-        && positive(x[11])
+    all_positive!(x[1], x[2], x[6], x[8], x[9], x[10], x[11]; x[0], x[3], x[4], x[5]) & densities(x[7], x[8])
 }
 
 /// Kernel of [`rpi_partition`].
@@ -461,9 +456,11 @@ impl Kernel<12, 5> for RpiPartition {
     fn eval(x: &[f64; 12]) -> [f64; 5] {
         rpi_partition(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10], x[11])
     }
+    #[inline(always)]
     fn possible(x: &[f64; 12]) -> bool {
         rpi_possible(x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 12]) -> bool {
         x[6] * x[0] * PI * x[1] * x[1] / 4.0 <= 1.0
     }
@@ -482,7 +479,7 @@ impl Kernel<12, 5> for RpiPartition {
 /// Reference: V.I. Tolubinsky, D.M. Kostanchuk, "Vapour bubbles growth rate
 /// and heat transfer intensity at subcooled water boiling", Proc. 4th Int.
 /// Heat Transfer Conf., Paris (1970) vol. 5, paper B-2.8 (from memory).
-#[inline]
+#[inline(always)]
 pub fn tolubinsky_kostanchuk(subcooling: f64) -> f64 {
     if !subcooling.is_finite() {
         return f64::NAN;
@@ -510,9 +507,11 @@ impl Kernel<1, 1> for TolubinskyKostanchuk {
     fn eval(x: &[f64; 1]) -> [f64; 1] {
         [tolubinsky_kostanchuk(x[0])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
         x[0].is_finite()
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 1]) -> bool {
         (0.0..=60.0).contains(&x[0])
     }
@@ -535,12 +534,12 @@ impl Kernel<1, 1> for TolubinskyKostanchuk {
 /// Reference: J.R. Lloyd, W.R. Moran, "Natural convection adjacent to
 /// horizontal surface of various planforms", J. Heat Transfer 96 (1974)
 /// 443-447, doi:10.1115/1.3450224 (DOI from memory).
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn natural_convection(superheat: f64, length: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: f64, mu_l: f64, g: f64) -> f64 {
     let ok = natural_possible(&[superheat, length, beta, k_l, rho_l, cp_l, mu_l, g]);
     let ra = rayleigh(superheat, length, beta, k_l, rho_l, cp_l, mu_l, g);
-    let nu = if ra <= 1e7 { 0.54 * ra.sqrt().sqrt() } else { 0.15 * ra.cbrt() };
+    let nu = if ra <= 1e7 { 0.54 * ra.sqrt().sqrt() } else { 0.15 * fastmath::cbrt(ra) };
     nan_unless(ok, nu * k_l / length * superheat)
 }
 
@@ -552,7 +551,7 @@ fn rayleigh(superheat: f64, length: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: 
 
 #[inline(always)]
 fn natural_possible(x: &[f64; 8]) -> bool {
-    non_negative(x[0]) && x[1..].iter().all(|&v| positive(v))
+    all_positive!(x[1], x[2], x[3], x[4], x[5], x[6], x[7]; x[0])
 }
 
 /// Kernel of [`natural_convection`].
@@ -584,9 +583,11 @@ impl Kernel<8, 1> for NaturalConvection {
     fn eval(x: &[f64; 8]) -> [f64; 1] {
         [natural_convection(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 8]) -> bool {
         natural_possible(x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 8]) -> bool {
         let ra = rayleigh(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7]);
         x[0] == 0.0 || (1e4..=1e11).contains(&ra)
@@ -618,7 +619,7 @@ pub const BERENSON_PLATE: f64 = 0.425;
 /// References: L.A. Bromley, "Heat transfer in stable film boiling", Chem.
 /// Eng. Prog. 46 (1950) 221-227 (from memory); P.J. Berenson, J. Heat
 /// Transfer 83 (1961) 351-358.
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn film_boiling(
     superheat: f64,
@@ -641,17 +642,7 @@ pub fn film_boiling(
 
 #[inline(always)]
 fn film_possible(x: &[f64; 11]) -> bool {
-    positive(x[0])
-        && positive(x[1])
-        && positive(x[2])
-        && non_negative(x[3])
-        && positive(x[4])
-        && positive(x[5])
-        && densities(x[6], x[7])
-        && positive(x[7])
-        && positive(x[8])
-        && positive(x[9])
-        && positive(x[10])
+    all_positive!(x[0], x[1], x[2], x[4], x[5], x[7], x[8], x[9], x[10]; x[3]) & densities(x[6], x[7])
 }
 
 /// Kernel of [`film_boiling`].
@@ -687,6 +678,7 @@ impl Kernel<11, 1> for FilmBoiling {
     fn eval(x: &[f64; 11]) -> [f64; 1] {
         [film_boiling(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 11]) -> bool {
         film_possible(x)
     }

@@ -64,6 +64,7 @@ impl Kernel<6, 4> for WaterScreening {
     fn eval(x: &[f64; 6]) -> [f64; 4] {
         water_screening(x[0], x[1], x[2], x[3], x[4], x[5])
     }
+    #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         !water::t_sat(x[0]).is_nan()
             && angle_deg(x[1])
@@ -73,6 +74,7 @@ impl Kernel<6, 4> for WaterScreening {
             && x[4].is_finite()
             && positive(x[5])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
         x[0] <= water::P_NEAR_CRITICAL && x[1] <= 90.0 && x[3] <= 90.0
     }

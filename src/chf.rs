@@ -1,6 +1,7 @@
 //! Critical heat flux (maximum of the nucleate boiling curve).
 
 use crate::all_positive;
+use crate::fastmath;
 use crate::model::{angle_deg, arg, densities, nan_unless, positive, Factored, Kernel, Model};
 use crate::trig::cos_deg;
 use std::f64::consts::PI;
@@ -58,9 +59,11 @@ impl Kernel<6, 1> for Zuber {
     fn eval(x: &[f64; 6]) -> [f64; 1] {
         [zuber(x[0], x[1], x[2], x[3], x[4], x[5])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         positive(x[0]) && densities(x[1], x[2]) && positive(x[2]) && positive(x[3]) && positive(x[4]) && positive(x[5])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
         (0.10..=0.20).contains(&x[4])
     }
@@ -133,9 +136,11 @@ impl Kernel<7, 1> for Kandlikar {
     fn eval(x: &[f64; 7]) -> [f64; 1] {
         [kandlikar(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 7]) -> bool {
         Self::side_possible(0, x) && Self::side_possible(1, x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 7]) -> bool {
         Self::side_in_range(0, x)
     }
@@ -146,6 +151,7 @@ impl Factored<7, 1> for Kandlikar {
     fn factor(s: u8, x: &[f64; 7]) -> [f64; 1] {
         [if s == 0 { kandlikar_angle_factor(x[0], x[1]) } else { hydrodynamic_group(x[2], x[3], x[4], x[5], x[6]) }]
     }
+    #[inline(always)]
     fn side_possible(s: u8, x: &[f64; 7]) -> bool {
         if s == 0 {
             angle_deg(x[0]) & angle_deg(x[1])
@@ -153,6 +159,7 @@ impl Factored<7, 1> for Kandlikar {
             scale_possible(x[2], x[3], x[4], x[5], x[6])
         }
     }
+    #[inline(always)]
     fn side_in_range(s: u8, x: &[f64; 7]) -> bool {
         s != 0 || x[1] <= 90.0
     }
@@ -238,7 +245,7 @@ fn geometry_code(x: f64) -> Option<u8> {
 /// 152-158, doi:10.1115/1.3450013; K.H. Sun, J.H. Lienhard, "The peak pool
 /// boiling heat flux on horizontal cylinders", Int. J. Heat Mass Transfer 13
 /// (1970) 1425-1439.
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn lienhard_dhir(
     geometry: f64,
@@ -251,28 +258,29 @@ pub fn lienhard_dhir(
     sigma: f64,
     g: f64,
 ) -> f64 {
-    let code = match geometry_code(geometry) {
-        Some(c) => c,
-        None => return f64::NAN,
-    };
-    if !(positive(size) && positive(area) && positive(small_plate) && scale_possible(h_lv, rho_l, rho_v, sigma, g)) {
-        return f64::NAN;
-    }
+    let ok = all_positive!(size, area, small_plate) & scale_possible(h_lv, rho_l, rho_v, sigma, g);
     let scale = chf_scale(h_lv, rho_l, rho_v, sigma, g);
     let l_prime = size * (g * (rho_l - rho_v) / sigma).sqrt();
-    match code {
-        0 => LIENHARD_DHIR_K * scale,
-        1 => small_plate * sigma / (g * (rho_l - rho_v) * area) * scale,
-        2 => ZUBER_K * (0.89 + 2.27 * (-3.44 * l_prime.sqrt()).exp()) * scale,
-        _ => {
-            let f = if l_prime >= 4.26 { 0.84 } else { 1.734 / l_prime.sqrt() };
-            ZUBER_K * f * scale
-        }
-    }
+    // every geometry's factor, then a select: no branch, so array loops vectorise
+    let small = small_plate * sigma / (g * (rho_l - rho_v) * area);
+    let cylinder = ZUBER_K * (0.89 + 2.27 * fastmath::exp(-3.44 * l_prime.sqrt()));
+    let sphere = ZUBER_K * if l_prime >= 4.26 { 0.84 } else { 1.734 / l_prime.sqrt() };
+    let factor = if geometry == GEOMETRY_FLAT_PLATE {
+        LIENHARD_DHIR_K
+    } else if geometry == GEOMETRY_SMALL_FLAT_PLATE {
+        small
+    } else if geometry == GEOMETRY_CYLINDER {
+        cylinder
+    } else if geometry == GEOMETRY_SPHERE {
+        sphere
+    } else {
+        f64::NAN
+    };
+    nan_unless(ok, factor * scale)
 }
 
 /// Dimensionless size `L' = L [g (ρ_l − ρ_v)/σ]^(1/2)` of [`lienhard_dhir`].
-#[inline]
+#[inline(always)]
 pub fn dimensionless_size(size: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
     size * (g * (rho_l - rho_v) / sigma).sqrt()
 }
@@ -308,6 +316,7 @@ impl Kernel<9, 1> for LienhardDhir {
     fn eval(x: &[f64; 9]) -> [f64; 1] {
         [lienhard_dhir(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 9]) -> bool {
         geometry_code(x[0]).is_some()
             && positive(x[1])
@@ -315,6 +324,7 @@ impl Kernel<9, 1> for LienhardDhir {
             && positive(x[3])
             && scale_possible(x[4], x[5], x[6], x[7], x[8])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 9]) -> bool {
         let lp = dimensionless_size(x[1], x[5], x[6], x[7], x[8]);
         match geometry_code(x[0]) {
@@ -383,9 +393,11 @@ impl Kernel<6, 1> for MinimumHeatFlux {
     fn eval(x: &[f64; 6]) -> [f64; 1] {
         [minimum_heat_flux(x[0], x[1], x[2], x[3], x[4], x[5])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         positive(x[0]) && scale_possible(x[1], x[2], x[3], x[4], x[5])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
         (0.05..=0.20).contains(&x[0])
     }

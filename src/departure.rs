@@ -88,9 +88,11 @@ impl Kernel<5, 1> for Fritz {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [fritz(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         Self::side_possible(0, x) && Self::side_possible(1, x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
         Self::side_in_range(0, x)
     }
@@ -101,6 +103,7 @@ impl Factored<5, 1> for Fritz {
     fn factor(s: u8, x: &[f64; 5]) -> [f64; 1] {
         [if s == 0 { fritz_angle_factor(x[0]) } else { capillary_length(x[1], x[2], x[3], x[4]) }]
     }
+    #[inline(always)]
     fn side_possible(s: u8, x: &[f64; 5]) -> bool {
         if s == 0 {
             angle_deg(x[0])
@@ -108,6 +111,7 @@ impl Factored<5, 1> for Fritz {
             capillary_possible(x[1], x[2], x[3], x[4])
         }
     }
+    #[inline(always)]
     fn side_in_range(s: u8, x: &[f64; 5]) -> bool {
         s != 0 || x[0] <= 90.0
     }
@@ -186,6 +190,7 @@ impl Kernel<8, 1> for ColeRohsenow {
     fn eval(x: &[f64; 8]) -> [f64; 1] {
         [cole_rohsenow(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 8]) -> bool {
         cole_rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])
     }
@@ -271,9 +276,11 @@ impl Kernel<5, 1> for KocamustafaogullariIshii {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [kocamustafaogullari_ishii(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         Self::side_possible(0, x) && Self::side_possible(1, x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
         Self::side_in_range(0, x)
     }
@@ -284,6 +291,7 @@ impl Factored<5, 1> for KocamustafaogullariIshii {
     fn factor(s: u8, x: &[f64; 5]) -> [f64; 1] {
         [if s == 0 { ki_angle_factor(x[0]) } else { ki_fluid_factor(x[1], x[2], x[3], x[4]) }]
     }
+    #[inline(always)]
     fn side_possible(s: u8, x: &[f64; 5]) -> bool {
         if s == 0 {
             angle_deg(x[0])
@@ -291,6 +299,7 @@ impl Factored<5, 1> for KocamustafaogullariIshii {
             ki_fluid_possible(x[1], x[2], x[3], x[4])
         }
     }
+    #[inline(always)]
     fn side_in_range(s: u8, x: &[f64; 5]) -> bool {
         s != 0 || x[0] <= 90.0
     }
@@ -827,9 +836,11 @@ impl Kernel<17, 5> for ForceBalance {
     fn eval(x: &[f64; 17]) -> [f64; 5] {
         force_balance_array(x)
     }
+    #[inline(always)]
     fn possible(x: &[f64; 17]) -> bool {
         force_balance_possible(x)
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 17]) -> bool {
         x[11] <= 90.0
     }
@@ -897,6 +908,7 @@ impl Kernel<5, 1> for ColeFrequency {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [cole_frequency(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         freq_possible(x[0], x[1], x[2], x[4]) && positive(x[3])
     }
@@ -952,6 +964,7 @@ impl Kernel<6, 1> for ZuberFrequency {
     fn eval(x: &[f64; 6]) -> [f64; 1] {
         [zuber_frequency(x[0], x[1], x[2], x[3], x[4], x[5])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         freq_possible(x[0], x[2], x[3], x[5]) && positive(x[1]) && positive(x[4])
     }
@@ -1019,6 +1032,7 @@ impl Kernel<2, 1> for IveyHydrodynamicFrequency {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [ivey_hydrodynamic_frequency(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         positive(x[0]) && positive(x[1])
     }
@@ -1043,6 +1057,7 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [ivey_transition_frequency(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         positive(x[0]) && positive(x[1])
     }
@@ -1080,7 +1095,7 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
 /// C.-Y. Han, P. Griffith, "The mechanism of heat transfer in nucleate pool
 /// boiling - Part I", Int. J. Heat Mass Transfer 8 (1965) 887-904,
 /// doi:10.1016/0017-9310(65)90073-2 (DOI from memory).
-#[inline]
+#[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn waiting_time(
     cavity_radius: f64,
@@ -1095,31 +1110,17 @@ pub fn waiting_time(
     cp_l: f64,
 ) -> f64 {
     let x = [cavity_radius, wall_superheat, subcooling, sigma, t_sat, rho_l, rho_v, h_lv, k_l, cp_l];
-    if !waiting_possible(&x) {
-        return f64::NAN;
-    }
     let de = crate::nucleation::embryo_superheat(cavity_radius, sigma, t_sat, rho_l, rho_v, h_lv);
     let margin = wall_superheat - de;
-    if margin.is_nan() || margin <= 0.0 {
-        return f64::NAN;
-    }
     let alpha = k_l / (rho_l * cp_l);
     let q = (wall_superheat + subcooling) / margin;
-    9.0 * cavity_radius * cavity_radius / (4.0 * PI * alpha) * q * q
+    // no waiting time (the cavity never activates) unless the wall superheat exceeds the embryo's
+    nan_unless(waiting_possible(&x) & (margin > 0.0), 9.0 * cavity_radius * cavity_radius / (4.0 * PI * alpha) * q * q)
 }
 
 #[inline(always)]
 fn waiting_possible(x: &[f64; 10]) -> bool {
-    positive(x[0])
-        && non_negative(x[1])
-        && non_negative(x[2])
-        && positive(x[3])
-        && positive(x[4])
-        && densities(x[5], x[6])
-        && positive(x[6])
-        && positive(x[7])
-        && positive(x[8])
-        && positive(x[9])
+    all_positive!(x[0], x[3], x[4], x[6], x[7], x[8], x[9]; x[1], x[2]) & densities(x[5], x[6])
 }
 
 /// Kernel of [`waiting_time`].
@@ -1153,6 +1154,7 @@ impl Kernel<10, 1> for WaitingTime {
     fn eval(x: &[f64; 10]) -> [f64; 1] {
         [waiting_time(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 10]) -> bool {
         waiting_possible(x)
     }

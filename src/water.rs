@@ -1895,9 +1895,11 @@ impl crate::model::Kernel<1, 12> for SaturationT {
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_t(x[0])
     }
+    #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
         x[0] >= T_TRIPLE && x[0] <= T_CRIT
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 1]) -> bool {
         !near_critical(x[0])
     }
@@ -1922,9 +1924,11 @@ impl crate::model::Kernel<1, 12> for SaturationP {
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_p(x[0])
     }
+    #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
         !t_sat(x[0]).is_nan()
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 1]) -> bool {
         x[0] <= P_NEAR_CRITICAL
     }

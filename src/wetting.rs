@@ -84,6 +84,7 @@ impl Kernel<3, 1> for YoungAngle {
     fn eval(x: &[f64; 3]) -> [f64; 1] {
         [young_angle(x[0], x[1], x[2])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
         young_tensions(x[0], x[1], x[2])
     }
@@ -128,6 +129,7 @@ impl Kernel<3, 1> for SpreadingCoefficient {
     fn eval(x: &[f64; 3]) -> [f64; 1] {
         [spreading_coefficient(x[0], x[1], x[2])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
         young_tensions(x[0], x[1], x[2])
     }
@@ -169,6 +171,7 @@ impl Kernel<2, 1> for AdhesionWork {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [adhesion_work(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         positive(x[0]) && angle_deg(x[1])
     }
@@ -218,9 +221,11 @@ impl Kernel<3, 1> for GirifalcoGood {
     fn eval(x: &[f64; 3]) -> [f64; 1] {
         [interfacial_tension(x[0], x[1], x[2])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
         non_negative(x[0]) && non_negative(x[1]) && non_negative(x[2])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 3]) -> bool {
         (0.5..=1.1).contains(&x[2])
     }
@@ -287,6 +292,7 @@ impl Kernel<4, 1> for OwrkAngle {
     fn eval(x: &[f64; 4]) -> [f64; 1] {
         [owrk_angle(x[0], x[1], x[2], x[3])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 4]) -> bool {
         owrk_possible(x[0], x[1], x[2], x[3])
     }
@@ -342,9 +348,11 @@ impl Kernel<2, 1> for Wenzel {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [wenzel(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         wenzel_possible(x[0], x[1])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 2]) -> bool {
         (x[1] * cos_deg(x[0])).abs() <= 1.0
     }
@@ -406,9 +414,11 @@ impl Kernel<3, 1> for CassieBaxter {
     fn eval(x: &[f64; 3]) -> [f64; 1] {
         [cassie_baxter(x[0], x[1], x[2])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
         cassie_possible(x[0], x[1], x[2])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 3]) -> bool {
         cassie_cos(x[0], x[1], x[2]).abs() <= 1.0
     }
@@ -472,6 +482,7 @@ impl Kernel<5, 1> for RetentionForce {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [retention_force(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         hysteresis_possible(x[0], x[1], x[2], x[3], x[4])
     }
@@ -494,15 +505,10 @@ impl Kernel<5, 1> for RetentionForce {
 /// References: as [`retention_force`].
 #[inline(always)]
 pub fn sliding_angle(mass: f64, sigma_lv: f64, advancing_deg: f64, receding_deg: f64, width: f64, k: f64, g: f64) -> f64 {
-    if !(positive(mass) && positive(g)) {
-        return f64::NAN;
-    }
     let f = retention_force(sigma_lv, advancing_deg, receding_deg, width, k);
     let s = f / (mass * g);
-    if s > 1.0 {
-        return f64::NAN; // never slides; also NaN when f is NaN
-    }
-    s.asin().to_degrees()
+    // s > 1: never slides (fastmath::asin gives NaN there); NaN f stays NaN
+    nan_unless(positive(mass) & positive(g), fastmath::asin(s).to_degrees())
 }
 
 /// Kernel of [`sliding_angle`].
@@ -532,6 +538,7 @@ impl Kernel<7, 1> for SlidingAngle {
     fn eval(x: &[f64; 7]) -> [f64; 1] {
         [sliding_angle(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 7]) -> bool {
         positive(x[0]) && positive(x[6]) && hysteresis_possible(x[1], x[2], x[3], x[4], x[5])
     }
@@ -589,9 +596,11 @@ impl Kernel<2, 1> for VdwDisjoiningPressure {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [disjoining_pressure(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         positive(x[0]) && finite(x[1])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 2]) -> bool {
         (VDW_FILM_MIN..=VDW_FILM_MAX).contains(&x[0])
     }
@@ -633,6 +642,7 @@ impl Kernel<3, 1> for PowerLawDisjoiningPressure {
     fn eval(x: &[f64; 3]) -> [f64; 1] {
         [power_law_disjoining_pressure(x[0], x[1], x[2])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
         positive(x[0]) && finite(x[1]) && positive(x[2])
     }
@@ -655,7 +665,7 @@ impl Kernel<3, 1> for PowerLawDisjoiningPressure {
 #[inline(always)]
 pub fn film_thickness(height: f64, hamaker: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
     let ok = film_possible(height, hamaker, rho_l, rho_v, g);
-    nan_unless(ok, (-hamaker / (6.0 * std::f64::consts::PI * (rho_l - rho_v) * g * height)).cbrt())
+    nan_unless(ok, fastmath::cbrt(-hamaker / (6.0 * std::f64::consts::PI * (rho_l - rho_v) * g * height)))
 }
 
 #[inline(always)]
@@ -688,9 +698,11 @@ impl Kernel<5, 1> for VdwFilmThickness {
     fn eval(x: &[f64; 5]) -> [f64; 1] {
         [film_thickness(x[0], x[1], x[2], x[3], x[4])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 5]) -> bool {
         film_possible(x[0], x[1], x[2], x[3], x[4])
     }
+    #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
         (VDW_FILM_MIN..=VDW_FILM_MAX).contains(&film_thickness(x[0], x[1], x[2], x[3], x[4]))
     }
@@ -740,6 +752,7 @@ impl Kernel<2, 1> for EffectiveHamaker {
     fn eval(x: &[f64; 2]) -> [f64; 1] {
         [effective_hamaker(x[0], x[1])]
     }
+    #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
         non_negative(x[0]) && non_negative(x[1])
     }
