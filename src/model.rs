@@ -66,6 +66,14 @@ pub trait Kernel<const N: usize, const M: usize> {
     const MODEL: Model;
     /// The outputs for one element.
     fn eval(x: &[f64; N]) -> [f64; M];
+    /// The outputs for one element evaluated on its own (the scalar entry
+    /// point, [`evaluate`]): bit for bit those of `eval`. A kernel overrides
+    /// it only where one element may stop early and a loop over an array may
+    /// not (an iteration that reaches its fixed point).
+    #[inline(always)]
+    fn eval_one(x: &[f64; N]) -> [f64; M] {
+        Self::eval(x)
+    }
     /// Whether the inputs are physically possible.
     ///
     /// Implementations of this and [`Kernel::in_range`] carry
@@ -78,6 +86,15 @@ pub trait Kernel<const N: usize, const M: usize> {
     #[inline(always)]
     fn in_range(_x: &[f64; N]) -> bool {
         true
+    }
+    /// [`Kernel::in_range`] given the outputs `y = eval(x)`, which the loops
+    /// and [`evaluate`] have at hand. A kernel whose range is stated on its
+    /// result (a site density, a film thickness, a superheat) overrides this
+    /// and defines `in_range(x)` as `in_range_with(x, &Self::eval(x))`, so
+    /// that the result is not computed a second time for the check.
+    #[inline(always)]
+    fn in_range_with(x: &[f64; N], _y: &[f64; M]) -> bool {
+        Self::in_range(x)
     }
 }
 
@@ -147,7 +164,7 @@ pub enum Status {
 /// one. Only NaN results take the slower classification.
 #[inline(always)]
 pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> ([f64; M], Status) {
-    settle::<K, N, M>(x, K::eval(x))
+    settle::<K, N, M>(x, K::eval_one(x))
 }
 
 /// Classify the outputs `y = K::eval(x)` of one element (and blank them when
@@ -157,14 +174,14 @@ pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
 #[inline(always)]
 pub fn settle<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], y: [f64; M]) -> ([f64; M], Status) {
     if !y.iter().any(|v| v.is_nan()) {
-        let status = if K::in_range(x) { Status::Ok } else { Status::OutOfRange };
+        let status = if K::in_range_with(x, &y) { Status::Ok } else { Status::OutOfRange };
         return (y, status);
     }
     if x.iter().any(|v| v.is_nan()) {
         (y, Status::Ok)
     } else if !K::possible(x) {
         ([f64::NAN; M], Status::Invalid)
-    } else if !K::in_range(x) {
+    } else if !K::in_range_with(x, &y) {
         (y, Status::OutOfRange)
     } else {
         (y, Status::Ok)

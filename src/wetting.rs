@@ -704,7 +704,11 @@ impl Kernel<5, 1> for VdwFilmThickness {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 5]) -> bool {
-        (VDW_FILM_MIN..=VDW_FILM_MAX).contains(&film_thickness(x[0], x[1], x[2], x[3], x[4]))
+        Self::in_range_with(x, &Self::eval(x))
+    }
+    #[inline(always)]
+    fn in_range_with(_x: &[f64; 5], y: &[f64; 1]) -> bool {
+        (VDW_FILM_MIN..=VDW_FILM_MAX).contains(&y[0])
     }
 }
 

@@ -283,7 +283,7 @@ impl<const N: usize, const M: usize> Operands<N, M> {
                     yb[k][j] = y[k];
                     any_nan |= y[k].is_nan();
                 }
-                out_of_range += (!K::in_range(&x) & (j < len)) as u64;
+                out_of_range += (!K::in_range_with(&x, &y) & (j < len)) as u64;
             }
             if !any_nan {
                 counts[1] += out_of_range;
@@ -373,16 +373,17 @@ fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize>(
     let (mut invalid, mut out_of_range) = (0u64, 0u64);
     for j in 0..BLOCK {
         let x = at(j);
+        let y: [f64; M] = std::array::from_fn(|k| yb[k][j]);
         let mut y_nan = false;
-        for column in yb.iter() {
-            y_nan |= column[j].is_nan();
+        for v in y {
+            y_nan |= v.is_nan();
         }
         let mut x_nan = false;
         for v in x {
             x_nan |= v.is_nan();
         }
         let possible = K::possible(&x);
-        let in_range = K::in_range(&x);
+        let in_range = K::in_range_with(&x, &y);
         let live = j < len;
         let blank = y_nan & !x_nan & !possible;
         for column in yb.iter_mut() {
