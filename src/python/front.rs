@@ -40,6 +40,10 @@ struct Choice {
     /// Return only this output (a float), or all of them when negative.
     output: isize,
     result_type: Option<Py<PyAny>>,
+    /// `tuple.__new__` when `result_type` is a tuple subclass (a NamedTuple):
+    /// `tuple.__new__(result_type, values)` builds the same object as calling
+    /// the class, without running its Python-level `__new__` (about 170 ns).
+    tuple_new: Option<Py<PyAny>>,
 }
 
 /// The state behind one public function (the builtin's `__self__`).
@@ -187,9 +191,10 @@ impl Front {
             return Some(PyFloat::new(py, y[0]).into_any());
         }
         let values = PyTuple::new(py, y[..e.nout].iter().copied()).ok()?;
-        match &choice.result_type {
-            Some(t) => t.bind(py).call1(values).ok(),
-            None => Some(values.into_any()),
+        match (&choice.result_type, &choice.tuple_new) {
+            (Some(t), Some(new)) => new.bind(py).call1((t.bind(py), values)).ok(),
+            (Some(t), None) => t.bind(py).call1(values).ok(),
+            (None, _) => Some(values.into_any()),
         }
     }
 
@@ -333,7 +338,14 @@ pub fn make_function<'py>(
         if plan.len() != e.nin || plan.iter().any(|&(a, _)| a >= names.len()) || output >= e.nout as isize {
             return Err(PyValueError::new_err(format!("plan of kernel {kernel} does not fit")));
         }
-        built.push(Choice { key, entry, plan, output, result_type });
+        let tuple_type = py.get_type::<PyTuple>();
+        let tuple_new = match &result_type {
+            Some(t) if t.bind(py).cast::<pyo3::types::PyType>().is_ok_and(|t| t.is_subclass(&tuple_type).unwrap_or(false)) => {
+                Some(tuple_type.getattr("__new__")?.unbind())
+            }
+            _ => None,
+        };
+        built.push(Choice { key, entry, plan, output, result_type, tuple_new });
     }
     let default_numbers = defaults.iter().map(|d| d.as_ref().and_then(|d| plain_number(d.bind(py).as_borrowed()))).collect();
     let front = Bound::new(
