@@ -5,21 +5,33 @@ the same run, on the same inputs (absolute times are printed for context).
     .venv/bin/python benches/run.py --quick    # 10^6 points, fewer repeats
 
 Sections (targets from the performance issue in brackets):
-  1. each public kernel on N contiguous points vs the same formula as a NumPy
-     expression                                                      [>= 4x]
+  1. the foundation pair, fritz + kandlikar, on N Monte-Carlo points vs the
+     same math as NumPy expressions [>= 5x]; then every kernel with a closed
+     form on N contiguous points vs its formula as NumPy expressions [>= 4x]
   2. the screening chain (water properties from pressure, Hsu onset, Fritz,
      Kandlikar) vs NumPy + CoolProp: contiguous Monte-Carlo inputs through the
      public kernels [>= 3x] and through the fused path [>= 8x]; a broadcast
      grid (angles x pressures) vs NumPy's own broadcasting    [>= 1x]
   3. thread scaling: all threads vs one, contiguous and grid     [>= 1.8x]
-  4. scalar calls vs a pure-Python `math` version           [<= 0.5x time]
+  4. scalar calls of every kernel vs a pure-Python `math` version
+                                                            [<= 0.5x time]
   5. water() per state point vs CoolProp's AbstractState          [>= 100x]
   6. peak memory of a sweep vs its inputs plus outputs          [<= 1.2x]
 
-Monte-Carlo inputs: every argument, fluid properties included, is a
-contiguous float64 array (water near 1 atm with +-2 % property scatter). The
-CoolProp baseline of section 2 is measured per point on a subset and scaled
-to N points (it would take minutes at full size); this is said in its row.
+The hand-written baselines of sections 1 and 4 live in benches/formulas.py,
+one NumPy and one `math` version per kernel; the run first checks that each
+agrees with wetboil (so is the same formula) and refuses to time one that
+does not. Kernels without a closed form (iterative solutions, chains of other
+kernels) are listed after the table with the reason.
+
+Inputs of section 1: the pair runs on Monte-Carlo inputs (every argument,
+fluid properties included, a contiguous float64 array: water near 1 atm with
++-2 % property scatter); the other kernels on arguments drawn from the test
+suite's physical ranges (tests/kernel_cases.py: fluids are water(T) over
+273-640 K), every argument an array. Section 4 calls each kernel with plain
+numbers at a point inside its published range. The CoolProp baseline of
+section 2 is measured per point on a subset and scaled to N points (it would
+take minutes at full size); this is said in its row.
 """
 
 from __future__ import annotations
@@ -31,6 +43,7 @@ import os
 os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 
 import argparse  # noqa: E402
+import functools  # noqa: E402
 import math  # noqa: E402
 import platform  # noqa: E402
 import subprocess  # noqa: E402
@@ -42,6 +55,11 @@ import numpy as np  # noqa: E402
 import wetboil  # noqa: E402
 from wetboil import boiling, chf, departure, nucleation, wetting  # noqa: E402
 from wetboil.fluids import Saturation, water  # noqa: E402
+
+_HERE = os.path.dirname(os.path.abspath(__file__))
+sys.path[:0] = [_HERE, os.path.join(_HERE, "..", "tests")]
+import formulas  # noqa: E402  (the hand-written baselines)
+import kernel_cases as kc  # noqa: E402  (physical input ranges of the test suite)
 
 G = 9.80665
 
@@ -121,7 +139,12 @@ def fmt(t):
     return f"{t * 1e9:.0f} ns"
 
 
+# ---------------------------------------------------------------------------- every kernel against its formula
+
+
 def monte_carlo(n, seed=0):
+    """Water near 1 atm with +-2 % scatter on every property (all arrays),
+    and a maker of uniform arrays: the inputs of the headline pair."""
     rng = np.random.default_rng(seed)
     j = lambda v: v * rng.normal(1.0, 0.02, n)  # noqa: E731
     fluid = Saturation(T=j(373.124), p=j(101325.0), rho_l=j(958.35), rho_v=j(0.59817), h_lv=j(2.2564e6),
@@ -129,78 +152,6 @@ def monte_carlo(n, seed=0):
                        molar_mass=0.018015268)
     u = lambda lo, hi: rng.uniform(lo, hi, n)  # noqa: E731
     return fluid, u
-
-
-# ---------------------------------------------------------------------------- the same math three ways
-# (label, wetboil call, NumPy expression, pure-Python scalar version, input maker)
-
-
-def kernel_cases(n):
-    f, u = monte_carlo(n)
-    th, rec, phi = u(5, 90), u(5, 90), u(0, 90)
-    q, dT, r = u(1e4, 1e6), u(2, 30), u(1e-7, 1e-4)
-    ssv, ssl, slv = u(0.04, 0.06), u(0.001, 0.02), u(0.05, 0.07)
-    rough, frac = u(1.0, 1.5), u(0.2, 1.0)
-    sd, sp, ld, lp = u(0.02, 0.04), u(0.0, 0.02), u(0.02, 0.03), u(0.0, 0.05)
-    cosd = lambda x: np.cos(np.radians(x))  # noqa: E731
-    cosm = lambda x: math.cos(math.radians(x))  # noqa: E731
-    lc = lambda s: np.sqrt(s.sigma / (G * (s.rho_l - s.rho_v)))  # noqa: E731
-    zeta = lambda s: 2 * s.sigma * s.T * (1 / s.rho_v - 1 / s.rho_l) / s.h_lv  # noqa: E731
-    s0 = f[0]
-
-    def ang(c):
-        return np.degrees(np.arccos(np.clip(c, -1.0, 1.0)))
-
-    def pr(s):
-        return s.cp_l * s.mu_l / s.k_l
-
-    def rohsenow_np(dt, s, c_sf=0.013, nn=1.0):
-        return s.mu_l * s.h_lv * np.sqrt(G * (s.rho_l - s.rho_v) / s.sigma) * (s.cp_l * dt / (c_sf * s.h_lv * pr(s) ** nn)) ** 3
-
-    def cooper_np(dt, s, rp=1e-6):
-        prr = s.p / s.p_crit
-        a = 55 * prr ** (0.12 - 0.2 * np.log10(rp * 1e6)) * (-np.log10(prr)) ** -0.55 * (s.molar_mass * 1e3) ** -0.5
-        return (a * dt) ** (1 / 0.33)
-
-    cases = [
-        ("departure.fritz", lambda: departure.fritz(th, f), lambda: 0.0208 * th * lc(f),
-         lambda a, s: 0.0208 * a * math.sqrt(s.sigma / (G * (s.rho_l - s.rho_v))), (th,)),
-        ("departure.kocamustafaogullari_ishii", lambda: departure.kocamustafaogullari_ishii(th, f),
-         lambda: 2.5e-5 * ((f.rho_l - f.rho_v) / f.rho_v) ** 0.9 * th * lc(f),
-         lambda a, s: 2.5e-5 * ((s.rho_l - s.rho_v) / s.rho_v) ** 0.9 * a * math.sqrt(s.sigma / (G * (s.rho_l - s.rho_v))), (th,)),
-        ("chf.kandlikar", lambda: chf.kandlikar(rec, f, phi),
-         lambda: f.h_lv * np.sqrt(f.rho_v) * (1 + cosd(rec)) / 16 * np.sqrt(2 / np.pi + np.pi / 4 * (1 + cosd(rec)) * cosd(phi))
-         * (f.sigma * G * (f.rho_l - f.rho_v)) ** 0.25,
-         lambda b, s, p_: s.h_lv * math.sqrt(s.rho_v) * (1 + cosm(b)) / 16 * math.sqrt(2 / math.pi + math.pi / 4 * (1 + cosm(b)) * cosm(p_))
-         * (s.sigma * G * (s.rho_l - s.rho_v)) ** 0.25, (rec, phi)),
-        ("chf.zuber", lambda: chf.zuber(f), lambda: np.pi / 24 * f.h_lv * np.sqrt(f.rho_v) * (f.sigma * G * (f.rho_l - f.rho_v)) ** 0.25,
-         lambda s: math.pi / 24 * s.h_lv * math.sqrt(s.rho_v) * (s.sigma * G * (s.rho_l - s.rho_v)) ** 0.25, ()),
-        ("nucleation.embryo_superheat", lambda: nucleation.embryo_superheat(r, f), lambda: zeta(f) / r,
-         lambda x, s: 2 * s.sigma * s.T * (1 / s.rho_v - 1 / s.rho_l) / s.h_lv / x, (r,)),
-        ("nucleation.barrier_factor", lambda: nucleation.barrier_factor(th),
-         lambda: (2 - cosd(th)) * (1 + cosd(th)) ** 2 / 4, lambda a: (2 - cosm(a)) * (1 + cosm(a)) ** 2 / 4, "angle"),
-        ("nucleation.onset_superheat (hsu)", lambda: nucleation.onset_superheat(q, f, th),
-         lambda: np.sqrt(4 * (1 + cosd(th)) * zeta(f) * q / f.k_l),
-         lambda qq, s, a: math.sqrt(4 * (1 + cosm(a)) * 2 * s.sigma * s.T * (1 / s.rho_v - 1 / s.rho_l) / s.h_lv * qq / s.k_l), (q, th)),
-        ("wetting.young_angle", lambda: wetting.young_angle(ssv, ssl, slv), lambda: ang((ssv - ssl) / slv),
-         lambda a, b, c: math.degrees(math.acos(max(-1.0, min(1.0, (a - b) / c)))), "tensions"),
-        ("wetting.adhesion_work", lambda: wetting.adhesion_work(slv, th), lambda: slv * (1 + cosd(th)),
-         lambda c, a: c * (1 + cosm(a)), "adhesion"),
-        ("wetting.wenzel", lambda: wetting.wenzel(th, rough), lambda: ang(rough * cosd(th)),
-         lambda a, rr: math.degrees(math.acos(max(-1.0, min(1.0, rr * cosm(a))))), "wenzel"),
-        ("wetting.cassie_baxter", lambda: wetting.cassie_baxter(th, frac), lambda: ang(frac * (1 + cosd(th)) - 1),
-         lambda a, ff: math.degrees(math.acos(max(-1.0, min(1.0, ff * (1 + cosm(a)) - 1)))), "cassie"),
-        ("wetting.owrk_angle", lambda: wetting.owrk_angle(sd, sp, ld, lp),
-         lambda: ang(2 * (np.sqrt(sd * ld) + np.sqrt(sp * lp)) / (ld + lp) - 1),
-         lambda a, b, c, d: math.degrees(math.acos(max(-1.0, min(1.0, 2 * (math.sqrt(a * c) + math.sqrt(b * d)) / (c + d) - 1)))), "owrk"),
-        ("boiling.rohsenow", lambda: boiling.rohsenow(dT, f), lambda: rohsenow_np(dT, f), None, None),
-        ("boiling.rohsenow_superheat", lambda: boiling.rohsenow_superheat(q, f),
-         lambda: (q / rohsenow_np(1.0, f)) ** (1 / 3), None, None),
-        ("boiling.cooper", lambda: boiling.cooper(dT, f), lambda: cooper_np(dT, f), None, None),
-    ]
-    scalar_args = {"angle": (45.0,), "tensions": (0.05, 0.01, 0.06), "adhesion": (0.06, 45.0), "wenzel": (45.0, 1.2),
-                   "cassie": (120.0, 0.5), "owrk": (0.03, 0.01, 0.0218, 0.051)}
-    return cases, scalar_args, s0
 
 
 def one_thread(fn):
@@ -215,13 +166,39 @@ def one_thread(fn):
     return run
 
 
+def label(kernel):
+    """Row label of a kernel: its public function, and the kernel where one
+    function reaches several (methods of site_density, frequency, ...)."""
+    _f, spec = formulas.kernel_function(kernel)
+    shared = sum(1 for k in formulas.NUMPY if formulas.kernel_function(k)[1].function == spec.function) > 1
+    return f"{spec.function} [{kernel}]" if shared else spec.function
+
+
+@functools.lru_cache(maxsize=None)
+def compared_kernels():
+    """Every registered kernel with a hand-written formula, after checking
+    that the formula agrees with wetboil (refuses to time a baseline that
+    computes something else)."""
+    names = sorted(m.name for m in wetboil.models() if m.name not in formulas.NOT_COMPARED)
+    missing = [k for k in names if k not in formulas.NUMPY or k not in formulas.PYTHON]
+    if missing:
+        raise SystemExit(f"benches/formulas.py has no hand-written formula for: {', '.join(missing)}")
+    for k in names:
+        why = formulas.check(k)
+        if why:
+            raise SystemExit(f"{k}: the hand-written formula disagrees with wetboil: {why}")
+    return tuple(names)
+
+
 def section_kernels(table, n, repeat):
-    cases, _, _ = kernel_cases(n)
     # The foundation pair, together (the foundation issue's headline ratio).
-    pair = {label: (ours, base) for label, ours, base, _py, _args in cases}
-    f_ours, f_base = pair["departure.fritz"]
-    k_ours, k_base = pair["chf.kandlikar"]
-    both, both_np = (lambda: (f_ours(), k_ours())), (lambda: (f_base(), k_base()))
+    f, u = monte_carlo(n)
+    th, rec, phi = u(5, 90), u(5, 90), u(0, 90)
+    x_fritz, x_kand = (th, f.sigma, f.rho_l, f.rho_v, G), (rec, phi, f.h_lv, f.rho_l, f.rho_v, f.sigma, G)
+    both = lambda: (departure.fritz(th, f), chf.kandlikar(rec, f, phi))  # noqa: E731
+    both_np = lambda: (formulas.NUMPY["fritz_departure"](*x_fritz), formulas.NUMPY["kandlikar_chf"](*x_kand))  # noqa: E731
+    for a, b in zip(both(), both_np()):
+        assert np.allclose(a, b, rtol=1e-9), "benchmark formulas disagree"
     t_both, t_both_np = paired(both, both_np, repeat)
     table.add("1. kernels, contiguous", f"fritz + kandlikar, {n:.0e} points vs NumPy", t_both, t_both_np, ">= 5x")
     threads = wetboil.get_num_threads()
@@ -236,42 +213,40 @@ def section_kernels(table, n, repeat):
         wetboil.set_buffer_cache(limit)
     table.add("1. kernels, contiguous", "  the same, buffer cache off", t_cold, t_cold_np, "(context)")
     table.add("3. threads", "  the same, buffer cache off", t_cold2, t_cold1, "(context)")
-    for label, ours, base, _py, _args in cases:
-        a, b = ours(), base()
-        assert np.allclose(a, b, rtol=1e-9, equal_nan=True), f"{label}: benchmark formulas disagree"
-        table.add("1. kernels, contiguous", f"{label}, {n:.0e} points vs NumPy", *paired(ours, base, repeat), ">= 4x")
+    del f, th, rec, phi, x_fritz, x_kand
+    # Every kernel with a closed form, on physical inputs drawn as in the test
+    # suite (every argument an array; fluids are water(T) over 273-640 K).
+    for k in compared_kernels():
+        fn, spec, args, x = formulas.draw(k, n)
+        ours = lambda: kc.call(fn, spec, args)  # noqa: E731
+        base = lambda: formulas.NUMPY[k](*x)  # noqa: E731
+        with np.errstate(all="ignore"):
+            table.add("1. kernels, contiguous", f"{label(k)}, {n:.0e} points vs NumPy", *paired(ours, base, repeat), ">= 4x")
+        del args, x
 
 
 def section_scalar(table, repeat):
-    w = Saturation(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.59817, h_lv=2.2564e6, sigma=0.058912, cp_l=4215.7,
-                   k_l=0.6791, mu_l=2.818e-4, p_crit=22.064e6, molar_mass=0.018015268)
-    cases, scalar_args, _ = kernel_cases(8)
-    calls = {
-        "departure.fritz": (departure.fritz, (45.0, w)),
-        "departure.kocamustafaogullari_ishii": (departure.kocamustafaogullari_ishii, (45.0, w)),
-        "chf.kandlikar": (chf.kandlikar, (30.0, w, 10.0)),
-        "chf.zuber": (chf.zuber, (w,)),
-        "nucleation.embryo_superheat": (nucleation.embryo_superheat, (1e-5, w)),
-        "nucleation.barrier_factor": (nucleation.barrier_factor, (45.0,)),
-        "nucleation.onset_superheat (hsu)": (nucleation.onset_superheat, (1e5, w, 45.0)),
-    }
-    py_args = {
-        "departure.fritz": (45.0, w), "departure.kocamustafaogullari_ishii": (45.0, w), "chf.kandlikar": (30.0, w, 10.0),
-        "chf.zuber": (w,), "nucleation.embryo_superheat": (1e-5, w), "nucleation.onset_superheat (hsu)": (1e5, w, 45.0),
-    }
-    for label, _ours, _base, py, args in cases:
-        if py is None:
-            continue
-        if isinstance(args, str):
-            fn = {"angle": nucleation.barrier_factor, "tensions": wetting.young_angle, "adhesion": wetting.adhesion_work,
-                  "wenzel": wetting.wenzel, "cassie": wetting.cassie_baxter, "owrk": wetting.owrk_angle}[args]
-            ours_args = pargs = scalar_args[args]
+    """Every kernel called with plain numbers (and a scalar water state)
+    against the same formula in pure Python on plain floats."""
+    for k in compared_kernels():
+        # a point inside the published range with a finite answer: elements
+        # outside the range (RangeWarning) or without an answer (NaN) are
+        # rare cases that the fast path hands to the Python fallback
+        for seed in range(200):
+            fn, spec, args, x = formulas.draw(k, None, seed)
+            if seed >= 100:  # correlations fitted to water at 1 atm only
+                args.update({p: water(p=101325.0) for p in kc.fluid_params(spec)})
+                x = kc.kernel_inputs(spec, args)
+            ours_args = [args[p] for p in spec.params]
+            values = kc.outputs(fn(*ours_args))
+            in_range = not np.any(wetboil.validity(fn, *ours_args))  # (warnings are off during the run)
+            if in_range and all(isinstance(v, float) and math.isfinite(v) for v in values):
+                break
         else:
-            fn, ours_args = calls[label]
-            pargs = py_args[label]
-        assert math.isclose(fn(*ours_args), py(*pargs), rel_tol=1e-9), label
-        t_ours, t_py = paired_calls(fn, ours_args, py, pargs, repeat=2 * repeat + 1)
-        table.add("4. scalar calls", f"{label} vs pure-Python math", t_ours, t_py, "<= 0.5x", note="(ratio = speed-up)")
+            raise SystemExit(f"{k}: no in-range scalar point in 200 draws")
+        t_ours, t_py = paired_calls(fn, ours_args, formulas.PYTHON[k], x, repeat=2 * repeat + 1)
+        table.add("4. scalar calls", f"{label(k)} vs pure-Python math", t_ours, t_py, "<= 0.5x",
+                  note="(ratio = speed-up)")
 
 
 def section_chain(table, n, repeat):
@@ -449,6 +424,10 @@ def main(argv=None):
     if "memory" in only:
         section_memory(table, n)
     table.show()
+    if {"kernels", "scalar"} & set(only):
+        print("\nnot in sections 1 and 4 (no closed form to write by hand):")
+        for k, why in sorted(formulas.NOT_COMPARED.items()):
+            print(f"   {k}: {why}")
     return 0
 
 
