@@ -228,6 +228,24 @@ def section_kernels(table, n, repeat):
 def section_scalar(table, repeat):
     """Every kernel called with plain numbers (and a scalar water state)
     against the same formula in pure Python on plain floats."""
+    # The foundation pair, as in section 1: one function calling fritz and
+    # kandlikar on a water state, against one calling their math versions.
+    w = water(p=101325.0)
+    py_fritz, py_kandlikar = formulas.PYTHON["fritz_departure"], formulas.PYTHON["kandlikar_chf"]
+
+    def ours_pair(theta, fluid, receding, orientation):
+        return departure.fritz(theta, fluid), chf.kandlikar(receding, fluid, orientation)
+
+    def python_pair(theta, sigma, rho_l, rho_v, h_lv, receding, orientation):
+        return (py_fritz(theta, sigma, rho_l, rho_v, G),
+                py_kandlikar(receding, orientation, h_lv, rho_l, rho_v, sigma, G))
+
+    assert np.allclose(ours_pair(40.0, w, 30.0, 0.0), python_pair(40.0, w.sigma, w.rho_l, w.rho_v, w.h_lv, 30.0, 0.0),
+                       rtol=1e-12, atol=0.0)
+    t_ours, t_py = paired_calls(ours_pair, (40.0, w, 30.0, 0.0), python_pair,
+                                (40.0, w.sigma, w.rho_l, w.rho_v, w.h_lv, 30.0, 0.0), repeat=2 * repeat + 1)
+    table.add("4. scalar calls", "fritz + kandlikar (one function calling both) vs pure-Python math", t_ours, t_py,
+              "<= 0.5x", note="(ratio = speed-up)")
     for k in compared_kernels():
         # a point inside the published range with a finite answer: elements
         # outside the range (RangeWarning) or without an answer (NaN) are
