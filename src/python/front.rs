@@ -297,6 +297,28 @@ impl Front {
     }
 }
 
+/// Whether `t` is a named-tuple class with `nout` fields whose `__new__` is
+/// the one `collections.namedtuple` generated (the class that supplies
+/// `__new__` also defines `_fields`): then `tuple.__new__(t, values)` builds
+/// exactly what calling `t` builds. A subclass with its own `__new__`, a
+/// plain tuple subclass or another field count is called instead.
+fn plain_named_tuple(t: &Bound<'_, PyAny>, nout: usize) -> PyResult<bool> {
+    let Ok(ty) = t.cast::<pyo3::types::PyType>() else {
+        return Ok(false);
+    };
+    if !ty.is_subclass_of::<PyTuple>()? {
+        return Ok(false);
+    }
+    for base in ty.getattr("__mro__")?.try_iter()? {
+        let base = base?;
+        let own = base.getattr("__dict__")?;
+        if own.contains("__new__")? {
+            return Ok(own.contains("_fields")? && base.getattr("_fields")?.len()? == nout);
+        }
+    }
+    Ok(false)
+}
+
 /// One fast-path choice as passed from Python: (selector value or None,
 /// kernel name, plan, output index or -1, result type or None).
 type ChoiceSpec = (Option<Py<PyAny>>, String, Vec<(usize, isize)>, isize, Option<Py<PyAny>>);
@@ -338,11 +360,8 @@ pub fn make_function<'py>(
         if plan.len() != e.nin || plan.iter().any(|&(a, _)| a >= names.len()) || output >= e.nout as isize {
             return Err(PyValueError::new_err(format!("plan of kernel {kernel} does not fit")));
         }
-        let tuple_type = py.get_type::<PyTuple>();
         let tuple_new = match &result_type {
-            Some(t) if t.bind(py).cast::<pyo3::types::PyType>().is_ok_and(|t| t.is_subclass(&tuple_type).unwrap_or(false)) => {
-                Some(tuple_type.getattr("__new__")?.unbind())
-            }
+            Some(t) if plain_named_tuple(t.bind(py), e.nout)? => Some(py.get_type::<PyTuple>().getattr("__new__")?.unbind()),
             _ => None,
         };
         built.push(Choice { key, entry, plan, output, result_type, tuple_new });
