@@ -204,21 +204,6 @@ pub fn embryo_superheat_exact(
     embryo_exact::<true>(radius, sigma, t_sat, p, rho_l, rho_v, h_lv)
 }
 
-/// [`embryo_superheat_exact`] for the element loops over arrays: the same
-/// bits (see [`embryo_exact`]).
-#[inline(always)]
-pub fn embryo_superheat_exact_unrolled(
-    radius: f64,
-    sigma: f64,
-    t_sat: f64,
-    p: f64,
-    rho_l: f64,
-    rho_v: f64,
-    h_lv: f64,
-) -> f64 {
-    embryo_exact::<false>(radius, sigma, t_sat, p, rho_l, rho_v, h_lv)
-}
-
 /// The Newton iteration of [`embryo_superheat_exact`], in two forms with
 /// identical results.
 ///
@@ -312,7 +297,7 @@ impl Kernel<7, 1> for EmbryoSuperheatExact {
     };
     #[inline(always)]
     fn eval(x: &[f64; 7]) -> [f64; 1] {
-        [embryo_superheat_exact_unrolled(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
+        [embryo_exact::<false>(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
     }
     #[inline(always)]
     fn eval_one(x: &[f64; 7]) -> [f64; 1] {
@@ -1407,7 +1392,7 @@ mod tests {
                 let r = 10f64.powf(-10.0 + 7.0 * j as f64 / 200.0);
                 let (want, steps) = embryo_exact_to_convergence(r, s);
                 let got = embryo_superheat_exact(r, s[5], s[0], s[1], s[2], s[3], s[4]);
-                let unrolled = embryo_superheat_exact_unrolled(r, s[5], s[0], s[1], s[2], s[3], s[4]);
+                let unrolled = embryo_exact::<false>(r, s[5], s[0], s[1], s[2], s[3], s[4]);
                 assert_eq!(got.to_bits(), unrolled.to_bits(), "T {t} r {r}: the two forms differ");
                 if want.is_nan() {
                     none += 1;
