@@ -507,9 +507,13 @@ def film_boiling(
         length = diameter
     q = _film_kernel(wall_superheat, constant, length, latent_factor, fluid, g)
     if not (isinstance(emissivity, (int, float)) and emissivity == 0.0):
-        tw = fluid.T + np.asarray(wall_superheat, dtype=float) if not hasattr(wall_superheat, "dims") else fluid.T + wall_superheat
+        dt = np.asarray(wall_superheat, dtype=float) if not hasattr(wall_superheat, "dims") else wall_superheat
+        tw = fluid.T + dt
+        # T_w^4 - T_sat^4 factored: no cancellation at small superheats, and
+        # only + and * (NumPy's array `**` may differ from its scalar `**` by
+        # an ulp, which made a number and a one-element array disagree)
         with np.errstate(over="ignore", invalid="ignore"):  # huge superheats: inf, reported by the kernel's policy
-            q = q + 0.75 * emissivity * _STEFAN_BOLTZMANN * (tw**4 - fluid.T**4)
+            q = q + 0.75 * emissivity * _STEFAN_BOLTZMANN * (dt * (tw + fluid.T) * (tw * tw + fluid.T * fluid.T))
     return q
 
 
