@@ -28,7 +28,7 @@
 use std::panic::{catch_unwind, AssertUnwindSafe};
 use std::time::{Duration, Instant};
 
-use crate::model::{check_factored, classify, evaluate, Factored, Kernel, Status};
+use crate::model::{check_factored, classify, evaluate, BlockSummary, Factored, Kernel, Status};
 use crate::{boiling, chain, chf, departure, nucleation, water, wetting};
 
 // ---------------------------------------------------------------------------
@@ -441,6 +441,7 @@ fn run<K: Kernel<N, M>, const N: usize, const M: usize>(rng: &mut Rng, deadline:
         }
     }
     let mut i = 0u64;
+    let mut block = [[0.0; N]; BLOCK];
     loop {
         // physical samples half the time; otherwise a few inputs made adversarial
         let physical = i % 2 == 0;
@@ -453,10 +454,46 @@ fn run<K: Kernel<N, M>, const N: usize, const M: usize>(rng: &mut Rng, deadline:
             }
         }
         check::<K, N, M>(&x, physical, report);
+        block[i as usize % BLOCK] = x;
         i += 1;
-        if i % 64 == 0 && Instant::now() >= deadline {
-            break;
+        if i % BLOCK as u64 == 0 {
+            check_block::<K, N, M>(&block, 1 + rng.below(BLOCK), report);
+            if Instant::now() >= deadline {
+                break;
+            }
         }
+    }
+}
+
+/// Elements per block in [`check_block`], as in the binding's loops.
+const BLOCK: usize = 64;
+
+/// The block form of a kernel (`Kernel::eval_block`, what the binding's loops
+/// run) against its element form on the last `BLOCK` samples, of which the
+/// first `len` are live: the same output bits, and the same summary as the
+/// elements give one by one.
+fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(xs: &[[f64; N]; BLOCK], len: usize, report: &mut Report) {
+    let name = K::MODEL.name;
+    let mut y = [[0.0; BLOCK]; M];
+    let Ok(sum) = catch_unwind(AssertUnwindSafe(|| K::eval_block(|j| xs[j], len, &mut y))) else {
+        report.fail(name, &xs[0], "eval_block panicked".into());
+        return;
+    };
+    let mut want = BlockSummary::default();
+    for (j, x) in xs.iter().enumerate() {
+        let v = K::eval(x);
+        // (a NaN's sign and payload carry no meaning, and vectorised code
+        // may order the operands of a commutative operation differently)
+        let same = |a: f64, b: f64| a.to_bits() == b.to_bits() || (a.is_nan() && b.is_nan());
+        if (0..M).any(|m| !same(v[m], y[m][j])) {
+            let got: [f64; M] = std::array::from_fn(|m| y[m][j]);
+            report.fail(name, x, format!("eval_block and eval differ: {got:?} vs {v:?}"));
+        }
+        want.any_nan |= v.iter().any(|o| o.is_nan());
+        want.out_of_range += (j < len && !K::in_range_with(x, &v)) as u64;
+    }
+    if sum != want {
+        report.fail(name, &xs[0], format!("eval_block's summary {sum:?}, the elements give {want:?}"));
     }
 }
 

@@ -11,7 +11,10 @@
 
 use crate::fastmath;
 use crate::all_positive;
-use crate::model::{angle_deg, arg, finite, nan_unless, nans_unless, non_negative, positive, Arg, Factored, Kernel, Model};
+use crate::model::{
+    angle_deg, arg, finite, iterate_block, iterate_one, nan_unless, nans_unless, non_negative, positive, Arg, BlockSummary,
+    Factored, Iteration, Kernel, Model,
+};
 use crate::trig::{cos_deg, sin_deg};
 use crate::water;
 
@@ -147,13 +150,6 @@ impl Kernel<6, 1> for EmbryoRadius {
 // ============================================================================
 // Embryo superheat, integrated Clausius-Clapeyron with a Poynting correction
 
-/// `$body` written out 16 times (see [`embryo_superheat_exact`]).
-macro_rules! sixteen_times {
-    ($body:block) => {
-        $body $body $body $body $body $body $body $body
-        $body $body $body $body $body $body $body $body
-    };
-}
 /// Equilibrium superheat of a vapour embryo of radius `r` [K]: integrated
 /// Clausius-Clapeyron relation with an ideal-gas vapour, plus the Poynting
 /// (Kelvin) correction for the liquid being at a lower pressure than the vapour.
@@ -180,7 +176,8 @@ macro_rules! sixteen_times {
 /// 70 bar for water).
 ///
 /// Newton iteration on `z = ln(p_sat(T_l)/p)` from `z = ln(1 + 2σ/(p r))` (from the
-/// left on a concave increasing function: monotone, [`EMBRYO_NEWTON_STEPS`] steps).
+/// left on a concave increasing function: monotone), at most
+/// [`EMBRYO_NEWTON_STEPS`] steps ([`EmbryoNewton`]).
 /// NaN (no answer) when the iteration finds no root: the embryo is so small that
 /// no liquid temperature of this model balances it.
 ///
@@ -201,65 +198,56 @@ pub fn embryo_superheat_exact(
     rho_v: f64,
     h_lv: f64,
 ) -> f64 {
-    embryo_exact::<true>(radius, sigma, t_sat, p, rho_l, rho_v, h_lv)
+    iterate_one::<EmbryoNewton, 7, 1, 8>(&[radius, sigma, t_sat, p, rho_l, rho_v, h_lv])[0]
 }
 
-/// The Newton iteration of [`embryo_superheat_exact`], in two forms with
-/// identical results.
+/// The Newton iteration of [`embryo_superheat_exact`] on
+/// `F(z) = z - z_v - p (e^z - 1) c (1/T_sat - k z)`, increasing and concave.
 ///
-/// `STOP = false`: [`EMBRYO_NEWTON_STEPS`] steps written out, no exit, so that
-/// the loop over an array's elements vectorises (the innermost loop would
-/// otherwise be this one, which cannot: each step needs the last).
-/// `STOP = true`: a loop that stops at a fixed point (a step that leaves z
-/// unchanged, after which every further step repeats it exactly) or at the
-/// first unsound step (the answer is then NaN either way): one element costs
-/// its 2-4 steps instead of 16, with the same bits as the written-out form.
-#[inline(always)]
-#[allow(clippy::too_many_arguments, unused_assignments)] // (the written-out steps overwrite dz)
-fn embryo_exact<const STOP: bool>(radius: f64, sigma: f64, t_sat: f64, p: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
-    let ok = positive(radius) & positive(p) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
-    let v_lv = 1.0 / rho_v - 1.0 / rho_l;
-    let r_eff = p * v_lv / t_sat;
-    let k = r_eff / h_lv; // [1/K]
-    // v_l / R_v [K/Pa] with R_v = p/(rho_v T_sat): the vapour's ideal-gas constant.
-    let c = rho_v * t_sat / (rho_l * p);
-    let inv_t0 = 1.0 / t_sat;
-    let z_v = fastmath::ln_1p(2.0 * sigma / (radius * p)); // ln(p_v/p)
-    // F(z) = z - z_v - p (e^z - 1) c (1/T_sat - k z), increasing and concave.
-    // One Newton step from z: (next z, whether the step was sound, the step).
-    let step = |z: f64| {
+/// State: `[z, last step dz, sound (1 or 0), 1/T_sat, k, c, z_v, p]`. A step
+/// settles the state at a fixed point (a step that leaves z unchanged, after
+/// which every further step repeats it exactly) or once a step has been
+/// unsound (the answer is NaN whatever follows): most elements settle after
+/// 2-4 steps.
+pub struct EmbryoNewton;
+impl Iteration<7, 1, 8> for EmbryoNewton {
+    const MAX_STEPS: usize = EMBRYO_NEWTON_STEPS;
+    #[inline(always)]
+    fn start(x: &[f64; 7]) -> [f64; 8] {
+        let [radius, sigma, t_sat, p, rho_l, rho_v, h_lv] = *x;
+        let v_lv = 1.0 / rho_v - 1.0 / rho_l;
+        let r_eff = p * v_lv / t_sat;
+        let k = r_eff / h_lv; // [1/K]
+        // v_l / R_v [K/Pa] with R_v = p/(rho_v T_sat): the vapour's ideal-gas constant.
+        let c = rho_v * t_sat / (rho_l * p);
+        let z_v = fastmath::ln_1p(2.0 * sigma / (radius * p)); // ln(p_v/p)
+        [z_v, 0.0, 1.0, 1.0 / t_sat, k, c, z_v, p]
+    }
+    #[inline(always)]
+    fn step(s: &[f64; 8]) -> ([f64; 8], bool) {
+        let [z, _, sound, inv_t0, k, c, z_v, p] = *s;
         let inv_t = inv_t0 - k * z;
         let em1 = fastmath::exp_m1(z);
         let f = z - z_v - p * em1 * c * inv_t;
         let df = 1.0 - p * (em1 + 1.0) * c * inv_t + p * em1 * c * k;
         let dz = f / df;
-        (z - dz, (inv_t > 0.0) & (df > 0.0) & finite(f), dz)
-    };
-    let mut z = z_v;
-    let mut sound = true;
-    let mut dz = 0.0;
-    if STOP {
-        for _ in 0..EMBRYO_NEWTON_STEPS {
-            let (next, fine, d) = step(z);
-            let fixed = next == z;
-            (z, sound, dz) = (next, sound & fine, d);
-            if fixed | !sound {
-                break;
-            }
-        }
-    } else {
-        sixteen_times!({
-            let (next, fine, d) = step(z);
-            (z, sound, dz) = (next, sound & fine, d);
-        });
+        let next = z - dz;
+        let sound = (sound > 0.0) & (inv_t > 0.0) & (df > 0.0) & finite(f);
+        ([next, dz, if sound { 1.0 } else { 0.0 }, inv_t0, k, c, z_v, p], (next == z) | !sound)
     }
-    // Converged when the last step was below 1e-12 relative: quadratic
-    // convergence then leaves an error far below rounding. (Steps at the noise
-    // level of F can reach several ulp of z where F' is small, so an ulp-level
-    // test would reject converged roots.)
-    let converged = dz.abs() <= EMBRYO_NEWTON_TOL * z.abs();
-    let u = t_sat * k * z; // 1 - T_sat/T_l
-    nan_unless(ok & sound & converged & (u < 1.0), t_sat * u / (1.0 - u))
+    #[inline(always)]
+    fn finish(x: &[f64; 7], s: &[f64; 8]) -> [f64; 1] {
+        let [radius, sigma, t_sat, p, rho_l, rho_v, h_lv] = *x;
+        let [z, dz, sound, _, k, ..] = *s;
+        let ok = positive(radius) & positive(p) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
+        // Converged when the last step was below 1e-12 relative: quadratic
+        // convergence then leaves an error far below rounding. (Steps at the noise
+        // level of F can reach several ulp of z where F' is small, so an ulp-level
+        // test would reject converged roots.)
+        let converged = dz.abs() <= EMBRYO_NEWTON_TOL * z.abs();
+        let u = t_sat * k * z; // 1 - T_sat/T_l
+        [nan_unless(ok & (sound > 0.0) & converged & (u < 1.0), t_sat * u / (1.0 - u))]
+    }
 }
 
 /// Newton steps of [`embryo_superheat_exact`]: over water from the triple
@@ -267,7 +255,6 @@ fn embryo_exact<const STOP: bool>(radius: f64, sigma: f64, t_sat: f64, p: f64, r
 /// iteration settles (a step below [`EMBRYO_NEWTON_TOL`] of z) in at most 11
 /// steps, and in 2 or 3 for most states (test below); 16 leave a margin.
 pub const EMBRYO_NEWTON_STEPS: usize = 16;
-const _: () = assert!(EMBRYO_NEWTON_STEPS == 16, "sixteen_times! writes the steps out");
 /// Relative size of the last Newton step of [`embryo_superheat_exact`] below
 /// which the root counts as found.
 pub const EMBRYO_NEWTON_TOL: f64 = 1e-12;
@@ -297,11 +284,11 @@ impl Kernel<7, 1> for EmbryoSuperheatExact {
     };
     #[inline(always)]
     fn eval(x: &[f64; 7]) -> [f64; 1] {
-        [embryo_exact::<false>(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
+        iterate_one::<EmbryoNewton, 7, 1, 8>(x)
     }
     #[inline(always)]
-    fn eval_one(x: &[f64; 7]) -> [f64; 1] {
-        [embryo_superheat_exact(x[0], x[1], x[2], x[3], x[4], x[5], x[6])]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 7], len: usize, y: &mut [[f64; B]; 1]) -> BlockSummary {
+        iterate_block::<Self, EmbryoNewton, 7, 1, 8, B>(at, len, y)
     }
     #[inline(always)]
     fn possible(x: &[f64; 7]) -> bool {
@@ -1381,10 +1368,11 @@ mod tests {
     }
 
     #[test]
-    fn exact_embryo_fixed_steps_equal_the_converged_iteration() {
+    fn exact_embryo_block_and_element_forms_equal_the_converged_iteration() {
         // water (this crate's IAPWS saturation line) from the triple point to
         // 0.1 K below critical, radii 0.1 nm to 1 mm
         let (mut most, mut answers, mut none) = (0, 0, 0);
+        let mut states = Vec::new();
         for i in 0..=300 {
             let t = water::T_TRIPLE + (water::T_CRIT - 0.1 - water::T_TRIPLE) * i as f64 / 300.0;
             let s = water::saturation_t(t);
@@ -1392,8 +1380,7 @@ mod tests {
                 let r = 10f64.powf(-10.0 + 7.0 * j as f64 / 200.0);
                 let (want, steps) = embryo_exact_to_convergence(r, s);
                 let got = embryo_superheat_exact(r, s[5], s[0], s[1], s[2], s[3], s[4]);
-                let unrolled = embryo_exact::<false>(r, s[5], s[0], s[1], s[2], s[3], s[4]);
-                assert_eq!(got.to_bits(), unrolled.to_bits(), "T {t} r {r}: the two forms differ");
+                states.push(([r, s[5], s[0], s[1], s[2], s[3], s[4]], got));
                 if want.is_nan() {
                     none += 1;
                     assert!(got.is_nan(), "T {t} r {r}: {got}, the loop found no root");
@@ -1406,6 +1393,22 @@ mod tests {
         }
         assert!(most <= 11, "the loop needed {most} steps"); // as documented at EMBRYO_NEWTON_STEPS
         assert!(answers > 50_000 && none > 1_000, "{answers} answers, {none} without");
+        // The block form (the binding's loops): blocks of 64 states in grid
+        // order (neighbouring radii) and scattered over the grid (states that
+        // settle after 2 steps beside ones that need 11 or find no root), so
+        // that settled elements keep stepping while others converge.
+        let n = states.len();
+        for order in [1, 7919] {
+            for b in (0..n).step_by(64) {
+                let at = |j: usize| states[((b + j) % n) * order % n].0;
+                let mut y = [[0.0; 64]; 1];
+                EmbryoSuperheatExact::eval_block::<64>(at, 64, &mut y);
+                for (j, v) in y[0].iter().enumerate() {
+                    let (x, want) = states[((b + j) % n) * order % n];
+                    assert_eq!(v.to_bits(), want.to_bits(), "{x:?}: block {v}, element {want}");
+                }
+            }
+        }
     }
 
     // ------------------------------------------------------------------ barrier factor

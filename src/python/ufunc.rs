@@ -269,24 +269,13 @@ impl<const N: usize, const M: usize> Operands<N, M> {
             // readable elements, in place (a full block inside the input
             // view) or in `xb`.
             let at = |j: usize| -> [f64; N] { std::array::from_fn(|k| unsafe { src[k].add(j).read_unaligned() }) };
-            // One pass: the outputs, whether any is NaN, and the range count
-            // (the common case of `settle`: when every output of the block is
-            // a number, only the range check remains). Both reductions are
-            // branch-free (sweeps straddle range limits at random); the tail
-            // of a short block repeats its first element and is masked out.
-            let mut any_nan = false;
-            let mut out_of_range = 0u64;
-            for j in 0..BLOCK {
-                let x = at(j);
-                let y = K::eval(&x);
-                for k in 0..M {
-                    yb[k][j] = y[k];
-                    any_nan |= y[k].is_nan();
-                }
-                out_of_range += (!K::in_range_with(&x, &y) & (j < len)) as u64;
-            }
-            if !any_nan {
-                counts[1] += out_of_range;
+            // The outputs, whether any is NaN and the range count (the common
+            // case of `settle`: when every output of the block is a number,
+            // only the range check remains); the tail of a short block
+            // repeats its first element and is not counted.
+            let sum = K::eval_block(at, len, &mut yb);
+            if !sum.any_nan {
+                counts[1] += sum.out_of_range;
             } else {
                 counts = settle_block::<K, N, M>(at, &mut yb, len, counts);
             }
