@@ -101,8 +101,8 @@ pub trait Kernel<const N: usize, const M: usize> {
     /// ([`BlockSummary`]); its first `len` elements are live, the rest repeat
     /// one of them. The loops evaluate arrays through this, one block at a
     /// time. The default is one loop over the elements, which the compiler
-    /// vectorises across them (the summary folded into the same loop: a
-    /// second pass over the block cost cheap kernels up to 50 %). A kernel
+    /// vectorises across them, with the summary folded into the same loop
+    /// so that each element's inputs are read once. A kernel
     /// solved by iteration overrides it with [`iterate_block`], which runs
     /// each step as its own pass over the block.
     #[inline(always)]
@@ -162,9 +162,9 @@ impl BlockSummary {
 /// vectorises only with every step written out and no exit, and then runs
 /// the worst case for every element as one long chain of dependent
 /// operations, which the processor cannot overlap across elements (the exact
-/// embryo superheat: 100 ns per element). Step by step over a whole block,
-/// each pass is short and vectorises, and the block stops as soon as all of
-/// its elements have settled (25 ns).
+/// embryo superheat: 100 ns per element on one AVX-512 thread). Step by step
+/// over a whole block, each pass is short and vectorises, and the block stops
+/// as soon as all of its elements have settled (38 ns).
 pub trait Iteration<const N: usize, const M: usize, const S: usize> {
     /// Steps after which an element that has not settled is left as it is
     /// (`finish` then decides whether it has an answer).
