@@ -26,8 +26,6 @@ fn entries() -> &'static [Entry] {
     ENTRIES.get_or_init(registry::entries)
 }
 
-/// Return and reset the element counts `(invalid, out_of_range)` of the ufunc
-/// calls made on this thread since the last call.
 /// Limit the SIMD clones of the kernel loops and of the water properties
 /// (2 AVX-512, 1 AVX2/FMA, 0 baseline; each only where the CPU has it) and
 /// return the previous limit. For the tests that check every clone gives the
@@ -37,6 +35,8 @@ fn _set_simd_cap(level: u8) -> u8 {
     crate::simd::set_cap(level)
 }
 
+/// Return and reset the element counts `(invalid, out_of_range)` of the ufunc
+/// calls made on this thread since the last call.
 #[pyfunction]
 fn take_counts() -> (u64, u64) {
     let [a, b] = ufunc::take_counts();
