@@ -160,9 +160,10 @@ pub fn pow(x: f64, y: f64) -> f64 {
 ///    binomial series to `d^3` (error 0.14 d^4: below 1e-13);
 /// 3. `c = s u^2`, cut to 17 significant bits so that `c^3` (51 bits) and
 ///    `s - c^3` are exact; the root is then `c (1 - ρ)^(-1/3)` with
-///    `ρ = (s - c^3)/s` (below 2^-16), the series to `ρ^3` leaving 0.14 ρ^4
-///    (below 1e-20 relative): the result carries the rounding of its last
-///    operations only.
+///    `ρ = (s - c^3)/s` (below 3·2^-16, formed as `(s - c^3) u^3`, u^3 standing
+///    in for 1/s to about 3e-13), the series to `ρ^3` leaving 0.14 ρ^4 (below
+///    1e-18 relative). Against an exact reference the worst error found is
+///    0.52 ulp (about 0.35 % of arguments are not correctly rounded).
 #[inline(always)]
 pub fn cbrt(x: f64) -> f64 {
     const U0: f64 = 0.873_368_210_134_791_8;
