@@ -280,6 +280,21 @@ def test_film_boiling_form(water):
         film_boiling(dt, water, "cylinder")
 
 
+
+@pytest.mark.parametrize("dt", [445.81244991012744, 590.5791271659746, 490.6134934040716, 419.2737258269676])
+def test_film_boiling_radiation_number_and_array_agree(dt):
+    # Superheats at which the former T_w**4 - T**4 gave a number and a
+    # one-element array different bits (NumPy's array power differs from its
+    # scalar power by an ulp; found by a random search on the AVX-512
+    # development machine; a consistency check, no published value).
+    from wetboil.fluids import water as water_state
+
+    w = water_state(T=373.15)
+    one = film_boiling(dt, w, "cylinder", 5e-3, emissivity=0.8)
+    arr = film_boiling(np.array([dt]), w, "cylinder", 5e-3, emissivity=0.8)
+    assert isinstance(one, float)
+    assert one == float(arr[0])
+
 def curve_kw(**extra):
     kw = dict(receding_angle_deg=45.0, C_sf=0.013, natural_convection_coefficient=800.0,
               largest_cavity_radius=10e-6, design_heat_flux=5e5)
