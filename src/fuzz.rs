@@ -349,7 +349,9 @@ impl Report {
     }
 }
 
-fn check<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], physical: bool, report: &mut Report) {
+/// Check one sample; returns its outputs `eval(x)` (None if it panicked),
+/// which [`check_block`] compares the block form with.
+fn check<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], physical: bool, report: &mut Report) -> Option<[f64; M]> {
     let name = K::MODEL.name;
     report.samples += 1;
     let run = catch_unwind(AssertUnwindSafe(|| {
@@ -363,7 +365,7 @@ fn check<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], physical
     }));
     let Ok((y, y2, possible, in_range, (out, status), code)) = run else {
         report.fail(name, x, "panicked".into());
-        return;
+        return None;
     };
     if let Some(r) = in_range {
         if catch_unwind(AssertUnwindSafe(|| K::in_range_with(x, &y))).ok() != Some(r) {
@@ -402,7 +404,7 @@ fn check<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], physical
                 report.fail(name, x, format!("evaluate changed the outputs of a possible input: {y:?} -> {out:?}"));
             }
             if !physical {
-                return; // huge and tiny inputs may overflow to ±inf or give 0 x inf: only the contract above
+                return Some(y); // huge and tiny inputs may overflow to ±inf or give 0 x inf: only the contract above
             }
             *report.physical_possible.entry(name).or_insert(0) += 1;
             let allow = allowances(name);
@@ -426,6 +428,7 @@ fn check<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], physical
         }
         other => report.fail(name, x, format!("classify returned {other}")),
     }
+    Some(y)
 }
 
 /// Fuzz one kernel until `deadline`.
@@ -441,7 +444,7 @@ fn run<K: Kernel<N, M>, const N: usize, const M: usize>(rng: &mut Rng, deadline:
         }
     }
     let mut i = 0u64;
-    let mut block = [[0.0; N]; BLOCK];
+    let mut block = [([0.0; N], [0.0; M]); BLOCK];
     loop {
         // physical samples half the time; otherwise a few inputs made adversarial
         let physical = i % 2 == 0;
@@ -453,8 +456,10 @@ fn run<K: Kernel<N, M>, const N: usize, const M: usize>(rng: &mut Rng, deadline:
                 x[j] = adversarial(rng, ranges[j]);
             }
         }
-        check::<K, N, M>(&x, physical, report);
-        block[i as usize % BLOCK] = x;
+        // (a sample that panicked is reported by check and left out of the blocks)
+        if let Some(y) = check::<K, N, M>(&x, physical, report) {
+            block[i as usize % BLOCK] = (x, y);
+        }
         i += 1;
         if i % BLOCK as u64 == 0 {
             check_block::<K, N, M>(&block, 1 + rng.below(BLOCK), report);
@@ -469,19 +474,22 @@ fn run<K: Kernel<N, M>, const N: usize, const M: usize>(rng: &mut Rng, deadline:
 const BLOCK: usize = 64;
 
 /// The block form of a kernel (`Kernel::eval_block`, what the binding's loops
-/// run) against its element form on the last `BLOCK` samples, of which the
-/// first `len` are live: the same output bits, and the same summary as the
-/// elements give one by one.
-fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(xs: &[[f64; N]; BLOCK], len: usize, report: &mut Report) {
+/// run) against its element form on the last `BLOCK` samples (inputs and the
+/// outputs `eval` gave them in [`check`]), of which the first `len` are live:
+/// the same output bits, and the same summary as the elements give one by one.
+fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(
+    samples: &[([f64; N], [f64; M]); BLOCK],
+    len: usize,
+    report: &mut Report,
+) {
     let name = K::MODEL.name;
     let mut y = [[0.0; BLOCK]; M];
-    let Ok(sum) = catch_unwind(AssertUnwindSafe(|| K::eval_block(|j| xs[j], len, &mut y))) else {
-        report.fail(name, &xs[0], "eval_block panicked".into());
+    let Ok(sum) = catch_unwind(AssertUnwindSafe(|| K::eval_block(|j| samples[j].0, len, &mut y))) else {
+        report.fail(name, &samples[0].0, "eval_block panicked".into());
         return;
     };
     let mut want = BlockSummary::default();
-    for (j, x) in xs.iter().enumerate() {
-        let v = K::eval(x);
+    for (j, (x, v)) in samples.iter().enumerate() {
         // (a NaN's sign and payload carry no meaning, and vectorised code
         // may order the operands of a commutative operation differently)
         let same = |a: f64, b: f64| a.to_bits() == b.to_bits() || (a.is_nan() && b.is_nan());
@@ -490,10 +498,10 @@ fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(xs: &[[f64; N]; 
             report.fail(name, x, format!("eval_block and eval differ: {got:?} vs {v:?}"));
         }
         want.any_nan |= v.iter().any(|o| o.is_nan());
-        want.out_of_range += (j < len && !K::in_range_with(x, &v)) as u64;
+        want.out_of_range += (j < len && !K::in_range_with(x, v)) as u64;
     }
     if sum != want {
-        report.fail(name, &xs[0], format!("eval_block's summary {sum:?}, the elements give {want:?}"));
+        report.fail(name, &samples[0].0, format!("eval_block's summary {sum:?}, the elements give {want:?}"));
     }
 }
 
