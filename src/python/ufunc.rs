@@ -242,6 +242,9 @@ impl<const N: usize, const M: usize> Operands<N, M> {
                 let base = unsafe { self.ins[k].offset(i * self.in_steps[k]) };
                 if self.in_steps[k] == 8 && len == BLOCK {
                     src[k] = base as *const f64;
+                    if self.stream {
+                        prefetch_block(base.wrapping_add(PREFETCH_AHEAD));
+                    }
                     continue;
                 }
                 if self.in_steps[k] == 0 {
@@ -316,6 +319,28 @@ impl<const N: usize, const M: usize> Operands<N, M> {
 /// the read of every output line before its write (a sixth of the memory
 /// traffic of a five-input kernel such as Fritz).
 const STREAM_MIN: usize = 1 << 22;
+
+/// How far ahead of a block its contiguous inputs are prefetched on such
+/// calls [bytes]: four blocks (2 KiB). The hardware prefetcher alone lets a kernel of
+/// a few ns per element wait on memory at every 4 KiB page, where it stops:
+/// Lemmert-Chawla on 10^7 points ran at 4.9 ns per element on one thread
+/// against 4.1 ns on 10^6 (in cache), and at 4.1 ns with this prefetch.
+const PREFETCH_AHEAD: usize = 4 * 8 * BLOCK;
+
+/// Ask for the [`BLOCK`] elements (one per cache line of 64 bytes) from `p`
+/// on into the cache. A prefetch is a hint that never faults, so `p` may lie
+/// past the end of the array (hence the wrapping pointer arithmetic).
+#[inline(always)]
+fn prefetch_block(p: *const u8) {
+    #[cfg(target_arch = "x86_64")]
+    for l in 0..8 * BLOCK / 64 {
+        use std::arch::x86_64::{_mm_prefetch, _MM_HINT_T0};
+        // SAFETY: prefetching has no architectural effect and never faults.
+        unsafe { _mm_prefetch::<_MM_HINT_T0>(p.wrapping_add(64 * l) as *const i8) };
+    }
+    #[cfg(not(target_arch = "x86_64"))]
+    let _ = p;
+}
 
 /// Copy one block to 16-byte aligned memory with non-temporal stores.
 ///
