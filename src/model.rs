@@ -165,14 +165,25 @@ impl BlockSummary {
 /// embryo superheat: 100 ns per element on one AVX-512 thread). Step by step
 /// over a whole block, each pass is short and vectorises, and the block stops
 /// as soon as all of its elements have settled (38 ns).
+///
+/// With no steps (`MAX_STEPS = 0`, `step` left to its default) the same
+/// machinery splits a closed form in two passes, `start` and `finish`. That
+/// pays where one element is a long chain of dependent operations, such as
+/// the logarithm feeding the exponential of `x^y`: the processor overlaps
+/// only a few elements of such a chain, and many of each half (Lemmert-Chawla
+/// on one AVX-512 thread: 4.1 ns per element in one pass, 3.0 in two).
 pub trait Iteration<const N: usize, const M: usize, const S: usize> {
     /// Steps after which an element that has not settled is left as it is
     /// (`finish` then decides whether it has an answer).
     const MAX_STEPS: usize;
     /// The state before the first step.
     fn start(x: &[f64; N]) -> [f64; S];
-    /// One step: the next state, and whether it has settled.
-    fn step(s: &[f64; S]) -> ([f64; S], bool);
+    /// One step: the next state, and whether it has settled. The default, a
+    /// state that is already settled, serves the two-pass form.
+    #[inline(always)]
+    fn step(s: &[f64; S]) -> ([f64; S], bool) {
+        (*s, true)
+    }
     /// The outputs from the inputs and the last state.
     fn finish(x: &[f64; N], s: &[f64; S]) -> [f64; M];
 }

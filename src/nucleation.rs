@@ -1235,17 +1235,33 @@ impl Kernel<9, 1> for HibikiIshii {
 /// U. Grigull, eds.), Academic Press / Hemisphere (1977) 237-247.
 #[inline(always)]
 pub fn lemmert_chawla(wall_superheat: f64) -> f64 {
-    if !wall_superheat.is_finite() {
-        return f64::NAN;
-    }
-    if wall_superheat <= 0.0 {
-        return 0.0;
-    }
-    fastmath::pow(210.0 * wall_superheat, 1.805)
+    iterate_one::<LemmertChawla, 1, 1, 1>(&[wall_superheat])[0]
 }
 
 /// Kernel of [`lemmert_chawla`].
 pub struct LemmertChawla;
+
+/// [`lemmert_chawla`] in two passes, `1.805 ln(210 ΔT_w)` and then its
+/// exponential (see [`Iteration`] on why).
+impl Iteration<1, 1, 1> for LemmertChawla {
+    const MAX_STEPS: usize = 0;
+    #[inline(always)]
+    fn start(x: &[f64; 1]) -> [f64; 1] {
+        [1.805 * fastmath::ln(210.0 * x[0])]
+    }
+    #[inline(always)]
+    fn finish(x: &[f64; 1], s: &[f64; 1]) -> [f64; 1] {
+        let dt = x[0];
+        [if !dt.is_finite() {
+            f64::NAN
+        } else if dt <= 0.0 {
+            0.0
+        } else {
+            fastmath::exp(s[0])
+        }]
+    }
+}
+
 impl Kernel<1, 1> for LemmertChawla {
     const MODEL: Model = Model {
         name: "lemmert_chawla_site_density",
@@ -1262,7 +1278,11 @@ impl Kernel<1, 1> for LemmertChawla {
     };
     #[inline(always)]
     fn eval(x: &[f64; 1]) -> [f64; 1] {
-        [lemmert_chawla(x[0])]
+        iterate_one::<Self, 1, 1, 1>(x)
+    }
+    #[inline(always)]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 1], len: usize, y: &mut [[f64; B]; 1]) -> BlockSummary {
+        iterate_block::<Self, Self, 1, 1, 1, B>(at, len, y)
     }
     #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {

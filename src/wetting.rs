@@ -15,7 +15,10 @@
 //! **[M]** from memory, not seen in any source during this work.
 
 use crate::fastmath;
-use crate::model::{angle_deg, arg, densities, finite, nan_unless, non_negative, positive, Kernel, Model};
+use crate::model::{
+    angle_deg, arg, densities, finite, iterate_block, iterate_one, nan_unless, non_negative, positive, BlockSummary, Iteration,
+    Kernel, Model,
+};
 use crate::trig::cos_deg;
 
 // ---------------------------------------------------------------------------
@@ -619,12 +622,27 @@ impl Kernel<2, 1> for VdwDisjoiningPressure {
 /// Reference: de Gennes (1985) [M, high].
 #[inline(always)]
 pub fn power_law_disjoining_pressure(thickness: f64, coefficient: f64, exponent: f64) -> f64 {
-    let ok = positive(thickness) & finite(coefficient) & positive(exponent);
-    nan_unless(ok, coefficient / fastmath::pow(thickness, exponent))
+    iterate_one::<PowerLawDisjoiningPressure, 3, 1, 1>(&[thickness, coefficient, exponent])[0]
 }
 
 /// Kernel of [`power_law_disjoining_pressure`].
 pub struct PowerLawDisjoiningPressure;
+
+/// [`power_law_disjoining_pressure`] in two passes, `n ln δ` and then
+/// `B / e^(n ln δ)` (see [`Iteration`] on why).
+impl Iteration<3, 1, 1> for PowerLawDisjoiningPressure {
+    const MAX_STEPS: usize = 0;
+    #[inline(always)]
+    fn start(x: &[f64; 3]) -> [f64; 1] {
+        [x[2] * fastmath::ln(x[0])]
+    }
+    #[inline(always)]
+    fn finish(x: &[f64; 3], s: &[f64; 1]) -> [f64; 1] {
+        let [thickness, coefficient, exponent] = *x;
+        let ok = positive(thickness) & finite(coefficient) & positive(exponent);
+        [nan_unless(ok, coefficient / fastmath::exp(s[0]))]
+    }
+}
 impl Kernel<3, 1> for PowerLawDisjoiningPressure {
     const MODEL: Model = Model {
         name: "power_law_disjoining_pressure",
@@ -640,7 +658,11 @@ impl Kernel<3, 1> for PowerLawDisjoiningPressure {
     };
     #[inline(always)]
     fn eval(x: &[f64; 3]) -> [f64; 1] {
-        [power_law_disjoining_pressure(x[0], x[1], x[2])]
+        iterate_one::<Self, 3, 1, 1>(x)
+    }
+    #[inline(always)]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 3], len: usize, y: &mut [[f64; B]; 1]) -> BlockSummary {
+        iterate_block::<Self, Self, 3, 1, 1, B>(at, len, y)
     }
     #[inline(always)]
     fn possible(x: &[f64; 3]) -> bool {
