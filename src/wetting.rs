@@ -629,7 +629,8 @@ pub fn power_law_disjoining_pressure(thickness: f64, coefficient: f64, exponent:
 pub struct PowerLawDisjoiningPressure;
 
 /// [`power_law_disjoining_pressure`] in two passes, `n ln δ` and then
-/// `B / e^(n ln δ)` (see [`Iteration`] on why).
+/// `B e^(-n ln δ)` (see [`Iteration`] on why; a product where `B / δ^n`
+/// would divide: divisions bound the vectorised blocks).
 impl Iteration<3, 1, 1> for PowerLawDisjoiningPressure {
     const MAX_STEPS: usize = 0;
     #[inline(always)]
@@ -640,7 +641,9 @@ impl Iteration<3, 1, 1> for PowerLawDisjoiningPressure {
     fn finish(x: &[f64; 3], s: &[f64; 1]) -> [f64; 1] {
         let [thickness, coefficient, exponent] = *x;
         let ok = positive(thickness) & finite(coefficient) & positive(exponent);
-        [nan_unless(ok, coefficient / fastmath::exp(s[0]))]
+        // B = 0 is zero pressure even where δ^-n overflows (0 * inf would be NaN)
+        let pi = if coefficient == 0.0 { 0.0 } else { coefficient * fastmath::exp(-s[0]) };
+        [nan_unless(ok, pi)]
     }
 }
 impl Kernel<3, 1> for PowerLawDisjoiningPressure {
