@@ -988,6 +988,12 @@ mod tests {
         assert!(film_thickness(0.0, a, rl, rv, G_STANDARD).is_nan());
         assert!(disjoining_pressure(0.0, a).is_nan());
         assert!(power_law_disjoining_pressure(1e-9, 1.0, 0.0).is_nan());
+        // Limits of B delta^-n: delta^-n overflowing (inf, and 0 for B = 0, not
+        // NaN) or underflowing (0); n = 4, the retarded film, to rounding.
+        assert_eq!(power_law_disjoining_pressure(1e-200, 1.0, 3.0), f64::INFINITY);
+        assert_eq!(power_law_disjoining_pressure(1e-200, 0.0, 3.0), 0.0);
+        assert_eq!(power_law_disjoining_pressure(1e200, -1.0, 3.0), 0.0);
+        assert_relative_eq!(power_law_disjoining_pressure(2e-8, 3.2e-29, 4.0), 3.2e-29 / 1.6e-31, max_relative = 1e-14);
         // A centimetre above the pool the film is beyond 20 nm: flagged.
         let (y, st) = evaluate::<VdwFilmThickness, 5, 1>(&[0.01, a, rl, rv, G_STANDARD]);
         assert!(y[0] > VDW_FILM_MAX);
