@@ -28,7 +28,7 @@ pub const LIENHARD_DHIR_K: f64 = 0.149;
 /// J. Heat Transfer 95 (1973) 152-158, doi:10.1115/1.3450013.
 #[inline(always)]
 pub fn zuber(h_lv: f64, rho_l: f64, rho_v: f64, sigma: f64, k: f64, g: f64) -> f64 {
-    let ok = positive(h_lv) & densities(rho_l, rho_v) & positive(rho_v) & positive(sigma) & positive(k) & positive(g);
+    let ok = crate::all_positive!(h_lv, rho_v, rho_l - rho_v, sigma, k, g); // rho_l > rho_v > 0
     nan_unless(ok, k * h_lv * rho_v.sqrt() * (sigma * g * (rho_l - rho_v)).sqrt().sqrt())
 }
 

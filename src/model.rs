@@ -557,6 +557,17 @@ mod tests {
                         positive(a) & positive(b) & non_negative(c),
                         "{a} {b}; {c}"
                     );
+                    assert_eq!(
+                        crate::all_positive!(a; b, c),
+                        positive(a) & non_negative(b) & non_negative(c),
+                        "{a}; {b} {c}"
+                    );
+                    // finite(c) as |c| among the values after the semicolon (power_law finish)
+                    assert_eq!(
+                        crate::all_positive!(a, b; c.abs()),
+                        positive(a) & positive(b) & finite(c),
+                        "{a} {b}; |{c}|"
+                    );
                     // (sigma, rho_l, rho_v) as in capillary_possible and ki_fluid_possible
                     let (sigma, rho_l, rho_v) = (a, b, c);
                     assert_eq!(
@@ -569,6 +580,14 @@ mod tests {
                         positive(sigma) & densities(rho_l, rho_v) & positive(rho_v),
                         "sigma {a} rho_l {b} rho_v {c}"
                     );
+                    // (hamaker, rho_l, rho_v) as in film_possible, every sign of hamaker
+                    for hamaker in SPECIAL.iter().flat_map(|&h| [h, -h]) {
+                        assert_eq!(
+                            crate::all_positive!(1.0, -hamaker, 1.0, rho_l - rho_v; rho_v),
+                            (hamaker < 0.0) & finite(hamaker) & densities(rho_l, rho_v),
+                            "hamaker {hamaker} rho_l {b} rho_v {c}"
+                        );
+                    }
                     // (p, p_crit) as in cooper_possible
                     let (p, p_crit) = (b, c);
                     assert_eq!(

@@ -51,7 +51,7 @@ fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> 
 /// (1962) 207-213, doi:10.1115/1.3684339.
 #[inline(always)]
 pub fn embryo_superheat(radius: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
-    let ok = positive(radius) & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv);
+    let ok = all_positive!(radius, sigma, t_sat, rho_v, h_lv, rho_l - rho_v); // radius and fluid_possible
     // embryo_group / radius with one division
     nan_unless(ok, 2.0 * sigma * t_sat * (rho_l - rho_v) / (rho_l * rho_v * h_lv * radius))
 }
