@@ -697,12 +697,14 @@ def _onset_kernels(public: str, output: int) -> Dict[str, Any]:
 
     for t in (hsu, davis_anderson, kandlikar, bergles_rohsenow):
         t.__qualname__ = public
-    return {
+    table = {
         "hsu": _named(public, hsu, "hsu_onset", output=output),
         "davis_anderson": _named(public, davis_anderson, "davis_anderson_onset", output=output),
         "kandlikar": _named(public, kandlikar, "kandlikar_onset", output=output),
-        "bergles_rohsenow": _named(public, bergles_rohsenow, "bergles_rohsenow_onset"),
     }
+    if output == 0:  # Bergles-Rohsenow gives the superheat only, no cavity radius
+        table["bergles_rohsenow"] = _named(public, bergles_rohsenow, "bergles_rohsenow_onset")
+    return table
 
 
 _ONSET = _onset_kernels("onset_superheat", 0)
