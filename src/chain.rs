@@ -8,7 +8,7 @@
 //! and writes the outputs once. The separate public functions give the same
 //! numbers bit for bit (tests).
 
-use crate::model::{angle_deg, arg, positive, Kernel, Model};
+use crate::model::{angle_deg, arg, positive, BlockSummary, Kernel, Model};
 use crate::{chf, departure, nucleation, water};
 
 /// Onset superheat [K] (Hsu, general contact angle), departure diameter [m]
@@ -23,7 +23,19 @@ pub fn water_screening(
     heat_flux: f64,
     g: f64,
 ) -> [f64; 4] {
-    let w = water::saturation_p(p);
+    screening_from(water::saturation_p(p), contact_angle_deg, receding_angle_deg, orientation_deg, heat_flux, g)
+}
+
+/// [`water_screening`] given the saturated state `w` (fields as [`water::SAT_FIELDS`]).
+#[inline(always)]
+fn screening_from(
+    w: [f64; 12],
+    contact_angle_deg: f64,
+    receding_angle_deg: f64,
+    orientation_deg: f64,
+    heat_flux: f64,
+    g: f64,
+) -> [f64; 4] {
     let [t, _p, rho_l, rho_v, h_lv, sigma, _cp_l, k_l, ..] = w;
     let onset = nucleation::hsu_onset(heat_flux, sigma, t, rho_l, rho_v, h_lv, k_l, contact_angle_deg)[0];
     let d = departure::fritz(contact_angle_deg, sigma, rho_l, rho_v, g);
@@ -64,6 +76,24 @@ impl Kernel<6, 4> for WaterScreening {
     fn eval(x: &[f64; 6]) -> [f64; 4] {
         water_screening(x[0], x[1], x[2], x[3], x[4], x[5])
     }
+    /// The water states of the block with their saturation temperatures solved together
+    /// ([`water::saturation_p_each`]), then the models element by element.
+    #[inline(always)]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 6], len: usize, y: &mut [[f64; B]; 4]) -> BlockSummary {
+        let mut sum = BlockSummary::default();
+        let mut p = [f64::NAN; water::T_SAT_BLOCK];
+        for j0 in (0..B).step_by(water::T_SAT_BLOCK) {
+            let n = water::T_SAT_BLOCK.min(B - j0);
+            for k in 0..n {
+                p[k] = at(j0 + k)[0];
+            }
+            water::saturation_p_each(&p, n, |k, w| {
+                let x = at(j0 + k);
+                sum.add::<Self, 6, 4, B>(&x, screening_from(w, x[1], x[2], x[3], x[4], x[5]), j0 + k, len, y)
+            });
+        }
+        sum
+    }
     #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         !water::t_sat(x[0]).is_nan()
@@ -97,5 +127,28 @@ mod tests {
             }
         }
         assert!(water_screening(-1.0, 45.0, 20.0, 0.0, 1e5, 9.80665).iter().all(|v| v.is_nan()));
+    }
+
+    /// The block path (saturation temperatures solved together) gives the element path's bits.
+    #[test]
+    fn block_equals_elements() {
+        let ps = [f64::NAN, -1.0, 611.0, 611.657, 1.0e4, 101325.0, 1.0e6, 1.0e7, 2.2e7, 22.064e6, 3.0e7];
+        let xs: Vec<[f64; 6]> = (0..100)
+            .map(|i| {
+                let f = i as f64;
+                [ps[i % ps.len()] * (1.0 + 1e-3 * f), 5.0 + 1.7 * f, 3.0 + 0.8 * f, 0.9 * f, 1e3 * f, 9.80665]
+            })
+            .collect();
+        for (c, chunk) in xs.chunks(64).enumerate() {
+            let len = chunk.len();
+            let mut y = [[0.0; 64]; 4];
+            WaterScreening::eval_block::<64>(|j| chunk[j.min(len - 1)], len, &mut y);
+            for j in 0..len {
+                let v = WaterScreening::eval(&chunk[j]);
+                for m in 0..4 {
+                    assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} element {j} output {m}");
+                }
+            }
+        }
     }
 }

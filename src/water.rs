@@ -352,15 +352,59 @@ fn t_sat_with_p / t_sat_avx2 (p: f64) -> (f64, f64) = t_sat_body
 /// `(t_sat(p), p_sat(t_sat(p)))`: the polish evaluates the second anyway. NaN twice outside the range.
 #[inline(always)]
 fn t_sat_body<const FMA: bool>(p: f64) -> (f64, f64) {
-    const NONE: (f64, f64) = (f64::NAN, f64::NAN);
+    match t_sat_case::<FMA>(p) {
+        SatCase::Done(t, ps) => return (t, ps),
+        SatCase::Solve => {}
+    }
+    let lnp_target = (p / P_CRIT).ln();
+    let mut t = if97_t_sat(p);
+    for _ in 0..T_SAT_NEWTON_STEPS {
+        let (tn, settled) = t_sat_newton(t, lnp_target);
+        t = tn;
+        if settled {
+            break;
+        }
+    }
+    t = t.clamp(T_TRIPLE, T_CRIT);
+    let mut ps = psat_dd::<FMA>(t);
+    let mut e0 = ps - p;
+    for _ in 0..T_SAT_POLISH_STEPS {
+        let settled;
+        (t, ps, e0, settled) = t_sat_polish::<FMA>(p, t, ps, e0);
+        if settled {
+            break;
+        }
+    }
+    (t, ps)
+}
+
+/// How [`t_sat_body`] starts on `p`: settled at once (outside the range, or the critical point), or solved.
+enum SatCase {
+    Done(f64, f64),
+    Solve,
+}
+
+/// Most Newton steps of the inversion (two or three are taken from the IF97 start).
+const T_SAT_NEWTON_STEPS: usize = 8;
+/// Most one-ulp steps of its polish.
+const T_SAT_POLISH_STEPS: usize = 4;
+
+#[inline(always)]
+fn t_sat_case<const FMA: bool>(p: f64) -> SatCase {
     // p_sat(T_TRIPLE) = 611.65... Pa; the exact bound is only evaluated for p next to it
     if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd::<FMA>(T_TRIPLE)) {
-        return NONE;
+        return SatCase::Done(f64::NAN, f64::NAN);
     }
     if p == P_CRIT {
-        return (T_CRIT, psat_dd::<FMA>(T_CRIT));
+        return SatCase::Done(T_CRIT, psat_dd::<FMA>(T_CRIT));
     }
-    // IF97 Eq. 31 starting value (pressure in MPa).
+    SatCase::Solve
+}
+
+/// The starting temperature [K] of the inversion: IF97 Eq. 31 (pressure in MPa), or mid-range where it
+/// fails.
+#[inline(always)]
+fn if97_t_sat(p: f64) -> f64 {
     const N: [f64; 10] = [
         0.11670521452767e4,
         -0.72421316703206e6,
@@ -378,53 +422,116 @@ fn t_sat_body<const FMA: bool>(p: f64) -> (f64, f64) {
     let f = N[0] * beta * beta + N[3] * beta + N[6];
     let g = N[1] * beta * beta + N[4] * beta + N[7];
     let d = 2.0 * g / (-f - (f * f - 4.0 * e * g).max(0.0).sqrt());
-    let mut t = 0.5
+    let t = 0.5
         * (N[9] + d
             - ((N[9] + d) * (N[9] + d) - 4.0 * (N[8] + N[9] * d))
                 .max(0.0)
                 .sqrt());
-    if !(t.is_finite()) {
-        t = 0.5 * (T_TRIPLE + T_CRIT);
+    if t.is_finite() {
+        t
+    } else {
+        0.5 * (T_TRIPLE + T_CRIT)
     }
-    let lnp_target = (p / P_CRIT).ln();
-    for _ in 0..8 {
-        t = t.clamp(T_TRIPLE, T_CRIT);
-        let (lnp, dlnp) = ln_psat_and_slope(t);
-        let dt = (lnp - lnp_target) / dlnp;
-        let tn = t - dt;
-        if !tn.is_finite() {
-            break;
-        }
-        t = tn;
-        if dt.abs() <= 1e-13 * t {
-            break;
-        }
+}
+
+/// One Newton step on ln p_sat(T) = `lnp_target`: the next T, and whether the inversion has settled (a
+/// step below 1e-13 T, or a step that would leave the finite numbers, which is not taken).
+#[inline(always)]
+fn t_sat_newton(t: f64, lnp_target: f64) -> (f64, bool) {
+    let t = t.clamp(T_TRIPLE, T_CRIT);
+    let (lnp, dlnp) = ln_psat_and_slope(t);
+    let dt = (lnp - lnp_target) / dlnp;
+    let tn = t - dt;
+    if !tn.is_finite() {
+        return (t, true);
     }
-    t = t.clamp(T_TRIPLE, T_CRIT);
-    // Polish: Newton runs on the plain-double ln p_sat, which carries a few ulp of rounding noise, so its
-    // T can be an ulp or two from the T whose (double-double, strictly increasing) p_sat is nearest to p.
-    // Walk one ulp at a time towards p while that gets nearer.
-    let mut ps = psat_dd::<FMA>(t);
-    let mut e0 = ps - p;
-    for _ in 0..4 {
-        if e0 == 0.0 {
-            break;
-        }
-        let t1 = if e0 < 0.0 { next_up(t) } else { next_down(t) };
-        if !(t1 >= T_TRIPLE && t1 <= T_CRIT) {
-            break;
-        }
-        let ps1 = psat_dd::<FMA>(t1);
-        let e1 = ps1 - p;
-        if e1.abs() < e0.abs() {
-            t = t1;
-            ps = ps1;
-            let crossed = (e1 < 0.0) != (e0 < 0.0);
-            e0 = e1;
-            if crossed {
-                break;
+    (tn, dt.abs() <= 1e-13 * tn)
+}
+
+/// One step of the polish: Newton runs on the plain-double ln p_sat, which carries a few ulp of rounding
+/// noise, so its T can be an ulp or two from the T whose (double-double, strictly increasing) p_sat is
+/// nearest to p. Move T one ulp towards p while that gets nearer; `e0 = ps - p` with `ps = p_sat(t)`.
+/// Returns the new `(t, ps, e0)` and whether the polish has settled.
+#[inline(always)]
+fn t_sat_polish<const FMA: bool>(p: f64, t: f64, ps: f64, e0: f64) -> (f64, f64, f64, bool) {
+    if e0 == 0.0 {
+        return (t, ps, e0, true);
+    }
+    let t1 = if e0 < 0.0 { next_up(t) } else { next_down(t) };
+    if !(t1 >= T_TRIPLE && t1 <= T_CRIT) {
+        return (t, ps, e0, true);
+    }
+    let ps1 = psat_dd::<FMA>(t1);
+    let e1 = ps1 - p;
+    if e1.abs() < e0.abs() {
+        (t1, ps1, e1, (e1 < 0.0) != (e0 < 0.0))
+    } else {
+        (t, ps, e0, true)
+    }
+}
+
+/// Elements per call of [`t_sat_block`]: the binding's block.
+pub const T_SAT_BLOCK: usize = 64;
+
+fma_dispatch! {
+/// `(t_sat(p), p_sat(t_sat(p)))` of a block of pressures, bit for bit those of one element at a time.
+pub fn t_sat_block / t_sat_block_avx2 (p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]) = t_sat_block_body
+}
+
+/// [`t_sat_body`] over a block, each stage as a pass over the elements still solving. One element's
+/// inversion is a chain of dependent operations (a Newton step waits for the last, a polish step for a
+/// double-double p_sat); passes over many elements let the processor overlap the chains, and the
+/// Newton passes vectorise.
+#[inline(always)]
+fn t_sat_block_body<const FMA: bool>(p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]) {
+    const B: usize = T_SAT_BLOCK;
+    let mut t = [f64::NAN; B];
+    let mut ps = [f64::NAN; B];
+    let mut target = [0.0; B];
+    let mut solving = [false; B];
+    for j in 0..B {
+        match t_sat_case::<FMA>(p[j]) {
+            SatCase::Done(tj, pj) => (t[j], ps[j]) = (tj, pj),
+            SatCase::Solve => {
+                solving[j] = true;
+                target[j] = (p[j] / P_CRIT).ln();
+                t[j] = if97_t_sat(p[j]);
             }
-        } else {
+        }
+    }
+    let mut newton = solving;
+    for _ in 0..T_SAT_NEWTON_STEPS {
+        let mut any = false;
+        for j in 0..B {
+            let (tn, settled) = t_sat_newton(t[j], target[j]);
+            t[j] = if newton[j] { tn } else { t[j] };
+            newton[j] &= !settled;
+            any |= newton[j];
+        }
+        if !any {
+            break;
+        }
+    }
+    let mut e0 = [0.0; B];
+    for j in 0..B {
+        if solving[j] {
+            t[j] = t[j].clamp(T_TRIPLE, T_CRIT);
+            ps[j] = psat_dd::<FMA>(t[j]);
+            e0[j] = ps[j] - p[j];
+        }
+    }
+    let mut polish = solving;
+    for _ in 0..T_SAT_POLISH_STEPS {
+        let mut any = false;
+        for j in 0..B {
+            if polish[j] {
+                let settled;
+                (t[j], ps[j], e0[j], settled) = t_sat_polish::<FMA>(p[j], t[j], ps[j], e0[j]);
+                polish[j] = !settled;
+                any |= !settled;
+            }
+        }
+        if !any {
             break;
         }
     }
@@ -1802,6 +1909,26 @@ pub fn saturation_p / saturation_p_avx2 (p: f64) -> [f64; 12] = saturation_p_bod
 #[inline(always)]
 fn saturation_p_body<const FMA: bool>(p: f64) -> [f64; 12] {
     let (t, ps) = t_sat_body::<FMA>(p);
+    state_or_nan::<FMA>((t, ps))
+}
+
+fma_dispatch! {
+/// The saturated state at `(t, p_sat(t))` from [`t_sat_body`] or [`t_sat_block`] (NaN where `t` is).
+fn state_at_pair / state_at_pair_avx2 (tp: (f64, f64)) -> [f64; 12] = state_or_nan
+}
+
+/// The saturated states at a block of pressures, `f(k, saturation_p(p[k]))` for each k in order, bit for
+/// bit, with the saturation temperatures solved together ([`t_sat_block`]).
+#[inline(always)]
+pub fn saturation_p_each(p: &[f64; T_SAT_BLOCK], n: usize, mut f: impl FnMut(usize, [f64; 12])) {
+    let (t, ps) = t_sat_block(p);
+    for k in 0..n.min(T_SAT_BLOCK) {
+        f(k, state_at_pair((t[k], ps[k])));
+    }
+}
+
+#[inline(always)]
+fn state_or_nan<const FMA: bool>((t, ps): (f64, f64)) -> [f64; 12] {
     if t.is_nan() {
         return NAN12;
     }
@@ -1924,6 +2051,24 @@ impl crate::model::Kernel<1, 12> for SaturationP {
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_p(x[0])
     }
+    /// The saturation temperatures of the block in one [`t_sat_block`], then the states element by element.
+    #[inline(always)]
+    fn eval_block<const B: usize>(
+        at: impl Fn(usize) -> [f64; 1],
+        len: usize,
+        y: &mut [[f64; B]; 12],
+    ) -> crate::model::BlockSummary {
+        let mut sum = crate::model::BlockSummary::default();
+        let mut p = [f64::NAN; T_SAT_BLOCK];
+        for j0 in (0..B).step_by(T_SAT_BLOCK) {
+            let n = T_SAT_BLOCK.min(B - j0);
+            for k in 0..n {
+                p[k] = at(j0 + k)[0];
+            }
+            saturation_p_each(&p, n, |k, w| sum.add::<Self, 1, 12, B>(&[p[k]], w, j0 + k, len, y));
+        }
+        sum
+    }
     #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
         !t_sat(x[0]).is_nan()
@@ -1944,6 +2089,74 @@ mod tests {
     /// The AVX2/FMA clone of `saturation_t` must agree with the baseline build to the last bit (Rust never
     /// contracts to FMA by itself, and the clone only changes instruction selection), so that results do not
     /// depend on the machine.
+    /// Pressures that exercise every branch of the inversion: a log sweep of the range, exact saturation
+    /// pressures (the polish's round trip), its ends and their neighbours, and impossible values.
+    fn inversion_pressures() -> Vec<f64> {
+        let mut ps: Vec<f64> = (0..=40_000).map(|i| 600.0 * (23.0e6f64 / 600.0).powf(i as f64 / 40_000.0)).collect();
+        let mut t = T_TRIPLE;
+        while t <= T_CRIT {
+            ps.push(p_sat(t));
+            ps.push(next_up(p_sat(t)));
+            t += 0.0137;
+        }
+        let lo = p_sat(T_TRIPLE);
+        ps.extend([lo, next_up(lo), next_down(lo), 611.6, 611.7, P_CRIT, next_down(P_CRIT), next_up(P_CRIT)]);
+        ps.extend([f64::NAN, f64::INFINITY, f64::NEG_INFINITY, 0.0, -0.0, -1.0, 5e-324, 1e300]);
+        ps
+    }
+
+    /// The block inversion gives the bits of the element one, for every position in the block (both clones).
+    #[test]
+    fn t_sat_block_matches_t_sat() {
+        let ps = inversion_pressures();
+        for (c, chunk) in ps.chunks(T_SAT_BLOCK).enumerate() {
+            let mut block = [f64::NAN; T_SAT_BLOCK];
+            // rotate so that each pressure meets different neighbours and positions across chunks
+            for (k, &p) in chunk.iter().enumerate() {
+                block[(k + c) % T_SAT_BLOCK] = p;
+            }
+            let (t, s) = t_sat_block(&block);
+            let (t0, s0) = t_sat_block_body::<false>(&block);
+            for j in 0..T_SAT_BLOCK {
+                let (te, se) = t_sat_body::<false>(block[j]);
+                let p = block[j];
+                assert_eq!((t[j].to_bits(), s[j].to_bits()), (te.to_bits(), se.to_bits()), "p = {p:e}");
+                assert_eq!((t0[j].to_bits(), s0[j].to_bits()), (te.to_bits(), se.to_bits()), "p = {p:e}");
+                assert_eq!(te.to_bits(), t_sat(p).to_bits(), "p = {p:e}");
+            }
+        }
+        // the round trip the polish exists for
+        let mut t = T_TRIPLE;
+        while t <= T_CRIT {
+            let (tb, _) = t_sat_block(&[p_sat(t); T_SAT_BLOCK]);
+            assert!(tb.iter().all(|&x| x == t), "T = {t}");
+            t += 0.731;
+        }
+    }
+
+    /// `SaturationP`'s block path gives the states of its element path, live elements or not.
+    #[test]
+    fn saturation_p_block_matches_elements() {
+        use crate::model::Kernel;
+        let ps = inversion_pressures();
+        for (c, chunk) in ps.chunks(64).enumerate() {
+            let len = chunk.len();
+            let mut y = [[0.0; 64]; 12];
+            let sum = SaturationP::eval_block::<64>(|j| [chunk[j.min(len - 1)]], len, &mut y);
+            let mut out_of_range = 0;
+            for j in 0..64 {
+                let x = [chunk[j.min(len - 1)]];
+                let v = SaturationP::eval(&x);
+                for m in 0..12 {
+                    assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} p = {:e} field {m}", x[0]);
+                }
+                out_of_range += (j < len && !SaturationP::in_range_with(&x, &v)) as u64;
+            }
+            assert_eq!(sum.out_of_range, out_of_range);
+            assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+        }
+    }
+
     #[cfg(target_arch = "x86_64")]
     #[test]
     fn avx2_clone_is_bit_identical() {
