@@ -84,8 +84,8 @@ impl Kernel<6, 4> for WaterScreening {
         let mut p = [f64::NAN; water::T_SAT_BLOCK];
         for j0 in (0..B).step_by(water::T_SAT_BLOCK) {
             let n = water::T_SAT_BLOCK.min(B - j0);
-            for k in 0..n {
-                p[k] = at(j0 + k)[0];
+            for (k, pk) in p.iter_mut().enumerate().take(n) {
+                *pk = at(j0 + k)[0];
             }
             water::saturation_p_each(&p, n, |k, w| {
                 let x = at(j0 + k);

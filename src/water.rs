@@ -245,6 +245,21 @@ fn dd_sqrt<const FMA: bool>(a: Dd) -> Dd {
 /// (Plain double evaluation of ln(p/p_c) ~ -10 loses ~5 ulp of p and maps neighbouring T to equal p.)
 #[inline(always)]
 fn psat_dd<const FMA: bool>(t: f64) -> f64 {
+    psat_from_ln(ln_psat_dd::<FMA>(t))
+}
+
+/// `p_sat(t) = P_CRIT exp(ln)` from the double-double logarithm of [`ln_psat_dd`]: the libm exponential
+/// of its high part, corrected to first order by the low part.
+#[inline(always)]
+fn psat_from_ln(lnp: Dd) -> f64 {
+    let e = P_CRIT * lnp.hi.exp();
+    e + e * lnp.lo
+}
+
+/// ln(p_sat(t)/P_CRIT) in double-double: the arithmetic of [`psat_dd`] before its exponential (plain
+/// arithmetic, so loops over it vectorise).
+#[inline(always)]
+fn ln_psat_dd<const FMA: bool>(t: f64) -> Dd {
     // tau = (T_c - T)/T_c and 1/theta = T_c/T, each rounded to double-double (independent chains)
     let d = two_sum(T_CRIT, -t);
     let qt = d.hi / T_CRIT;
@@ -264,9 +279,7 @@ fn psat_dd<const FMA: bool>(t: f64) -> f64 {
     let s23 = dd_add(dd_mul_d::<FMA>(t3, SAT_A[2]), dd_mul_d::<FMA>(t35, SAT_A[3]));
     let s45 = dd_add(dd_mul_d::<FMA>(t4, SAT_A[4]), dd_mul_d::<FMA>(t75, SAT_A[5]));
     let s = dd_add(dd_add(s01, s23), s45);
-    let lnp = dd_mul::<FMA>(s, inv_theta);
-    let e = P_CRIT * lnp.hi.exp();
-    e + e * lnp.lo
+    dd_mul::<FMA>(s, inv_theta)
 }
 
 /// Saturation pressure [Pa] at temperature `t` [K], IAPWS SR1-86(1992) Eq. 1
@@ -454,14 +467,31 @@ fn t_sat_newton(t: f64, lnp_target: f64) -> (f64, bool) {
 /// Returns the new `(t, ps, e0)` and whether the polish has settled.
 #[inline(always)]
 fn t_sat_polish<const FMA: bool>(p: f64, t: f64, ps: f64, e0: f64) -> (f64, f64, f64, bool) {
+    t_sat_polish_with(p, t, ps, e0, psat_dd::<FMA>)
+}
+
+/// The neighbour of `t` towards p that a polish step tries (`e0 = p_sat(t) - p`).
+#[inline(always)]
+fn polish_neighbour(t: f64, e0: f64) -> f64 {
+    if e0 < 0.0 {
+        next_up(t)
+    } else {
+        next_down(t)
+    }
+}
+
+/// [`t_sat_polish`] with `psat(t1)` for the p_sat of the neighbour [`polish_neighbour`] (computed by the
+/// caller, perhaps ahead of time).
+#[inline(always)]
+fn t_sat_polish_with(p: f64, t: f64, ps: f64, e0: f64, psat: impl FnOnce(f64) -> f64) -> (f64, f64, f64, bool) {
     if e0 == 0.0 {
         return (t, ps, e0, true);
     }
-    let t1 = if e0 < 0.0 { next_up(t) } else { next_down(t) };
+    let t1 = polish_neighbour(t, e0);
     if !(t1 >= T_TRIPLE && t1 <= T_CRIT) {
         return (t, ps, e0, true);
     }
-    let ps1 = psat_dd::<FMA>(t1);
+    let ps1 = psat(t1);
     let e1 = ps1 - p;
     if e1.abs() < e0.abs() {
         (t1, ps1, e1, (e1 < 0.0) != (e0 < 0.0))
@@ -512,21 +542,30 @@ fn t_sat_block_body<const FMA: bool>(p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLO
             break;
         }
     }
+    // p_sat of every element in two passes: the double-double logarithm (vectorises), then the libm
+    // exponential where it is needed
+    let mut ln = [Dd { hi: 0.0, lo: 0.0 }; B];
+    for j in 0..B {
+        t[j] = if solving[j] { t[j].clamp(T_TRIPLE, T_CRIT) } else { t[j] };
+        ln[j] = ln_psat_dd::<FMA>(t[j]);
+    }
     let mut e0 = [0.0; B];
     for j in 0..B {
         if solving[j] {
-            t[j] = t[j].clamp(T_TRIPLE, T_CRIT);
-            ps[j] = psat_dd::<FMA>(t[j]);
+            ps[j] = psat_from_ln(ln[j]);
             e0[j] = ps[j] - p[j];
         }
     }
     let mut polish = solving;
     for _ in 0..T_SAT_POLISH_STEPS {
+        for j in 0..B {
+            ln[j] = ln_psat_dd::<FMA>(polish_neighbour(t[j], e0[j]));
+        }
         let mut any = false;
         for j in 0..B {
             if polish[j] {
                 let settled;
-                (t[j], ps[j], e0[j], settled) = t_sat_polish::<FMA>(p[j], t[j], ps[j], e0[j]);
+                (t[j], ps[j], e0[j], settled) = t_sat_polish_with(p[j], t[j], ps[j], e0[j], |_| psat_from_ln(ln[j]));
                 polish[j] = !settled;
                 any |= !settled;
             }
@@ -538,14 +577,15 @@ fn t_sat_block_body<const FMA: bool>(p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLO
     (t, ps)
 }
 
-#[inline]
+#[inline(always)]
 fn next_up(x: f64) -> f64 {
-    // x is finite and positive here
-    f64::from_bits(x.to_bits() + 1)
+    // x is finite and positive wherever the result is used (wrapping: the block passes of `t_sat_block`
+    // also step elements that have settled or were never solved, and discard the result)
+    f64::from_bits(x.to_bits().wrapping_add(1))
 }
-#[inline]
+#[inline(always)]
 fn next_down(x: f64) -> f64 {
-    f64::from_bits(x.to_bits() - 1)
+    f64::from_bits(x.to_bits().wrapping_sub(1))
 }
 
 /// Surface tension of water against its vapour [N/m], IAPWS R1-76(2014):
