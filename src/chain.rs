@@ -77,7 +77,7 @@ impl Kernel<6, 4> for WaterScreening {
         water_screening(x[0], x[1], x[2], x[3], x[4], x[5])
     }
     /// The water states of the block with their saturation temperatures solved together
-    /// ([`water::saturation_p_each`]), then the models element by element.
+    /// ([`water::saturation_p_each`]), then the models over the block.
     #[inline(always)]
     fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 6], len: usize, y: &mut [[f64; B]; 4]) -> BlockSummary {
         let mut sum = BlockSummary::default();
@@ -87,10 +87,13 @@ impl Kernel<6, 4> for WaterScreening {
             for (k, pk) in p.iter_mut().enumerate().take(n) {
                 *pk = at(j0 + k)[0];
             }
-            water::saturation_p_each(&p, n, |k, w| {
+            let mut ws = [[0.0; 12]; water::T_SAT_BLOCK];
+            water::saturation_p_each(&p, n, |k, w| ws[k] = w);
+            // the models in a loop of their own, which vectorises
+            for (k, &w) in ws.iter().enumerate().take(n) {
                 let x = at(j0 + k);
-                sum.add::<Self, 6, 4, B>(&x, screening_from(w, x[1], x[2], x[3], x[4], x[5]), j0 + k, len, y)
-            });
+                sum.add::<Self, 6, 4, B>(&x, screening_from(w, x[1], x[2], x[3], x[4], x[5]), j0 + k, len, y);
+            }
         }
         sum
     }
