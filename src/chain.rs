@@ -80,20 +80,13 @@ impl Kernel<6, 4> for WaterScreening {
     /// ([`water::saturation_p_each`]), then the models over the block.
     #[inline(always)]
     fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 6], len: usize, y: &mut [[f64; B]; 4]) -> BlockSummary {
+        let mut ws = [[0.0; 12]; B];
+        water::saturation_p_each::<B>(|j| at(j)[0], |j, w| ws[j] = w);
+        // the models in a loop of their own, which vectorises
         let mut sum = BlockSummary::default();
-        let mut p = [f64::NAN; water::T_SAT_BLOCK];
-        for j0 in (0..B).step_by(water::T_SAT_BLOCK) {
-            let n = water::T_SAT_BLOCK.min(B - j0);
-            for (k, pk) in p.iter_mut().enumerate().take(n) {
-                *pk = at(j0 + k)[0];
-            }
-            let mut ws = [[0.0; 12]; water::T_SAT_BLOCK];
-            water::saturation_p_each(&p, n, |k, w| ws[k] = w);
-            // the models in a loop of their own, which vectorises
-            for (k, &w) in ws.iter().enumerate().take(n) {
-                let x = at(j0 + k);
-                sum.add::<Self, 6, 4, B>(&x, screening_from(w, x[1], x[2], x[3], x[4], x[5]), j0 + k, len, y);
-            }
+        for (j, &w) in ws.iter().enumerate() {
+            let x = at(j);
+            sum.add::<Self, 6, 4, B>(&x, screening_from(w, x[1], x[2], x[3], x[4], x[5]), j, len, y);
         }
         sum
     }

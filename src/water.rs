@@ -1957,13 +1957,21 @@ fma_dispatch! {
 fn state_at_pair / state_at_pair_avx2 (tp: (f64, f64)) -> [f64; 12] = state_or_nan
 }
 
-/// The saturated states at a block of pressures, `f(k, saturation_p(p[k]))` for each k in order, bit for
-/// bit, with the saturation temperatures solved together ([`t_sat_block`]).
+/// The saturated states of a block of `B` pressures: `f(j, saturation_p(p(j)))` for each j in order, bit
+/// for bit, with the saturation temperatures solved [`T_SAT_BLOCK`] at a time ([`t_sat_block`]). The one
+/// block path of everything evaluated from pressure (`SaturationP`, the fused chain).
 #[inline(always)]
-pub fn saturation_p_each(p: &[f64; T_SAT_BLOCK], n: usize, mut f: impl FnMut(usize, [f64; 12])) {
-    let (t, ps) = t_sat_block(p);
-    for k in 0..n.min(T_SAT_BLOCK) {
-        f(k, state_at_pair((t[k], ps[k])));
+pub fn saturation_p_each<const B: usize>(p: impl Fn(usize) -> f64, mut f: impl FnMut(usize, [f64; 12])) {
+    let mut block = [f64::NAN; T_SAT_BLOCK];
+    for j0 in (0..B).step_by(T_SAT_BLOCK) {
+        let n = T_SAT_BLOCK.min(B - j0);
+        for (k, pk) in block.iter_mut().enumerate().take(n) {
+            *pk = p(j0 + k);
+        }
+        let (t, ps) = t_sat_block(&block);
+        for k in 0..n {
+            f(j0 + k, state_at_pair((t[k], ps[k])));
+        }
     }
 }
 
@@ -2099,14 +2107,7 @@ impl crate::model::Kernel<1, 12> for SaturationP {
         y: &mut [[f64; B]; 12],
     ) -> crate::model::BlockSummary {
         let mut sum = crate::model::BlockSummary::default();
-        let mut p = [f64::NAN; T_SAT_BLOCK];
-        for j0 in (0..B).step_by(T_SAT_BLOCK) {
-            let n = T_SAT_BLOCK.min(B - j0);
-            for k in 0..n {
-                p[k] = at(j0 + k)[0];
-            }
-            saturation_p_each(&p, n, |k, w| sum.add::<Self, 1, 12, B>(&[p[k]], w, j0 + k, len, y));
-        }
+        saturation_p_each::<B>(|j| at(j)[0], |j, w| sum.add::<Self, 1, 12, B>(&at(j), w, j, len, y));
         sum
     }
     #[inline(always)]
