@@ -43,6 +43,10 @@ pub fn set_cap(level: u8) -> u8 {
 /// `$vis fn $name($arg: $t) -> $r` running `$body::<true>` in a clone `$clone` compiled for AVX2 and
 /// FMA where [`level`] allows it, else `$body::<false>` (the const parameter tells the body whether it
 /// may use `mul_add` as one instruction). Written once for the entry points of `water`.
+///
+/// A third name (`fn name / avx2_clone / avx512_clone`) adds a clone compiled for AVX-512 as well, for
+/// bodies that loop over a block: it runs the same `$body::<true>` with 8 lanes instead of 4, so the
+/// two clones give the same bits (the fused multiply-adds are the same operations).
 macro_rules! fma_dispatch {
     ($(#[$meta:meta])* $vis:vis fn $name:ident / $clone:ident ($arg:ident: $t:ty) -> $r:ty = $body:ident) => {
         $(#[$meta])*
@@ -58,6 +62,31 @@ macro_rules! fma_dispatch {
         #[cfg(target_arch = "x86_64")]
         #[target_feature(enable = "avx2,fma")]
         unsafe fn $clone($arg: $t) -> $r {
+            $body::<true>($arg)
+        }
+    };
+    ($(#[$meta:meta])* $vis:vis fn $name:ident / $clone:ident / $clone512:ident ($arg:ident: $t:ty) -> $r:ty = $body:ident) => {
+        $(#[$meta])*
+        $vis fn $name($arg: $t) -> $r {
+            #[cfg(target_arch = "x86_64")]
+            match $crate::simd::level() {
+                // SAFETY: the CPU has the features the clone was compiled for.
+                $crate::simd::AVX512 => return unsafe { $clone512($arg) },
+                $crate::simd::AVX2 => return unsafe { $clone($arg) },
+                _ => {}
+            }
+            $body::<false>($arg)
+        }
+
+        #[cfg(target_arch = "x86_64")]
+        #[target_feature(enable = "avx2,fma")]
+        unsafe fn $clone($arg: $t) -> $r {
+            $body::<true>($arg)
+        }
+
+        #[cfg(target_arch = "x86_64")]
+        #[target_feature(enable = "avx512f,avx512dq,avx512vl,avx2,fma")]
+        unsafe fn $clone512($arg: $t) -> $r {
             $body::<true>($arg)
         }
     };

@@ -505,7 +505,7 @@ pub const T_SAT_BLOCK: usize = 64;
 
 fma_dispatch! {
 /// `(t_sat(p), p_sat(t_sat(p)))` of a block of pressures, bit for bit those of one element at a time.
-pub fn t_sat_block / t_sat_block_avx2 (p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]) = t_sat_block_body
+pub fn t_sat_block / t_sat_block_avx2 / t_sat_block_avx512 (p: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]) = t_sat_block_body
 }
 
 /// [`t_sat_body`] over a block, each stage as a pass over the elements still solving. One element's
@@ -2158,6 +2158,20 @@ mod tests {
             }
             let (t, s) = t_sat_block(&block);
             let (t0, s0) = t_sat_block_body::<false>(&block);
+            // every clone this CPU can run, whatever the dispatch picks (bits: NaN pads the last block)
+            let bits = |(a, b): ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK])| (a.map(f64::to_bits), b.map(f64::to_bits));
+            #[cfg(target_arch = "x86_64")]
+            {
+                use std::arch::is_x86_feature_detected as has;
+                if has!("avx2") && has!("fma") {
+                    // SAFETY: the CPU has the clone's features.
+                    assert_eq!(bits(unsafe { t_sat_block_avx2(&block) }), bits((t, s)));
+                }
+                if has!("avx512f") && has!("avx512dq") && has!("avx512vl") && has!("avx2") && has!("fma") {
+                    // SAFETY: as above.
+                    assert_eq!(bits(unsafe { t_sat_block_avx512(&block) }), bits((t, s)));
+                }
+            }
             for j in 0..T_SAT_BLOCK {
                 let (te, se) = t_sat_body::<false>(block[j]);
                 let p = block[j];
