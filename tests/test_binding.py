@@ -156,8 +156,10 @@ def test_large_arrays_use_threads_and_match_serial():
 
 def test_outputs_larger_than_the_caches_take_streaming_stores_with_the_same_bits():
     # Outputs of 2**22 elements or more are written with non-temporal stores
-    # (full, 16-byte aligned blocks; the tail and misaligned outputs by plain
-    # copies). Same numbers as small calls, aligned or not, in place or not.
+    # (full blocks: 64-byte stores where the block is 64-byte aligned on an
+    # AVX-512 machine, 32-byte on AVX2, else 16-byte where it is 16-byte
+    # aligned; the tail and misaligned outputs by plain copies). Same numbers
+    # as small calls, whatever the alignment, in place or not.
     rng = np.random.default_rng(5)
     n = (1 << 22) + 37
     x = rng.uniform(0, 120, n)
@@ -172,10 +174,19 @@ def test_outputs_larger_than_the_caches_take_streaming_stores_with_the_same_bits
         misaligned = raw[1:]  # 8 bytes past a 16-byte boundary: the plain-copy path
         assert misaligned.ctypes.data % 16 == 8
         uf(x, sig, WATER.rho_l, WATER.rho_v, G, out=misaligned)
+        aligned = {}
+        for align in (64, 32, 16):  # exactly this alignment (not the next larger one)
+            raw = np.empty(n + 16)
+            skip = (-raw.ctypes.data % 128 + align) % 128 // 8
+            aligned[align] = raw[skip:skip + n]
+            assert aligned[align].ctypes.data % align == 0 and aligned[align].ctypes.data % (2 * align) == align
+            uf(x, sig, WATER.rho_l, WATER.rho_v, G, out=aligned[align])
         inplace = x.copy()
         uf(inplace, sig, WATER.rho_l, WATER.rho_v, G, out=inplace)
     np.testing.assert_array_equal(big, pieces)
     np.testing.assert_array_equal(misaligned, pieces)
+    for out in aligned.values():
+        np.testing.assert_array_equal(out, pieces)
     np.testing.assert_array_equal(inplace, pieces)
     ok = np.isfinite(x) & (x <= 90)
     np.testing.assert_allclose(big[ok], 0.0208 * x[ok] * np.sqrt(sig[ok] / (G * (WATER.rho_l - WATER.rho_v))),

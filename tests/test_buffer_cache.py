@@ -34,6 +34,7 @@ def cache():
 def test_results_use_the_handler_and_the_default_is_restored(cache):
     d = departure.fritz(np.linspace(1.0, 90.0, N), W)
     assert handler_name(d) == "wetboil_buffer_cache"
+    assert d.ctypes.data % 64 == 0  # a cache line's alignment: full-line non-temporal stores
     assert handler_name() == "default_allocator"  # the context is restored after the call
     assert handler_name(np.empty(N)) == "default_allocator"  # other allocations are untouched
 

@@ -20,7 +20,10 @@
 //! Rules:
 //! * Every block carries a 64-byte header with its size (NumPy's `size`
 //!   argument to `free` is not relied on), and comes from the C library's
-//!   `malloc`/`calloc`/`realloc`, so the C library can always take it back.
+//!   `posix_memalign`/`calloc`/`realloc`, so the C library can always take it
+//!   back. Blocks from `malloc` requests start on a 64-byte boundary, so
+//!   their payload does too: the block loops then write large outputs with
+//!   full-cache-line non-temporal stores (`ufunc::stream_block`).
 //! * Only blocks of at least [`MIN_CACHED`] bytes are kept, at most
 //!   [`SLOTS`] of them and at most `max_bytes` in all (default: 1/8 of the
 //!   physical memory, at most 2 GiB; `WETBOIL_BUFFER_CACHE_MB`, or
@@ -48,7 +51,7 @@ pub const SLOTS: usize = 32;
 const HEADER: usize = 64;
 
 extern "C" {
-    fn malloc(size: usize) -> *mut c_void;
+    fn posix_memalign(out: *mut *mut c_void, align: usize, size: usize) -> i32;
     fn calloc(n: usize, size: usize) -> *mut c_void;
     fn realloc(p: *mut c_void, size: usize) -> *mut c_void;
     fn free(p: *mut c_void);
@@ -210,8 +213,12 @@ unsafe extern "C" fn h_malloc(_ctx: *mut c_void, size: usize) -> *mut c_void {
         }
         MISSES.fetch_add(1, Ordering::Relaxed);
     }
-    // SAFETY: plain C allocation.
-    let block = unsafe { malloc(total) };
+    // A cache line's alignment for the block, hence for the payload after its 64-byte header.
+    let mut block = std::ptr::null_mut();
+    // SAFETY: plain C allocation into a local; on failure `block` stays null.
+    if unsafe { posix_memalign(&mut block, 64, total) } != 0 {
+        block = std::ptr::null_mut();
+    }
     if !block.is_null() {
         advise_huge(block, total);
     }
