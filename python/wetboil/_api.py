@@ -24,6 +24,7 @@ import contextvars
 import functools
 import inspect
 import json
+import math
 import os
 import sys
 from typing import Any, Callable, Dict, Iterator, Mapping, NamedTuple, Optional, Sequence, Tuple, TypeVar
@@ -145,6 +146,8 @@ _NUMERIC_KINDS = "fiu"
 
 def _coerce(function: str, label: str, value: Any) -> Any:
     """Check one kernel input and bring it to a form the ufunc takes."""
+    if type(value) is np.ndarray and value.dtype.kind in _NUMERIC_KINDS:
+        return value  # the common case, first (the checks below cost microseconds per call)
     if isinstance(value, float) or (isinstance(value, int) and not isinstance(value, bool)):
         return value
     if value is None or isinstance(value, (str, bytes, bool, np.bool_)):
@@ -248,13 +251,35 @@ def capture_validity() -> Iterator[ValidityCapture]:
 GRID_MIN = 1 << 15
 
 
+def _shape(x: Any) -> Tuple[int, ...]:
+    """`np.shape(x)`, without its dispatch cost for arrays and plain numbers."""
+    if type(x) is np.ndarray:
+        return x.shape
+    if type(x) is float or type(x) is int:
+        return ()
+    return np.shape(x)
+
+
+def _broadcast_shape(shapes: Sequence[Tuple[int, ...]]) -> Tuple[int, ...]:
+    """`np.broadcast_shapes(*shapes)`, without its cost (a few microseconds) in the common case of
+    arrays of one shape and scalars."""
+    shape: Tuple[int, ...] = ()
+    for s in shapes:
+        if s == () or s == shape:
+            continue
+        if shape != ():
+            return tuple(np.broadcast_shapes(*shapes))
+        shape = s
+    return shape
+
+
 def _grid_worthy(arrays: Sequence[Any]) -> Optional[Tuple[int, ...]]:
     """The broadcast shape when a call should take the grid path: large, and
     NumPy would otherwise buffer it (array-to-array broadcasting, casting,
     byte swapping, non-contiguous data), which rules out threads."""
-    shapes = [np.shape(a) for a in arrays]
-    shape = np.broadcast_shapes(*shapes)
-    if int(np.prod(shape)) < GRID_MIN:
+    shapes = [_shape(a) for a in arrays]
+    shape = _broadcast_shape(shapes)
+    if math.prod(shape) < GRID_MIN:
         return None
     for a, s in zip(arrays, shapes):
         if s == ():
@@ -274,7 +299,7 @@ def _factor_axes(arrays: Sequence[Any], sides: Tuple[int, ...], shape: Tuple[int
     broadcast `shape` (an outer product, such as angles x pressures)."""
     used: list = [set(), set()]
     for a, s in zip(arrays, sides):
-        sh = np.shape(a)
+        sh = _shape(a)
         used[s].update(len(shape) - len(sh) + i for i, n in enumerate(sh) if n > 1)
     return not (used[0] & used[1])
 
@@ -399,7 +424,8 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
     """Run `func` (a NumPy-level function of the inputs with len(dtypes)
     outputs) through xarray, dask or directly, by the kind of the inputs."""
     n_out = len(dtypes)
-    if any(_is_xarray(x) for x in inputs):
+    plain = all(type(x) is np.ndarray or type(x) is float or type(x) is int for x in inputs)
+    if not plain and any(_is_xarray(x) for x in inputs):
         import xarray as xr
 
         kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes)
@@ -409,7 +435,7 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
         if n_out == 1:
             return outs.rename(names[0])
         return tuple(o.rename(nm) for o, nm in zip(outs, names))
-    if any(_is_dask(x) for x in inputs):
+    if not plain and any(_is_dask(x) for x in inputs):
         import dask.array as da
         from dask.array.core import unify_chunks
 
@@ -428,9 +454,9 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
         signature = ",".join(["()"] * len(inputs)) + "->" + ",".join(["()"] * n_out)
         outs = da.apply_gufunc(func, signature, *inputs, output_dtypes=(dtypes[0] if n_out == 1 else dtypes))
         return outs if n_out == 1 else tuple(outs)
-    shapes = [np.shape(x) for x in inputs]
+    shapes = [_shape(x) for x in inputs]
     try:
-        np.broadcast_shapes(*shapes)
+        _broadcast_shape(shapes)
     except ValueError:
         described = ", ".join(f"{lab} {shp}" for lab, shp in zip(spec.labels, shapes))
         raise WetboilValueError(f"{spec.function}: argument shapes do not broadcast: {described}") from None
