@@ -1966,6 +1966,52 @@ fma_dispatch! {
 fn state_at_triple / state_at_triple_avx2 (tps: (f64, f64, f64)) -> [f64; 12] = state_or_nan
 }
 
+fma_dispatch! {
+/// `p_sat(t)` of a block of temperatures in [T_TRIPLE, T_CRIT] (others give a number that is not used),
+/// bit for bit [`psat_dd`]: the double-double logarithm as one pass that vectorises, then the exponentials.
+fn psat_block / psat_block_avx2 / psat_block_avx512 (t: &[f64; T_SAT_BLOCK]) -> [f64; T_SAT_BLOCK] = psat_block_body
+}
+
+#[inline(always)]
+fn psat_block_body<const FMA: bool>(t: &[f64; T_SAT_BLOCK]) -> [f64; T_SAT_BLOCK] {
+    // plain loops: `array::from_fn`'s closure may stay out of line, compiled without the clone's features
+    // (its `mul_add` then a call to the software fma)
+    let mut ln = [Dd { hi: 0.0, lo: 0.0 }; T_SAT_BLOCK];
+    for k in 0..T_SAT_BLOCK {
+        ln[k] = ln_psat_dd::<FMA>(t[k].clamp(T_TRIPLE, T_CRIT));
+    }
+    let mut p = [0.0; T_SAT_BLOCK];
+    for k in 0..T_SAT_BLOCK {
+        p[k] = psat_from_ln(ln[k]);
+    }
+    p
+}
+
+/// The saturated states of a block of `B` temperatures: `f(j, saturation_t(t(j)))` for each j in order,
+/// bit for bit, with p_sat ([`psat_block`]) and sigma of [`T_SAT_BLOCK`] temperatures at a time in loops
+/// that vectorise. The block path of `SaturationT`.
+#[inline(always)]
+pub fn saturation_t_each<const B: usize>(t: impl Fn(usize) -> f64, mut f: impl FnMut(usize, [f64; 12])) {
+    let mut block = [T_TRIPLE; T_SAT_BLOCK];
+    for j0 in (0..B).step_by(T_SAT_BLOCK) {
+        let n = T_SAT_BLOCK.min(B - j0);
+        for (k, tk) in block.iter_mut().enumerate().take(n) {
+            *tk = t(j0 + k);
+        }
+        let ps = psat_block(&block);
+        let mut sigma = [0.0; T_SAT_BLOCK];
+        for k in 0..T_SAT_BLOCK {
+            sigma[k] = surface_tension(block[k]);
+        }
+        for k in 0..n {
+            let tk = block[k];
+            // NaN in every field outside the range, as `saturation_t_body`
+            let tk = if in_sat_range(tk) { tk } else { f64::NAN };
+            f(j0 + k, state_at_triple((tk, ps[k], sigma[k])));
+        }
+    }
+}
+
 /// The saturated states of a block of `B` pressures: `f(j, saturation_p(p(j)))` for each j in order, bit
 /// for bit, with the saturation temperatures solved [`T_SAT_BLOCK`] at a time ([`t_sat_block`]). The one
 /// block path of everything evaluated from pressure (`SaturationP`, the fused chain).
@@ -1979,7 +2025,10 @@ pub fn saturation_p_each<const B: usize>(p: impl Fn(usize) -> f64, mut f: impl F
         }
         let (t, ps) = t_sat_block(&block);
         // sigma of the whole block in a loop that vectorises
-        let sigma: [f64; T_SAT_BLOCK] = std::array::from_fn(|k| surface_tension(t[k]));
+        let mut sigma = [0.0; T_SAT_BLOCK];
+        for k in 0..T_SAT_BLOCK {
+            sigma[k] = surface_tension(t[k]);
+        }
         for k in 0..n {
             f(j0 + k, state_at_triple((t[k], ps[k], sigma[k])));
         }
@@ -2080,6 +2129,17 @@ impl crate::model::Kernel<1, 12> for SaturationT {
     #[inline(always)]
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_t(x[0])
+    }
+    /// p_sat and sigma of the block in passes that vectorise ([`saturation_t_each`]), then the states.
+    #[inline(always)]
+    fn eval_block<const B: usize>(
+        at: impl Fn(usize) -> [f64; 1],
+        len: usize,
+        y: &mut [[f64; B]; 12],
+    ) -> crate::model::BlockSummary {
+        let mut sum = crate::model::BlockSummary::default();
+        saturation_t_each::<B>(|j| at(j)[0], |j, w| sum.add::<Self, 1, 12, B>(&at(j), w, j, len, y));
+        sum
     }
     #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
@@ -2220,6 +2280,60 @@ mod tests {
             }
             assert_eq!(sum.out_of_range, out_of_range);
             assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+        }
+    }
+
+    /// `SaturationT`'s block path gives the states of its element path: temperatures over the whole range
+    /// (tables, the direct evaluation within TAU_MIN of T_c, T_c itself), its ends and their neighbours,
+    /// and impossible values, at rotating block positions; and psat_block's clones agree.
+    #[test]
+    fn saturation_t_block_matches_elements() {
+        use crate::model::Kernel;
+        let mut ts: Vec<f64> = (0..=30_000).map(|i| 250.0 + 400.0 * i as f64 / 30_000.0).collect();
+        for &t in &[T_TRIPLE, T_CRIT] {
+            ts.extend([t, next_up(t), next_down(t)]);
+        }
+        let mut d = 1e-3;
+        while d > 1e-12 {
+            ts.push(T_CRIT * (1.0 - d));
+            d *= 0.37;
+        }
+        ts.extend([f64::NAN, f64::INFINITY, f64::NEG_INFINITY, 0.0, -0.0, -300.0, 1e300, f64::MIN_POSITIVE]);
+        for (c, chunk) in ts.chunks(61).enumerate() {
+            let len = chunk.len();
+            let x_at = |j: usize| [chunk[(j + c) % len]];
+            let mut y = [[0.0; 64]; 12];
+            let sum = SaturationT::eval_block::<64>(x_at, len, &mut y);
+            let mut out_of_range = 0;
+            for j in 0..64 {
+                let x = x_at(j);
+                let v = SaturationT::eval(&x);
+                for m in 0..12 {
+                    assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} T = {:e} field {m}", x[0]);
+                }
+                out_of_range += (j < len && !SaturationT::in_range_with(&x, &v)) as u64;
+            }
+            assert_eq!(sum.out_of_range, out_of_range);
+            assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+            let mut block = [T_TRIPLE; T_SAT_BLOCK];
+            for (k, b) in block.iter_mut().enumerate() {
+                *b = chunk[k % len];
+            }
+            let bits = |a: [f64; T_SAT_BLOCK]| a.map(f64::to_bits);
+            let want = bits(psat_block_body::<false>(&block));
+            assert_eq!(bits(psat_block(&block)), want);
+            #[cfg(target_arch = "x86_64")]
+            {
+                use std::arch::is_x86_feature_detected as has;
+                if has!("avx2") && has!("fma") {
+                    // SAFETY: the CPU has the clone's features.
+                    assert_eq!(bits(unsafe { psat_block_avx2(&block) }), want);
+                }
+                if has!("avx512f") && has!("avx512dq") && has!("avx512vl") && has!("avx2") && has!("fma") {
+                    // SAFETY: as above.
+                    assert_eq!(bits(unsafe { psat_block_avx512(&block) }), want);
+                }
+            }
         }
     }
 

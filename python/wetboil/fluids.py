@@ -13,7 +13,7 @@ from typing import Any, Optional
 
 import numpy as np
 
-from ._errors import WetboilTypeError
+from ._errors import WetboilTypeError, WetboilValueError
 
 __all__ = ["Saturation", "FIELDS", "water", "from_coolprop", "water_at_temperature", "water_at_pressure"]
 
@@ -343,17 +343,20 @@ def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, 
                       WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT, name="water")
 
 
-_set = object.__setattr__
+#: The slots' own setters, in FIELDS order (a frozen class: its __setattr__ refuses).
+_SETTERS = tuple(getattr(Saturation, f).__set__ for f in FIELDS)
+_SET_NAME = Saturation.name.__set__  # type: ignore[attr-defined]
+_SET_SCALARS = Saturation._scalars.__set__  # type: ignore[attr-defined]
 
 
 def _scalar_state(values: tuple, name: Optional[str]) -> Saturation:
     """A Saturation from 15 Python floats in FIELDS order, without the checks
     of the constructor (for values produced by our own kernels)."""
     s = Saturation.__new__(Saturation)
-    for f, v in zip(FIELDS, values):
-        _set(s, f, v)
-    _set(s, "name", name)
-    _set(s, "_scalars", values)
+    for setter, v in zip(_SETTERS, values):
+        setter(s, v)
+    _SET_NAME(s, name)
+    _SET_SCALARS(s, values)
     return s
 
 
@@ -448,8 +451,6 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     >>> water(T=[300.0, 400.0, 500.0]).p.round(-1)
     array([   3540.,  245770., 2639220.])
     """
-    from ._errors import WetboilValueError
-
     if (T is None) == (p is None):
         raise WetboilValueError("water: give exactly one of T [K] or p [Pa]")
     return water_at_temperature(T) if p is None else water_at_pressure(p)
