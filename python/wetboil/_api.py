@@ -179,9 +179,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
 def need_saturation(function: str, fluid: Any) -> Any:
     """`fluid` itself when it is a `wetboil.fluids.Saturation`, else a
     `WetboilTypeError` naming `function`."""
-    from .fluids import Saturation
-
-    if not isinstance(fluid, Saturation):
+    if not isinstance(fluid, _saturation_type()):
         raise WetboilTypeError(
             f"{function}: fluid must be a wetboil.fluids.Saturation "
             f"(for example wetboil.fluids.water(p=101325.0)), got {type(fluid).__name__}"
@@ -402,15 +400,21 @@ class _Spec(NamedTuple):
     output: Optional[int] = None  # the one output returned, for `kernel(..., output=k)`
 
 
-def _gather(spec: _Spec, args: Sequence[Any]) -> list:
-    """The kernel inputs of a call, checked and coerced, in kernel order."""
+@functools.lru_cache(maxsize=None)
+def _saturation_type() -> type:
+    """`wetboil.fluids.Saturation`, imported on first use (fluids imports this module)."""
     from .fluids import Saturation
 
+    return Saturation
+
+
+def _gather(spec: _Spec, args: Sequence[Any]) -> list:
+    """The kernel inputs of a call, checked and coerced, in kernel order."""
     inputs = []
     for (ai, field), label in zip(spec.plan, spec.labels):
         a = args[ai]
         if field:
-            if not isinstance(a, Saturation):
+            if not isinstance(a, _saturation_type()):
                 raise WetboilTypeError(
                     f"{spec.function}: {spec.params[ai]} must be a wetboil.fluids.Saturation "
                     f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
