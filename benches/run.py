@@ -393,6 +393,22 @@ def section_water(table, repeat, n_points):
     t_scalar = min(timeit.repeat(lambda: water(T=300.0), number=20_000, repeat=repeat)) / 20_000
     table.add("5. water()", "water(T=300.0) scalar call vs CoolProp AbstractState", t_scalar, t_base, "(context)")
 
+    # the pressure route: the same fields from p (CoolProp's PQ inputs, ours the exact inversion)
+    p = np.geomspace(1e3, 2e7, n_points)
+    sub_p = p[:: max(1, n_points // 4000)]
+
+    def coolprop_p():
+        for v in sub_p:
+            st.update(CP.PQ_INPUTS, v, 0.0)
+            st.T(); st.rhomass(); st.hmass(); st.cpmass(); st.conductivity(); st.viscosity(); st.surface_tension()
+            st.update(CP.PQ_INPUTS, v, 1.0)
+            st.rhomass(); st.hmass(); st.cpmass(); st.conductivity(); st.viscosity()
+
+    t_ours, t_base = paired(lambda: water(p=p), coolprop_p, repeat + 2)
+    t_ours, t_base = t_ours / n_points, t_base / len(sub_p)
+    table.add("5. water()", f"water(p) per state point, {n_points:.0e} points vs CoolProp AbstractState", t_ours, t_base,
+              ">= 100x")
+
 
 _MEMORY_PROBE = r"""
 import sys, tracemalloc, numpy as np, wetboil
