@@ -21,9 +21,12 @@
 //! * Every block carries a 64-byte header with its size (NumPy's `size`
 //!   argument to `free` is not relied on), and comes from the C library's
 //!   `posix_memalign`/`calloc`/`realloc`, so the C library can always take it
-//!   back. Blocks from `malloc` requests start on a 64-byte boundary, so
-//!   their payload does too: the block loops then write large outputs with
-//!   full-cache-line non-temporal stores (`ufunc::stream_block`).
+//!   back. Blocks from `malloc` requests start on a 64-byte boundary (on
+//!   Unix), so their payload does too: the block loops then write large
+//!   outputs with full-cache-line non-temporal stores
+//!   (`ufunc::stream_block`). Only such blocks are kept for reuse (a block
+//!   from `calloc` or `realloc` is only 16-byte aligned and goes back to the
+//!   C library), so a reused block is aligned as well.
 //! * Only blocks of at least [`MIN_CACHED`] bytes are kept, at most
 //!   [`SLOTS`] of them and at most `max_bytes` in all (default: 1/8 of the
 //!   physical memory, at most 2 GiB; `WETBOIL_BUFFER_CACHE_MB`, or
@@ -51,7 +54,10 @@ pub const SLOTS: usize = 32;
 const HEADER: usize = 64;
 
 extern "C" {
+    #[cfg(unix)]
     fn posix_memalign(out: *mut *mut c_void, align: usize, size: usize) -> i32;
+    #[cfg(not(unix))]
+    fn malloc(size: usize) -> *mut c_void;
     fn calloc(n: usize, size: usize) -> *mut c_void;
     fn realloc(p: *mut c_void, size: usize) -> *mut c_void;
     fn free(p: *mut c_void);
@@ -196,6 +202,26 @@ fn advise_huge(block: *mut c_void, len: usize) {
 #[cfg(not(target_os = "linux"))]
 fn advise_huge(_block: *mut c_void, _len: usize) {}
 
+/// `size` bytes from the C library starting on a cache line (64 bytes) where the platform has
+/// `posix_memalign`, else from `malloc`; null on failure. `free` and `realloc` take either.
+///
+/// # Safety
+/// Plain C allocation; the caller owns the block.
+#[cfg(unix)]
+unsafe fn aligned_block(size: usize) -> *mut c_void {
+    let mut block = std::ptr::null_mut();
+    // SAFETY: writes a pointer into a local; on failure it is not set.
+    if unsafe { posix_memalign(&mut block, 64, size) } != 0 {
+        return std::ptr::null_mut();
+    }
+    block
+}
+
+#[cfg(not(unix))]
+unsafe fn aligned_block(size: usize) -> *mut c_void {
+    unsafe { malloc(size) }
+}
+
 unsafe extern "C" fn h_malloc(_ctx: *mut c_void, size: usize) -> *mut c_void {
     let Some(total) = size.checked_add(HEADER) else {
         return std::ptr::null_mut();
@@ -213,12 +239,8 @@ unsafe extern "C" fn h_malloc(_ctx: *mut c_void, size: usize) -> *mut c_void {
         }
         MISSES.fetch_add(1, Ordering::Relaxed);
     }
-    // A cache line's alignment for the block, hence for the payload after its 64-byte header.
-    let mut block = std::ptr::null_mut();
-    // SAFETY: plain C allocation into a local; on failure `block` stays null.
-    if unsafe { posix_memalign(&mut block, 64, total) } != 0 {
-        block = std::ptr::null_mut();
-    }
+    // SAFETY: plain C allocation.
+    let block = unsafe { aligned_block(total) };
     if !block.is_null() {
         advise_huge(block, total);
     }
@@ -257,7 +279,8 @@ unsafe extern "C" fn h_free(_ctx: *mut c_void, p: *mut c_void, _size: usize) {
     // SAFETY: `p` came from this handler.
     let (block, size) = unsafe { block_of(p) };
     let limit = max_bytes();
-    if size >= MIN_CACHED && size <= limit {
+    // kept only when aligned as `h_malloc`'s own blocks are, so that every reused block is
+    if size >= MIN_CACHED && size <= limit && block as usize % 64 == 0 {
         if let Ok(mut h) = HELD.try_lock() {
             let mut out = [0usize; SLOTS];
             let mut n = 0;
