@@ -371,6 +371,20 @@ def section_chain(table, n, repeat):
     t_grid2, t_grid1 = paired(grid_ours, one_thread(grid_ours), repeat + 2)
     table.add("3. threads", f"public chain, contiguous, {threads} threads vs 1", t_pub2, t_pub1, ">= 1.8x")
     table.add("3. threads", f"grid, {threads} threads vs 1", t_grid2, t_grid1, ">= 1.8x")
+    # What the grid's writes alone allow: the grid path's last step (one multiplication per point, each
+    # result written once with non-temporal stores) into three outputs of the same size, all threads
+    # against one. Near 1x means one core already writes at the machine's memory rate.
+    fa, fb = np.linspace(1.0, 2.0, na)[:, None], np.linspace(1.0, 2.0, npr)[None, :]
+    outs = list(grid_ours())  # our results' own buffers (cache-line aligned, as every large result)
+
+    def writes():
+        for o in outs:
+            wetboil._core.product_call(np.broadcast_to(fa, o.shape), np.broadcast_to(fb, o.shape), o)
+
+    t_w2, t_w1 = paired(writes, one_thread(writes), repeat + 2)
+    gb = 3 * outs[0].nbytes / 1e9
+    table.add("3. threads", f"  grid writes alone, {threads} threads vs 1", t_w2, t_w1, "(context)",
+              note=f"({gb / t_w2:.0f} GB/s on {threads} threads, {gb / t_w1:.0f} GB/s on 1)")
 
 
 def section_water(table, repeat, n_points):
