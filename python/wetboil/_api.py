@@ -400,12 +400,13 @@ class _Spec(NamedTuple):
     output: Optional[int] = None  # the one output returned, for `kernel(..., output=k)`
 
 
-@functools.lru_cache(maxsize=None)
 def _saturation_type() -> type:
-    """`wetboil.fluids.Saturation`, imported on first use (fluids imports this module)."""
-    from .fluids import Saturation
-
-    return Saturation
+    """`wetboil.fluids.Saturation` (fluids imports this module, so it is looked up, not imported at the
+    top; a dictionary lookup instead of an import statement in every call, and right after a reload)."""
+    mod = sys.modules.get(__package__ + ".fluids")
+    if mod is None:
+        from . import fluids as mod
+    return mod.Saturation
 
 
 def _gather(spec: _Spec, args: Sequence[Any]) -> list:
