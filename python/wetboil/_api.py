@@ -405,7 +405,9 @@ def _saturation_type() -> type:
     top; a dictionary lookup instead of an import statement in every call, and right after a reload)."""
     mod = sys.modules.get(__package__ + ".fluids")
     if mod is None:
-        from . import fluids as mod
+        from . import fluids
+
+        return fluids.Saturation
     return mod.Saturation
 
 

@@ -344,9 +344,9 @@ def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, 
 
 
 #: The slots' own setters, in FIELDS order (a frozen class: its __setattr__ refuses).
-_SETTERS = tuple(getattr(Saturation, f).__set__ for f in FIELDS)
-_SET_NAME = Saturation.name.__set__  # type: ignore[attr-defined]
-_SET_SCALARS = Saturation._scalars.__set__  # type: ignore[attr-defined]
+_SETTERS = tuple(vars(Saturation)[f].__set__ for f in FIELDS)
+_SET_NAME = vars(Saturation)["name"].__set__
+_SET_SCALARS = vars(Saturation)["_scalars"].__set__
 
 
 def _scalar_state(values: tuple, name: Optional[str]) -> Saturation:
