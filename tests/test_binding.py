@@ -213,6 +213,38 @@ def test_large_grids_stream_their_outputs_with_the_same_bits():
     np.testing.assert_array_equal(big, pieces)
 
 
+@pytest.mark.parametrize("shape", [(3000, 40, 1, 1), (1, 3000, 1, 40), (40, 1, 3000), (50000, 3), (3, 1, 50000, 1)])
+def test_grid_path_rows_of_any_length_give_the_element_bits(shape):
+    # The grid path drops axes of length 1, merges axes that every operand steps through as one, and
+    # runs several short rows per task: the numbers and the validity counts must be those of the
+    # element path on materialised inputs. Axes: the first varies the flux, the long one the
+    # pressure; one input is a full array (every axis), one a scalar.
+    big = [i for i, n in enumerate(shape) if n > 3][-1]
+    first = next(i for i, n in enumerate(shape) if n > 1)
+    along = lambda axis, v: v.reshape([shape[axis] if i == axis else 1 for i in range(len(shape))])  # noqa: E731
+    q = along(first, np.linspace(-1e4, 2e6, shape[first]))  # some impossible (negative) fluxes
+    p = along(big, np.geomspace(1e3, 3e7, shape[big]))  # some pressures beyond the critical one
+    rough = np.random.default_rng(2).uniform(1e-7, 2e-5, shape)
+    args = (q, p, 22.064e6, 0.018015, rough)
+    with wetboil.errstate(invalid="ignore", out_of_range="ignore"):
+        grid = wetboil._api.evaluate_arrays("cooper_superheat", "boiling.cooper_superheat", *args)
+    materialised = [np.ascontiguousarray(np.broadcast_to(a, shape)) for a in args]
+    with np.errstate(all="ignore"):
+        elements = _core.cooper_superheat(*materialised)
+    _core.take_counts()
+    assert grid.shape == shape
+    np.testing.assert_array_equal(grid, elements)
+    # the grid path's counts (impossible, out of range) are those of the element path
+    with np.errstate(all="ignore"):
+        codes = _core.cooper_superheat_status(*materialised)
+        ins = [np.broadcast_to(np.asarray(a, dtype=np.float64), shape) for a in args]
+        out = np.empty(shape)
+        counts = _core.grid_call("cooper_superheat", ins, [out])
+    np.testing.assert_array_equal(out, elements)
+    assert (int((codes == 1).sum()), int((codes == 2).sum())) == tuple(int(c) for c in counts)
+    assert (codes == 1).any() and (codes == 2).any() and (codes == 0).any()
+
+
 @pytest.mark.parametrize("name", sorted(kc.BY_KERNEL))
 def test_every_simd_clone_gives_the_same_bits(name):
     # The block loops are compiled for baseline x86-64, AVX2/FMA and AVX-512

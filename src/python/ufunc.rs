@@ -522,6 +522,40 @@ pub struct GridCall<'a> {
 // disjoint output elements.
 unsafe impl Sync for GridCall<'_> {}
 
+/// The same grid with its axes of length 1 dropped and neighbouring axes merged where every operand
+/// steps through them as through one axis (`stride[d] == stride[d + 1] * shape[d + 1]`, zero strides
+/// included): fewer, longer rows. `(shape, strides)` with the strides of the inputs, then the outputs.
+/// A sweep's trailing singleton axes (an orientation or a subcooling of one value) otherwise make rows
+/// of one element.
+fn compact(call: &GridCall<'_>) -> (Vec<usize>, Vec<Vec<isize>>) {
+    let ops: Vec<&[isize]> = call.ins.iter().map(|o| o.1).chain(call.outs.iter().map(|o| o.1)).collect();
+    let mut shape: Vec<usize> = Vec::new();
+    let mut strides: Vec<Vec<isize>> = vec![Vec::new(); ops.len()];
+    for (d, &n) in call.shape.iter().enumerate() {
+        if n == 1 {
+            continue;
+        }
+        let merge = !shape.is_empty()
+            && ops.iter().zip(&strides).all(|(o, s)| s[s.len() - 1] == o[d] * n as isize);
+        if merge {
+            *shape.last_mut().expect("not empty") *= n;
+            for (o, s) in ops.iter().zip(strides.iter_mut()) {
+                *s.last_mut().expect("not empty") = o[d];
+            }
+        } else {
+            shape.push(n);
+            for (o, s) in ops.iter().zip(strides.iter_mut()) {
+                s.push(o[d]);
+            }
+        }
+    }
+    (shape, strides)
+}
+
+/// Elements a task of the grid path covers at least when its rows are short (several rows per task:
+/// a task per row of a few elements cost more in scheduling than in arithmetic).
+const GRID_TASK_MIN: usize = 4096;
+
 /// Evaluate a kernel over a broadcast grid, in parallel tiles of rows.
 ///
 /// # Safety (of the caller's data)
@@ -529,20 +563,31 @@ unsafe impl Sync for GridCall<'_> {}
 /// outputs must not overlap each other or the inputs (the binding allocates
 /// them fresh). Checked by the caller (`grid_call`), which owns the arrays.
 fn grid_eval<K: Kernel<N, M>, const N: usize, const M: usize>(call: &GridCall<'_>) -> [u64; 2] {
-    let ndim = call.shape.len();
     if call.ins.len() != N || call.outs.len() != M || call.shape.contains(&0) {
         return [0, 0];
     }
+    let (shape, strides) = compact(call);
+    let ins: Vec<(*const u8, &[isize])> = call.ins.iter().zip(&strides).map(|(o, s)| (o.0, s.as_slice())).collect();
+    let outs: Vec<(*mut u8, &[isize])> =
+        call.outs.iter().zip(&strides[N..]).map(|(o, s)| (o.0, s.as_slice())).collect();
+    let call = &GridCall { shape: &shape, ins: &ins, outs: &outs };
+    let ndim = call.shape.len();
     let inner = if ndim == 0 { 1 } else { call.shape[ndim - 1] as isize };
     let rows: usize = if ndim == 0 { 1 } else { call.shape[..ndim - 1].iter().product() };
     let tile = inner.clamp(1, 1 << 14);
     let tiles_per_row = (inner + tile - 1) / tile;
-    let total = rows as isize * tiles_per_row;
+    // short rows: several whole rows per task
+    let rows_per_task = if tiles_per_row == 1 { (GRID_TASK_MIN / inner as usize).max(1) } else { 1 };
+    let total = if tiles_per_row == 1 {
+        rows.div_ceil(rows_per_task) as isize
+    } else {
+        rows as isize * tiles_per_row
+    };
     let step = |strides: &[isize]| if ndim == 0 { 0 } else { strides[ndim - 1] };
     let size = rows * inner as usize;
-    let work = move |t: isize| -> [u64; 2] {
+    // one tile: part `part` of row `row`
+    let run_tile = move |row: usize, part: isize| -> [u64; 2] {
         let call: &GridCall<'_> = call;
-        let (row, part) = (t / tiles_per_row, t % tiles_per_row);
         let mut op = Operands::<N, M> {
             ins: [std::ptr::null(); N],
             in_steps: [0; N],
@@ -552,7 +597,7 @@ fn grid_eval<K: Kernel<N, M>, const N: usize, const M: usize>(call: &GridCall<'_
         };
         let mut off_in = [0isize; N];
         let mut off_out = [0isize; M];
-        let mut rem = row as usize;
+        let mut rem = row;
         for d in (0..ndim.saturating_sub(1)).rev() {
             let idx = (rem % call.shape[d]) as isize;
             rem /= call.shape[d];
@@ -576,9 +621,16 @@ fn grid_eval<K: Kernel<N, M>, const N: usize, const M: usize>(call: &GridCall<'_
         // SAFETY: tiles are disjoint ranges of one row; outputs do not overlap.
         unsafe { op.run::<K>(start, (start + tile).min(inner)) }
     };
-    let elements = total * tile;
+    let work = move |t: isize| -> [u64; 2] {
+        if tiles_per_row == 1 {
+            let r0 = t as usize * rows_per_task;
+            (r0..(r0 + rows_per_task).min(rows)).map(|r| run_tile(r, 0)).fold([0, 0], |a, b| [a[0] + b[0], a[1] + b[1]])
+        } else {
+            run_tile((t / tiles_per_row) as usize, t % tiles_per_row)
+        }
+    };
     match threads::pool() {
-        Some(pool) if elements >= PARALLEL_MIN && total > 1 => {
+        Some(pool) if size as isize >= PARALLEL_MIN && total > 1 => {
             let work = &work;
             pool.install(|| (0..total).into_par_iter().map(work).reduce(|| [0, 0], |a, b| [a[0] + b[0], a[1] + b[1]]))
         }
