@@ -145,6 +145,10 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> D
         out_of_range.append(bool(np.any(cap.out_of_range)))
 
     def stack(values: List[Any]) -> Any:
+        if all(not hasattr(v, "dims") and np.ndim(v) == 0 for v in values):
+            # plain numbers (angles given for the working fluid): one array, not a concat of one
+            # DataArray per surface (about 0.2 s per field for a thousand surfaces)
+            return xr.DataArray(np.asarray(values, dtype=float), dims="surface", coords=coord)
         arrs = [v if hasattr(v, "dims") else xr.DataArray(v) for v in values]
         return xr.concat(arrs, dim="surface").assign_coords(coord)
 
