@@ -1988,44 +1988,43 @@ fn psat_block_body<const FMA: bool>(t: &[f64; T_SAT_BLOCK]) -> [f64; T_SAT_BLOCK
     p
 }
 
-/// The saturated states of a block of `B` temperatures: `f(j, saturation_t(t(j)))` for each j in order,
-/// bit for bit, with p_sat ([`psat_block`]) and sigma of [`T_SAT_BLOCK`] temperatures at a time in loops
-/// that vectorise. The block path of `SaturationT`.
-#[inline(always)]
-pub fn saturation_t_each<const B: usize>(t: impl Fn(usize) -> f64, mut f: impl FnMut(usize, [f64; 12])) {
-    let mut block = [T_TRIPLE; T_SAT_BLOCK];
-    for j0 in (0..B).step_by(T_SAT_BLOCK) {
-        let n = T_SAT_BLOCK.min(B - j0);
-        for (k, tk) in block.iter_mut().enumerate().take(n) {
-            *tk = t(j0 + k);
-        }
-        let ps = psat_block(&block);
-        let mut sigma = [0.0; T_SAT_BLOCK];
-        for k in 0..T_SAT_BLOCK {
-            sigma[k] = surface_tension(block[k]);
-        }
-        for k in 0..n {
-            let tk = block[k];
-            // NaN in every field outside the range, as `saturation_t_body`
-            let tk = if in_sat_range(tk) { tk } else { f64::NAN };
-            f(j0 + k, state_at_triple((tk, ps[k], sigma[k])));
-        }
-    }
-}
-
 /// The saturated states of a block of `B` pressures: `f(j, saturation_p(p(j)))` for each j in order, bit
 /// for bit, with the saturation temperatures solved [`T_SAT_BLOCK`] at a time ([`t_sat_block`]). The one
 /// block path of everything evaluated from pressure (`SaturationP`, the fused chain).
 #[inline(always)]
-pub fn saturation_p_each<const B: usize>(p: impl Fn(usize) -> f64, mut f: impl FnMut(usize, [f64; 12])) {
+pub fn saturation_p_each<const B: usize>(p: impl Fn(usize) -> f64, f: impl FnMut(usize, [f64; 12])) {
+    saturation_each::<B>(p, t_sat_block, f)
+}
+
+/// `(t, p_sat(t))` of a block of temperatures, t replaced by NaN outside [T_TRIPLE, T_CRIT] (where
+/// `saturation_t` gives NaN in every field): the solve of `SaturationT`'s blocks.
+#[inline(always)]
+fn t_psat_block(t: &[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]) {
+    let ps = psat_block(t);
+    let mut tt = [f64::NAN; T_SAT_BLOCK];
+    for k in 0..T_SAT_BLOCK {
+        tt[k] = if in_sat_range(t[k]) { t[k] } else { f64::NAN };
+    }
+    (tt, ps)
+}
+
+/// The block loop of `SaturationT` and [`saturation_p_each`]: for each [`T_SAT_BLOCK`] inputs,
+/// `solve` gives `(t, p_sat(t))` (t NaN where there is no state), sigma is one pass that vectorises, then
+/// the states element by element. Padding of a short last block is NaN and never reported.
+#[inline(always)]
+fn saturation_each<const B: usize>(
+    x: impl Fn(usize) -> f64,
+    solve: impl Fn(&[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]),
+    mut f: impl FnMut(usize, [f64; 12]),
+) {
     let mut block = [f64::NAN; T_SAT_BLOCK];
     for j0 in (0..B).step_by(T_SAT_BLOCK) {
         let n = T_SAT_BLOCK.min(B - j0);
-        for (k, pk) in block.iter_mut().enumerate().take(n) {
-            *pk = p(j0 + k);
+        for (k, xk) in block.iter_mut().enumerate().take(n) {
+            *xk = x(j0 + k);
         }
-        let (t, ps) = t_sat_block(&block);
-        // sigma of the whole block in a loop that vectorises
+        let (t, ps) = solve(&block);
+        // plain loops: see `psat_block_body`
         let mut sigma = [0.0; T_SAT_BLOCK];
         for k in 0..T_SAT_BLOCK {
             sigma[k] = surface_tension(t[k]);
@@ -2034,6 +2033,20 @@ pub fn saturation_p_each<const B: usize>(p: impl Fn(usize) -> f64, mut f: impl F
             f(j0 + k, state_at_triple((t[k], ps[k], sigma[k])));
         }
     }
+}
+
+/// `Kernel::eval_block` of [`SaturationT`] and [`SaturationP`]: the block's states from
+/// [`saturation_each`] with their `solve`, stored and counted.
+#[inline(always)]
+fn water_block<K: crate::model::Kernel<1, 12>, const B: usize>(
+    at: impl Fn(usize) -> [f64; 1],
+    len: usize,
+    y: &mut [[f64; B]; 12],
+    solve: impl Fn(&[f64; T_SAT_BLOCK]) -> ([f64; T_SAT_BLOCK], [f64; T_SAT_BLOCK]),
+) -> crate::model::BlockSummary {
+    let mut sum = crate::model::BlockSummary::default();
+    saturation_each::<B>(|j| at(j)[0], solve, |j, w| sum.add::<K, 1, 12, B>(&at(j), w, j, len, y));
+    sum
 }
 
 #[inline(always)]
@@ -2131,16 +2144,14 @@ impl crate::model::Kernel<1, 12> for SaturationT {
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_t(x[0])
     }
-    /// p_sat and sigma of the block in passes that vectorise ([`saturation_t_each`]), then the states.
+    /// p_sat and sigma of the block in passes that vectorise ([`t_psat_block`], [`saturation_each`]), then the states.
     #[inline(always)]
     fn eval_block<const B: usize>(
         at: impl Fn(usize) -> [f64; 1],
         len: usize,
         y: &mut [[f64; B]; 12],
     ) -> crate::model::BlockSummary {
-        let mut sum = crate::model::BlockSummary::default();
-        saturation_t_each::<B>(|j| at(j)[0], |j, w| sum.add::<Self, 1, 12, B>(&at(j), w, j, len, y));
-        sum
+        water_block::<Self, B>(at, len, y, t_psat_block)
     }
     #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
@@ -2178,9 +2189,7 @@ impl crate::model::Kernel<1, 12> for SaturationP {
         len: usize,
         y: &mut [[f64; B]; 12],
     ) -> crate::model::BlockSummary {
-        let mut sum = crate::model::BlockSummary::default();
-        saturation_p_each::<B>(|j| at(j)[0], |j, w| sum.add::<Self, 1, 12, B>(&at(j), w, j, len, y));
-        sum
+        water_block::<Self, B>(at, len, y, t_sat_block)
     }
     #[inline(always)]
     fn possible(x: &[f64; 1]) -> bool {
