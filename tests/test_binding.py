@@ -603,3 +603,25 @@ def test_factorised_grid_path_takes_unaligned_and_readonly_input():
     x_ = np.linspace(1.0, 89.0, n)
     buf[1:] = x_.view(np.uint8)
     np.testing.assert_array_equal(kandlikar(x, WATER, 30.0), kandlikar(x_, WATER, 30.0))
+
+
+def test_shape_shortcuts_agree_with_numpy():
+    # The array path's own _shape/_broadcast_shape skip NumPy's dispatch in the common case; they must
+    # give NumPy's answers (and its error) for every combination. Reference: numpy.shape and
+    # numpy.broadcast_shapes.
+    from wetboil._api import _broadcast_shape, _shape
+    rng = np.random.default_rng(4)
+    values = [1.0, 2, np.float64(3.0), np.array(4.0), [1.0, 2.0], np.ones(3), np.ones((2, 3)), np.ones((1, 3)),
+              np.ones((3, 1)), np.ones((2, 1, 3)), np.ones(0), np.ma.masked_array(np.ones(3)), np.ones((4, 2))]
+    for v in values:
+        assert _shape(v) == np.shape(v)
+    for _ in range(500):
+        pick = [values[i] for i in rng.integers(0, len(values), rng.integers(1, 5))]
+        shapes = [np.shape(v) for v in pick]
+        try:
+            want = np.broadcast_shapes(*shapes)
+        except ValueError:
+            with pytest.raises(ValueError):
+                _broadcast_shape(shapes)
+        else:
+            assert _broadcast_shape(shapes) == want, shapes
