@@ -33,6 +33,21 @@ def test_dataarrays_broadcast_by_dimension_name():
     np.testing.assert_array_equal(q2.transpose("receding", "orientation").values, expect)
 
 
+def test_results_carry_their_own_units_not_an_inputs_attrs():
+    # contract: an input's attrs (here its unit, degrees or Pa) do not describe the result; every
+    # output is labelled with the unit of the kernel's output (Model.outputs), fluid fields with theirs
+    theta = xr.DataArray([30.0, 60.0], dims="t", attrs={"units": "deg", "long_name": "receding angle"})
+    assert fritz(theta, WATER).attrs == {"units": "m"}
+    assert kandlikar(theta, WATER).attrs == {"units": "W/m2"}
+    assert wetboil.validity(fritz, theta, WATER).attrs == {}
+    state = wetboil.fluids.water(p=xr.DataArray([1.0e5, 2.0e5], dims="p", attrs={"units": "Pa"}))
+    for field, unit in [("T", "K"), ("rho_l", "kg/m3"), ("h_lv", "J/kg"), ("sigma", "N/m"), ("p", "Pa")]:
+        assert getattr(state, field).attrs == {"units": unit}, field
+    pytest.importorskip("CoolProp")
+    r = wetboil.fluids.from_coolprop("Water", T=xr.DataArray([300.0], dims="T", attrs={"units": "K"}))
+    assert r.rho_l.attrs == {"units": "kg/m3"} and r.p.attrs == {"units": "Pa"}
+
+
 def test_fluid_fields_as_dataarrays():
     p = xr.DataArray([1.0e5, 2.0e5], dims="pressure")
     sat = WATER.replace(sigma=xr.DataArray([0.0589, 0.0550], dims="pressure"), p=p)

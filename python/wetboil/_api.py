@@ -435,13 +435,22 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
     if not plain and any(_is_xarray(x) for x in inputs):
         import xarray as xr
 
-        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes)
+        # keep_attrs=False: an input's attrs (its units above all) do not describe the result;
+        # each output carries its own unit instead
+        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes, keep_attrs=False)
         if n_out > 1:
             kwargs["output_core_dims"] = [[] for _ in range(n_out)]
         outs = xr.apply_ufunc(func, *inputs, **kwargs)
+        units = {o.name: o.unit for o in spec.model.outputs}
+
+        def labelled(o: Any, name: str) -> Any:
+            o = o.rename(name)
+            o.attrs = {"units": units[name]} if name in units else {}
+            return o
+
         if n_out == 1:
-            return outs.rename(names[0])
-        return tuple(o.rename(nm) for o, nm in zip(outs, names))
+            return labelled(outs, names[0])
+        return tuple(labelled(o, nm) for o, nm in zip(outs, names))
     if not plain and any(_is_dask(x) for x in inputs):
         import dask.array as da
         from dask.array.core import unify_chunks

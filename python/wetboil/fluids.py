@@ -573,7 +573,9 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     for f in FIELDS[:12]:
         v = out[f]
         if template is not None:
+            # the labels of `given`, not its attrs (its units are those of T or p)
             v = template.copy(data=v).rename(f)
+            v.attrs = {"units": UNITS[f]}
         elif v.ndim == 0:
             v = float(v)
         fields[f] = v
