@@ -780,14 +780,19 @@ def _(dT, L, beta, k_l, rho_l, cp_l, mu_l, g):
 # film boiling
 
 
+SIGMA_SB = 5.670374419e-8  # W/(m2 K4), CODATA 2018
+
+
 @numpy_form("film_boiling")
-def _(dT, C, L, a, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g):
-    return C * (g * k_v ** 3 * rho_v * (rho_l - rho_v) * (h_lv + a * cp_v * dT) / (mu_v * L * dT)) ** 0.25 * dT
+def _(dT, C, L, a, eps, T, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g):
+    conv = C * (g * k_v ** 3 * rho_v * (rho_l - rho_v) * (h_lv + a * cp_v * dT) / (mu_v * L * dT)) ** 0.25 * dT
+    return conv + 0.75 * eps * SIGMA_SB * ((T + dT) ** 4 - T ** 4)
 
 
 @python_form("film_boiling")
-def _(dT, C, L, a, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g):
-    return C * (g * k_v ** 3 * rho_v * (rho_l - rho_v) * (h_lv + a * cp_v * dT) / (mu_v * L * dT)) ** 0.25 * dT
+def _(dT, C, L, a, eps, T, h_lv, cp_v, rho_l, rho_v, k_v, mu_v, g):
+    conv = C * (g * k_v ** 3 * rho_v * (rho_l - rho_v) * (h_lv + a * cp_v * dT) / (mu_v * L * dT)) ** 0.25 * dT
+    return conv + 0.75 * eps * SIGMA_SB * ((T + dT) ** 4 - T ** 4)
 
 
 # =============================================================================

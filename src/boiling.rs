@@ -645,18 +645,55 @@ fn film_possible(x: &[f64; 11]) -> bool {
     all_positive!(x[0], x[1], x[2], x[4], x[5], x[7], x[8], x[9], x[10]; x[3]) & densities(x[6], x[7])
 }
 
-/// Kernel of [`film_boiling`].
+/// Stefan-Boltzmann constant [W/(m2 K4)], CODATA 2018 (exact from the SI definitions).
+pub const STEFAN_BOLTZMANN: f64 = 5.670374419e-8;
+
+/// Radiation added to film boiling [W/m2]: `(3/4) ε σ_SB (T_w⁴ − T_sat⁴)`, with
+/// `T_w = T_sat + ΔT` and the difference factored as `ΔT (T_w + T_sat)(T_w² + T_sat²)`
+/// (no cancellation at small superheats).
+///
+/// * `superheat` ΔT [K], `emissivity` ε of the wall [-], `t_sat` [K].
+/// * The 3/4 weighting of the radiation term is the common explicit simplification of
+///   Bromley's implicit combination \[V2\].
+/// * Possible: 0 ≤ ε ≤ 1 and T_sat > 0; ε = 0 adds exactly 0 (also where the superheat is so
+///   large that the fourth powers overflow).
+#[inline(always)]
+pub fn film_radiation(superheat: f64, emissivity: f64, t_sat: f64) -> f64 {
+    let ok = radiation_possible(emissivity, t_sat);
+    let t_w = t_sat + superheat;
+    let q = 0.75 * emissivity * STEFAN_BOLTZMANN * (superheat * (t_w + t_sat) * (t_w * t_w + t_sat * t_sat));
+    nan_unless(ok, if emissivity == 0.0 { 0.0 } else { q })
+}
+
+#[inline(always)]
+fn radiation_possible(emissivity: f64, t_sat: f64) -> bool {
+    (0.0..=1.0).contains(&emissivity) & (t_sat > 0.0)
+}
+
+/// Kernel of [`film_boiling`] plus [`film_radiation`]: the inputs of `film_boiling`
+/// with the wall emissivity and the saturation temperature after `latent_factor`.
 pub struct FilmBoiling;
-impl Kernel<11, 1> for FilmBoiling {
+impl FilmBoiling {
+    /// The inputs of [`film_boiling`] among the kernel's.
+    #[inline(always)]
+    fn convective(x: &[f64; 13]) -> [f64; 11] {
+        [x[0], x[1], x[2], x[3], x[6], x[7], x[8], x[9], x[10], x[11], x[12]]
+    }
+}
+impl Kernel<13, 1> for FilmBoiling {
     const MODEL: Model = Model {
         name: "film_boiling",
-        summary: "Film-boiling heat flux, Bromley form (cylinder 0.62, sphere 0.67, Berenson plate 0.425)",
-        equation: "q = C*(g*k_v**3*rho_v*(rho_l-rho_v)*(h_lv+a*cp_v*dT)/(mu_v*L*dT))**0.25*dT",
+        summary: "Film-boiling heat flux, Bromley form (cylinder 0.62, sphere 0.67, Berenson plate 0.425), \
+                  plus wall radiation",
+        equation: "q = C*(g*k_v**3*rho_v*(rho_l-rho_v)*(h_lv+a*cp_v*dT)/(mu_v*L*dT))**0.25*dT \
+                   + 0.75*eps*sigma_SB*((T+dT)**4 - T**4)",
         inputs: &[
             arg("wall_superheat", "K"),
             arg("constant", "-"),
             arg("length", "m"),
             arg("latent_factor", "-"),
+            arg("emissivity", "-"),
+            arg("fluid.T", "K"),
             arg("fluid.h_lv", "J/kg"),
             arg("fluid.cp_v", "J/(kg K)"),
             arg("fluid.rho_l", "kg/m3"),
@@ -666,7 +703,8 @@ impl Kernel<11, 1> for FilmBoiling {
             arg("g", "m/s2"),
         ],
         outputs: &[arg("heat_flux", "W/m2")],
-        domain: "wall_superheat > 0, positive constant, length and properties, latent_factor >= 0, rho_l > rho_v",
+        domain: "wall_superheat > 0, positive constant, length and properties, latent_factor >= 0, rho_l > rho_v, \
+                 0 <= emissivity <= 1, T > 0",
         validity: "stable film boiling above the minimum heat flux (not checked here)",
         reference: "L.A. Bromley, Heat transfer in stable film boiling, Chem. Eng. Prog. 46 (1950) 221-227; \
                     P.J. Berenson, J. Heat Transfer 83 (1961) 351-358",
@@ -675,12 +713,16 @@ impl Kernel<11, 1> for FilmBoiling {
                        sphere 0.67 secondary; plate 0.425 from memory (medium confidence); originals not read",
     };
     #[inline(always)]
-    fn eval(x: &[f64; 11]) -> [f64; 1] {
-        [film_boiling(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
+    fn eval(x: &[f64; 13]) -> [f64; 1] {
+        let c = Self::convective(x);
+        let q = film_boiling(c[0], c[1], c[2], c[3], c[4], c[5], c[6], c[7], c[8], c[9], c[10]) + film_radiation(x[0], x[4], x[5]);
+        // one NaN whatever the terms' NaNs were (x86 keeps the first operand's of two, and the
+        // compiler may swap the operands of a sum: the vectorised and scalar loops must agree)
+        [nan_unless(!q.is_nan(), q)]
     }
     #[inline(always)]
-    fn possible(x: &[f64; 11]) -> bool {
-        film_possible(x)
+    fn possible(x: &[f64; 13]) -> bool {
+        film_possible(&Self::convective(x)) & radiation_possible(x[4], x[5])
     }
 }
 
@@ -786,5 +828,30 @@ mod tests {
         // L^-1/4 scaling.
         let q16 = film_boiling(200.0, 0.62, 0.16, 0.4, HLV, cpv, RL, RV, kv, muv, G);
         assert_relative_eq!(q / q16, 2.0, max_relative = 1e-12);
+    }
+
+    #[test]
+    fn film_radiation_and_its_domain() {
+        // (3/4) eps sigma_SB (T_w^4 - T_sat^4), written out (form check, no published value)
+        let (ts, dt): (f64, f64) = (373.15, 600.0);
+        let direct = 0.75 * 0.8 * STEFAN_BOLTZMANN * ((ts + dt).powi(4) - ts.powi(4));
+        assert_relative_eq!(film_radiation(dt, 0.8, ts), direct, max_relative = 1e-13);
+        assert_eq!(film_radiation(dt, 0.0, ts), 0.0);
+        assert_eq!(film_radiation(1e300, 0.0, ts), 0.0); // not 0 x inf
+        assert!(film_radiation(dt, 0.0, f64::NAN).is_nan()); // NaN in, NaN out
+        for eps in [-0.1, 1.5, f64::INFINITY] {
+            assert!(film_radiation(dt, eps, ts).is_nan(), "{eps}");
+        }
+        assert!(film_radiation(dt, 0.5, -1.0).is_nan());
+        // the kernel adds it to convection, and an emissivity outside 0..1 is impossible input
+        let (cpv, kv, muv) = (2080.0, 0.025, 12.5e-6);
+        let x = [dt, 0.62, 0.01, 0.4, 0.8, ts, HLV, cpv, RL, RV, kv, muv, G];
+        let (y, status) = evaluate::<FilmBoiling, 13, 1>(&x);
+        assert_eq!(status, Status::Ok);
+        let conv = film_boiling(dt, 0.62, 0.01, 0.4, HLV, cpv, RL, RV, kv, muv, G);
+        assert_relative_eq!(y[0], conv + direct, max_relative = 1e-13);
+        let mut bad = x;
+        bad[4] = 1.2;
+        assert_eq!(evaluate::<FilmBoiling, 13, 1>(&bad).1, Status::Invalid);
     }
 }

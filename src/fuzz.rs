@@ -150,7 +150,7 @@ fn physical_range(kernel: &str, name: &str) -> Range {
         (_, "growth_constant") => Lin(0.0, 3.0),
         (_, "friction_ratio") => Lin(0.0, 0.1),
         (_, "drag_coefficient" | "constant") => Log(0.1, 2.0),
-        (_, "latent_factor") => Lin(0.0, 1.0),
+        (_, "latent_factor" | "emissivity") => Lin(0.0, 1.0),
         (_, "roughness_ratio") => Lin(1.0, 3.0),
         (_, "solid_fraction") => Lin(0.0, 1.0),
         (_, "phi") => Lin(0.0, 1.5),
@@ -559,7 +559,7 @@ kernels! {
     boiling::RpiPartition, 12, 5;
     boiling::TolubinskyKostanchuk, 1, 1;
     boiling::NaturalConvection, 8, 1;
-    boiling::FilmBoiling, 11, 1;
+    boiling::FilmBoiling, 13, 1;
     wetting::YoungAngle, 3, 1;
     wetting::SpreadingCoefficient, 3, 1;
     wetting::AdhesionWork, 2, 1;

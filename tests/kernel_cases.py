@@ -110,6 +110,7 @@ _RANGES: Dict[str, Tuple[str, Any, Any]] = {
     "length": ("log", 1e-3, 0.5),
     "expansion_coefficient": ("log", 1e-4, 2e-3),
     "latent_factor": ("lin", 0.0, 1.0),
+    "emissivity": ("lin", 0.0, 1.0),
     "site_density": ("log", 1e3, 1e8),
     "departure_diameter": ("log", 1e-4, 5e-3),
     "frequency": ("log", 5.0, 500.0),

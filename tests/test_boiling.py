@@ -280,6 +280,20 @@ def test_film_boiling_form(water):
         film_boiling(dt, water, "cylinder")
 
 
+def test_film_boiling_emissivity_outside_0_to_1_is_impossible(water):
+    # contract (README "Errors"): an emissivity is a fraction; outside 0..1 the element is NaN and the
+    # call emits one InvalidValueWarning with the count (radiation is part of the kernel's element policy)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        q = film_boiling(300.0, water, "cylinder", 5e-3, emissivity=np.array([-0.5, 0.0, 0.5, 1.0, 1.5]))
+    assert [w.category for w in rec] == [wetboil.InvalidValueWarning]
+    assert "2 of 5" in str(rec[0].message)
+    assert np.isnan(q[[0, 4]]).all() and (np.diff(q[1:4]) > 0).all()
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError):
+        film_boiling(300.0, water, "cylinder", 5e-3, emissivity=1.5)
+    assert isinstance(film_boiling(300.0, water, "cylinder", 5e-3, emissivity=0.5), float)
+
+
 
 @pytest.mark.parametrize("dt", [445.81244991012744, 590.5791271659746, 490.6134934040716, 419.2737258269676])
 def test_film_boiling_radiation_number_and_array_agree(dt):

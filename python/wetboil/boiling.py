@@ -56,7 +56,6 @@ __all__ = [
 ]
 
 G = 9.80665
-_STEFAN_BOLTZMANN = 5.670374419e-8  # W/(m2 K4), CODATA 2018 (exact from the SI definitions)
 
 
 
@@ -415,7 +414,7 @@ FILM_GEOMETRIES: Dict[str, Tuple[float, str]] = {
 
 
 def _film_kernel(
-    wall_superheat: Any, constant: Any, length: Any, latent_factor: Any, fluid: Saturation, g: Any
+    wall_superheat: Any, constant: Any, length: Any, latent_factor: Any, emissivity: Any, fluid: Saturation, g: Any
 ) -> Any:
     """Kernel-backed helper of `film_boiling`."""
 
@@ -464,8 +463,10 @@ def film_boiling(
         a in :math:`h_{lv} + a\,c_{pv}\Delta T`: 0.4 (Bromley's restatement,
         default) or 0.8 (used by other texts) [M].
     emissivity : array_like, optional
-        Wall emissivity for the radiation term (0 = none, the default). The
-        3/4 weighting is the common explicit simplification [V2].
+        Wall emissivity for the radiation term, 0 to 1 (0 = none, the
+        default); outside 0-1 the element is impossible (NaN and
+        `InvalidValueWarning`). The 3/4 weighting is the common explicit
+        simplification [V2]; the radiation uses ``fluid.T`` as T_sat.
     g : array_like, optional
         Acceleration [m/s2].
 
@@ -494,7 +495,6 @@ def film_boiling(
     need_saturation("boiling.film_boiling", fluid)
     check_choice("boiling.film_boiling", "geometry", geometry, FILM_GEOMETRIES)
     constant = FILM_GEOMETRIES[geometry][0]
-    emissivity = _chf._real("boiling.film_boiling", "emissivity", emissivity)
     if geometry == "flat_plate":
         g = _chf._real("boiling.film_boiling", "g", g)
         try:
@@ -505,16 +505,7 @@ def film_boiling(
         if diameter is None:
             raise WetboilValueError(f"boiling.film_boiling: geometry {geometry!r} needs diameter=... [m]")
         length = diameter
-    q = _film_kernel(wall_superheat, constant, length, latent_factor, fluid, g)
-    if not (isinstance(emissivity, (int, float)) and emissivity == 0.0):
-        dt = np.asarray(wall_superheat, dtype=float) if not hasattr(wall_superheat, "dims") else wall_superheat
-        tw = fluid.T + dt
-        # T_w^4 - T_sat^4 factored: no cancellation at small superheats, and
-        # only + and * (NumPy's array `**` may differ from its scalar `**` by
-        # an ulp, which made a number and a one-element array disagree)
-        with np.errstate(over="ignore", invalid="ignore"):  # huge superheats: inf, reported by the kernel's policy
-            q = q + 0.75 * emissivity * _STEFAN_BOLTZMANN * (dt * (tw + fluid.T) * (tw * tw + fluid.T * fluid.T))
-    return q
+    return _film_kernel(wall_superheat, constant, length, latent_factor, emissivity, fluid, g)
 
 
 # --------------------------------------------------------------------------- partitioning
