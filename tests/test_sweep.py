@@ -183,3 +183,67 @@ def test_fused_water_chain_equals_the_separate_functions_bit_for_bit():
     np.testing.assert_array_equal(r.departure_diameter, fritz(th, w))
     np.testing.assert_array_equal(r.critical_heat_flux, kandlikar(rec, w, phi))
     assert water_chain(101325.0, 70.0, 40.0, 3e5).T_sat == water(p=101325.0).T
+
+
+# --------------------------------------------------------------------------- impossible operating points
+
+
+def _bits(ds):
+    return ds["invalid_flags"].attrs["bits"].split(",")
+
+
+def test_impossible_fluid_states_are_flagged_in_sweep_and_screen():
+    """Pressures above the critical point (22.064 MPa, IAPWS R6-95(2018)) or
+    below the triple point (611.657 Pa, IAPWS SR1-86 at 273.16 K) have no
+    saturated state: NaN, the fluid_state bit and the bit of every NaN
+    quantity, one warning per call. Behavioural contract of `sweep`."""
+    from wetboil.sweep import STATE_FLAG
+
+    with warnings.catch_warnings(record=True) as caught:
+        warnings.simplefilter("always")
+        ds = wetboil.sweep(SURFACES, "water", p=[1e5, 3e7, 101.3], heat_flux=[3e5, 5e5])
+    assert [w.category for w in caught] == [wetboil.InvalidValueWarning], [str(w.message) for w in caught]
+    bits = _bits(ds)
+    assert bits[-1] == STATE_FLAG == "fluid_state"
+    inv = ds["invalid_flags"]
+    state = (inv >> bits.index(STATE_FLAG)) & 1
+    assert (state.sel(p=1e5) == 0).all() and (state.sel(p=[3e7, 101.3]) == 1).all()
+    assert (inv.sel(p=1e5) == 0).all()
+    for name in ("onset_superheat", "nucleate_superheat", "departure_diameter", "chf", "chf_margin"):
+        assert ds[name].sel(p=[3e7, 101.3]).isnull().all(), name
+        assert (((inv.sel(p=[3e7, 101.3]) >> bits.index(name)) & 1) == 1).all(), name
+    # measured angles stay what was measured: not NaN, not flagged
+    assert (((inv >> bits.index("static_angle")) & 1) == 0).all()
+
+    with wetboil.errstate(invalid="ignore"):
+        df = wetboil.screen(SURFACES, "water", heat_flux=3e5, p=[1e5, 3e7])
+    bad = df[df["p [Pa]"] == 3e7]
+    assert len(bad) == 3 and all("fluid_state" in s and "chf_margin" in s for s in bad["impossible"])
+    assert all(s == "" for s in df[df["p [Pa]"] == 1e5]["impossible"])
+
+
+def test_impossible_temperatures_and_probe_angles_are_flagged_and_chunks_agree():
+    """Above the critical temperature (647.096 K, IAPWS R6-95(2018)) there is
+    no state; angles predicted from probe liquids need it too. Within 0.997
+    T_crit the water state itself is flagged out of range (contract of
+    `wetboil.fluids.water`). Behavioural contract: chunked = eager."""
+    probe = Surface("probe (invented)", probe_static_deg={"water": 95.0, "diiodomethane": 50.0})
+    kw = dict(T=[400.0, 700.0, 646.5], heat_flux=3e5)
+    with wetboil.errstate(invalid="ignore", out_of_range="ignore"):
+        ds = wetboil.sweep([SURFACES[0], probe], "water", **kw)
+        lazy = wetboil.sweep([SURFACES[0], probe], "water", chunks=1, **kw)
+    bits = _bits(ds)
+    k = bits.index("fluid_state")
+    np.testing.assert_array_equal(((ds["invalid_flags"] >> k) & 1).squeeze().values, [[0, 1, 0], [0, 1, 0]])
+    np.testing.assert_array_equal(((ds["range_flags"] >> k) & 1).squeeze().values, [[0, 0, 1], [0, 0, 1]])
+    angle = ds["static_angle"].sel(surface="probe (invented)", T=700.0)
+    assert angle.isnull().all() and (((ds["invalid_flags"].sel(surface="probe (invented)", T=700.0)
+                                       >> bits.index("static_angle")) & 1) == 1).all()
+    for name in ds.data_vars:
+        np.testing.assert_array_equal(ds[name].values, lazy[name].values, err_msg=name)
+
+
+def test_impossible_fluid_state_raises_in_strict_mode():
+    """Behavioural contract: errstate(invalid="raise") turns the NaN into an error."""
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError, match="impossible"):
+        wetboil.sweep(SURFACES, "water", p=[1e5, 3e7], heat_flux=3e5)

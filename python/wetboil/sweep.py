@@ -32,7 +32,8 @@ from ._errors import WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation, from_coolprop, water
 from .surface import Surface
 
-__all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES", "METHOD_CHOICES"]
+__all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES",
+           "METHOD_CHOICES", "STATE_FLAG"]
 
 #: Methods used when `methods` does not say otherwise.
 DEFAULT_METHODS: Dict[str, Any] = {
@@ -68,6 +69,13 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "chf_margin": ("-", "critical heat flux of the design method / design heat flux"),
 }
 
+#: Name of the last flag bit, after the quantities': the saturated state of the
+#: operating point itself. In ``invalid_flags`` it marks points whose fluid
+#: state is impossible (the fluid layer gave no state: outside triple point to
+#: critical point), in ``range_flags`` states the fluid layer computed outside
+#: its own validity range (water above 0.997 T_crit).
+STATE_FLAG = "fluid_state"
+
 
 def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
     out = dict(DEFAULT_METHODS)
@@ -99,8 +107,11 @@ def _axis(name: str, values: Any, xr: Any) -> Any:
     return xr.DataArray(arr, dims=name, coords={name: arr})
 
 
-def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str]:
-    """The saturated states of the sweep along one labelled axis."""
+def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str, Any, Any]:
+    """The saturated states of the sweep along one labelled axis, with two
+    masks along it: states that are impossible and states outside the fluid
+    layer's validity range (both all-False for ready-made `Saturation`
+    states, whose NaN fields are missing data)."""
     if isinstance(fluid, Saturation):
         if p is not None or T is not None:
             raise WetboilValueError("sweep: give p or T with a fluid name, not with a Saturation")
@@ -108,7 +119,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str]
         if len(shape) > 1:
             raise WetboilValueError(f"sweep: a Saturation fluid must be a single state or 1-D, got shape {shape}")
         if shape == ():
-            return fluid, ""
+            return fluid, "", xr.DataArray(0.0), xr.DataArray(0.0)
         axis = _axis("p", fluid.p, xr) if not np.isnan(np.asarray(fluid.p)).any() else xr.DataArray(
             np.arange(shape[0]), dims="state")
         dim = axis.dims[0]
@@ -117,16 +128,28 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str]
                   "molar_mass", "T_crit", "p_crit"):
             v = getattr(fluid, f)
             fields[f] = v if np.ndim(v) == 0 else xr.DataArray(np.asarray(v), dims=dim, coords=axis.coords)
-        return Saturation(**fields, name=fluid.name), dim
+        none = xr.DataArray(np.zeros(shape[0]), dims=dim, coords=axis.coords)
+        return Saturation(**fields, name=fluid.name), dim, none, none
     if not isinstance(fluid, str):
         raise WetboilTypeError(f"sweep: fluid must be a fluid name or a Saturation, got {type(fluid).__name__}")
     if (p is None) == (T is None):
         raise WetboilValueError("sweep: give exactly one of p [Pa] or T [K] with a fluid name")
     dim = "p" if p is not None else "T"
     axis = _axis(dim, p if p is not None else T, xr)
-    if fluid.lower() == "water":
-        return (water(p=axis) if dim == "p" else water(T=axis)), dim
-    return (from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)), dim
+    # The fluid layer warns once (or raises, in strict mode) for impossible
+    # states; the capture keeps which ones, for the flags of every point.
+    with capture_validity() as cap:
+        if fluid.lower() == "water":
+            states = water(p=axis) if dim == "p" else water(T=axis)
+        else:
+            states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
+    given = ~np.isnan(axis.values)
+    # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
+    no_state = np.isnan(np.broadcast_to(np.asarray(getattr(states.rho_l, "values", states.rho_l)), given.shape))
+    invalid = np.logical_or(np.broadcast_to(cap.invalid, given.shape), no_state & given)
+    out_of_range = np.broadcast_to(cap.out_of_range, given.shape)
+    masks = [xr.DataArray(m.astype(float), dims=dim, coords=axis.coords) for m in (invalid, out_of_range)]
+    return states, dim, masks[0], masks[1]
 
 
 def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> Dict[str, Any]:
@@ -169,24 +192,37 @@ class _Results:
     """Values of the chain in order, with their flags folded at once into two
     int32 bit masks (bit i <-> i-th value), so no per-quantity mask is kept."""
 
-    def __init__(self, shape: Tuple[int, ...]):
+    def __init__(self, shape: Tuple[int, ...], state_invalid: Any = None):
         self.shape = shape
         self.values: Dict[str, Any] = {}
         self.invalid = np.zeros(shape, np.int32)
         self.out_of_range = np.zeros(shape, np.int32)
+        # points whose fluid state is impossible (None: there are none): a
+        # quantity that is NaN there is NaN because of an impossible input
+        self.state_invalid = state_invalid
 
     def add(self, name: str, value: Any, invalid: Any, out_of_range: Any) -> Any:
         bit = np.int32(1 << len(self.values))
         self.values[name] = value
+        if self.state_invalid is not None:
+            invalid = np.logical_or(invalid, self.state_invalid & np.isnan(value))
         for mask, acc in ((invalid, self.invalid), (out_of_range, self.out_of_range)):
             if np.any(mask):
                 np.bitwise_or(acc, bit, out=acc, where=np.broadcast_to(mask, self.shape))
         return value
 
+    def add_state(self, invalid: Any, out_of_range: Any) -> None:
+        """The last bit, `STATE_FLAG`: the fluid state of the point itself."""
+        bit = np.int32(1 << len(self.values))
+        for mask, acc in ((invalid, self.invalid), (out_of_range, self.out_of_range)):
+            if np.any(mask):
+                np.bitwise_or(acc, bit, out=acc, where=np.broadcast_to(mask, self.shape))
+
 
 def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, shape: Tuple[int, ...]) -> _Results:
     """Evaluate every quantity on NumPy arrays, in the order of the flag bits."""
-    res = _Results(shape)
+    state_invalid = inputs["fluid_invalid"] > 0
+    res = _Results(shape, state_invalid if state_invalid.any() else None)
     q = inputs["in_heat_flux"]
     phi = inputs["in_orientation"]
     sub = inputs["in_subcooling"]
@@ -240,6 +276,7 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     primary = res.values[first]
     res.add("chf", primary, inv, oor)
     res.add("chf_margin", primary / q, inv, oor)
+    res.add_state(state_invalid, inputs["fluid_out_of_range"] > 0)
     return res
 
 
@@ -289,9 +326,15 @@ def sweep(
     fluid : str or Saturation
         A fluid name with `p` or `T` ("water" is built in; other names go
         through CoolProp), or ready saturated states (a single state or a 1-D
-        `Saturation`, whose pressure becomes the ``p`` axis).
+        `Saturation`, whose pressure becomes the ``p`` axis; their NaN fields
+        are taken as missing data, not flagged).
     p, T : array_like, optional
-        Saturation pressures [Pa] or temperatures [K] (the ``p`` or ``T`` axis).
+        Saturation pressures [Pa] or temperatures [K] (the ``p`` or ``T``
+        axis). Values without a saturated state (outside triple point to
+        critical point; water: 611.657 Pa to 22.064 MPa, 273.16 K to
+        647.096 K) give NaN in every quantity that needs the fluid, the
+        ``fluid_state`` bit in ``invalid_flags``, and one warning per call
+        from the fluid layer (an error under ``errstate(invalid="raise")``).
     heat_flux : array_like
         Design wall heat fluxes [W/m2] (the ``heat_flux`` axis).
     orientation_deg : array_like
@@ -326,7 +369,11 @@ def sweep(
         ``range_flags`` (bit i set: quantity i used a correlation outside its
         published validity range) and ``invalid_flags`` (bit i set: quantity i
         is NaN because an input was physically impossible); the bit order is
-        in their ``attrs["bits"]``.
+        in their ``attrs["bits"]``. The last bit, ``fluid_state``
+        (`STATE_FLAG`), is the operating
+        point's saturated state itself: impossible (``invalid_flags``), or
+        computed outside the fluid layer's validity range (``range_flags``,
+        water above 0.997 T_crit).
 
     Examples
     --------
@@ -348,8 +395,9 @@ def sweep(
     if not all(isinstance(s, Surface) for s in surfaces):
         raise WetboilTypeError("sweep: surfaces must be wetboil.Surface objects")
     meth = _methods(methods)
-    states, state_dim = _fluid_states(fluid, p, T, xr)
+    states, state_dim, state_invalid, state_out_of_range = _fluid_states(fluid, p, T, xr)
     table = _surface_table(surfaces, states, xr)
+    table["fluid_invalid"], table["fluid_out_of_range"] = state_invalid, state_out_of_range
     axes = {
         "heat_flux": _axis("heat_flux", heat_flux, xr),
         "orientation": _axis("orientation", orientation_deg, xr),
@@ -417,10 +465,14 @@ def _decorate(ds: Any, meth: Dict[str, Any], state_dim: str) -> Any:
         bits.append(name)
         unit, long_name = QUANTITIES.get(name, ("W/m2", f"critical heat flux, method {name[4:]}"))
         ds[name].attrs.update(units=unit, long_name=long_name)
+    bits.append(STATE_FLAG)  # the last bit: the fluid state of the point itself
     for n in ("invalid_flags", "range_flags"):
         ds[n].attrs["bits"] = ",".join(bits)  # bit i <-> i-th name
-        ds[n].attrs["long_name"] = ("quantities that are NaN because an input was impossible" if n == "invalid_flags"
-                                    else "quantities computed outside a correlation's published validity range")
+        ds[n].attrs["long_name"] = (
+            "quantities that are NaN because an input was impossible (fluid_state: no saturated state at "
+            "this pressure or temperature)" if n == "invalid_flags"
+            else "quantities computed outside a correlation's published validity range (fluid_state: the "
+            "fluid properties themselves)")
     for axis, unit in (("heat_flux", "W/m2"), ("orientation", "deg"), ("subcooling", "K"), ("p", "Pa"), ("T", "K")):
         if axis in ds.coords:
             ds[axis].attrs["units"] = unit
@@ -453,9 +505,11 @@ def screen(
     Takes the arguments of `sweep` (the operating points are the grid of the
     given pressures or states, heat fluxes, orientations and subcoolings) and
     returns a `pandas.DataFrame` sorted by CHF margin, highest first (the
-    best candidates first; ties by surface name). Column names carry units; ``flags`` names the quantities whose correlations
-    left their published validity range on that row, ``impossible`` those
-    that are NaN because an input was impossible.
+    best candidates first; ties by surface name). Column names carry units;
+    ``flags`` names the quantities whose correlations left their published
+    validity range on that row, ``impossible`` those that are NaN because an
+    input was impossible, and also ``fluid_state`` when the operating point
+    has no saturated state (e.g. above the critical pressure).
 
     Examples
     --------
