@@ -118,3 +118,22 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
     assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
     assert re.search(message, err), err
     assert not out.exists()
+
+
+def test_bergles_rohsenow_onset_in_a_spec_runs(tmp_path):
+    """Behavioural contract: every onset method offered in [methods] runs;
+    Bergles-Rohsenow has no cavity radius (NaN)."""
+    import numpy as np
+
+    from wetboil.report import load_spec, run_study
+
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC.replace('onset = "kandlikar"', 'onset = "bergles_rohsenow"')
+                    .replace('surfaces_file = "surfaces.csv"\n', ""))
+    study = load_spec(spec)
+    report = run_study(study, tmp_path / "out", spec_text=spec.read_text())
+    import xarray as xr
+
+    ds = xr.load_dataset(tmp_path / "out" / "sweep.nc")
+    assert np.isfinite(ds["onset_superheat"].values).all() and np.isnan(ds["onset_cavity_radius"].values).all()
+    assert "bergles_rohsenow" in report.read_text()

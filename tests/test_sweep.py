@@ -2,6 +2,7 @@
 public functions it chains, which have their own reference tests), labels,
 flags, laziness, a dask.distributed cluster, and surface files."""
 
+import importlib
 import warnings
 
 import numpy as np
@@ -247,3 +248,47 @@ def test_impossible_fluid_state_raises_in_strict_mode():
     """Behavioural contract: errstate(invalid="raise") turns the NaN into an error."""
     with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError, match="impossible"):
         wetboil.sweep(SURFACES, "water", p=[1e5, 3e7], heat_flux=3e5)
+
+
+# --------------------------------------------------------------------------- methods
+
+
+SWEEP_MODULE = importlib.import_module("wetboil.sweep")  # `wetboil.sweep` is the function
+_EVERY_CHOICE = [(key, choice) for key, choices in SWEEP_MODULE.METHOD_CHOICES.items() for choice in choices]
+
+
+@pytest.mark.parametrize("key, choice", _EVERY_CHOICE, ids=[f"{k}={c}" for k, c in _EVERY_CHOICE])
+def test_every_listed_method_choice_runs(key, choice):
+    """Behavioural contract: every method `METHOD_CHOICES` offers runs in a
+    sweep, and in-range inputs give finite values except where documented
+    (Bergles-Rohsenow's onset has no cavity radius: NaN, not flagged)."""
+    with wetboil.errstate(out_of_range="ignore"):
+        ds = wetboil.sweep(SURFACES[:2], "water", p=[1e5, 5e5], heat_flux=3e5, methods={key: choice})
+    assert (ds["invalid_flags"] == 0).all()
+    for name in SWEEP_MODULE.QUANTITIES:
+        values = ds[name].values
+        if key == "onset" and choice == "bergles_rohsenow" and name == "onset_cavity_radius":
+            assert np.isnan(values).all()
+        else:
+            assert np.isfinite(values).all(), name
+    if key == "chf":
+        assert f"chf_{choice}" in ds.data_vars
+
+
+def test_bergles_rohsenow_onset_is_the_public_function():
+    """Wiring: the sweep's onset is nucleation.onset_superheat(method="bergles_rohsenow")
+    (whose reference values are tested in test_nucleation)."""
+    ds = wetboil.sweep(SURFACES[:1], "water", p=[5e5], heat_flux=3e5, methods={"onset": "bergles_rohsenow"})
+    assert float(ds["onset_superheat"].squeeze()) == onset_superheat(3e5, water(p=5e5), method="bergles_rohsenow")
+    assert "bergles_rohsenow" in ds.attrs["methods"]
+
+
+def test_bergles_rohsenow_with_another_fluid_is_refused_before_computing():
+    """Bergles-Rohsenow is a correlation for water (Bergles and Rohsenow,
+    J. Heat Transfer 86 (1964) 365-372): refused up front, lazy or not."""
+    w = water(p=1e5)
+    other = wetboil.fluids.Saturation(T=w.T, p=w.p, rho_l=w.rho_l, rho_v=w.rho_v, h_lv=w.h_lv, sigma=w.sigma,
+                                      k_l=w.k_l, cp_l=w.cp_l, mu_l=w.mu_l, name="R134a")
+    for kw in ({}, {"chunks": 1, "compute": False}):
+        with pytest.raises(ValueError, match="bergles_rohsenow' is a correlation for water"):
+            wetboil.sweep(SURFACES[:1], other, heat_flux=3e5, methods={"onset": "bergles_rohsenow"}, **kw)

@@ -59,7 +59,8 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "advancing_angle": ("deg", "working fluid's apparent advancing contact angle"),
     "receding_angle": ("deg", "working fluid's apparent receding contact angle"),
     "onset_superheat": ("K", "wall superheat at the onset of nucleate boiling at the design heat flux"),
-    "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset"),
+    "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset (NaN with the onset method "
+                            "'bergles_rohsenow', which gives no radius)"),
     "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux"),
     "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu)"),
     "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu)"),
@@ -96,6 +97,16 @@ def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
                 raise WetboilValueError(f"methods[{key!r}]: unknown method {v!r}; choices are {METHOD_CHOICES[key]}")
         out[key] = values if key == "chf" else values[0]
     return out
+
+
+def _method_fluid_problem(methods: Mapping[str, Any], fluid_name: Optional[str]) -> Optional[str]:
+    """Why `methods` cannot be used with the fluid named `fluid_name`, or None.
+    Bergles-Rohsenow's onset is a fit for water (`nucleation.onset_superheat`
+    raises for other named fluids); checked before any point is computed."""
+    if methods.get("onset") == "bergles_rohsenow" and fluid_name is not None and not nucleation._is_water(fluid_name):
+        return (f"onset method 'bergles_rohsenow' is a correlation for water, not for {fluid_name!r}; "
+                f"choose one of {', '.join(m for m in METHOD_CHOICES['onset'] if m != 'bergles_rohsenow')}")
+    return None
 
 
 def _axis(name: str, values: Any, xr: Any) -> Any:
@@ -201,10 +212,10 @@ class _Results:
         # quantity that is NaN there is NaN because of an impossible input
         self.state_invalid = state_invalid
 
-    def add(self, name: str, value: Any, invalid: Any, out_of_range: Any) -> Any:
+    def add(self, name: str, value: Any, invalid: Any, out_of_range: Any, uses_state: bool = True) -> Any:
         bit = np.int32(1 << len(self.values))
         self.values[name] = value
-        if self.state_invalid is not None:
+        if uses_state and self.state_invalid is not None:
             invalid = np.logical_or(invalid, self.state_invalid & np.isnan(value))
         for mask, acc in ((invalid, self.invalid), (out_of_range, self.out_of_range)):
             if np.any(mask):
@@ -238,7 +249,10 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
         res.add(name, value, *angle_flags)
     onset_angle = rec if methods["onset"] == "kandlikar" else static
     run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]))
-    run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]))
+    if methods["onset"] in nucleation.ONSET_RADIUS_METHODS:
+        run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]))
+    else:  # Bergles-Rohsenow: a fit of the onset superheat, with no nucleus and so no radius
+        res.add("onset_cavity_radius", math.nan, False, False, uses_state=False)
 
     def nucleate() -> Any:
         m = methods["nucleate"]
@@ -351,7 +365,10 @@ def sweep(
         against. With "nucleate": "auto", Rohsenow is used where the surface
         has a C_sf and Cooper elsewhere. Onset uses the static angle, or the
         receding angle for "kandlikar"; departure uses the static angle; CHF
-        (Kandlikar) the receding angle.
+        (Kandlikar) the receding angle. Onset "bergles_rohsenow" is a fit of
+        the onset superheat for water with no nucleus: ``onset_cavity_radius``
+        is NaN (not flagged), and another named fluid raises
+        `WetboilValueError`.
     chunks : int or mapping, optional
         Chunk sizes (per axis name, or one size for every axis): the result
         is computed lazily on dask, block by block (on a `dask.distributed`
@@ -396,6 +413,9 @@ def sweep(
         raise WetboilTypeError("sweep: surfaces must be wetboil.Surface objects")
     meth = _methods(methods)
     states, state_dim, state_invalid, state_out_of_range = _fluid_states(fluid, p, T, xr)
+    problem = _method_fluid_problem(meth, states.name)
+    if problem:
+        raise WetboilValueError(f"sweep: {problem}")
     table = _surface_table(surfaces, states, xr)
     table["fluid_invalid"], table["fluid_out_of_range"] = state_invalid, state_out_of_range
     axes = {
