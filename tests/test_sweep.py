@@ -292,3 +292,15 @@ def test_bergles_rohsenow_with_another_fluid_is_refused_before_computing():
     for kw in ({}, {"chunks": 1, "compute": False}):
         with pytest.raises(ValueError, match="bergles_rohsenow' is a correlation for water"):
             wetboil.sweep(SURFACES[:1], other, heat_flux=3e5, methods={"onset": "bergles_rohsenow"}, **kw)
+
+
+def test_method_tables_reachable_from_the_sweep_function():
+    """Behavioural contract: `wetboil.sweep` (the function) carries the tables its
+    docstring names; module imports keep working."""
+    module = SWEEP_MODULE
+    assert wetboil.sweep.METHOD_CHOICES is module.METHOD_CHOICES
+    assert wetboil.sweep.DEFAULT_METHODS is module.DEFAULT_METHODS
+    assert wetboil.sweep.QUANTITIES is module.QUANTITIES
+    from wetboil.sweep import DEFAULT_METHODS, METHOD_CHOICES, sweep  # noqa: F401
+
+    assert sweep is wetboil.sweep and set(DEFAULT_METHODS) == set(METHOD_CHOICES)

@@ -359,7 +359,10 @@ def sweep(
         liquid.
     methods : mapping, optional
         Method per step, e.g. ``{"onset": "kandlikar", "chf": ["kandlikar",
-        "zuber"]}``; see `DEFAULT_METHODS` and `METHOD_CHOICES`. The first CHF
+        "zuber"]}``; the defaults and the choices are
+        ``wetboil.sweep.DEFAULT_METHODS`` and ``wetboil.sweep.METHOD_CHOICES``
+        (attributes of this function, also importable with ``from
+        wetboil.sweep import METHOD_CHOICES``). The first CHF
         method is the design method behind ``chf`` and ``chf_margin``; every
         selected method also gets its own ``chf_<method>`` variable to compare
         against. With "nucleate": "auto", Rohsenow is used where the surface
@@ -381,13 +384,13 @@ def sweep(
     Returns
     -------
     xarray.Dataset
-        One variable per entry of `QUANTITIES` (units in ``attrs``), plus
-        ``chf_<method>`` for each CHF method, and two bit masks:
-        ``range_flags`` (bit i set: quantity i used a correlation outside its
-        published validity range) and ``invalid_flags`` (bit i set: quantity i
-        is NaN because an input was physically impossible); the bit order is
-        in their ``attrs["bits"]``. The last bit, ``fluid_state``
-        (`STATE_FLAG`), is the operating
+        One variable per entry of ``wetboil.sweep.QUANTITIES`` (units in
+        ``attrs``), plus ``chf_<method>`` for each CHF method, and two bit
+        masks: ``range_flags`` (bit i set: quantity i used a correlation
+        outside its published validity range) and ``invalid_flags`` (bit i
+        set: quantity i is NaN because an input was physically impossible);
+        the bit order is in their ``attrs["bits"]``. The last bit,
+        ``fluid_state`` (``wetboil.sweep.STATE_FLAG``), is the operating
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
         water above 0.997 T_crit).
@@ -401,6 +404,8 @@ def sweep(
     ('surface', 'p', 'heat_flux', 'orientation', 'subcooling')
     >>> bool((ds["chf_margin"].sel(surface="oxidised (invented)") > ds["chf_margin"].sel(surface="bare (invented)")).all())
     True
+    >>> wetboil.sweep.METHOD_CHOICES["chf"]
+    ('kandlikar', 'zuber', 'lienhard_dhir_flat')
     """
     import xarray as xr
 
@@ -445,6 +450,14 @@ def sweep(
     else:
         result = _block(ds_in.compute(), meth, states.name)
     return _decorate(result, meth, state_dim)
+
+
+# `wetboil.sweep` names this function (it shadows the module of the same name
+# on the package), so the tables its docstring names are reachable from it too.
+sweep.DEFAULT_METHODS = DEFAULT_METHODS  # type: ignore[attr-defined]
+sweep.METHOD_CHOICES = METHOD_CHOICES  # type: ignore[attr-defined]
+sweep.QUANTITIES = QUANTITIES  # type: ignore[attr-defined]
+sweep.STATE_FLAG = STATE_FLAG  # type: ignore[attr-defined]
 
 
 def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
