@@ -120,6 +120,53 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
     assert not out.exists()
 
 
+@pytest.mark.parametrize("change, message", [
+    # kPa written as Pa: below the triple point (611.657 Pa, IAPWS SR1-86 at 273.16 K)
+    (("pressures_Pa = [101325.0, 300000.0]", "pressures_Pa = [101.325, 300]"),
+     r"study.toml:5: \[study\] pressures_Pa: 101.325, 300 Pa outside the saturation range of water: 611.657\d* Pa "
+     r"\(triple point.*\) to 2.2064e\+07 Pa \(critical point, IAPWS R6-95\(2018\)\); give them in Pa: they look "
+     r"like kPa"),
+    # above the critical pressure (22.064 MPa, IAPWS R6-95(2018)): no unit hint fits
+    (("pressures_Pa = [101325.0, 300000.0]", "pressures_Pa = [101325.0, 3e7]"),
+     r"study.toml:5: \[study\] pressures_Pa: 3e\+07 Pa outside .*\(critical point, IAPWS R6-95\(2018\)\)$"),
+    # degrees Celsius written as kelvin: below the triple point (273.16 K)
+    (("pressures_Pa = [101325.0, 300000.0]", "temperatures_K = [100.0, 130.0]"),
+     r"study.toml:5: \[study\] temperatures_K: 100, 130 K outside .* 273.16 K \(triple point\) to 647.096 K.*degC"),
+])
+def test_states_outside_the_saturation_range_are_spec_errors(tmp_path, change, message):
+    """Behavioural contract (the CLI's promise): spec errors come before
+    anything is written, naming the value, the fluid's range and the likely
+    unit slip; the range limits are those of IAPWS cited above."""
+    import re
+
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC.replace(*change))
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 1
+    err = r.stderr.strip()
+    assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
+    assert re.search(message, err), err
+    assert not out.exists()
+
+
+def test_spec_method_that_does_not_fit_the_fluid_is_a_spec_error(tmp_path):
+    """Bergles-Rohsenow is a correlation for water (Bergles and Rohsenow, J.
+    Heat Transfer 86 (1964) 365-372); with another fluid the spec is refused
+    before anything is written (behavioural contract)."""
+    pytest.importorskip("CoolProp")
+    from wetboil import cli
+
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC.replace('fluid = "water"', 'fluid = "R134a"').replace("[101325.0, 300000.0]", "[3e5]")
+                    .replace('onset = "kandlikar"', 'onset = "bergles_rohsenow"')
+                    .replace('surfaces_file = "surfaces.csv"\n', ""))
+    out = tmp_path / "out"
+    assert cli.main(["run", str(spec), "--out", str(out)]) == 1
+    assert not out.exists()
+
+
 def test_bergles_rohsenow_onset_in_a_spec_runs(tmp_path):
     """Behavioural contract: every onset method offered in [methods] runs;
     Bergles-Rohsenow has no cavity radius (NaN)."""

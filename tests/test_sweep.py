@@ -250,6 +250,23 @@ def test_impossible_fluid_state_raises_in_strict_mode():
         wetboil.sweep(SURFACES, "water", p=[1e5, 3e7], heat_flux=3e5)
 
 
+def test_state_range_message_names_value_range_and_unit_slip():
+    """The spec check's verdicts (water: IAPWS SR1-86 triple point, 611.657 Pa
+    at 273.16 K; critical point 22.064 MPa, 647.096 K, IAPWS R6-95(2018));
+    the unit hint is a behavioural contract."""
+    from wetboil.sweep import _states_outside_range
+
+    assert _states_outside_range("water", "p", [611.66, 101325.0, 22.064e6]) is None
+    msg = _states_outside_range("water", "p", [101.325, 500.0])
+    assert "101.325, 500 Pa" in msg and "611.657" in msg and "2.2064e+07 Pa" in msg and "kPa" in msg
+    assert "bar" not in msg  # 500 bar is above the critical pressure
+    msg = _states_outside_range("water", "p", [1e5, 3e7])
+    assert msg.startswith("3e+07 Pa outside") and "look like" not in msg
+    msg = _states_outside_range("water", "T", [100.0, 150.0])
+    assert "273.16 K" in msg and "647.096 K" in msg and "degC" in msg
+    assert _states_outside_range("water", "T", [273.16, 647.0]) is None
+
+
 # --------------------------------------------------------------------------- methods
 
 

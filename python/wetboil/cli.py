@@ -13,7 +13,7 @@ import argparse
 import datetime as _dt
 import pathlib
 import sys
-from typing import List, Optional
+from typing import Any, List, Optional
 
 from ._errors import WetboilError
 
@@ -44,11 +44,32 @@ def _cmd_demo(args: argparse.Namespace) -> int:
     return 0
 
 
+def _check_study(study: Any, spec: str) -> None:
+    """Spec errors `load_spec` leaves to the sweep, raised as `SpecError`
+    before anything is written: saturation pressures or temperatures without
+    a saturated state (e.g. kPa given as Pa), and methods that do not apply
+    to the fluid."""
+    from .report import SpecError, _line
+    from .sweep import _method_fluid_problem, _states_outside_range
+
+    path = pathlib.Path(spec)
+    text = path.read_text()
+    key = "pressures_Pa" if study.axis == "p" else "temperatures_K"
+    problem = _states_outside_range(study.fluid, study.axis, study.states)
+    if problem:
+        raise SpecError(f"{path}:{_line(text, key, 'study')}: [study] {key}: {problem}")
+    problem = _method_fluid_problem(study.methods, study.fluid)
+    if problem:
+        raise SpecError(f"{path}:{_line(text, 'onset', 'methods')}: [methods] {problem}")
+
+
 def _cmd_run(args: argparse.Namespace) -> int:
     from .demo import print_ranking
     from .report import load_spec, run_study
 
-    study = load_spec(args.spec)  # all spec errors are raised before anything is written
+    # all spec errors are raised before anything is written
+    study = load_spec(args.spec)
+    _check_study(study, args.spec)
     out = _new_out_dir(args.out, "wetboil-run")
     report = run_study(study, out, progress=args.progress, spec_text=pathlib.Path(args.spec).read_text())
     print_ranking(out, study.title)

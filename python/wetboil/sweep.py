@@ -109,6 +109,57 @@ def _method_fluid_problem(methods: Mapping[str, Any], fluid_name: Optional[str])
     return None
 
 
+#: Pressure and temperature units that people write instead of Pa and K:
+#: (unit, how to convert to SI, the conversion as text).
+_UNIT_SLIPS = {
+    "p": (("kPa", lambda v: v * 1e3, "x 1e3"), ("bar", lambda v: v * 1e5, "x 1e5"),
+          ("MPa", lambda v: v * 1e6, "x 1e6")),
+    "T": (("degC", lambda v: v + 273.15, "+ 273.15"),),
+}
+
+
+def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Optional[str]:
+    """Why some of the saturation pressures (`axis` "p", in Pa) or
+    temperatures ("T", in K) `values` of a named fluid have no saturated
+    state, or None when they all have one. The fluid layer decides (the same
+    states `sweep` computes); the message names the bad values, the fluid's
+    saturation range (water: triple point to critical point, IAPWS), and a
+    unit that would put every value inside it (kPa, bar, MPa; degC)."""
+    from .fluids import WATER_P_CRIT, WATER_T_CRIT, WATER_T_TRIPLE
+
+    unit = "Pa" if axis == "p" else "K"
+    is_water = fluid.lower() == "water"
+
+    def missing(v: Sequence[float]) -> Any:
+        arr = np.asarray(v, dtype=float)
+        with errstate(invalid="ignore", out_of_range="ignore"):
+            if is_water:
+                s = water(p=arr) if axis == "p" else water(T=arr)
+            else:
+                s = from_coolprop(fluid, p=arr) if axis == "p" else from_coolprop(fluid, T=arr)
+        return np.isnan(np.asarray(s.rho_l)) & ~np.isnan(arr), s
+
+    bad, state = missing(values)
+    if not bad.any():
+        return None
+    if is_water:
+        with errstate(invalid="ignore", out_of_range="ignore"):
+            lo = water(T=WATER_T_TRIPLE).p if axis == "p" else WATER_T_TRIPLE
+        hi = WATER_P_CRIT if axis == "p" else WATER_T_CRIT
+        span = (f"{lo:.7g} {unit} (triple point{', IAPWS SR1-86 at 273.16 K' if axis == 'p' else ''}) to "
+                f"{hi:.7g} {unit} (critical point, IAPWS R6-95(2018))")
+    else:
+        crit = np.asarray(state.p_crit if axis == "p" else state.T_crit).ravel()
+        span = (f"triple point to critical point ({float(crit[0]):.7g} {unit}, CoolProp)" if crit.size
+                and not np.isnan(crit[0]) else "triple point to critical point (CoolProp)")
+    shown = ", ".join(f"{v:g}" for v in np.asarray(values, dtype=float)[bad])
+    msg = f"{shown} {unit} outside the saturation range of {fluid}: {span}"
+    slips = [f"{name} ({how})" for name, to_si, how in _UNIT_SLIPS[axis] if not missing([to_si(v) for v in values])[0].any()]
+    if slips:
+        msg += f"; give them in {unit}: they look like {' or '.join(slips)}"
+    return msg
+
+
 def _axis(name: str, values: Any, xr: Any) -> Any:
     arr = np.atleast_1d(np.asarray(values, dtype=float))
     if arr.ndim != 1:
