@@ -184,3 +184,42 @@ def test_bergles_rohsenow_onset_in_a_spec_runs(tmp_path):
     ds = xr.load_dataset(tmp_path / "out" / "sweep.nc")
     assert np.isfinite(ds["onset_superheat"].values).all() and np.isnan(ds["onset_cavity_radius"].values).all()
     assert "bergles_rohsenow" in report.read_text()
+
+
+def test_impossible_operating_points_are_counted_and_explained():
+    """Behavioural contract: the command line's summary says how many
+    operating points had no saturated state (here above the critical
+    pressure, 22.064 MPa, IAPWS R6-95(2018)) and why; nothing when none."""
+    import wetboil
+    from wetboil.cli import impossible_summary
+
+    s = [wetboil.Surface("a (invented)", 70, 80, 45), wetboil.Surface("b (invented)", 20, 30, 10)]
+    with wetboil.errstate(invalid="ignore"):
+        ds = wetboil.sweep(s, "water", p=[1e5, 3e7], heat_flux=[3e5, 4e5], orientation_deg=[0.0, 90.0])
+    lines = impossible_summary(ds)
+    assert len(lines) == 1
+    assert lines[0].startswith("Impossible operating points: 4 of 8 (p = 3e+07 Pa) have no saturated state")
+    assert "triple point to critical point" in lines[0]
+    assert impossible_summary(wetboil.sweep(s, "water", p=[1e5], heat_flux=3e5)) == []
+
+
+def test_failed_run_leaves_no_empty_output_folder(tmp_path, monkeypatch):
+    """Behavioural contract: a run that fails after its checks removes the
+    output folder it created (an empty folder looks like a run)."""
+    from wetboil import cli, report
+
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC)
+
+    def fail(*args, **kwargs):
+        raise report.SpecError("simulated failure inside the run")
+
+    monkeypatch.setattr(report, "run_study", fail)
+    out = tmp_path / "out"
+    assert cli.main(["run", str(spec), "--out", str(out)]) == 1
+    assert not out.exists()
+    kept = tmp_path / "kept"
+    kept.mkdir()
+    assert cli.main(["run", str(spec), "--out", str(kept)]) == 1
+    assert kept.is_dir()  # a folder the user made is left alone

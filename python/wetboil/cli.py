@@ -15,6 +15,8 @@ import pathlib
 import sys
 from typing import Any, List, Optional
 
+import numpy as np
+
 from ._errors import WetboilError
 
 from .report import CAUTION
@@ -63,6 +65,40 @@ def _check_study(study: Any, spec: str) -> None:
         raise SpecError(f"{path}:{_line(text, 'onset', 'methods')}: [methods] {problem}")
 
 
+def impossible_summary(ds: Any) -> List[str]:
+    """Lines saying how many operating points of a sweep's Dataset were
+    impossible and why (empty when none was): the ranking leaves their NaN
+    rows out, so the command line says so."""
+    from .sweep import STATE_FLAG
+
+    flags = ds["invalid_flags"]
+    bits = flags.attrs["bits"].split(",")
+    values = flags.values.astype(np.int64)
+    points = [d for d in flags.dims if d != "surface"]
+    n_points = int(np.prod([flags.sizes[d] for d in points]))
+    lines: List[str] = []
+    if STATE_FLAG in bits:
+        state = (values >> bits.index(STATE_FLAG)) & 1 != 0
+        by_point = state.any(axis=flags.dims.index("surface")) if "surface" in flags.dims else state
+        if by_point.any():
+            axis = "p" if "p" in flags.dims else ("T" if "T" in flags.dims else None)
+            where = ""
+            if axis is not None:
+                bad = state.any(axis=tuple(i for i, d in enumerate(flags.dims) if d != axis))
+                unit = "Pa" if axis == "p" else "K"
+                where = f" ({axis} = {', '.join(f'{v:g}' for v in ds[axis].values[bad])} {unit})"
+            lines.append(f"Impossible operating points: {int(by_point.sum())} of {n_points}{where} have no saturated "
+                         "state of the fluid (outside triple point to critical point); every quantity that needs "
+                         "the fluid is NaN there and the ranking above uses the other points only.")
+        values = np.where(state, 0, values)  # the rest: other impossible inputs
+    others = [name for i, name in enumerate(bits) if name != STATE_FLAG and ((values >> i) & 1).any()]
+    if others:
+        rows = int((values != 0).sum())
+        lines.append(f"Rows with impossible inputs: {rows} of {values.size} have NaN in {', '.join(others)} "
+                     "(an input was physically impossible; see the report's validity flags).")
+    return lines
+
+
 def _cmd_run(args: argparse.Namespace) -> int:
     from .demo import print_ranking
     from .report import load_spec, run_study
@@ -70,9 +106,23 @@ def _cmd_run(args: argparse.Namespace) -> int:
     # all spec errors are raised before anything is written
     study = load_spec(args.spec)
     _check_study(study, args.spec)
+    existed = args.out is not None and pathlib.Path(args.out).exists()
     out = _new_out_dir(args.out, "wetboil-run")
-    report = run_study(study, out, progress=args.progress, spec_text=pathlib.Path(args.spec).read_text())
+    try:
+        report = run_study(study, out, progress=args.progress, spec_text=pathlib.Path(args.spec).read_text())
+    except BaseException:
+        if not existed and out.is_dir() and not any(out.iterdir()):
+            out.rmdir()  # no empty folder that looks like a run
+        raise
     print_ranking(out, study.title)
+    import xarray as xr
+
+    with xr.open_dataset(out / "sweep.nc") as ds:
+        notes = impossible_summary(ds)
+    if notes:
+        print()
+        for line in notes:
+            print(line)
     print(f"\nOutputs written to {out.resolve()}")
     print(f"Report: {report.resolve()}")
     return 0
