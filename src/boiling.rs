@@ -230,7 +230,8 @@ pub const COOPER_EXPONENT: f64 = 0.67;
 ///
 /// * `superheat` [K], `p` saturation pressure [Pa], `p_crit` [Pa].
 /// * Possible: ΔT ≥ 0, 0 < p < p_crit, M > 0, R_p > 0; otherwise NaN.
-/// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\]. Cooper suggested about
+/// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\], and R_p outside
+///   [`COOPER_RP_BAND`] (0.01-20 µm, our bound against unit slips). Cooper suggested about
 ///   ×1.7 for horizontal copper cylinders (not applied) \[M\].
 /// * Verification: the form \[V2\] (CalebBell/ht, which cites Cooper 1984
 ///   and a handbook example); R_p is the old DIN 4762 smoothing depth, not R_a
@@ -264,13 +265,19 @@ pub fn cooper_coefficient_at_flux(heat_flux: f64, p: f64, p_crit: f64, molar_mas
 
 const COOPER_REFERENCE: &str = "M.G. Cooper, Saturation nucleate pool boiling - a simple correlation, IChemE Symp. Ser. 86 \
                                 (1984) 785-793";
-const COOPER_VALIDITY: &str = "0.001 <= p/p_crit <= 0.9 (from memory, medium confidence)";
+const COOPER_VALIDITY: &str = "0.001 <= p/p_crit <= 0.9 (from memory, medium confidence); \
+                               0.01 um <= roughness_Rp <= 20 um (our bound against unit slips, not published)";
 const COOPER_VERIFICATION: &str = "form: secondary source (CalebBell/ht, a handbook example reproduced in the tests); \
                                    original not read";
 
+/// Roughness band flagged by the Cooper kernels [m]: not a published limit but ours, wide
+/// around the polished-to-rough surfaces of pool-boiling data, so that an R_p entered in
+/// µm (1.0 read as 1 m) or in nm is reported rather than extrapolated silently.
+pub const COOPER_RP_BAND: (f64, f64) = (1e-8, 2e-5);
+
 #[inline(always)]
 fn cooper_in_range(x: &[f64; 5]) -> bool {
-    (0.001..=0.9).contains(&(x[1] / x[2]))
+    (0.001..=0.9).contains(&(x[1] / x[2])) & (COOPER_RP_BAND.0..=COOPER_RP_BAND.1).contains(&x[4])
 }
 
 /// Kernel of [`cooper`].
@@ -779,6 +786,10 @@ mod tests {
         assert!(cooper(4.3, 1e6, 22e6, 18e-3, 5e-6) > cooper(4.3, 1e6, 22e6, 18e-3, 1e-6));
         assert!(cooper(4.3, 22e6, 22e6, 18e-3, 1e-6).is_nan());
         assert_eq!(evaluate::<Cooper, 5, 1>(&[4.3, 1e3, 22e6, 18e-3, 1e-6]).1, Status::OutOfRange);
+        // R_p typed in um (1.0 = 1 m) or nm is flagged, 1 um is not
+        assert_eq!(evaluate::<Cooper, 5, 1>(&[4.3, 1e6, 22e6, 18e-3, 1e-6]).1, Status::Ok);
+        assert_eq!(evaluate::<Cooper, 5, 1>(&[4.3, 1e6, 22e6, 18e-3, 1.0]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<CooperSuperheat, 5, 1>(&[1e5, 1e6, 22e6, 18e-3, 1e-9]).1, Status::OutOfRange);
     }
 
     #[test]

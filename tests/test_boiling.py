@@ -137,6 +137,19 @@ def test_cooper_second_reduced_pressure_reference_library():
     assert 1e5 / cooper_superheat(1e5, water) == pytest.approx(9530.96, rel=2e-6)
 
 
+def test_cooper_flags_a_roughness_typed_in_micrometres(water):
+    # our bound, not a published one (boiling.cooper docstring): R_p outside 0.01-20 um is reported,
+    # so R_p = 1.0 (meant as 1 um, read as 1 m) does not extrapolate silently
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert cooper(10.0, water, roughness_Rp=1e-6) > 0
+    for rp in (1.0, 1e-9, 5e-5):
+        with pytest.warns(wetboil.RangeWarning, match="boiling.cooper: 1 of 1"):
+            cooper(10.0, water, roughness_Rp=rp)
+    with pytest.warns(wetboil.RangeWarning, match="1 of 3"):
+        cooper_superheat(1e5, water, roughness_Rp=np.array([1e-6, 1.0, 1e-7]))
+
+
 def test_cooper_pressure_trend_and_form():
     # h = 55 p_r^0.12 (-log10 p_r)^-0.55 M^-0.5 q^0.67 at R_p = 1 um, rebuilt
     # term by term (units: M in kg/kmol); one fluid at two reduced pressures.
