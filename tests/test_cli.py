@@ -58,6 +58,23 @@ def test_demo_end_to_end(tmp_path):
     assert "invented" in study.title and "invented" in study.meta["lab"]
 
 
+def test_report_figures_skip_a_state_without_saturation(tmp_path):
+    """Behavioural contract: a Study built in code (load_spec refuses such states) whose first
+    pressure is above the critical point (22.064 MPa, IAPWS R6-95(2018)) still gets its report;
+    the figures use the first pressure that has a saturated state."""
+    import warnings
+
+    from wetboil.demo import study_path
+    from wetboil.report import load_spec, run_study
+
+    study = load_spec(study_path())
+    study.states, study.surfaces = [3.0e7, 101325.0], study.surfaces[:2]
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        report = run_study(study, tmp_path)
+    assert report.exists() and (tmp_path / "boiling_curves.png").exists()
+
+
 def test_demo_default_folder_is_new(tmp_path):
     r = run("demo", cwd=tmp_path)
     assert r.returncode == 0, r.stderr
@@ -149,6 +166,11 @@ def test_states_outside_the_saturation_range_are_spec_errors(tmp_path, change, m
     assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
     assert re.search(message, err), err
     assert not out.exists()
+    # the same error for code that reads the spec itself (the check lives in load_spec)
+    from wetboil.report import SpecError, load_spec
+
+    with pytest.raises(SpecError, match=message.replace("study.toml", r"study\.toml")):
+        load_spec(spec)
 
 
 def test_spec_method_that_does_not_fit_the_fluid_is_a_spec_error(tmp_path):

@@ -46,25 +46,6 @@ def _cmd_demo(args: argparse.Namespace) -> int:
     return 0
 
 
-def _check_study(study: Any, spec: str) -> None:
-    """Spec errors `load_spec` leaves to the sweep, raised as `SpecError`
-    before anything is written: saturation pressures or temperatures without
-    a saturated state (e.g. kPa given as Pa), and methods that do not apply
-    to the fluid."""
-    from .report import SpecError, _line
-    from .sweep import _method_fluid_problem, _states_outside_range
-
-    path = pathlib.Path(spec)
-    text = path.read_text()
-    key = "pressures_Pa" if study.axis == "p" else "temperatures_K"
-    problem = _states_outside_range(study.fluid, study.axis, study.states)
-    if problem:
-        raise SpecError(f"{path}:{_line(text, key, 'study')}: [study] {key}: {problem}")
-    problem = _method_fluid_problem(study.methods, study.fluid)
-    if problem:
-        raise SpecError(f"{path}:{_line(text, 'onset', 'methods')}: [methods] {problem}")
-
-
 def impossible_summary(ds: Any) -> List[str]:
     """Lines saying how many operating points of a sweep's Dataset were
     impossible and why (empty when none was): the ranking leaves their NaN
@@ -105,7 +86,6 @@ def _cmd_run(args: argparse.Namespace) -> int:
 
     # all spec errors are raised before anything is written
     study = load_spec(args.spec)
-    _check_study(study, args.spec)
     existed = args.out is not None and pathlib.Path(args.out).exists()
     out = _new_out_dir(args.out, "wetboil-run")
     try:

@@ -187,6 +187,17 @@ def load_spec(path: Any) -> Study:
     chunks = study.get("chunks")
     if chunks is not None and chunks < 1:
         raise fail("chunks", "[study] chunks must be a positive integer", "study")
+    # states without a saturated state (kPa given as Pa, a temperature in deg C...) and methods
+    # that do not apply to the fluid: spec errors here, before anything is computed or written
+    from .sweep import _method_fluid_problem, _states_outside_range
+
+    problem = _states_outside_range(fluid, axis, states)
+    if problem:
+        key = "pressures_Pa" if axis == "p" else "temperatures_K"
+        raise fail(key, f"[study] {key}: {problem}", "study")
+    problem = _method_fluid_problem(methods, fluid)
+    if problem:
+        raise fail("onset", f"[methods] {problem}", "methods")
     return Study(
         title=study.get("title", path.stem), fluid=fluid, axis=axis, states=states, heat_fluxes=fluxes,
         orientations=[float(v) for v in study.get("orientations_deg", [0.0])],
@@ -253,9 +264,16 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
 
     made: List[Tuple[str, str]] = []
     axis = study.axis
-    first = study.states[0]
-    state = (water(p=first) if axis == "p" else water(T=first)) if study.fluid.lower() == "water" else (
-        from_coolprop(study.fluid, p=first) if axis == "p" else from_coolprop(study.fluid, T=first))
+
+    def saturated(v: float) -> Any:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")  # an impossible state is the sweep's to report, not the figures'
+            return (water(p=v) if axis == "p" else water(T=v)) if study.fluid.lower() == "water" else (
+                from_coolprop(study.fluid, p=v) if axis == "p" else from_coolprop(study.fluid, T=v))
+
+    # the figures use the first state that has a saturated state (a Study built in code may list others)
+    first, state = next(((v, st) for v in study.states for st in [saturated(v)] if np.isfinite(st.T)),
+                        (study.states[0], saturated(study.states[0])))
     label = f"{first / 1e5:g} bar" if axis == "p" else f"{first:g} K"
 
     # 1. boiling curves per surface at the first pressure
@@ -412,8 +430,11 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         lines.append("No quantity left its correlation's published validity range.")
     if impossible:
         lines.append("")
+        from .sweep import STATE_FLAG
+
+        state_note = " (the fluid has no saturated state there: outside triple point to critical point)"
         lines.append("Quantities without a value because an input was physically impossible:")
-        lines += [f"- {k}: {v} of {n} points" for k, v in impossible.items()]
+        lines += [f"- {k}{state_note if k == STATE_FLAG else ''}: {v} of {n} points" for k, v in impossible.items()]
     lines += ["", "## Plots", ""]
     for f, caption in plots:
         lines += [f"![{caption}]({f})", "", caption, ""]
