@@ -82,6 +82,10 @@ pub const T_TRIPLE: f64 = 273.16;
 pub const T_CRIT: f64 = 647.096;
 /// Critical pressure [Pa] (IAPWS-95).
 pub const P_CRIT: f64 = 22.064e6;
+/// Triple-point pressure [Pa] as IAPWS publishes it (R14-08(2011), with T_TRIPLE), the lower end of the
+/// pressure route. The saturation line SR1-86 gives 611.65707 Pa at T_TRIPLE; pressures between the two
+/// (7e-5 Pa) are given the triple-point state, so that the published value itself is accepted.
+pub const P_TRIPLE: f64 = 611.657;
 /// Critical density [kg/m3] (IAPWS-95).
 pub const RHO_CRIT: f64 = 322.0;
 /// Molar mass [kg/mol] (IAPWS-95).
@@ -352,7 +356,8 @@ fn rho_v_tau(tau: f64, c: f64) -> f64 {
 
 /// Saturation temperature [K] at pressure `p` [Pa]: the inverse of [`p_sat`] (SR1-86 Eq. 1), by Newton on
 /// ln p started from the IAPWS-IF97 Eq. 31 backward equation, then polished to the double T whose p_sat(T)
-/// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [p_sat(T_TRIPLE), P_CRIT] or for NaN.
+/// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [P_TRIPLE, P_CRIT] or for NaN; T_TRIPLE
+/// from P_TRIPLE up to p_sat(T_TRIPLE).
 pub fn t_sat(p: f64) -> f64 {
     t_sat_with_p(p).0
 }
@@ -404,8 +409,8 @@ const T_SAT_POLISH_STEPS: usize = 4;
 
 #[inline(always)]
 fn t_sat_case<const FMA: bool>(p: f64) -> SatCase {
-    // p_sat(T_TRIPLE) = 611.65... Pa; the exact bound is only evaluated for p next to it
-    if !(p >= 611.6 && p <= P_CRIT) || (p < 611.7 && p < psat_dd::<FMA>(T_TRIPLE)) {
+    // from P_TRIPLE up to p_sat(T_TRIPLE) (611.65707 Pa) the solve ends clamped at T_TRIPLE
+    if !(p >= P_TRIPLE && p <= P_CRIT) {
         return SatCase::Done(f64::NAN, f64::NAN);
     }
     if p == P_CRIT {
@@ -1950,7 +1955,7 @@ fma_dispatch! {
 /// `saturation_t(saturation_p(p)[0])[1]` reproduces `p` to within half the step of p_sat between two
 /// neighbouring doubles T: <= 2.1e-15 relative at the triple point, ~7e-16 near T_c (8 to 22 ulp of p per
 /// ulp of T is the resolution limit). For p = p_sat(T) the round trip returns exactly T.
-/// NaN in every field outside [p_sat(T_TRIPLE), P_CRIT] or for NaN input.
+/// NaN in every field outside [P_TRIPLE, P_CRIT] or for NaN input.
 pub fn saturation_p / saturation_p_avx2 (p: f64) -> [f64; 12] = saturation_p_body
 }
 
@@ -2172,7 +2177,7 @@ impl crate::model::Kernel<1, 12> for SaturationP {
         equation: "T = T_sat(p) inverting the SR1-86 saturation line, then as water_saturation_t",
         inputs: &[crate::model::arg("p", "Pa")],
         outputs: &SAT_OUTPUTS,
-        domain: "p_sat(273.16 K) = 611.657 Pa (SR1-86) <= p <= 22.064 MPa (triple point to critical point)",
+        domain: "611.657 Pa <= p <= 22.064 MPa (triple point, IAPWS R14-08, to critical point)",
         validity: "T_sat(p) <= 0.997 T_crit = 645.15 K",
         reference: WATER_REFERENCE,
         doi: "10.1063/1.1461829",
@@ -2223,6 +2228,7 @@ mod tests {
         }
         let lo = p_sat(T_TRIPLE);
         ps.extend([lo, next_up(lo), next_down(lo), 611.6, 611.7, P_CRIT, next_down(P_CRIT), next_up(P_CRIT)]);
+        ps.extend([P_TRIPLE, next_up(P_TRIPLE), next_down(P_TRIPLE), 0.5 * (P_TRIPLE + lo)]);
         ps.extend([f64::NAN, f64::INFINITY, f64::NEG_INFINITY, 0.0, -0.0, -1.0, 5e-324, 1e300]);
         ps
     }
@@ -2826,9 +2832,8 @@ mod tests {
             assert!(p_sat(t).is_nan());
             assert!(dp_sat_dt(t).is_nan());
         }
-        let p_lo = p_sat(T_TRIPLE);
         for p in [
-            p_lo * (1.0 - 1e-12),
+            P_TRIPLE * (1.0 - 1e-12),
             100.0,
             P_CRIT * (1.0 + 1e-12),
             1e8,
@@ -2864,6 +2869,10 @@ mod tests {
         assert_eq!(p_sat(T_CRIT), P_CRIT);
         assert_eq!(t_sat(P_CRIT), T_CRIT);
         assert_eq!(t_sat(p_sat(T_TRIPLE)), T_TRIPLE);
+        // the published triple-point pressure, 611.657 Pa (IAPWS R14-08), is accepted: the triple point
+        assert_eq!(t_sat(P_TRIPLE), T_TRIPLE);
+        assert_eq!(saturation_p(P_TRIPLE)[0], T_TRIPLE);
+        assert!(t_sat(next_down(P_TRIPLE)).is_nan() && saturation_p(611.6)[0].is_nan());
         let s = saturation_t(T_TRIPLE);
         assert!(s.iter().all(|x| x.is_finite() && *x > 0.0));
         let c = saturation_t(T_CRIT);

@@ -138,7 +138,7 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
 
 
 @pytest.mark.parametrize("change, message", [
-    # kPa written as Pa: below the triple point (611.657 Pa, IAPWS SR1-86 at 273.16 K)
+    # kPa written as Pa: below the triple point (611.657 Pa, IAPWS R14-08(2011))
     (("pressures_Pa = [101325.0, 300000.0]", "pressures_Pa = [101.325, 300]"),
      r"study.toml:5: \[study\] pressures_Pa: 101.325, 300 Pa outside the saturation range of water: 611.657\d* Pa "
      r"\(triple point.*\) to 2.2064e\+07 Pa \(critical point, IAPWS R6-95\(2018\)\); give them in Pa: they look "
@@ -148,7 +148,7 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
      r"study.toml:5: \[study\] pressures_Pa: 3e\+07 Pa outside .*\(critical point, IAPWS R6-95\(2018\)\)$"),
     # degrees Celsius written as kelvin: below the triple point (273.16 K)
     (("pressures_Pa = [101325.0, 300000.0]", "temperatures_K = [100.0, 130.0]"),
-     r"study.toml:5: \[study\] temperatures_K: 100, 130 K outside .* 273.16 K \(triple point\) to 647.096 K.*degC"),
+     r"study.toml:5: \[study\] temperatures_K: 100, 130 K outside .* 273.16 K \(triple point, IAPWS R14-08\(2011\)\) to 647.096 K.*degC"),
 ])
 def test_states_outside_the_saturation_range_are_spec_errors(tmp_path, change, message):
     """Behavioural contract (the CLI's promise): spec errors come before

@@ -195,7 +195,7 @@ def _bits(ds):
 
 def test_impossible_fluid_states_are_flagged_in_sweep_and_screen():
     """Pressures above the critical point (22.064 MPa, IAPWS R6-95(2018)) or
-    below the triple point (611.657 Pa, IAPWS SR1-86 at 273.16 K) have no
+    below the triple point (611.657 Pa, IAPWS R14-08(2011)) have no
     saturated state: NaN, the fluid_state bit and the bit of every NaN
     quantity, one warning per call. Behavioural contract of `sweep`."""
     from wetboil.sweep import STATE_FLAG
@@ -251,7 +251,7 @@ def test_impossible_fluid_state_raises_in_strict_mode():
 
 
 def test_state_range_message_names_value_range_and_unit_slip():
-    """The spec check's verdicts (water: IAPWS SR1-86 triple point, 611.657 Pa
+    """The spec check's verdicts (water: IAPWS R14-08(2011) triple point, 611.657 Pa
     at 273.16 K; critical point 22.064 MPa, 647.096 K, IAPWS R6-95(2018));
     the unit hint is a behavioural contract."""
     from wetboil.sweep import _states_outside_range

@@ -139,6 +139,14 @@ def test_outside_the_range_nan_and_warning_and_near_critical_flag():
     with warnings.catch_warnings():
         warnings.simplefilter("error")
         water(T=np.array([273.16, 645.0]))  # the ends of the clean range
+        # the triple point as IAPWS R14-08(2011) publishes it, 611.657 Pa at 273.16 K, is accepted
+        # (the SR1-86 saturation line itself reaches 611.65707 Pa there)
+        assert water(p=611.657).T == 273.16
+    with pytest.warns(wetboil.InvalidValueWarning, match="1 of 2"):
+        w = water(p=np.array([611.6569, 611.657]))
+    assert math.isnan(w.T[0]) and w.T[1] == 273.16
+    iapws_consts = pytest.importorskip("iapws._iapws")  # the iapws package's triple point: the same pair
+    assert water(p=iapws_consts.Pt * 1e6).T == iapws_consts.Tt
 
 
 def test_at_the_critical_point():

@@ -330,8 +330,10 @@ WATER_MOLAR_MASS = 0.018015268
 #: Critical temperature [K] and pressure [Pa] of water (IAPWS R6-95(2018)).
 WATER_T_CRIT = 647.096
 WATER_P_CRIT = 22.064e6
-#: Triple-point temperature [K] of water.
+#: Triple-point temperature [K] and pressure [Pa] of water (IAPWS R14-08(2011)). The saturation line
+#: (SR1-86) gives 611.65707 Pa at 273.16 K; `water` gives the triple-point state from 611.657 Pa up to it.
 WATER_T_TRIPLE = 273.16
+WATER_P_TRIPLE = 611.657
 
 
 def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, cp_l: Any, k_l: Any,
@@ -405,8 +407,8 @@ def water(T: Any = None, p: Any = None) -> Saturation:
         Saturation temperature [K], 273.16 K (triple point) to 647.096 K
         (critical point).
     p : array_like, optional
-        Saturation pressure [Pa], 611.657 Pa (SR1-86 at the triple point) to
-        22.064 MPa.
+        Saturation pressure [Pa], 611.657 Pa (triple point, IAPWS R14-08)
+        to 22.064 MPa (critical point).
 
     Give exactly one of `T` and `p`; numbers, arrays, DataArrays and dask
     arrays broadcast as everywhere else.

@@ -125,7 +125,7 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
     states `sweep` computes); the message names the bad values, the fluid's
     saturation range (water: triple point to critical point, IAPWS), and a
     unit that would put every value inside it (kPa, bar, MPa; degC)."""
-    from .fluids import WATER_P_CRIT, WATER_T_CRIT, WATER_T_TRIPLE
+    from .fluids import WATER_P_CRIT, WATER_P_TRIPLE, WATER_T_CRIT, WATER_T_TRIPLE
 
     unit = "Pa" if axis == "p" else "K"
     is_water = fluid.lower() == "water"
@@ -143,10 +143,9 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
     if not bad.any():
         return None
     if is_water:
-        with errstate(invalid="ignore", out_of_range="ignore"):
-            lo = water(T=WATER_T_TRIPLE).p if axis == "p" else WATER_T_TRIPLE
+        lo = WATER_P_TRIPLE if axis == "p" else WATER_T_TRIPLE
         hi = WATER_P_CRIT if axis == "p" else WATER_T_CRIT
-        span = (f"{lo:.7g} {unit} (triple point{', IAPWS SR1-86 at 273.16 K' if axis == 'p' else ''}) to "
+        span = (f"{lo:.7g} {unit} (triple point, IAPWS R14-08(2011)) to "
                 f"{hi:.7g} {unit} (critical point, IAPWS R6-95(2018))")
     else:
         crit = np.asarray(state.p_crit if axis == "p" else state.T_crit).ravel()
