@@ -87,6 +87,24 @@ def test_dask_warnings_arrive_at_compute():
     assert np.isnan(out[1])
 
 
+def test_dask_keeps_the_policy_of_the_call_not_of_compute():
+    # contract: errstate applies to the call that builds the lazy result (README, errstate docstring);
+    # warnings arrive at compute time, one per chunk with that chunk's count
+    x = da.from_array(np.array([10.0, -3.0, -4.0, 5.0]), chunks=2)
+    with wetboil.errstate(invalid="raise"):
+        strict = fritz(x, WATER)
+    with pytest.raises(wetboil.InvalidValueError):
+        strict.compute(scheduler="sync")
+    with wetboil.errstate(invalid="ignore"):
+        quiet = fritz(xr.DataArray(x, dims="t"), WATER)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert np.isnan(quiet.compute(scheduler="sync").values[1:3]).all()
+    loud = fritz(x, WATER)
+    with wetboil.errstate(invalid="ignore"), pytest.warns(wetboil.InvalidValueWarning, match="1 of 2"):
+        loud.compute(scheduler="sync")
+
+
 def test_local_cluster_with_two_worker_processes():
     distributed = pytest.importorskip("distributed")
     with warnings.catch_warnings():

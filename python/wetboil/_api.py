@@ -427,11 +427,28 @@ def _gather(spec: _Spec, args: Sequence[Any]) -> list:
     return inputs
 
 
+def _under_policy(state: Any, func: Callable[..., Any], *arrays: Any) -> Any:
+    """`func(*arrays)` under the element policy `state` (module level: picklable for dask workers)."""
+    from ._errors import _STATE
+
+    token = _STATE.set(state)
+    try:
+        return func(*arrays)
+    finally:
+        _STATE.reset(token)
+
+
 def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list, names: list) -> Any:
     """Run `func` (a NumPy-level function of the inputs with len(dtypes)
     outputs) through xarray, dask or directly, by the kind of the inputs."""
     n_out = len(dtypes)
     plain = all(type(x) is np.ndarray or type(x) is float or type(x) is int for x in inputs)
+    if not plain and any(_is_xarray(x) or _is_dask(x) for x in inputs):
+        # lazy (dask) evaluation runs `func` at compute time, perhaps in another thread or process:
+        # it keeps the element policy in force at this call, not the one around .compute()
+        from ._errors import _STATE
+
+        func = functools.partial(_under_policy, _STATE.get(), func)
     if not plain and any(_is_xarray(x) for x in inputs):
         import xarray as xr
 

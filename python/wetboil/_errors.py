@@ -86,7 +86,10 @@ class errstate:
         computed): ignore, emit one `RangeWarning` per call (default), or raise
         `OutOfRangeError`.
 
-    The setting is per thread and per asyncio task (a context variable).
+    The setting is per thread and per asyncio task (a context variable). A
+    lazy (dask-backed) result keeps the setting of the call that built it,
+    whenever and wherever it is computed; its warnings come at compute time,
+    one per chunk.
 
     Examples
     --------
