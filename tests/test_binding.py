@@ -495,6 +495,36 @@ def test_validity_codes_agree_with_the_warnings():
         wetboil.validity(len, 30.0)
 
 
+def test_validity_of_functions_that_pick_a_model_by_an_argument():
+    # contract (README: validity(f, *args) for the public functions): codes agree with the warnings
+    # the function itself emits, for functions that choose their kernel by a method or geometry
+    from wetboil import nucleation
+
+    dts = np.array([5.0, 50.0, np.nan, 10.0, 8.0])
+    angles = np.array([45.0, 45.0, 45.0, 200.0, 30.0])
+    codes = wetboil.validity(nucleation.site_density, dts, WATER, angles, method="basu")
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        nucleation.site_density(dts, WATER, angles, method="basu")
+    msgs = {w.category: str(w.message) for w in rec}
+    assert codes.dtype == np.int8 and codes[2] == 3 and codes[3] == 1
+    assert f"{(codes == 1).sum()} of 5" in msgs[wetboil.InvalidValueWarning]
+    assert f"{(codes == 2).sum()} of 5" in msgs[wetboil.RangeWarning] and (codes == 2).sum() >= 1
+    assert wetboil.validity(nucleation.site_density, 5.0, WATER, 45.0, "basu") == 0  # a number: an int8 code
+    from wetboil.chf import lienhard_dhir
+
+    sizes = np.array([1e-4, 1e-3, 2e-3, -1.0])
+    codes = wetboil.validity(lienhard_dhir, WATER, "cylinder", sizes)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        lienhard_dhir(WATER, "cylinder", sizes)
+    msgs = {w.category: str(w.message) for w in rec}
+    assert codes[3] == 1 and f"{(codes == 1).sum()} of 4" in msgs[wetboil.InvalidValueWarning]
+    assert codes[0] == 2 and f"{(codes == 2).sum()} of 4" in msgs[wetboil.RangeWarning]
+    with pytest.raises(TypeError):  # not a wetboil function: not run
+        wetboil.validity(len, [1.0])
+
+
 def test_validity_keeps_labels():
     xr = pytest.importorskip("xarray")
     beta = xr.DataArray([10.0, 200.0], dims="surface")

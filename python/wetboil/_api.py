@@ -531,6 +531,12 @@ def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
     3 a missing (NaN) input. Labels and laziness follow the arguments, as for
     `f` itself. Use it to flag rows of a result table.
 
+    A function that picks its model by an argument (``site_density``'s
+    `method`, ``lienhard_dhir``'s geometry...) is run instead, with warnings
+    off, and the flags of the kernels it evaluates are combined; there 3
+    marks any NaN result that no kernel flagged, and dask arguments are
+    refused (ask the kernel function itself).
+
     Examples
     --------
     >>> import wetboil
@@ -541,7 +547,7 @@ def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
     """
     spec = _FUNCTIONS.get(function)
     if spec is None:
-        raise WetboilTypeError(f"validity: {function!r} is not a wetboil kernel function")
+        return _validity_by_running(function, args, kwargs)
     try:
         bound = inspect.signature(function).bind(*args, **kwargs)
     except TypeError as exc:
@@ -551,6 +557,42 @@ def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
     func = functools.partial(_status_arrays, spec.model.name)
     out = _dispatch(spec, inputs, func, [np.int8], ["validity"])
     return out if not isinstance(out, float) else np.int8(out)
+
+
+def _validity_by_running(function: Callable[..., Any], args: Sequence[Any], kwargs: Mapping[str, Any]) -> Any:
+    """`validity` of a public function that picks its model by an argument (a method, a geometry) or
+    combines several: the call is run with the element policy silenced and the flags of every kernel
+    it evaluates are combined (1 impossible anywhere, else 2 outside a range, else 3 where the result
+    is NaN without either: a missing input). Eager inputs only; labels follow the result."""
+    import warnings
+
+    from ._errors import errstate
+
+    module = getattr(function, "__module__", None) or ""
+    if not callable(function) or not module.startswith("wetboil"):
+        raise WetboilTypeError(f"validity: {function!r} is not a wetboil kernel function")
+    if any(_is_dask(a) or _is_dask(getattr(a, "data", None)) for a in (*args, *kwargs.values())):
+        raise WetboilTypeError(f"validity: {function.__qualname__} picks or combines models; give it eager "
+                               "(NumPy or xarray) arguments, or ask validity of the one kernel function it uses")
+    with warnings.catch_warnings(), errstate(invalid="ignore", out_of_range="ignore"), \
+            capture_validity() as cap, np.errstate(all="ignore"):
+        warnings.simplefilter("ignore")
+        result = function(*args, **kwargs)
+    outputs = list(result) if isinstance(result, tuple) else [result]
+    nan: Any = False
+    for o in outputs:
+        try:
+            nan = np.logical_or(nan, np.isnan(np.asarray(getattr(o, "values", o), dtype=np.float64)))
+        except (TypeError, ValueError):
+            raise WetboilTypeError(f"validity: {function.__qualname__} returns {type(result).__name__}, "
+                                   "not numbers or arrays; validity covers kernel-shaped results") from None
+    codes = np.where(cap.invalid, 1, np.where(cap.out_of_range, 2, np.where(nan, 3, 0))).astype(np.int8)
+    first = outputs[0]
+    if _is_xarray(first) and codes.shape == first.shape:
+        out = first.copy(data=codes).rename("validity")
+        out.attrs = {}
+        return out
+    return codes if codes.ndim else np.int8(codes)
 
 
 # ----------------------------------------------------------------------------
