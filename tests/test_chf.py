@@ -59,6 +59,19 @@ def test_flat_plate_incropera_example_10_1():
     assert dimensionless_size(0.30, INCROPERA, g=G_BOOK) == pytest.approx(119.7, abs=0.1)
 
 
+def test_dimensionless_size_policy_and_area_only_for_small_plates():
+    # contract (README "Errors"): a negative size is impossible (NaN, one InvalidValueWarning);
+    # NaN sizes stay silent; area belongs to the small-plate form only and is refused elsewhere
+    with pytest.warns(wetboil.InvalidValueWarning, match="1 of 3"):
+        lp = dimensionless_size(np.array([0.30, -0.3, np.nan]), INCROPERA, g=G_BOOK)
+    assert lp[0] == pytest.approx(119.7, abs=0.1) and np.isnan(lp[1:]).all()
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert isinstance(dimensionless_size(0.30, INCROPERA), float)
+    with pytest.raises(wetboil.WetboilValueError, match="small_flat_plate geometry only"):
+        lienhard_dhir(INCROPERA, "cylinder", 1e-3, area=5.0)
+
+
 def test_cylinder_form_of_sun_and_lienhard():
     # Sun & Lienhard (1970) as used in two transcribed textbook examples [V2]
     # (a 1.4 mm water-boiling wire; a 32 mm methanol tube):

@@ -168,6 +168,8 @@ def test_probe_liquid_choice_moves_the_answer():
     # Q-2 of MODELS.md: the default set (apolar diiodomethane 50.8/0) and the
     # Owens-Wendt split (49.5/1.3) give PTFE components about 1 mN/m apart.
     ow = surface_energy([108.0, 88.0], ["water", "diiodomethane"], table="owens_wendt_1969")
+    # two liquids for two unknowns: no uncertainty, and the repr does not print "± nan"
+    assert np.isnan(ow.total_error) and "nan" not in repr(ow) and "±" not in repr(ow)
     default = surface_energy([108.0, 88.0], ["water", "diiodomethane"])
     assert 0.3 * MN < abs(default.total - ow.total) < 2 * MN
 

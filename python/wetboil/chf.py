@@ -28,7 +28,7 @@ from typing import Any, Dict
 import numpy as np
 
 from ._api import _coerce, check_choice, kernel
-from ._errors import WetboilTypeError, WetboilValueError
+from ._errors import WetboilTypeError, WetboilValueError, report
 from .fluids import Saturation
 
 
@@ -218,9 +218,22 @@ def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
     size = _real("chf.dimensionless_size", "size", size)
     g = _real("chf.dimensionless_size", "g", g)
     try:
-        return size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
+        with np.errstate(all="ignore"):
+            lp = size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
+            # the element policy of every function: a negative size, g <= 0, sigma <= 0 or rho_l <= rho_v
+            # is impossible (NaN and one warning); NaN inputs compare False and stay silent NaN
+            impossible = (size < 0) | (g <= 0) | (fluid.sigma <= 0) | (fluid.rho_l <= fluid.rho_v)
     except ValueError as exc:
         raise WetboilValueError(f"chf.dimensionless_size: argument shapes do not broadcast ({exc})") from None
+    n_bad = int(np.sum(impossible))
+    if n_bad:
+        report("chf.dimensionless_size", int(np.size(lp)), n_bad, 0)
+        if hasattr(lp, "dims"):
+            lp = lp.where(~impossible)
+        else:
+            lp = np.where(impossible, np.nan, lp)
+            lp = float(lp) if lp.ndim == 0 else lp
+    return lp
 
 
 def lienhard_dhir(
@@ -309,6 +322,9 @@ def lienhard_dhir(
     if area is None:
         size = _real("chf.lienhard_dhir", "size", size)
         area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
+    elif code != GEOMETRIES["small_flat_plate"]:
+        raise WetboilValueError(f"chf.lienhard_dhir: area is used by the small_flat_plate geometry only, "
+                                f"not by {geometry!r} (its size alone sets the heat flux)")
     return _lienhard_dhir_kernel(code, size, area, coefficient, fluid, g)
 
 

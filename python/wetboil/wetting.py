@@ -561,6 +561,14 @@ def _mn(v: Any) -> str:
     return f"<array {np.shape(v)}>"
 
 
+def _pm(value: Any, error: Any) -> str:
+    """`value ± error` in mN/m, or the value alone where the error is undefined (a fit with
+    no degrees of freedom, e.g. two probe liquids for two unknowns)."""
+    if (isinstance(error, float) or np.ndim(error) == 0) and math.isnan(float(error)):
+        return _mn(value)
+    return f"{_mn(value)} ± {_mn(error)}"
+
+
 class SurfaceEnergy(NamedTuple):
     """Surface free energy of a solid and its parts [N/m], with first-order
     uncertainties (NaN when the fit has no degrees of freedom)."""
@@ -575,9 +583,9 @@ class SurfaceEnergy(NamedTuple):
 
     def __repr__(self) -> str:
         return (
-            f"SurfaceEnergy(total={_mn(self.total)} ± {_mn(self.total_error)} mN/m, "
-            f"dispersive={_mn(self.dispersive)} ± {_mn(self.dispersive_error)} mN/m, "
-            f"polar={_mn(self.polar)} ± {_mn(self.polar_error)} mN/m, liquids={self.liquids})"
+            f"SurfaceEnergy(total={_pm(self.total, self.total_error)} mN/m, "
+            f"dispersive={_pm(self.dispersive, self.dispersive_error)} mN/m, "
+            f"polar={_pm(self.polar, self.polar_error)} mN/m, liquids={self.liquids})"
         )
 
 
@@ -808,7 +816,7 @@ class CriticalSurfaceTension(NamedTuple):
 
     def __repr__(self) -> str:
         return (
-            f"CriticalSurfaceTension(value={_mn(self.value)} ± {_mn(self.standard_error)} mN/m, "
+            f"CriticalSurfaceTension(value={_pm(self.value, self.standard_error)} mN/m, "
             f"r_squared={self.r_squared:.4f}, n_points={self.n_points})"
         )
 
