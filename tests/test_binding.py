@@ -525,6 +525,19 @@ def test_validity_of_functions_that_pick_a_model_by_an_argument():
         wetboil.validity(len, [1.0])
 
 
+def test_long_double_is_computed_in_float64_and_a_state_for_a_number_is_named():
+    # contract: kernels compute in float64; a long-double input is converted, not a NumPy casting error;
+    # a fluid state passed where a number belongs gets a message that says so
+    from wetboil import nucleation, wetting
+
+    ref = wetting.young_angle(0.05, 0.02, 0.07)
+    assert wetting.young_angle(np.longdouble(0.05), 0.02, 0.07) == ref
+    got = wetting.young_angle(np.array([0.05, 0.05], dtype=np.longdouble), 0.02, 0.07)
+    assert got.dtype == np.float64 and got.tolist() == [ref, ref]
+    with pytest.raises(wetboil.WetboilTypeError, match="got a Saturation"):
+        nucleation.homogeneous_superheat(WATER)
+
+
 def test_validity_keeps_labels():
     xr = pytest.importorskip("xarray")
     beta = xr.DataArray([10.0, 200.0], dims="surface")

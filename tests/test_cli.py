@@ -18,6 +18,13 @@ def run(*args, cwd=None):
                           cwd=cwd)
 
 
+def test_version():
+    import wetboil
+
+    r = run("--version")
+    assert r.returncode == 0 and r.stdout.strip() == f"wetboil {wetboil.__version__}"
+
+
 def test_help_on_every_command():
     r = run("--help")
     assert r.returncode == 0 and "demo" in r.stdout and "run" in r.stdout and "CAUTION" in r.stdout

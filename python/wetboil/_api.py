@@ -146,17 +146,20 @@ _NUMERIC_KINDS = "fiu"
 
 def _coerce(function: str, label: str, value: Any) -> Any:
     """Check one kernel input and bring it to a form the ufunc takes."""
-    if type(value) is np.ndarray and value.dtype.kind in _NUMERIC_KINDS:
+    if type(value) is np.ndarray and value.dtype.kind in _NUMERIC_KINDS and value.dtype.itemsize <= 8:
         return value  # the common case, first (the checks below cost microseconds per call)
     if isinstance(value, float) or (isinstance(value, int) and not isinstance(value, bool)):
         return value
     if value is None or isinstance(value, (str, bytes, bool, np.bool_)):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got {type(value).__name__}")
+    if isinstance(value, _saturation_type()):
+        raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got a Saturation "
+                               f"(a fluid state: pass the field meant, e.g. fluid.p or fluid.T)")
     if _is_xarray(value) or _is_dask(value):
         kind = value.dtype.kind
         if kind not in _NUMERIC_KINDS:
             raise WetboilTypeError(f"{function}: {label} must hold numbers, got dtype {value.dtype}")
-        return value
+        return value if value.dtype.itemsize <= 8 else value.astype(np.float64)  # long double: kernels are f64
     if isinstance(value, complex):
         raise WetboilTypeError(f"{function}: {label} must be real, got complex")
     try:
@@ -165,7 +168,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         raise WetboilValueError(f"{function}: {label} is not a rectangular array of numbers ({exc})") from None
     kind = arr.dtype.kind
     if kind in _NUMERIC_KINDS:
-        return arr
+        return arr if arr.dtype.itemsize <= 8 else arr.astype(np.float64)  # long double: kernels are f64
     if kind == "O":
         if any(v is None for v in arr.flat):
             raise WetboilTypeError(f"{function}: {label} contains None; use nan for a missing value")

@@ -115,6 +115,9 @@ def build_parser() -> argparse.ArgumentParser:
         epilog=CAUTION,
         formatter_class=argparse.RawDescriptionHelpFormatter,
     )
+    from . import __version__
+
+    ap.add_argument("--version", action="version", version=f"wetboil {__version__}")
     sub = ap.add_subparsers(dest="command", metavar="COMMAND")
     demo = sub.add_parser(
         "demo",
