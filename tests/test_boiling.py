@@ -366,6 +366,13 @@ def test_curve_wettability_and_methods(water):
     assert ld.attrs["chf"] == "lienhard_dhir"
     with pytest.warns(wetboil.RangeWarning, match="chf.kandlikar"):
         curve(water, dts, **curve_kw(orientation_deg=120.0))
+    # contract: one warning per category and call, naming each correlation and its count
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        curve(water, dts, **curve_kw(orientation_deg=120.0, C_sf=0.05, n=3.0))
+    assert [w.category for w in rec] == [wetboil.RangeWarning]
+    msg = str(rec[0].message)
+    assert msg.startswith("boiling.curve: ") and "chf.kandlikar: 1 of 1" in msg and "boiling.rohsenow" in msg
 
 
 def test_curve_bad_input(water):

@@ -3,10 +3,13 @@
 from __future__ import annotations
 
 import contextvars
+import functools
 import sys
 import warnings
 from types import FrameType
-from typing import Literal, NamedTuple, Optional
+from typing import Any, Callable, Literal, NamedTuple, Optional, TypeVar
+
+_F = TypeVar("_F", bound=Callable[..., Any])
 
 __all__ = [
     "WetboilError",
@@ -144,3 +147,32 @@ def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
         if state.out_of_range == "raise":
             raise OutOfRangeError(msg)
         warnings.warn(msg, RangeWarning, stacklevel=_stacklevel())
+
+
+def one_warning_per_category(function: str) -> Callable[[_F], _F]:
+    """Decorator for a public function built from several kernel calls: their element warnings are
+    gathered and given as at most one `InvalidValueWarning` and one `RangeWarning` per call, each
+    naming the parts (``"boiling.curve: chf.kandlikar: 1 of 1 element(s) outside ...; ..."``).
+    Other warnings pass through unchanged; under ``errstate(...="raise")`` the first part raises."""
+
+    def decorate(f: _F) -> _F:
+        @functools.wraps(f)
+        def wrapper(*args: Any, **kwargs: Any) -> Any:
+            with warnings.catch_warnings(record=True) as rec:
+                warnings.simplefilter("always")
+                result = f(*args, **kwargs)
+            level = _stacklevel()
+            parts: dict = {}
+            for w in rec:
+                if issubclass(w.category, WetboilWarning):
+                    parts.setdefault(w.category, []).append(str(w.message))
+                else:
+                    warnings.warn_explicit(w.message, w.category, w.filename, w.lineno, source=w.source)
+            for category, messages in parts.items():
+                unique = list(dict.fromkeys(messages))
+                warnings.warn(f"{function}: {'; '.join(unique)}", category, stacklevel=level)
+            return result
+
+        return wrapper  # type: ignore[return-value]
+
+    return decorate

@@ -30,7 +30,7 @@ import numpy as np
 
 from . import chf as _chf
 from ._api import check_choice, kernel, need_saturation
-from ._errors import WetboilTypeError, WetboilValueError, errstate
+from ._errors import WetboilTypeError, WetboilValueError, errstate, one_warning_per_category
 from .fluids import Saturation
 
 __all__ = [
@@ -865,6 +865,7 @@ def _onset(fluid: Saturation, q_nc: Callable[[float], float], method: str, conta
     return dt
 
 
+@one_warning_per_category("boiling.curve")
 def curve(
     fluid: Saturation,
     superheat: Any,
@@ -998,7 +999,8 @@ def curve(
     tens of percent is not a safety factor: keep the margins your codes
     require and verify on the real surface. Element warnings of the
     underlying correlations (out-of-range orientation, C_sf, reduced
-    pressure...) are passed on.
+    pressure...) are passed on, gathered into one warning per category
+    that names each correlation and its count.
 
     Examples
     --------
