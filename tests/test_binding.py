@@ -525,7 +525,7 @@ def test_validity_of_functions_that_pick_a_model_by_an_argument():
         wetboil.validity(len, [1.0])
 
 
-def test_long_double_is_computed_in_float64_and_a_state_for_a_number_is_named():
+def test_long_double_masked_arrays_and_a_state_for_a_number():
     # contract: kernels compute in float64; a long-double input is converted, not a NumPy casting error;
     # a fluid state passed where a number belongs gets a message that says so
     from wetboil import nucleation, wetting
@@ -536,6 +536,12 @@ def test_long_double_is_computed_in_float64_and_a_state_for_a_number_is_named():
     assert got.dtype == np.float64 and got.tolist() == [ref, ref]
     with pytest.raises(wetboil.WetboilTypeError, match="got a Saturation"):
         nucleation.homogeneous_superheat(WATER)
+    # masked elements are missing data (NaN, silent), not the values under the mask
+    theta = np.ma.masked_array([30.0, 400.0, 60.0], mask=[False, True, False])
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        d = fritz(theta, WATER)
+    assert np.isnan(d[1]) and d[0] == fritz(30.0, WATER) and d[2] == fritz(60.0, WATER)
 
 
 def test_validity_keeps_labels():

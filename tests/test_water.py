@@ -206,7 +206,9 @@ def test_from_coolprop_refrigerant_and_dielectric_match_coolprop(fluid):
     # R134a (refrigerant), Novec649 (dielectric immersion coolant), n-pentane:
     # every field against direct CoolProp PropsSI calls.
     p = 0.5 * CP.PropsSI("Pcrit", fluid) * np.array([0.2, 0.6])
-    s = from_coolprop(fluid, p=p)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.WetboilWarning)  # Novec649's missing fields: tested below
+        s = from_coolprop(fluid, p=p)
     for i, pi in enumerate(p):
         T = CP.PropsSI("T", "P", pi, "Q", 0, fluid)
         assert s.T[i] == pytest.approx(T, rel=1e-9)
@@ -221,6 +223,20 @@ def test_from_coolprop_refrigerant_and_dielectric_match_coolprop(fluid):
         assert s.sigma[i] == pytest.approx(sig, rel=1e-9, nan_ok=True)
     assert s.molar_mass == pytest.approx(CP.PropsSI("M", fluid))
     assert s.T_crit == pytest.approx(CP.PropsSI("Tcrit", fluid))
+
+
+def test_from_coolprop_says_which_properties_coolprop_lacks():
+    # CoolProp has no surface tension or transport model for Novec649 (CoolProp's own PropsSI raises for
+    # them, checked here too): one WetboilWarning names the NaN fields instead of silent NaN downstream
+    for key in ("I", "L", "V"):
+        with pytest.raises(ValueError):
+            CP.PropsSI(key, "T", 300.0, "Q", 0, "Novec649")
+    with pytest.warns(wetboil.WetboilWarning, match=r"no sigma.*k_l.*mu_l.*'Novec649'"):
+        s = from_coolprop("Novec649", T=np.array([300.0, 320.0]))
+    assert np.isnan(s.sigma).all() and np.isfinite(s.cp_l).all()
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        from_coolprop("R134a", T=300.0)  # everything modelled: no warning
 
 
 def test_from_coolprop_errors_and_range():

@@ -162,6 +162,9 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         return value if value.dtype.itemsize <= 8 else value.astype(np.float64)  # long double: kernels are f64
     if isinstance(value, complex):
         raise WetboilTypeError(f"{function}: {label} must be real, got complex")
+    if isinstance(value, np.ma.MaskedArray) and value.dtype.kind in _NUMERIC_KINDS:
+        # masked elements are missing data: NaN (propagated silently), not the numbers under the mask
+        return np.ma.filled(value.astype(np.float64), np.nan)
     try:
         arr = np.asarray(value)
     except (ValueError, TypeError) as exc:

@@ -9,6 +9,7 @@ other and against the other arguments of the kernels.
 from __future__ import annotations
 
 import math
+import warnings
 from typing import Any, Optional
 
 import numpy as np
@@ -494,7 +495,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     >>> round(r.p / 1e3, 1), r.name
     (292.8, 'R134a')
     """
-    from ._errors import WetboilTypeError, WetboilValueError, report
+    from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, report
 
     try:
         import CoolProp.CoolProp as CP
@@ -571,6 +572,15 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         out["mu_v"][idx] = read(state.viscosity)
     if invalid:
         report("fluids.from_coolprop", values.size, invalid, 0)
+    # properties CoolProp has no model for (often surface tension or transport properties of less
+    # common fluids): say so once here, or every kernel that needs them gives a silent NaN
+    have_state = ~np.isnan(out["T"])
+    if have_state.any():
+        absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
+        if absent:
+            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(absent)} for {name!r}: NaN in "
+                          f"those fields, and in every result that needs them (set them with .replace())",
+                          WetboilWarning, stacklevel=2)
     fields: dict = {}
     for f in FIELDS[:12]:
         v = out[f]
