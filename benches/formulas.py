@@ -674,6 +674,16 @@ def _(geometry, size, area, small_plate, h_lv, rho_l, rho_v, sigma, g):
     return math.pi / 24 * (0.84 if L >= 4.26 else 1.734 / math.sqrt(L)) * scale
 
 
+@numpy_form("dimensionless_size")
+def _(size, rho_l, rho_v, sigma, g):
+    return size * np.sqrt(g * (rho_l - rho_v) / sigma)
+
+
+@python_form("dimensionless_size")
+def _(size, rho_l, rho_v, sigma, g):
+    return size * math.sqrt(g * (rho_l - rho_v) / sigma)
+
+
 @numpy_form("minimum_heat_flux")
 def _(C, h_lv, rho_l, rho_v, sigma, g):
     return C * rho_v * h_lv * (sigma * g * (rho_l - rho_v) / (rho_l + rho_v) ** 2) ** 0.25

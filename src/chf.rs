@@ -279,10 +279,48 @@ pub fn lienhard_dhir(
     nan_unless(ok, factor * scale)
 }
 
-/// Dimensionless size `L' = L [g (ρ_l − ρ_v)/σ]^(1/2)` of [`lienhard_dhir`].
+/// Dimensionless size `L' = L [g (ρ_l − ρ_v)/σ]^(1/2)` of [`lienhard_dhir`]: the heater size over the
+/// capillary length [-]. Possible: L ≥ 0, ρ_l > ρ_v ≥ 0, σ > 0, g > 0; otherwise NaN.
 #[inline(always)]
 pub fn dimensionless_size(size: f64, rho_l: f64, rho_v: f64, sigma: f64, g: f64) -> f64 {
-    size * (g * (rho_l - rho_v) / sigma).sqrt()
+    nan_unless(size_possible(&[size, rho_l, rho_v, sigma, g]), size * (g * (rho_l - rho_v) / sigma).sqrt())
+}
+
+#[inline(always)]
+fn size_possible(x: &[f64; 5]) -> bool {
+    crate::all_positive!(x[3], x[4]; x[0]) & densities(x[1], x[2])
+}
+
+/// Kernel of [`dimensionless_size`].
+pub struct DimensionlessSize;
+impl Kernel<5, 1> for DimensionlessSize {
+    const MODEL: Model = Model {
+        name: "dimensionless_size",
+        summary: "Heater size over the capillary length, Lienhard & Dhir's L' (R' for a radius)",
+        equation: "L' = L*sqrt(g*(rho_l-rho_v)/sigma)",
+        inputs: &[
+            arg("size", "m"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.rho_v", "kg/m3"),
+            arg("fluid.sigma", "N/m"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("dimensionless_size", "-")],
+        domain: "size >= 0, rho_l > rho_v >= 0, sigma > 0, g > 0",
+        validity: "a definition: no range of its own (each CHF form states the L' it holds for)",
+        reference: "J.H. Lienhard, V.K. Dhir, Hydrodynamic prediction of peak pool-boiling heat fluxes from \
+                    finite bodies, J. Heat Transfer 95 (1973) 152-158",
+        doi: "10.1115/1.3450013",
+        verification: "definition; the 0.30 m pan of a textbook example reproduced in the tests",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 5]) -> [f64; 1] {
+        [dimensionless_size(x[0], x[1], x[2], x[3], x[4])]
+    }
+    #[inline(always)]
+    fn possible(x: &[f64; 5]) -> bool {
+        size_possible(x)
+    }
 }
 
 /// Kernel of [`lienhard_dhir`].

@@ -551,6 +551,7 @@ kernels! {
     chf::Zuber, 6, 1;
     chf::Kandlikar, 7, 1;
     chf::LienhardDhir, 9, 1;
+    chf::DimensionlessSize, 5, 1;
     chf::MinimumHeatFlux, 6, 1;
     boiling::Rohsenow, 11, 1;
     boiling::RohsenowSuperheat, 11, 1;

@@ -1954,7 +1954,9 @@ fma_dispatch! {
 /// double T whose `p_sat(T)` (the same function `saturation_t` uses) is nearest to `p`, so
 /// `saturation_t(saturation_p(p)[0])[1]` reproduces `p` to within half the step of p_sat between two
 /// neighbouring doubles T: <= 2.1e-15 relative at the triple point, ~7e-16 near T_c (8 to 22 ulp of p per
-/// ulp of T is the resolution limit). For p = p_sat(T) the round trip returns exactly T.
+/// ulp of T is the resolution limit). For p = p_sat(T) the round trip returns exactly T. From P_TRIPLE
+/// (611.657 Pa) up to p_sat(T_TRIPLE) = 611.65707 Pa the state is the triple point's, whose p field is
+/// 611.65707 Pa (1.1e-7 relative above the smallest p accepted).
 /// NaN in every field outside [P_TRIPLE, P_CRIT] or for NaN input.
 pub fn saturation_p / saturation_p_avx2 (p: f64) -> [f64; 12] = saturation_p_body
 }

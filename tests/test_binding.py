@@ -523,6 +523,9 @@ def test_validity_of_functions_that_pick_a_model_by_an_argument():
     assert codes[0] == 2 and f"{(codes == 2).sum()} of 4" in msgs[wetboil.RangeWarning]
     with pytest.raises(TypeError):  # not a wetboil function: not run
         wetboil.validity(len, [1.0])
+    from wetboil.chf import dimensionless_size
+
+    assert wetboil.validity(dimensionless_size, np.array([-1.0, 0.3, np.nan]), WATER).tolist() == [1, 0, 3]
 
 
 def test_long_double_masked_arrays_and_a_state_for_a_number():
@@ -542,6 +545,52 @@ def test_long_double_masked_arrays_and_a_state_for_a_number():
         warnings.simplefilter("error")
         d = fritz(theta, WATER)
     assert np.isnan(d[1]) and d[0] == fritz(30.0, WATER) and d[2] == fritz(60.0, WATER)
+
+
+def test_gathered_warnings_are_per_call_and_survive_an_exception():
+    # contract of one_warning_per_category (used by boiling.curve): the parts' warnings become one per
+    # category, other warnings pass untouched, and they are given even when the call then raises
+    import threading
+
+    from wetboil._errors import one_warning_per_category, report
+
+    @one_warning_per_category("demo.composite")
+    def composite(fail):
+        report("demo.a", 3, 1, 0)
+        report("demo.b", 5, 2, 4)
+        warnings.warn("not ours", UserWarning)
+        if fail:
+            raise RuntimeError("boom")
+        return 1.0
+
+    for fail in (False, True):
+        with warnings.catch_warnings(record=True) as rec:
+            warnings.simplefilter("always")
+            try:
+                composite(fail)
+            except RuntimeError:
+                assert fail
+        got = {w.category: str(w.message) for w in rec}
+        assert len(rec) == 3, [str(w.message) for w in rec]
+        assert got[UserWarning] == "not ours"
+        assert got[wetboil.InvalidValueWarning] == ("demo.composite: demo.a: 1 of 3 element(s) physically impossible, "
+                                                    "set to NaN; demo.b: 2 of 5 element(s) physically impossible, "
+                                                    "set to NaN")
+        assert got[wetboil.RangeWarning].startswith("demo.composite: demo.b: 4 of 5")
+    # the gathering is a context variable, not the warning filters: a call in another thread (its own
+    # context) is not gathered while a composite call runs here
+    from wetboil._errors import _GATHER
+
+    inside = []
+
+    @one_warning_per_category("demo.outer")
+    def outer():
+        t = threading.Thread(target=lambda: inside.append(_GATHER.get()))
+        t.start()
+        t.join()
+        return _GATHER.get()
+
+    assert outer() == [] and inside == [None] and _GATHER.get() is None
 
 
 def test_validity_keeps_labels():

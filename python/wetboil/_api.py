@@ -458,9 +458,9 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
     if not plain and any(_is_xarray(x) for x in inputs):
         import xarray as xr
 
-        # keep_attrs=False: an input's attrs (its units above all) do not describe the result;
-        # each output carries its own unit instead
-        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes, keep_attrs=False)
+        # an input's attrs (its units above all) do not describe the result: each output gets its own
+        # unit below (the coordinates keep theirs)
+        kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes)
         if n_out > 1:
             kwargs["output_core_dims"] = [[] for _ in range(n_out)]
         outs = xr.apply_ufunc(func, *inputs, **kwargs)
@@ -528,7 +528,7 @@ def _status_arrays(name: str, *arrays: Any) -> Any:
 
 
 def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
-    """Per-element validity codes of a call, without computing it.
+    """Per-element validity codes of a call (without computing it, for a kernel function).
 
     ``validity(f, *args, **kwargs)`` takes the same arguments as the kernel
     function `f` and returns int8 codes with the broadcast shape:
@@ -570,19 +570,17 @@ def _validity_by_running(function: Callable[..., Any], args: Sequence[Any], kwar
     combines several: the call is run with the element policy silenced and the flags of every kernel
     it evaluates are combined (1 impossible anywhere, else 2 outside a range, else 3 where the result
     is NaN without either: a missing input). Eager inputs only; labels follow the result."""
-    import warnings
-
     from ._errors import errstate
 
     module = getattr(function, "__module__", None) or ""
-    if not callable(function) or not module.startswith("wetboil"):
+    public = module.startswith("wetboil.") and module.split(".")[1] in ("wetting", "nucleation", "departure",
+                                                                         "boiling", "chf", "fluids")
+    if not callable(function) or not public:
         raise WetboilTypeError(f"validity: {function!r} is not a wetboil kernel function")
     if any(_is_dask(a) or _is_dask(getattr(a, "data", None)) for a in (*args, *kwargs.values())):
         raise WetboilTypeError(f"validity: {function.__qualname__} picks or combines models; give it eager "
                                "(NumPy or xarray) arguments, or ask validity of the one kernel function it uses")
-    with warnings.catch_warnings(), errstate(invalid="ignore", out_of_range="ignore"), \
-            capture_validity() as cap, np.errstate(all="ignore"):
-        warnings.simplefilter("ignore")
+    with errstate(invalid="ignore", out_of_range="ignore"), capture_validity() as cap, np.errstate(all="ignore"):
         result = function(*args, **kwargs)
     outputs = list(result) if isinstance(result, tuple) else [result]
     nan: Any = False

@@ -141,37 +141,48 @@ def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
         msg = f"{function}: {invalid} of {size} element(s) physically impossible, set to NaN"
         if state.invalid == "raise":
             raise InvalidValueError(msg)
-        warnings.warn(msg, InvalidValueWarning, stacklevel=_stacklevel())
+        _warn(msg, InvalidValueWarning)
     if out_of_range and state.out_of_range != "ignore":
         msg = f"{function}: {out_of_range} of {size} element(s) outside the published validity range"
         if state.out_of_range == "raise":
             raise OutOfRangeError(msg)
-        warnings.warn(msg, RangeWarning, stacklevel=_stacklevel())
+        _warn(msg, RangeWarning)
+
+
+#: Element warnings being gathered by `one_warning_per_category` (per thread and task, like the policy).
+_GATHER: contextvars.ContextVar[Optional[list]] = contextvars.ContextVar("wetboil_gather", default=None)
+
+
+def _warn(msg: str, category: type) -> None:
+    gathered = _GATHER.get()
+    if gathered is not None:
+        gathered.append((category, msg))
+    else:
+        warnings.warn(msg, category, stacklevel=_stacklevel())
 
 
 def one_warning_per_category(function: str) -> Callable[[_F], _F]:
     """Decorator for a public function built from several kernel calls: their element warnings are
     gathered and given as at most one `InvalidValueWarning` and one `RangeWarning` per call, each
-    naming the parts (``"boiling.curve: chf.kandlikar: 1 of 1 element(s) outside ...; ..."``).
-    Other warnings pass through unchanged; under ``errstate(...="raise")`` the first part raises."""
+    naming the parts (``"boiling.curve: chf.kandlikar: 1 of 1 element(s) outside ...; ..."``), also
+    when the call ends in an exception. The gathering is a context variable that `report` reads (per
+    thread and task; the process-wide warning filters are not touched), so other warnings and other
+    threads' calls are unaffected; under ``errstate(...="raise")`` the first part raises."""
 
     def decorate(f: _F) -> _F:
         @functools.wraps(f)
         def wrapper(*args: Any, **kwargs: Any) -> Any:
-            with warnings.catch_warnings(record=True) as rec:
-                warnings.simplefilter("always")
-                result = f(*args, **kwargs)
-            level = _stacklevel()
-            parts: dict = {}
-            for w in rec:
-                if issubclass(w.category, WetboilWarning):
-                    parts.setdefault(w.category, []).append(str(w.message))
-                else:
-                    warnings.warn_explicit(w.message, w.category, w.filename, w.lineno, source=w.source)
-            for category, messages in parts.items():
-                unique = list(dict.fromkeys(messages))
-                warnings.warn(f"{function}: {'; '.join(unique)}", category, stacklevel=level)
-            return result
+            gathered: list = []
+            token = _GATHER.set(gathered)
+            try:
+                return f(*args, **kwargs)
+            finally:
+                _GATHER.reset(token)
+                parts: dict = {}
+                for category, msg in gathered:
+                    parts.setdefault(category, []).append(msg)
+                for category, messages in parts.items():
+                    _warn(f"{function}: {'; '.join(messages)}", category)
 
         return wrapper  # type: ignore[return-value]
 

@@ -28,7 +28,7 @@ from typing import Any, Dict
 import numpy as np
 
 from ._api import _coerce, check_choice, kernel
-from ._errors import WetboilTypeError, WetboilValueError, report
+from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
 
 
@@ -203,9 +203,13 @@ _lienhard_dhir_kernel = kernel("lienhard_dhir_chf")(_lienhard_dhir_kernel)
 
 
 
+@kernel("dimensionless_size")
 def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
     r"""Dimensionless heater size :math:`L' = L\,[g(\rho_l-\rho_v)/\sigma]^{1/2}` [-],
     the heater size over the capillary length (Lienhard & Dhir's L', R').
+
+    A negative size, ``sigma <= 0``, ``g <= 0`` or ``rho_l <= rho_v`` is
+    impossible: NaN and one `InvalidValueWarning` per call, as everywhere.
 
     >>> from wetboil.fluids import Saturation
     >>> from wetboil.chf import dimensionless_size
@@ -213,27 +217,6 @@ def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
     >>> round(dimensionless_size(0.30, w, g=9.8), 1)
     119.7
     """
-    if not isinstance(fluid, Saturation):
-        raise WetboilTypeError(f"chf.dimensionless_size: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}")
-    size = _real("chf.dimensionless_size", "size", size)
-    g = _real("chf.dimensionless_size", "g", g)
-    try:
-        with np.errstate(all="ignore"):
-            lp = size * ((g * (fluid.rho_l - fluid.rho_v)) / fluid.sigma) ** 0.5
-            # the element policy of every function: a negative size, g <= 0, sigma <= 0 or rho_l <= rho_v
-            # is impossible (NaN and one warning); NaN inputs compare False and stay silent NaN
-            impossible = (size < 0) | (g <= 0) | (fluid.sigma <= 0) | (fluid.rho_l <= fluid.rho_v)
-    except ValueError as exc:
-        raise WetboilValueError(f"chf.dimensionless_size: argument shapes do not broadcast ({exc})") from None
-    n_bad = int(np.sum(impossible))
-    if n_bad:
-        report("chf.dimensionless_size", int(np.size(lp)), n_bad, 0)
-        if hasattr(lp, "dims"):
-            lp = lp.where(~impossible)
-        else:
-            lp = np.where(impossible, np.nan, lp)
-            lp = float(lp) if lp.ndim == 0 else lp
-    return lp
 
 
 def lienhard_dhir(

@@ -495,7 +495,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     >>> round(r.p / 1e3, 1), r.name
     (292.8, 'R134a')
     """
-    from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, report
+    from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, report
 
     try:
         import CoolProp.CoolProp as CP
@@ -580,7 +580,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         if absent:
             warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(absent)} for {name!r}: NaN in "
                           f"those fields, and in every result that needs them (set them with .replace())",
-                          WetboilWarning, stacklevel=2)
+                          WetboilWarning, stacklevel=_stacklevel())
     fields: dict = {}
     for f in FIELDS[:12]:
         v = out[f]

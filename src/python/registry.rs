@@ -37,6 +37,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<chf::Zuber, 6, 1>(),
         factored::<chf::Kandlikar, 7, 1>(),
         entry::<chf::LienhardDhir, 9, 1>(),
+        entry::<chf::DimensionlessSize, 5, 1>(),
         entry::<chf::MinimumHeatFlux, 6, 1>(),
         entry::<boiling::Rohsenow, 11, 1>(),
         entry::<boiling::RohsenowSuperheat, 11, 1>(),
