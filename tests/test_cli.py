@@ -128,23 +128,6 @@ def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
     (("orientations_deg = [0.0, 90.0]", "orientations_deg = []"), r"study.toml:7: \[study\] orientations_deg is empty"),
     (("advancing_deg = 70.0", "advancing_deg = 30.0"), r"advancing angle 30 deg is below the receding angle 40"),
     (('onset = "kandlikar"', 'onset = "guess"'), r"study.toml:\d+: \[methods\] onset: unknown method 'guess'"),
-])
-def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message):
-    import re
-
-    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
-    spec = tmp_path / "study.toml"
-    spec.write_text(SPEC.replace(*change))
-    out = tmp_path / "out"
-    r = run("run", str(spec), "--out", str(out))
-    assert r.returncode == 1
-    err = r.stderr.strip()
-    assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
-    assert re.search(message, err), err
-    assert not out.exists()
-
-
-@pytest.mark.parametrize("change, message", [
     # kPa written as Pa: below the triple point (611.657 Pa, IAPWS R14-08(2011))
     (("pressures_Pa = [101325.0, 300000.0]", "pressures_Pa = [101.325, 300]"),
      r"study.toml:5: \[study\] pressures_Pa: 101.325, 300 Pa outside the saturation range of water: 611.657\d* Pa "
@@ -157,11 +140,15 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
     (("pressures_Pa = [101325.0, 300000.0]", "temperatures_K = [100.0, 130.0]"),
      r"study.toml:5: \[study\] temperatures_K: 100, 130 K outside .* 273.16 K \(triple point, IAPWS R14-08\(2011\)\) to 647.096 K.*degC"),
 ])
-def test_states_outside_the_saturation_range_are_spec_errors(tmp_path, change, message):
-    """Behavioural contract (the CLI's promise): spec errors come before
-    anything is written, naming the value, the fluid's range and the likely
-    unit slip; the range limits are those of IAPWS cited above."""
+def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message):
+    """Behavioural contract (the CLI's promise): spec errors come before anything is written, in one
+    line naming the file and line; those of states name the value, the fluid's range and the likely
+    unit slip (the range limits are those of IAPWS cited above). load_spec raises the same error for
+    code that reads a spec itself."""
     import re
+
+    from wetboil import WetboilValueError
+    from wetboil.report import load_spec
 
     (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
     spec = tmp_path / "study.toml"
@@ -173,11 +160,8 @@ def test_states_outside_the_saturation_range_are_spec_errors(tmp_path, change, m
     assert len(err.splitlines()) == 1 and err.startswith("wetboil: error:"), err
     assert re.search(message, err), err
     assert not out.exists()
-    # the same error for code that reads the spec itself (the check lives in load_spec)
-    from wetboil.report import SpecError, load_spec
-
-    with pytest.raises(SpecError, match=message.replace("study.toml", r"study\.toml")):
-        load_spec(spec)
+    with pytest.raises(WetboilValueError, match=message.replace("study.toml", r"study\.toml")):
+        load_spec(spec)  # SpecError, or SurfaceFileError for a surface
 
 
 def test_spec_method_that_does_not_fit_the_fluid_is_a_spec_error(tmp_path):
