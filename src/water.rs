@@ -2278,26 +2278,31 @@ mod tests {
         }
     }
 
+    /// The block path of a water kernel gives the states of its element path, bit for bit, with the
+    /// block's summary (range count over the live elements, any NaN) of those states.
+    fn assert_block_matches_elements<K: crate::model::Kernel<1, 12>>(x_at: impl Fn(usize) -> [f64; 1], len: usize, c: usize) {
+        let mut y = [[0.0; 64]; 12];
+        let sum = K::eval_block::<64>(&x_at, len, &mut y);
+        let mut out_of_range = 0;
+        for j in 0..64 {
+            let x = x_at(j);
+            let v = K::eval(&x);
+            for m in 0..12 {
+                assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} x = {:e} field {m}", x[0]);
+            }
+            out_of_range += (j < len && !K::in_range_with(&x, &v)) as u64;
+        }
+        assert_eq!(sum.out_of_range, out_of_range);
+        assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+    }
+
     /// `SaturationP`'s block path gives the states of its element path, live elements or not.
     #[test]
     fn saturation_p_block_matches_elements() {
-        use crate::model::Kernel;
         let ps = inversion_pressures();
         for (c, chunk) in ps.chunks(64).enumerate() {
             let len = chunk.len();
-            let mut y = [[0.0; 64]; 12];
-            let sum = SaturationP::eval_block::<64>(|j| [chunk[j.min(len - 1)]], len, &mut y);
-            let mut out_of_range = 0;
-            for j in 0..64 {
-                let x = [chunk[j.min(len - 1)]];
-                let v = SaturationP::eval(&x);
-                for m in 0..12 {
-                    assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} p = {:e} field {m}", x[0]);
-                }
-                out_of_range += (j < len && !SaturationP::in_range_with(&x, &v)) as u64;
-            }
-            assert_eq!(sum.out_of_range, out_of_range);
-            assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+            assert_block_matches_elements::<SaturationP>(|j| [chunk[j.min(len - 1)]], len, c);
         }
     }
 
@@ -2306,7 +2311,6 @@ mod tests {
     /// and impossible values, at rotating block positions; and psat_block's clones agree.
     #[test]
     fn saturation_t_block_matches_elements() {
-        use crate::model::Kernel;
         let mut ts: Vec<f64> = (0..=30_000).map(|i| 250.0 + 400.0 * i as f64 / 30_000.0).collect();
         for &t in &[T_TRIPLE, T_CRIT] {
             ts.extend([t, next_up(t), next_down(t)]);
@@ -2319,20 +2323,7 @@ mod tests {
         ts.extend([f64::NAN, f64::INFINITY, f64::NEG_INFINITY, 0.0, -0.0, -300.0, 1e300, f64::MIN_POSITIVE]);
         for (c, chunk) in ts.chunks(61).enumerate() {
             let len = chunk.len();
-            let x_at = |j: usize| [chunk[(j + c) % len]];
-            let mut y = [[0.0; 64]; 12];
-            let sum = SaturationT::eval_block::<64>(x_at, len, &mut y);
-            let mut out_of_range = 0;
-            for j in 0..64 {
-                let x = x_at(j);
-                let v = SaturationT::eval(&x);
-                for m in 0..12 {
-                    assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} T = {:e} field {m}", x[0]);
-                }
-                out_of_range += (j < len && !SaturationT::in_range_with(&x, &v)) as u64;
-            }
-            assert_eq!(sum.out_of_range, out_of_range);
-            assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));
+            assert_block_matches_elements::<SaturationT>(|j| [chunk[(j + c) % len]], len, c);
             let mut block = [T_TRIPLE; T_SAT_BLOCK];
             for (k, b) in block.iter_mut().enumerate() {
                 *b = chunk[k % len];
