@@ -3,8 +3,10 @@
 //!
 //! Clones are compiled with `#[target_feature]` for AVX2/FMA and for AVX-512
 //! beside the baseline x86-64 code. Rust never contracts `a*b + c` into a
-//! fused multiply-add by itself, so every clone gives the same bits; the
-//! tests lower the cap with [`set_cap`] and compare them.
+//! fused multiply-add by itself, and the explicit ones (`mul_add`) are
+//! correctly rounded whether they run as one instruction or as the C
+//! library's `fma`, so every clone gives the same bits; the tests lower the
+//! cap with [`set_cap`] and compare them.
 
 use std::sync::atomic::{AtomicU8, Ordering};
 
@@ -17,10 +19,34 @@ pub const AVX512: u8 = 2;
 
 static CAP: AtomicU8 = AtomicU8::new(AVX512);
 
-/// The widest clone this CPU supports, within the cap.
+/// [`level`] once detected; [`UNKNOWN`] until then and after [`set_cap`].
+static LEVEL: AtomicU8 = AtomicU8::new(UNKNOWN);
+const UNKNOWN: u8 = u8::MAX;
+
+/// The widest clone this CPU supports, within the cap: one relaxed load once
+/// detected (a scalar call from Python pays it on every call).
 #[inline(always)]
 pub fn level() -> u8 {
-    let cap = CAP.load(Ordering::Relaxed);
+    match LEVEL.load(Ordering::Relaxed) {
+        UNKNOWN => detect(),
+        level => level,
+    }
+}
+
+#[cold]
+fn detect() -> u8 {
+    loop {
+        let cap = CAP.load(Ordering::SeqCst);
+        let level = detect_within(cap);
+        LEVEL.store(level, Ordering::SeqCst);
+        // a `set_cap` in between may have been overwritten: detect again
+        if CAP.load(Ordering::SeqCst) == cap {
+            return level;
+        }
+    }
+}
+
+fn detect_within(cap: u8) -> u8 {
     #[cfg(target_arch = "x86_64")]
     {
         use std::arch::is_x86_feature_detected as has;
@@ -37,7 +63,9 @@ pub fn level() -> u8 {
 
 /// Cap the clones used from now on (for tests) and return the previous cap.
 pub fn set_cap(level: u8) -> u8 {
-    CAP.swap(level.min(AVX512), Ordering::Relaxed)
+    let previous = CAP.swap(level.min(AVX512), Ordering::SeqCst);
+    LEVEL.store(UNKNOWN, Ordering::SeqCst);
+    previous
 }
 
 /// `$vis fn $name($arg: $t) -> $r` running `$body::<true>` in a clone `$clone` compiled for AVX2 and

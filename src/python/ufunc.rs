@@ -148,7 +148,33 @@ pub fn product_grid(call: &GridCall<'_>) -> [u64; 2] {
     grid_eval::<Product, 2, 1>(call)
 }
 
+/// The scalar entry point: [`scalar_body`] in the widest clone the CPU runs
+/// (the AVX2/FMA clone executes the fused multiply-adds of `fastmath` as one
+/// instruction each, where baseline code calls the C library's `fma`).
 fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; MAX_IN], y: &mut [f64; MAX_OUT]) -> Status {
+    #[cfg(target_arch = "x86_64")]
+    if simd::level() >= simd::AVX2 {
+        // SAFETY: the CPU has the features the clone was compiled for.
+        return unsafe { scalar_avx2::<K, N, M>(x, y) };
+    }
+    scalar_body::<K, N, M>(x, y)
+}
+
+/// [`scalar_body`] compiled for AVX2 and FMA.
+///
+/// # Safety
+/// The CPU must support AVX2 and FMA.
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx2,fma")]
+unsafe fn scalar_avx2<K: Kernel<N, M>, const N: usize, const M: usize>(
+    x: &[f64; MAX_IN],
+    y: &mut [f64; MAX_OUT],
+) -> Status {
+    scalar_body::<K, N, M>(x, y)
+}
+
+#[inline(always)]
+fn scalar_body<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; MAX_IN], y: &mut [f64; MAX_OUT]) -> Status {
     // N <= MAX_IN and M <= MAX_OUT (checked in `entry`): constant indices, no bounds checks.
     // One 8-byte load per input: the caller has just stored them one by one, and a wider load that the
     // compiler would otherwise combine them into cannot be forwarded from those stores (it waits until
@@ -198,7 +224,8 @@ impl<const N: usize, const M: usize> Operands<N, M> {
 
     /// [`Self::run_blocks`] compiled for AVX2 and FMA, chosen at run time so
     /// that the wheel still runs on any x86-64. Rust never contracts `a*b + c`
-    /// into an FMA by itself, so every clone gives bit-identical results.
+    /// into an FMA by itself, and explicit `mul_add`s round the same in every
+    /// clone, so every clone gives bit-identical results.
     ///
     /// # Safety
     /// As for [`Self::run`], and the CPU must support AVX2 and FMA.
