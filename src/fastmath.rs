@@ -1,10 +1,15 @@
-//! `exp`, `exp_m1`, `ln`, `ln_1p`, `pow`, `cbrt`, `acos` and `asin` as plain arithmetic: no libm calls and no
+//! `exp`, `exp_m1`, `ln`, `ln_1p`, `pow`, `cbrt`, `acos` and `asin` as plain arithmetic without
 //! branches, so that a kernel using them still vectorises in the binding's
 //! block loops (a call to the platform's scalar `pow` or `acos` keeps the
 //! whole loop scalar, and NumPy's SIMD versions then win on long arrays).
 //!
-//! Special cases are handled by selects at the end; results are
-//! deterministic (the same bits on every x86-64 and with or without AVX2).
+//! Special cases are handled by selects at the end. `exp` and `ln` use fused
+//! multiply-adds (`f64::mul_add`, one rounding by Rust's contract): single
+//! instructions in the binding's AVX2/FMA and AVX-512 clones, calls to the
+//! `fma` the target links in baseline x86-64 code (compiler-builtins' on
+//! Linux: the instruction where the CPU has it, a correctly rounded software
+//! version otherwise; `linked_fma_rounds_once` below checks it). Results are
+//! deterministic: the same bits in every clone.
 //! Accuracy against the platform functions (tests below): `exp`, `ln`,
 //! `cbrt`, `acos` and `asin` within 1 ulp, `exp_m1` and `ln_1p` within 2 ulp; `pow(x, y) = exp(y ln x)` within about
 //! `(1 + |y ln x|)` ulp, which for the exponents of boiling correlations
@@ -54,9 +59,9 @@ const QS3: f64 = -6.882_839_716_054_532_930_30e-01;
 const QS4: f64 = 7.703_815_055_590_193_527_91e-02;
 
 /// `a b + c` with one rounding (IEEE 754 fusedMultiplyAdd): one instruction
-/// in the AVX2/FMA and AVX-512 clones, the C library's `fma` in baseline
-/// x86-64 code. Correctly rounded either way, so every clone gives the same
-/// bits; only the speed differs.
+/// in the AVX2/FMA and AVX-512 clones, a call to the linked `fma` in baseline
+/// x86-64 code (see the module notes). Correctly rounded either way, so every
+/// clone gives the same bits; only the speed differs.
 #[inline(always)]
 fn fma(a: f64, b: f64, c: f64) -> f64 {
     a.mul_add(b, c)
@@ -128,10 +133,10 @@ pub fn ln(x: f64) -> f64 {
     let s = f / (2.0 + f);
     let z = s * s;
     let w = z * z;
-    // fdlibm's R(z) = LG1 z + ... + LG7 z^7, in Estrin's scheme (a shorter
-    // dependency chain than fdlibm's two Horner halves; it differs from them
-    // in the last bit of R, about 1 result in 1400 by 1 ulp, still within
-    // 1 ulp of the platform's ln)
+    // fdlibm's R(z) = LG1 z + ... + LG7 z^7, in Estrin's scheme with fused
+    // multiply-adds (a shorter dependency chain than fdlibm's two Horner
+    // halves; the result can differ from fdlibm's in the last bit, still
+    // within 1 ulp of the platform's ln: tests)
     let r = z * fma(w * w, fma(w, LG7, fma(z, LG6, LG5)), fma(w, fma(z, LG4, LG3), fma(z, LG2, LG1)));
     let hfsq = 0.5 * f * f;
     let v = fma(dk, LN2_HI, -((hfsq - fma(s, hfsq + r, dk * LN2_LO)) - f));
@@ -368,6 +373,23 @@ mod tests {
             z = (z ^ (z >> 27)).wrapping_mul(0x94D0_49BB_1331_11EB);
             ((z ^ (z >> 31)) >> 11) as f64 / (1u64 << 53) as f64
         })
+    }
+
+    /// The `fma` that baseline code links rounds once (a target whose `fma`
+    /// rounded twice would give other bits there than the SIMD clones; some
+    /// C runtimes' software versions do). Cases where the plain `a*b + c`
+    /// differs, through `black_box` so that no constant folding answers.
+    #[test]
+    fn linked_fma_rounds_once() {
+        use std::hint::black_box as bb;
+        let e = f64::EPSILON; // 2^-52
+        // (1 + 2^-52)(1 - 2^-52) - 1 = -2^-104 exactly; the plain form gives 0
+        assert_eq!(fma(bb(1.0 + e), bb(1.0 - e), bb(-1.0)), -(e * e / 1.0));
+        // (2^27 + 1)(2^27 - 1) - 2^54 = -1; the plain form rounds 2^54 - 1 to 2^54 and gives 0
+        let t = 134_217_728.0; // 2^27
+        assert_eq!(fma(bb(t + 1.0), bb(t - 1.0), bb(-t * t)), -1.0);
+        // a product below the smallest normal with an addend that keeps it exact
+        assert_eq!(fma(bb(f64::MIN_POSITIVE), bb(0.5), bb(0.0)), f64::MIN_POSITIVE / 2.0);
     }
 
     // Reference: Rust's std (the platform libm, correctly rounded or within

@@ -361,7 +361,9 @@ pub const AVOGADRO: f64 = 6.022_140_76e23;
 /// `(ln J0, W*/(k T))` for water at liquid temperature `t` and pressure `p`,
 /// barrier factor `f`, prefactor `N^exponent (3σ/(π m))^(1/2)`. NaN where the
 /// metastable liquid does not exist (beyond the IAPWS-95 spinodal) or t >= T_c.
-#[inline]
+// inline(always), with `cnt_superheat_water`: compiled into the binding's SIMD clones, where the
+// fused multiply-adds of `fastmath::pow` (surface tension) are instructions, not calls
+#[inline(always)]
 fn cnt_water(t: f64, p: f64, f: f64, exponent: f64) -> (f64, f64) {
     let sigma = water::surface_tension(t);
     let ps = water::p_sat(t);
@@ -396,7 +398,7 @@ fn cnt_water(t: f64, p: f64, f: f64, exponent: f64) -> (f64, f64) {
 /// to 1e-9 K). NaN (no answer) when the rate is not reached before the metastable
 /// liquid ceases to exist (the IAPWS-95 spinodal), or with f = 0 when the rate
 /// exceeds J0. With f = 0 (180°) the answer is 0 when rate <= J0.
-#[inline]
+#[inline(always)]
 pub fn cnt_superheat_water(f: f64, p: f64, rate: f64, exponent: f64) -> f64 {
     let t0 = water::t_sat(p);
     if !(t0.is_finite() && positive(rate) && (0.0..=1.0).contains(&f)) {

@@ -3,10 +3,10 @@
 //!
 //! Clones are compiled with `#[target_feature]` for AVX2/FMA and for AVX-512
 //! beside the baseline x86-64 code. Rust never contracts `a*b + c` into a
-//! fused multiply-add by itself, and the explicit ones (`mul_add`) are
-//! correctly rounded whether they run as one instruction or as the C
-//! library's `fma`, so every clone gives the same bits; the tests lower the
-//! cap with [`set_cap`] and compare them.
+//! fused multiply-add by itself, and the explicit ones (`mul_add`) round once
+//! whether they run as one instruction or as a call to the linked `fma` (see
+//! `fastmath`), so every clone gives the same bits; the tests lower the cap
+//! with [`set_cap`] and compare them.
 
 use std::sync::atomic::{AtomicU8, Ordering};
 
@@ -19,53 +19,40 @@ pub const AVX512: u8 = 2;
 
 static CAP: AtomicU8 = AtomicU8::new(AVX512);
 
-/// [`level`] once detected; [`UNKNOWN`] until then and after [`set_cap`].
-static LEVEL: AtomicU8 = AtomicU8::new(UNKNOWN);
+/// The CPU's widest clone once detected ([`UNKNOWN`] before): it never changes,
+/// so threads that detect it at the same time store the same value.
+static CPU: AtomicU8 = AtomicU8::new(UNKNOWN);
 const UNKNOWN: u8 = u8::MAX;
 
-/// The widest clone this CPU supports, within the cap: one relaxed load once
-/// detected (a scalar call from Python pays it on every call).
+/// The widest clone this CPU supports, within the cap: two relaxed loads once
+/// detected (a scalar call from Python pays them on every call).
 #[inline(always)]
 pub fn level() -> u8 {
-    match LEVEL.load(Ordering::Relaxed) {
+    let cpu = match CPU.load(Ordering::Relaxed) {
         UNKNOWN => detect(),
-        level => level,
-    }
+        cpu => cpu,
+    };
+    cpu.min(CAP.load(Ordering::Relaxed))
 }
 
 #[cold]
 fn detect() -> u8 {
-    loop {
-        let cap = CAP.load(Ordering::SeqCst);
-        let level = detect_within(cap);
-        LEVEL.store(level, Ordering::SeqCst);
-        // a `set_cap` in between may have been overwritten: detect again
-        if CAP.load(Ordering::SeqCst) == cap {
-            return level;
-        }
-    }
-}
-
-fn detect_within(cap: u8) -> u8 {
+    #[allow(unused_mut)]
+    let mut cpu = BASELINE;
     #[cfg(target_arch = "x86_64")]
     {
         use std::arch::is_x86_feature_detected as has;
-        if cap >= AVX2 && has!("avx2") && has!("fma") {
-            if cap >= AVX512 && has!("avx512f") && has!("avx512dq") && has!("avx512vl") {
-                return AVX512;
-            }
-            return AVX2;
+        if has!("avx2") && has!("fma") {
+            cpu = if has!("avx512f") && has!("avx512dq") && has!("avx512vl") { AVX512 } else { AVX2 };
         }
     }
-    let _ = cap;
-    BASELINE
+    CPU.store(cpu, Ordering::Relaxed);
+    cpu
 }
 
 /// Cap the clones used from now on (for tests) and return the previous cap.
 pub fn set_cap(level: u8) -> u8 {
-    let previous = CAP.swap(level.min(AVX512), Ordering::SeqCst);
-    LEVEL.store(UNKNOWN, Ordering::SeqCst);
-    previous
+    CAP.swap(level.min(AVX512), Ordering::Relaxed)
 }
 
 /// `$vis fn $name($arg: $t) -> $r` running `$body::<true>` in a clone `$clone` compiled for AVX2 and

@@ -472,7 +472,12 @@ fn t_sat_newton(t: f64, lnp_target: f64) -> (f64, bool) {
 /// Returns the new `(t, ps, e0)` and whether the polish has settled.
 #[inline(always)]
 fn t_sat_polish<const FMA: bool>(p: f64, t: f64, ps: f64, e0: f64) -> (f64, f64, f64, bool) {
-    t_sat_polish_with(p, t, ps, e0, psat_dd::<FMA>)
+    // p_sat of the neighbour computed here, not passed as the function `psat_dd::<FMA>`: a function
+    // item passed on is called through a shim compiled without the clone's features, where each
+    // `mul_add` becomes a call to the software `fma` (found in the disassembly)
+    let t1 = polish_neighbour(t, e0);
+    let ps1 = if e0 != 0.0 && t1 >= T_TRIPLE && t1 <= T_CRIT { psat_dd::<FMA>(t1) } else { f64::NAN };
+    t_sat_polish_with(p, t, ps, e0, |_| ps1)
 }
 
 /// The neighbour of `t` towards p that a polish step tries (`e0 = p_sat(t) - p`).
@@ -600,7 +605,8 @@ fn next_down(x: f64) -> f64 {
 ///
 /// Written without branches, with [`fastmath::pow`] (within 1 + 1.256 |ln tau| ulp of the C library's,
 /// below 4e-15 relative for tau >= 1e-6), so that the saturated states of a block of pressures take their
-/// sigma in one loop that vectorises ([`saturation_p_each`]); a scalar call gives the same bits.
+/// sigma in one loop that vectorises in the SIMD clones ([`saturation_p_each`]); a scalar call gives the
+/// same bits.
 #[inline(always)]
 pub fn surface_tension(t: f64) -> f64 {
     let tau = 1.0 - t / T_CRIT;

@@ -247,28 +247,36 @@ def test_grid_path_rows_of_any_length_give_the_element_bits(shape):
 
 @pytest.mark.parametrize("name", sorted(kc.BY_KERNEL))
 def test_every_simd_clone_gives_the_same_bits(name):
-    # The block loops are compiled for baseline x86-64, AVX2/FMA and AVX-512
-    # and picked at run time; Rust never contracts to FMA, so all three must
-    # agree to the last bit (on a CPU without a level, the cap is a no-op).
-    _f, spec = kc.BY_KERNEL[name]
+    # The block loops, the scalar entry point and the status ufunc are
+    # compiled for baseline x86-64 and for AVX2/FMA (the loops also for
+    # AVX-512) and picked at run time. Rust never contracts a*b + c to an FMA
+    # and fastmath's explicit fused multiply-adds round once wherever they
+    # run, so all must agree to the last bit (on a CPU without a level, the
+    # cap is a no-op).
+    f, spec = kc.BY_KERNEL[name]
     rng = np.random.default_rng(11)
     n = 1000 + 37  # full blocks and a tail
     inputs = [np.ascontiguousarray(np.broadcast_to(np.asarray(v, dtype=float), (n,)))
               for v in kc.kernel_inputs(spec, kc.draw_args(spec, rng, n))]
-    uf = getattr(_core, name)
+    scalar_args = [kc.draw_args(spec, np.random.default_rng(seed)) for seed in range(5)]
+    uf, status = getattr(_core, name), getattr(_core, f"{name}_status")
     results = []
     old = _core._set_simd_cap(2)
     try:
         for level in (2, 1, 0):
             _core._set_simd_cap(level)
-            with np.errstate(all="ignore"):
+            with np.errstate(all="ignore"), warnings.catch_warnings():
+                warnings.simplefilter("ignore")
                 out = uf(*inputs)
-            results.append(out if isinstance(out, tuple) else (out,))
+                out = out if isinstance(out, tuple) else (out,)
+                scalars = [np.asarray(kc.outputs(kc.call(f, spec, a)), dtype=float) for a in scalar_args]
+                results.append((*out, status(*inputs), *scalars))
     finally:
         _core._set_simd_cap(old)
     for other in results[1:]:
         for a, b in zip(results[0], other):
-            np.testing.assert_array_equal(a.view(np.int64), b.view(np.int64))
+            np.testing.assert_array_equal(a.view(np.int64) if a.dtype == np.float64 else a,
+                                          b.view(np.int64) if b.dtype == np.float64 else b)
 
 
 def test_input_running_ahead_of_its_output_is_evaluated_in_order():

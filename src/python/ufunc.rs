@@ -18,6 +18,37 @@ use super::threads;
 use crate::model::{classify, classify_side, evaluate, Factored, Kernel, Model, Status};
 use crate::simd;
 
+/// `fn name<K, N, M>(args) -> R` running `body::<K, N, M>` in a clone compiled
+/// for AVX2 and FMA where the CPU has them (see [`simd::level`]), else in
+/// baseline code. For the kernel evaluations outside the block loops (the
+/// scalar entry point, the status ufunc, the factor sides of the grid path):
+/// `fastmath`'s fused multiply-adds are one instruction each in the clone,
+/// and calls to the software `fma` in baseline x86-64 code. The same bits
+/// either way.
+macro_rules! fma_clone {
+    ($(#[$meta:meta])* fn $name:ident / $clone:ident <K: $bound:ident> ($($a:ident: $t:ty),*) -> $r:ty = $body:ident) => {
+        $(#[$meta])*
+        fn $name<K: $bound<N, M>, const N: usize, const M: usize>($($a: $t),*) -> $r {
+            #[cfg(target_arch = "x86_64")]
+            if simd::level() >= simd::AVX2 {
+                // SAFETY: the CPU has the features the clone was compiled for.
+                return unsafe { $clone::<K, N, M>($($a),*) };
+            }
+            $body::<K, N, M>($($a),*)
+        }
+
+        /// The clone of the function of the same body, compiled for AVX2 and FMA.
+        ///
+        /// # Safety
+        /// The CPU must support AVX2 and FMA.
+        #[cfg(target_arch = "x86_64")]
+        #[target_feature(enable = "avx2,fma")]
+        unsafe fn $clone<K: $bound<N, M>, const N: usize, const M: usize>($($a: $t),*) -> $r {
+            $body::<K, N, M>($($a),*)
+        }
+    };
+}
+
 type LoopFn = unsafe extern "C" fn(*mut *mut c_char, *mut npy_intp, *mut npy_intp, *mut c_void);
 
 /// Inputs per kernel that the scalar entry point can take (and the registry
@@ -98,7 +129,14 @@ pub fn factored<K: Factored<N, M>, const N: usize, const M: usize>() -> Entry {
     Entry { sides: Some(Sides { of_input: K::SIDES.to_vec(), eval: side_eval::<K, N, M> }), ..entry::<K, N, M>() }
 }
 
-fn side_eval<K: Factored<N, M>, const N: usize, const M: usize>(
+fma_clone! {
+/// One factor side of a kernel in product form over its axis points, and their validity codes.
+fn side_eval / side_eval_avx2 <K: Factored> (s: u8, ins: &[&[f64]], outs: &mut [&mut [f64]], codes: &mut [i8]) -> () =
+    side_eval_body
+}
+
+#[inline(always)]
+fn side_eval_body<K: Factored<N, M>, const N: usize, const M: usize>(
     s: u8,
     ins: &[&[f64]],
     outs: &mut [&mut [f64]],
@@ -148,29 +186,9 @@ pub fn product_grid(call: &GridCall<'_>) -> [u64; 2] {
     grid_eval::<Product, 2, 1>(call)
 }
 
-/// The scalar entry point: [`scalar_body`] in the widest clone the CPU runs
-/// (the AVX2/FMA clone executes the fused multiply-adds of `fastmath` as one
-/// instruction each, where baseline code calls the C library's `fma`).
-fn scalar<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; MAX_IN], y: &mut [f64; MAX_OUT]) -> Status {
-    #[cfg(target_arch = "x86_64")]
-    if simd::level() >= simd::AVX2 {
-        // SAFETY: the CPU has the features the clone was compiled for.
-        return unsafe { scalar_avx2::<K, N, M>(x, y) };
-    }
-    scalar_body::<K, N, M>(x, y)
-}
-
-/// [`scalar_body`] compiled for AVX2 and FMA.
-///
-/// # Safety
-/// The CPU must support AVX2 and FMA.
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2,fma")]
-unsafe fn scalar_avx2<K: Kernel<N, M>, const N: usize, const M: usize>(
-    x: &[f64; MAX_IN],
-    y: &mut [f64; MAX_OUT],
-) -> Status {
-    scalar_body::<K, N, M>(x, y)
+fma_clone! {
+/// The scalar entry point.
+fn scalar / scalar_avx2 <K: Kernel> (x: &[f64; MAX_IN], y: &mut [f64; MAX_OUT]) -> Status = scalar_body
 }
 
 #[inline(always)]
@@ -665,9 +683,15 @@ fn grid_eval<K: Kernel<N, M>, const N: usize, const M: usize>(call: &GridCall<'_
     }
 }
 
+fma_clone! {
+/// The validity code of one element, `model::classify`.
+fn status_of / status_of_avx2 <K: Kernel> (x: &[f64; N]) -> i8 = classify
+}
+
 /// The inner loop of the status ufunc: same inputs as the kernel, one int8
-/// output, the validity code of each element (see `model::classify`). Cheap
-/// (no kernel evaluation) and serial.
+/// output, the validity code of each element (see `model::classify`). Serial;
+/// cheap unless the kernel's range is stated on its result (then the kernel
+/// is evaluated, as in the value ufunc).
 ///
 /// # Safety
 /// As for `ufunc_loop`, with `args[N]` pointing to int8 elements.
@@ -687,7 +711,7 @@ unsafe extern "C" fn status_loop<K: Kernel<N, M>, const N: usize, const M: usize
             for k in 0..N {
                 x[k] = (((*args.add(k)) as *const u8).offset(i * *steps.add(k) as isize) as *const f64).read_unaligned();
             }
-            ((out as *mut u8).offset(i * out_step) as *mut i8).write_unaligned(classify::<K, N, M>(&x));
+            ((out as *mut u8).offset(i * out_step) as *mut i8).write_unaligned(status_of::<K, N, M>(&x));
         }
     }));
     fp_flags::restore(flags);
