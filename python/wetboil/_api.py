@@ -144,6 +144,24 @@ def _is_dask(x: Any) -> bool:
 _NUMERIC_KINDS = "fiu"
 
 
+def _is_pandas(x: Any) -> bool:
+    pd = sys.modules.get("pandas")
+    return pd is not None and isinstance(x, (pd.Series, pd.DataFrame))
+
+
+def _pandas_values(function: str, label: str, value: Any) -> np.ndarray:
+    """The numbers of a pandas Series or DataFrame as float64, missing values
+    (NaN, None, pd.NA) as NaN; numeric columns only."""
+    import pandas as pd
+
+    dtypes = [value.dtype] if isinstance(value, pd.Series) else list(value.dtypes)
+    for dt in dtypes:
+        if not pd.api.types.is_numeric_dtype(dt) or pd.api.types.is_bool_dtype(dt) \
+                or pd.api.types.is_complex_dtype(dt):
+            raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {dt}")
+    return value.to_numpy(dtype=np.float64, na_value=np.nan)
+
+
 def _coerce(function: str, label: str, value: Any) -> Any:
     """Check one kernel input and bring it to a form the ufunc takes."""
     if type(value) is np.ndarray and value.dtype.kind in _NUMERIC_KINDS and value.dtype.itemsize <= 8:
@@ -160,6 +178,9 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         if kind not in _NUMERIC_KINDS:
             raise WetboilTypeError(f"{function}: {label} must hold numbers, got dtype {value.dtype}")
         return value if value.dtype.itemsize <= 8 else value.astype(np.float64)  # long double: kernels are f64
+    if _is_pandas(value):
+        _pandas_values(function, label, value)  # checked here; its numbers are taken in `_dispatch`
+        return value
     if isinstance(value, complex):
         raise WetboilTypeError(f"{function}: {label} must be real, got complex")
     if isinstance(value, np.ma.MaskedArray) and value.dtype.kind in _NUMERIC_KINDS:
@@ -449,6 +470,8 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
     outputs) through xarray, dask or directly, by the kind of the inputs."""
     n_out = len(dtypes)
     plain = all(type(x) is np.ndarray or type(x) is float or type(x) is int for x in inputs)
+    if not plain and any(_is_pandas(x) for x in inputs):
+        return _dispatch_pandas(spec, inputs, func, dtypes, names)
     if not plain and any(_is_xarray(x) or _is_dask(x) for x in inputs):
         # lazy (dask) evaluation runs `func` at compute time, perhaps in another thread or process:
         # it keeps the element policy in force at this call, not the one around .compute()
@@ -503,6 +526,50 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
     if n_out == 1:
         return _scalarise(outs)
     return tuple(_scalarise(o) for o in outs)
+
+
+def _dispatch_pandas(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list, names: list) -> Any:
+    """`_dispatch` for calls with pandas inputs: computed on their numbers, and
+    each result of the shape of the first pandas input returned as a Series
+    (or DataFrame) with its index (and columns), named after the output and
+    carrying its unit in ``attrs["units"]``, as NumPy's own ufuncs keep a
+    Series a Series. Pandas inputs must share that index: wetboil computes by
+    position and does not align labels (align them first, e.g. with
+    ``DataFrame.align``). With xarray or dask inputs as well, the pandas ones
+    count as plain arrays."""
+    import pandas as pd
+
+    frames = [(label, x) for label, x in zip(spec.labels, inputs) if _is_pandas(x)]
+    first_label, first = frames[0]
+    for label, other in frames[1:]:
+        same = other.index.equals(first.index) and (
+            not isinstance(other, pd.DataFrame) or not isinstance(first, pd.DataFrame)
+            or other.columns.equals(first.columns))
+        if not same and np.shape(other) == np.shape(first):
+            raise WetboilValueError(f"{spec.function}: {label} and {first_label} are pandas objects with different "
+                                    "indexes (or columns); wetboil computes by position and does not align labels: "
+                                    "align them first (e.g. DataFrame.align) or pass .to_numpy()")
+    values = [_pandas_values(spec.function, label, x) if _is_pandas(x) else x
+              for label, x in zip(spec.labels, inputs)]
+    outs = _dispatch(spec, values, func, dtypes, names)
+    if any(_is_xarray(x) or _is_dask(x) for x in values):
+        return outs
+    units = {o.name: o.unit for o in spec.model.outputs}
+
+    def labelled(o: Any, name: str) -> Any:
+        if np.shape(o) != first.shape:
+            return o
+        if isinstance(first, pd.Series):
+            out = pd.Series(o, index=first.index, name=name)
+        else:
+            out = pd.DataFrame(o, index=first.index, columns=first.columns)
+        if name in units:
+            out.attrs["units"] = units[name]
+        return out
+
+    if len(dtypes) == 1:
+        return labelled(outs, names[0])
+    return tuple(labelled(o, nm) for o, nm in zip(outs, names))
 
 
 def _evaluate(spec: _Spec, args: Sequence[Any]) -> Any:
@@ -596,6 +663,12 @@ def _validity_by_running(function: Callable[..., Any], args: Sequence[Any], kwar
         out = first.copy(data=codes).rename("validity")
         out.attrs = {}
         return out
+    if _is_pandas(first) and codes.shape == first.shape:
+        import pandas as pd
+
+        if isinstance(first, pd.Series):
+            return pd.Series(codes, index=first.index, name="validity")
+        return pd.DataFrame(codes, index=first.index, columns=first.columns)
     return codes if codes.ndim else np.int8(codes)
 
 
