@@ -366,6 +366,15 @@ def test_curve_wettability_and_methods(water):
     assert ld.attrs["chf"] == "lienhard_dhir"
     with pytest.warns(wetboil.RangeWarning, match="chf.kandlikar"):
         curve(water, dts, **curve_kw(orientation_deg=120.0))
+    # Zuber's and Lienhard-Dhir's flat-plate forms hold facing up only (Zuber 1959; Lienhard & Dhir
+    # 1973): elsewhere the facing-up value, with a warning; facing up, none
+    for method in ("zuber", "lienhard_dhir"):
+        with pytest.warns(wetboil.RangeWarning, match=f"chf='{method}'"):
+            tilted = curve(water, dts, **curve_kw(chf=method, orientation_deg=180.0))
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            up = curve(water, dts, **curve_kw(chf=method, orientation_deg=0.0))
+        assert float(tilted["critical_heat_flux"]) == float(up["critical_heat_flux"])
     # contract: one warning per category and call, naming each correlation and its count
     with warnings.catch_warnings(record=True) as rec:
         warnings.simplefilter("always")

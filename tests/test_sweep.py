@@ -321,3 +321,64 @@ def test_method_tables_reachable_from_the_sweep_function():
     from wetboil.sweep import DEFAULT_METHODS, METHOD_CHOICES, sweep  # noqa: F401
 
     assert sweep is wetboil.sweep and set(DEFAULT_METHODS) == set(METHOD_CHOICES)
+
+
+@pytest.mark.parametrize("method", ["zuber", "lienhard_dhir_flat"])
+def test_flat_plate_chf_off_horizontal_is_flagged_with_its_facing_up_value(method):
+    """Behavioural contract: Zuber's and Lienhard-Dhir's flat-plate CHF are for a large horizontal
+    heater facing up (Zuber 1959; Lienhard & Dhir 1973). At any other orientation the sweep keeps
+    the facing-up value but flags it, and the margin with it when it is the design method."""
+    df = wetboil.screen(SURFACES[:1], "water", heat_flux=3e5, p=101325.0, orientation_deg=[0.0, 90.0, 180.0],
+                        methods={"chf": [method, "kandlikar"]})
+    flags = dict(zip(df["orientation [deg]"], df["flags"]))
+    assert f"chf_{method}" not in flags[0.0] and "chf_margin" not in flags[0.0]
+    for phi in (90.0, 180.0):
+        assert f"chf_{method}" in flags[phi] and "chf_margin" in flags[phi], (phi, flags[phi])
+    assert len(set(df[f"chf_{method} [W/m2]"])) == 1  # the value does not change with orientation
+
+
+def test_strict_mode_raises_for_flagged_points_instead_of_returning_them():
+    """Behavioural contract: errstate(out_of_range="raise") applies to sweeps too."""
+    wetboil.sweep(SURFACES[:1], "water", p=101325.0, heat_flux=3e5, orientation_deg=0.0)
+    with wetboil.errstate(out_of_range="raise"), pytest.raises(wetboil.OutOfRangeError, match="chf_kandlikar"):
+        wetboil.sweep(SURFACES[:1], "water", p=101325.0, heat_flux=3e5, orientation_deg=120.0)
+    with wetboil.errstate(out_of_range="raise"):  # nothing flagged: no error
+        wetboil.sweep(SURFACES[1:2], "water", p=101325.0, heat_flux=3e5, orientation_deg=0.0)
+
+
+def test_subcooling_cancels_from_hsu_range_with_the_flux_carrying_layer():
+    """Hsu (1962): r_c = delta sin(theta) / (2 (1 + cos theta)) * dTw / (dTw + dTsub)
+    * [1 -+ sqrt(1 - 8 (1 + cos theta) sigma T_sat v_lv (dTw + dTsub) / (h_lv delta dTw^2))]
+    (the form of the cavity-radius criterion with a contact angle). With delta = k_l (dTw + dTsub)/q
+    both delta dTw/(dTw + dTsub) and (dTw + dTsub)/delta lose dTsub: the range depends on dTw and
+    q/k_l only, so the sweep's subcooling axis changes no quantity."""
+    w = water(p=101325.0)
+    q, dtw = 3e5, 12.0
+    radii = [hsu_active_radii(dtw, w, 60.0, w.k_l * (dtw + sub) / q, sub) for sub in (0.0, 10.0, 40.0)]
+    for r in radii[1:]:
+        assert r.r_min == pytest.approx(radii[0].r_min, rel=1e-12)
+        assert r.r_max == pytest.approx(radii[0].r_max, rel=1e-12)
+    # with a fixed layer thickness, subcooling does narrow the range (the identity above is no accident)
+    fixed = [hsu_active_radii(dtw, w, 60.0, 1e-4, sub) for sub in (0.0, 10.0)]
+    assert fixed[1].r_max < fixed[0].r_max
+    ds = wetboil.sweep(SURFACES, "water", p=101325.0, heat_flux=q, subcooling=[0.0, 10.0, 40.0])
+    for name in ("onset_superheat", "nucleate_superheat", "cavity_radius_min", "cavity_radius_max", "chf"):
+        v = ds[name].values
+        np.testing.assert_allclose(v, np.broadcast_to(v[..., :1], v.shape), rtol=1e-12, err_msg=name)
+
+
+def test_ranking_puts_a_surface_without_chf_somewhere_after_the_others():
+    """Behavioural contract: the lowest margin is over the points with a CHF prediction; a surface
+    with points lacking one ranks after every surface predicted everywhere, and says so."""
+    from wetboil.report import margin_ranking, margin_text
+
+    summary = pd.DataFrame({
+        "surface": ["a", "a", "b", "b", "c", "c"],
+        "chf_margin [-]": [4.0, np.nan, 2.0, 3.0, 0.8, 1.5],
+        "flags": [np.nan, "chf_kandlikar", "", np.nan, "", ""],  # empty: as screen() gives, NaN: as read_csv
+    })
+    r = margin_ranking(summary)
+    assert list(r.index) == ["b", "c", "a"]
+    assert list(r["no_chf"]) == [0, 0, 1] and list(r["flagged"]) == [0, 0, 1]
+    assert margin_text(r.loc["a"]) == "4.00; no CHF prediction at 1 of 2 points"
+    assert margin_text(r.loc["c"]).startswith("0.80 (below 1: design flux above the predicted CHF)")

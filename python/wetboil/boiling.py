@@ -30,7 +30,7 @@ import numpy as np
 
 from . import chf as _chf
 from ._api import check_choice, kernel, need_saturation
-from ._errors import WetboilTypeError, WetboilValueError, errstate, one_warning_per_category
+from ._errors import WetboilTypeError, WetboilValueError, errstate, one_warning_per_category, report
 from .fluids import Saturation
 
 __all__ = [
@@ -933,8 +933,10 @@ def curve(
         Static contact angle [deg] for an onset criterion that uses it
         (``onset="hsu"``); the default ``"davis_anderson"`` does not.
     orientation_deg : float, optional
-        Heater orientation [deg] for Kandlikar (0 facing up, 90 vertical;
-        beyond 90 deg a `RangeWarning`).
+        Heater orientation [deg] (0 facing up, 90 vertical). Kandlikar's CHF
+        depends on it (beyond 90 deg a `RangeWarning`); the flat-plate forms
+        of Zuber and Lienhard-Dhir hold facing up only and do not: any other
+        orientation gives a `RangeWarning` and the facing-up value.
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
@@ -1102,6 +1104,9 @@ def curve(
         q_max = float(_chf.zuber(fluid, _chf.LIENHARD_DHIR_K, g))
     else:
         q_max = float(_chf.lienhard_dhir(fluid, geometry, size, g=g))
+    if chf != "kandlikar" and geometry in (None, "flat_plate", "small_flat_plate") and not orientation_deg == 0.0:
+        # the flat-plate forms hold for a heater facing up: elsewhere the value is that of one facing up
+        report(f"{fn}: chf='{chf}' (a horizontal heater facing up) at orientation_deg={orientation_deg:g}", 1, 0, 1)
     dt_chf = float(dt_nb(q_max))
 
     # -- onset

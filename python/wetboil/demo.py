@@ -14,7 +14,7 @@ from __future__ import annotations
 import pathlib
 from importlib import resources
 
-from .report import CAUTION, load_spec, run_study
+from .report import CAUTION, load_spec, margin_ranking, margin_text, run_study
 
 __all__ = ["study_path", "run"]
 
@@ -37,12 +37,10 @@ def print_ranking(out: pathlib.Path, title: str) -> None:
     """Print the lowest CHF margin of each surface and the files written."""
     import pandas as pd
 
-    df = pd.read_csv(out / "summary.csv")
-    worst = df.groupby("surface")["chf_margin [-]"].min().sort_values(ascending=False)
-    flagged = df.groupby("surface")["flags"].apply(lambda s: int(s.notna().sum()))
+    ranking = margin_ranking(pd.read_csv(out / "summary.csv"))
     print(title)
-    print(f"{'surface':<42} {'lowest CHF margin':>18} {'rows flagged':>13}")
-    for name, margin in worst.items():
-        print(f"{name:<42} {margin:>18.2f} {flagged[name]:>8} / {int((df['surface'] == name).sum())}")
+    print(f"{'surface':<42} {'rows flagged':>13}  lowest CHF margin")
+    for name, r in ranking.iterrows():
+        print(f"{name:<42} {int(r['flagged']):>6} / {int(r['points']):<4}  {margin_text(r)}")
     print("\nFlagged rows used a correlation outside its published validity range (see report).")
     print(f"\n{CAUTION}")

@@ -357,6 +357,41 @@ _METHOD_KERNELS = {
 }
 
 
+def margin_ranking(summary: Any) -> Any:
+    """Per surface of a `summary.csv` table (as `wetboil.screen` returns it):
+    the lowest CHF margin over the operating points that have a CHF
+    prediction (``lowest_margin``), the points that have none (``no_chf``:
+    NaN, e.g. Kandlikar facing down or an impossible input), the rows with a
+    validity flag (``flagged``) and the points (``points``). Ranked best
+    first; a surface without a prediction at some point comes after every
+    surface predicted everywhere, since its worst point is unknown."""
+    import pandas as pd
+
+    g = summary.groupby("surface", sort=False)
+    table = pd.DataFrame({
+        "lowest_margin": g["chf_margin [-]"].min(),
+        "no_chf": g["chf_margin [-]"].apply(lambda s: int(s.isna().sum())),
+        "flagged": g["flags"].apply(lambda s: int((s.fillna("").astype(str) != "").sum())),
+        "points": g.size(),
+    })
+    order = table.assign(gap=table["no_chf"] > 0).sort_values(["gap", "lowest_margin"], ascending=[True, False],
+                                                              na_position="last")
+    return table.loc[order.index]
+
+
+def margin_text(row: Any) -> str:
+    """The lowest CHF margin of a `margin_ranking` row in words: the number,
+    a note below 1 (the design flux above the predicted CHF) and the points
+    without a prediction."""
+    m, missing, points = float(row["lowest_margin"]), int(row["no_chf"]), int(row["points"])
+    text = "no CHF prediction" if math.isnan(m) else f"{m:.2f}"
+    if m < 1.0:
+        text += " (below 1: design flux above the predicted CHF)"
+    if missing and not math.isnan(m):
+        text += f"; no CHF prediction at {missing} of {points} points"
+    return text
+
+
 def _references(study: Study) -> List[str]:
     from . import models
 
@@ -418,9 +453,10 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         lines.append(f"| {s.name} | {a:.1f} | {b:.1f} | {c:.1f} | {src}{'; ' + s.notes if s.notes else ''} |")
     lines += ["", "## Methods and references", ""] + _references(study)
     lines += ["", "## Ranking (best worst-case CHF margin first)", ""]
-    worst = summary.groupby("surface")["chf_margin [-]"].min().sort_values(ascending=False)
-    lines += ["| surface | lowest CHF margin over the operating points |", "|---|---|"]
-    lines += [f"| {name} | {m:.2f} |" for name, m in worst.items()]
+    ranking = margin_ranking(summary)
+    lines += ["| surface | lowest CHF margin over the operating points | rows flagged |", "|---|---|---|"]
+    lines += [f"| {name} | {margin_text(r)} | {int(r['flagged'])} of {int(r['points'])} |"
+              for name, r in ranking.iterrows()]
     lines += ["", "Full table: `summary.csv` (one row per surface and operating point); all quantities: `sweep.nc`.",
               "", "## Validity flags", ""]
     if flagged:

@@ -328,10 +328,13 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     for m in methods["chf"]:
         if m == "kandlikar":
             run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi))
-        elif m == "zuber":
-            run(f"chf_{m}", lambda: chf.zuber(fluid) * np.ones_like(rec))
-        else:  # lienhard_dhir_flat: large flat heater facing up (K = 0.149)
-            run(f"chf_{m}", lambda: chf.zuber(fluid, K=0.149) * np.ones_like(rec))
+        else:  # zuber (K = pi/24), lienhard_dhir_flat (K = 0.149)
+            K = chf.ZUBER_K if m == "zuber" else chf.LIENHARD_DHIR_K
+            with capture_validity() as cap:
+                value = chf.zuber(fluid, K=K) * np.ones_like(rec)
+            # both hold for a large horizontal heater facing up: at any other orientation the value
+            # is that of a heater facing up, outside the form's validity (flagged, not corrected)
+            res.add(f"chf_{m}", value, cap.invalid, np.logical_or(cap.out_of_range, ~(phi == 0.0)))
     # The first selected method is the design method: its CHF and margin are
     # reported as "chf" and "chf_margin"; the others stay as chf_<method>.
     first = f"chf_{methods['chf'][0]}"
@@ -403,10 +406,18 @@ def sweep(
         Design wall heat fluxes [W/m2] (the ``heat_flux`` axis).
     orientation_deg : array_like
         Heater orientations [deg], 0 facing up, 90 vertical (``orientation``).
+        Kandlikar's CHF depends on it; the Zuber and Lienhard-Dhir flat-plate
+        CHF hold facing up only: at any other orientation they keep the
+        facing-up value and are flagged in ``range_flags``.
     subcooling : array_like
-        Bulk liquid subcooling [K] (``subcooling``); it enters the active
-        cavity range (Hsu). The CHF correlations here are for saturated
-        liquid.
+        Bulk liquid subcooling [K] (``subcooling``). No quantity of the
+        present chain changes with it, and that is physics, not an omission:
+        Hsu's active cavity range takes it with a thermal layer
+        ``delta = k_l (dT_w + dT_sub) / q`` carrying the design flux, and then
+        depends on the wall superheat and ``q / k_l`` alone (subcooling
+        cancels); the nucleate-boiling (Rohsenow, Cooper), onset and CHF
+        correlations here are for saturated pool boiling. The axis keeps
+        subcooled operating points labelled in the results.
     methods : mapping, optional
         Method per step, e.g. ``{"onset": "kandlikar", "chf": ["kandlikar",
         "zuber"]}``; the defaults and the choices are
@@ -443,7 +454,10 @@ def sweep(
         ``fluid_state`` (``wetboil.sweep.STATE_FLAG``), is the operating
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
-        water above 0.997 T_crit).
+        water above 0.997 T_crit). Flagged points give no warnings (the masks
+        record them); under ``wetboil.errstate(invalid="raise")`` or
+        ``(out_of_range="raise")`` a computed sweep with points of that kind
+        raises instead.
 
     Examples
     --------
@@ -499,7 +513,30 @@ def sweep(
                 result = result.compute()
     else:
         result = _block(ds_in.compute(), meth, states.name)
-    return _decorate(result, meth, state_dim)
+    result = _decorate(result, meth, state_dim)
+    if chunks is None or compute:
+        _strict(result)
+    return result
+
+
+def _strict(ds: Any) -> None:
+    """Under ``errstate(invalid="raise")`` or ``(out_of_range="raise")``, raise
+    for a computed sweep with points of that kind instead of returning them
+    flagged (the default records them in the flag masks, without warnings)."""
+    from ._errors import _STATE, InvalidValueError, OutOfRangeError
+
+    state = _STATE.get()
+    for key, action, flags, error, what in (
+            ("invalid", state.invalid, "invalid_flags", InvalidValueError, "a physically impossible input (NaN)"),
+            ("out_of_range", state.out_of_range, "range_flags", OutOfRangeError,
+             "a correlation outside its published validity range")):
+        mask = ds[flags].values
+        if action != "raise" or not mask.any():
+            continue
+        seen = int(np.bitwise_or.reduce(mask.ravel()))
+        names = [b for i, b in enumerate(ds[flags].attrs["bits"].split(",")) if seen >> i & 1]
+        raise error(f"sweep: {int(np.count_nonzero(mask))} of {mask.size} points with {what}: {', '.join(names)} "
+                    f"(errstate {key}='raise'; by default they are recorded in {flags})")
 
 
 # `wetboil.sweep` names this function (it shadows the module of the same name
