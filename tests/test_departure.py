@@ -136,7 +136,8 @@ def test_cole_rohsenow_form_with_coolprop_properties(water):
 def test_cole_rohsenow_constant_follows_the_fluid_name(water):
     base = water.replace(name=None)
     d_water = cole_rohsenow(water)
-    for name in ("water", "Water", "WATER"):
+    # CoolProp's aliases of water too ("H2O" was once given the general constant: 3.1x the diameter)
+    for name in ("water", "Water", "WATER", "H2O", "h2o", "R718"):
         assert cole_rohsenow(base.replace(name=name)) == d_water
     # Unnamed or any other name: the general constant 4.65e-4.
     assert cole_rohsenow(base) == pytest.approx(d_water * 4.65 / 1.5, rel=1e-13)

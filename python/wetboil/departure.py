@@ -22,7 +22,7 @@ import numpy as np
 
 from ._api import check_choice, kernel
 from ._errors import WetboilTypeError, WetboilValueError
-from .fluids import Saturation
+from .fluids import Saturation, _is_water
 
 __all__ = [
     "fritz",
@@ -166,8 +166,9 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
     g : array_like, optional
         Acceleration [m/s2]; standard gravity by default.
     C : array_like, optional
-        The constant [-]. By default 1.5e-4 when ``fluid.name`` is "water"
-        (any case) and 4.65e-4 otherwise (also for an unnamed state).
+        The constant [-]. By default 1.5e-4 when ``fluid.name`` names water
+        ("water", "H2O" or "R718", any case: `wetboil.fluids.WATER_NAMES`)
+        and 4.65e-4 otherwise (also for an unnamed state).
 
     Returns
     -------
@@ -203,7 +204,7 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
             raise WetboilTypeError(
                 f"departure.cole_rohsenow: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}"
             )
-        C = COLE_ROHSENOW_WATER if (fluid.name or "").lower() == "water" else COLE_ROHSENOW_OTHER
+        C = COLE_ROHSENOW_WATER if _is_water(fluid.name) else COLE_ROHSENOW_OTHER
     return _cole_rohsenow_kernel(fluid, C, g)
 
 

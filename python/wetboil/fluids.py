@@ -336,6 +336,15 @@ WATER_P_CRIT = 22.064e6
 WATER_T_TRIPLE = 273.16
 WATER_P_TRIPLE = 611.657
 
+#: Names that mark a state as water (any case; CoolProp's aliases of water included), for the
+#: correlations with a water constant or for water only.
+WATER_NAMES = ("water", "h2o", "r718")
+
+
+def _is_water(name: Any) -> bool:
+    """Whether a state's `name` says water (see `WATER_NAMES`)."""
+    return isinstance(name, str) and name.strip().lower() in WATER_NAMES
+
 
 def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, cp_l: Any, k_l: Any,
                  mu_l: Any, mu_v: Any, cp_v: Any, k_v: Any) -> Saturation:

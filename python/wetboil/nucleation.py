@@ -34,7 +34,7 @@ import numpy as np
 
 from ._api import check_choice, dispatch, kernel, need_saturation
 from ._errors import WetboilTypeError, WetboilValueError, errstate, report
-from .fluids import Saturation
+from .fluids import Saturation, _is_water
 
 __all__ = [
     "embryo_superheat",
@@ -53,17 +53,12 @@ __all__ = [
     "SITE_DENSITY_METHODS",
 ]
 
-_WATER_NAMES = ("water", "h2o")
 #: Molar mass of water [kg/mol] (IAPWS-95), used when a state named "water" lacks it.
 _WATER_MOLAR_MASS = 0.018015268
 #: Molar gas constant [J/(mol K)] (exact, SI 2019).
 _GAS_CONSTANT = 8.314462618
 _BOLTZMANN = 1.380649e-23
 _AVOGADRO = 6.02214076e23
-
-
-def _is_water(name: Any) -> bool:
-    return isinstance(name, str) and name.strip().lower() in _WATER_NAMES
 
 
 
