@@ -138,9 +138,10 @@ def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
         return
     state = _STATE.get()
     if invalid and state.invalid != "ignore":
-        msg = f"{function}: {invalid} of {size} element(s) physically impossible, set to NaN"
+        msg = f"{function}: {invalid} of {size} element(s) physically impossible"
         if state.invalid == "raise":
-            raise InvalidValueError(msg)
+            raise InvalidValueError(msg + " (errstate invalid='raise'; by default they give NaN)")
+        msg += ", set to NaN"
         _warn(msg, InvalidValueWarning)
     if out_of_range and state.out_of_range != "ignore":
         msg = f"{function}: {out_of_range} of {size} element(s) outside the published validity range"
