@@ -11,6 +11,9 @@ the same signature and docstring that
   (`_core.Caller`), returning a `float` (or a named tuple);
 * sends ndarrays, lists and scalars to the NumPy ufunc, with one warning per
   call for impossible or out-of-range elements (see `wetboil.errstate`);
+* computes pandas Series and DataFrames on their numbers, by position (they
+  must all have the result's shape and one index), and labels the results
+  like them;
 * sends xarray objects through `xarray.apply_ufunc`, so they broadcast by
   dimension name, and dask arrays through `dask.array.apply_gufunc` (or
   ``apply_ufunc(dask="parallelized")``), so they stay lazy, multi-output
@@ -149,17 +152,46 @@ def _is_pandas(x: Any) -> bool:
     return pd is not None and isinstance(x, (pd.Series, pd.DataFrame))
 
 
-def _pandas_values(function: str, label: str, value: Any) -> np.ndarray:
-    """The numbers of a pandas Series or DataFrame as float64, missing values
-    (NaN, None, pd.NA) as NaN; numeric columns only."""
+def _check_pandas(function: str, label: str, value: Any) -> None:
+    """Check a pandas input's dtypes, without converting it (`_pandas_values` converts, once): numbers,
+    nullable ones included (pd.NA becomes NaN); object columns follow the rules of an object ndarray
+    when converted (numbers accepted, None and the rest refused)."""
     import pandas as pd
 
-    dtypes = [value.dtype] if isinstance(value, pd.Series) else list(value.dtypes)
-    for dt in dtypes:
-        if not pd.api.types.is_numeric_dtype(dt) or pd.api.types.is_bool_dtype(dt) \
-                or pd.api.types.is_complex_dtype(dt):
+    api = pd.api.types
+    for dt in ([value.dtype] if isinstance(value, pd.Series) else value.dtypes):
+        if dt == object:
+            continue
+        if not api.is_numeric_dtype(dt) or api.is_bool_dtype(dt) or api.is_complex_dtype(dt):
             raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {dt}")
-    return value.to_numpy(dtype=np.float64, na_value=np.nan)
+
+
+def _pandas_values(function: str, label: str, value: Any) -> np.ndarray:
+    """The numbers of a pandas input checked by `_check_pandas`, as a float64 ndarray of its shape:
+    missing values of nullable dtypes as NaN, object columns converted as `_coerce` converts an object
+    ndarray."""
+    import pandas as pd
+
+    if isinstance(value, pd.Series):
+        if value.dtype == object:
+            return np.asarray(_coerce(function, label, value.to_numpy()), dtype=np.float64)
+        return value.to_numpy(dtype=np.float64, na_value=np.nan)
+    if not any(dt == object for dt in value.dtypes):
+        return value.to_numpy(dtype=np.float64, na_value=np.nan)
+    out = np.empty(value.shape)
+    for j in range(value.shape[1]):
+        out[:, j] = _pandas_values(function, label, value.iloc[:, j])
+    return out
+
+
+def _pandas_like(like: Any, values: np.ndarray, name: Any) -> Any:
+    """`values` (an array of `like`'s shape: a fresh wetboil result, or numbers only read, so not
+    copied) as a Series named `name` or a DataFrame, with the index (and columns) of the pandas `like`."""
+    import pandas as pd
+
+    if isinstance(like, pd.Series):
+        return pd.Series(values, index=like.index, name=name, copy=False)
+    return pd.DataFrame(values, index=like.index, columns=like.columns, copy=False)
 
 
 def _coerce(function: str, label: str, value: Any) -> Any:
@@ -179,7 +211,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
             raise WetboilTypeError(f"{function}: {label} must hold numbers, got dtype {value.dtype}")
         return value if value.dtype.itemsize <= 8 else value.astype(np.float64)  # long double: kernels are f64
     if _is_pandas(value):
-        _pandas_values(function, label, value)  # checked here; its numbers are taken in `_dispatch`
+        _check_pandas(function, label, value)  # converted once, in `_dispatch_pandas`
         return value
     if isinstance(value, complex):
         raise WetboilTypeError(f"{function}: {label} must be real, got complex")
@@ -529,40 +561,45 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
 
 
 def _dispatch_pandas(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list, names: list) -> Any:
-    """`_dispatch` for calls with pandas inputs: computed on their numbers, and
-    each result of the shape of the first pandas input returned as a Series
-    (or DataFrame) with its index (and columns), named after the output and
-    carrying its unit in ``attrs["units"]``, as NumPy's own ufuncs keep a
-    Series a Series. Pandas inputs must share that index: wetboil computes by
-    position and does not align labels (align them first, e.g. with
-    ``DataFrame.align``). With xarray or dask inputs as well, the pandas ones
-    count as plain arrays."""
+    """`_dispatch` for calls with pandas inputs, as NumPy's own ufuncs keep a Series a Series: computed
+    on their numbers, each result returned as a Series (or DataFrame) with their index (and columns),
+    a Series named after the output, and the output's unit in ``attrs["units"]``.
+
+    wetboil computes by position, so the labels must agree without aligning or broadcasting: every
+    pandas input has the shape of the result and one index (and one set of columns); numbers and
+    ndarrays broadcast against it as usual. With xarray or dask inputs as well, the pandas ones count as
+    plain arrays (the result follows xarray or dask)."""
     import pandas as pd
 
-    frames = [(label, x) for label, x in zip(spec.labels, inputs) if _is_pandas(x)]
-    first_label, first = frames[0]
-    for label, other in frames[1:]:
-        same = other.index.equals(first.index) and (
-            not isinstance(other, pd.DataFrame) or not isinstance(first, pd.DataFrame)
-            or other.columns.equals(first.columns))
-        if not same and np.shape(other) == np.shape(first):
-            raise WetboilValueError(f"{spec.function}: {label} and {first_label} are pandas objects with different "
-                                    "indexes (or columns); wetboil computes by position and does not align labels: "
-                                    "align them first (e.g. DataFrame.align) or pass .to_numpy()")
+    frames = [x for x in inputs if _is_pandas(x)]
+    first = frames[0]
+    lazy_or_xarray = any(_is_xarray(x) or _is_dask(x) for x in inputs)
+    try:
+        shape = None if lazy_or_xarray else _broadcast_shape([_shape(x) for x in inputs])
+    except ValueError:
+        shape = None  # `_dispatch` reports shapes that do not broadcast
+    problem = None
+    if any(x.shape != (first.shape if shape is None else shape) for x in frames):
+        got = ", ".join(f"{type(x).__name__} {x.shape}" for x in frames)
+        problem = f"got pandas inputs of shapes {got}" + ("" if shape is None else f" for a result of shape {shape}")
+    elif not all(x.index.equals(first.index) for x in frames):
+        problem = "got pandas inputs with different indexes"
+    elif not all(x.columns.equals(first.columns) for x in frames if isinstance(x, pd.DataFrame)):
+        problem = "got DataFrames with different columns"
+    if problem is not None:
+        raise WetboilValueError(
+            f"{spec.function}: pandas inputs must all have the result's shape and one index (and the same "
+            f"columns); {problem}. wetboil computes by position and neither aligns labels nor broadcasts "
+            "them: pass .to_numpy() to broadcast by position (or align the inputs first)")
     values = [_pandas_values(spec.function, label, x) if _is_pandas(x) else x
               for label, x in zip(spec.labels, inputs)]
     outs = _dispatch(spec, values, func, dtypes, names)
-    if any(_is_xarray(x) or _is_dask(x) for x in values):
+    if lazy_or_xarray:
         return outs
     units = {o.name: o.unit for o in spec.model.outputs}
 
     def labelled(o: Any, name: str) -> Any:
-        if np.shape(o) != first.shape:
-            return o
-        if isinstance(first, pd.Series):
-            out = pd.Series(o, index=first.index, name=name)
-        else:
-            out = pd.DataFrame(o, index=first.index, columns=first.columns)
+        out = _pandas_like(first, o, name)
         if name in units:
             out.attrs["units"] = units[name]
         return out
@@ -664,11 +701,7 @@ def _validity_by_running(function: Callable[..., Any], args: Sequence[Any], kwar
         out.attrs = {}
         return out
     if _is_pandas(first) and codes.shape == first.shape:
-        import pandas as pd
-
-        if isinstance(first, pd.Series):
-            return pd.Series(codes, index=first.index, name="validity")
-        return pd.DataFrame(codes, index=first.index, columns=first.columns)
+        return _pandas_like(first, codes, "validity")
     return codes if codes.ndim else np.int8(codes)
 
 

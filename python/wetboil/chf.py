@@ -33,11 +33,18 @@ from .fluids import Saturation
 
 
 def _real(function: str, label: str, value: Any) -> Any:
-    """A number or a float64 array (xarray and dask objects kept as they
-    are) for arithmetic done here in Python; wrong types raise the front
-    door's WetboilTypeError/WetboilValueError."""
+    """A number, a float64 array or a float64 Series/DataFrame with the same
+    labels (xarray and dask objects kept as they are) for arithmetic done
+    here in Python, which then matches the ndarray call bit for bit; wrong
+    types raise the front door's WetboilTypeError/WetboilValueError."""
+    from . import _api
+
     v = _coerce(function, label, value)
-    return v.astype(np.float64, copy=False) if isinstance(v, np.ndarray) else v
+    if isinstance(v, np.ndarray):
+        return v.astype(np.float64, copy=False)
+    if _api._is_pandas(v):
+        return _api._pandas_like(v, _api._pandas_values(function, label, v), getattr(v, "name", None))
+    return v
 
 __all__ = [
     "zuber",
