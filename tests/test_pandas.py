@@ -217,3 +217,15 @@ def test_one_warning_per_call_and_strict_mode_with_a_series():
         assert len(invalid) == 1 and "2 of 3" in str(invalid[0].message)
         with wetboil.errstate(invalid="raise", out_of_range="ignore"), pytest.raises(InvalidValueError):
             call()
+
+
+def test_a_list_of_methods_keeps_the_index_as_a_coordinate():
+    from wetboil.departure import diameter, frequency
+
+    d = pd.Series([1.0e-3, 2.0e-3], index=pd.Index(["a", "b"], name="surface"))
+    f = frequency(d, W, method=["zuber", "cole"])
+    assert f.dims == ("method", "surface") and list(f["surface"].values) == ["a", "b"]
+    np.testing.assert_array_equal(f.sel({"method": "cole"}).values, frequency(d.to_numpy(), W, method="cole"))
+    dd = diameter(pd.Series([30.0, 60.0], index=pd.Index(["x", "y"], name="surface")), W,
+                  method=["fritz", "kocamustafaogullari_ishii"])
+    assert list(dd["surface"].values) == ["x", "y"]

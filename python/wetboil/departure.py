@@ -553,8 +553,12 @@ def _stack(results: list, names: list, name: str, units: str) -> Any:
         import xarray as xr
     except ImportError:  # pragma: no cover - xarray is a dependency of the test extra
         raise ImportError("a list of methods returns an xarray.DataArray: install xarray") from None
-    if any(hasattr(r, "dims") for r in results):
-        labelled = xr.broadcast(*[r if hasattr(r, "dims") else xr.DataArray(np.asarray(r)) for r in results])
+    from ._api import _is_pandas
+
+    if any(hasattr(r, "dims") or _is_pandas(r) for r in results):
+        # a pandas result keeps its index (and columns) as coordinates
+        labelled = xr.broadcast(*[r if hasattr(r, "dims") else xr.DataArray(r if _is_pandas(r) else np.asarray(r))
+                                  for r in results])
         out = xr.concat([a.drop_vars("method", errors="ignore") for a in labelled], dim="method")
         out = out.assign_coords(method=list(names))
     else:
