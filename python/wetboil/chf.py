@@ -27,7 +27,7 @@ from typing import Any, Dict
 
 import numpy as np
 
-from ._api import _coerce, check_choice, kernel
+from ._api import _coerce, _is_pandas, _pandas_like, _pandas_values, check_choice, kernel
 from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
 
@@ -37,13 +37,11 @@ def _real(function: str, label: str, value: Any) -> Any:
     labels (xarray and dask objects kept as they are) for arithmetic done
     here in Python, which then matches the ndarray call bit for bit; wrong
     types raise the front door's WetboilTypeError/WetboilValueError."""
-    from . import _api
-
     v = _coerce(function, label, value)
     if isinstance(v, np.ndarray):
         return v.astype(np.float64, copy=False)
-    if _api._is_pandas(v):
-        return _api._pandas_like(v, _api._pandas_values(function, label, v), getattr(v, "name", None))
+    if _is_pandas(v):
+        return _pandas_like(v, _pandas_values(function, label, v), getattr(v, "name", None))
     return v
 
 __all__ = [
