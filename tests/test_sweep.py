@@ -93,6 +93,16 @@ def test_bad_input_is_named():
         wetboil.sweep([SURFACES[0], SURFACES[0]], "water", p=1e5, heat_flux=3e5)
 
 
+def test_screen_errors_name_screen():
+    """screen runs sweep's checks; its messages name the function the user called."""
+    with pytest.raises(ValueError, match=r"^screen: the heat_flux axis is empty"):
+        wetboil.screen(SURFACES, "water", p=1e5, heat_flux=[])
+    with pytest.raises(TypeError, match=r"^screen: surfaces must be wetboil.Surface"):
+        wetboil.screen(["not a surface"], "water", p=1e5, heat_flux=3e5)
+    with wetboil.errstate(out_of_range="raise"), pytest.raises(wetboil.OutOfRangeError, match=r"^screen: 3 of 3 "):
+        wetboil.screen(SURFACES, "water", p=1e5, heat_flux=3e5, orientation_deg=90.0, methods={"chf": "zuber"})
+
+
 def _big_grid(**kw):
     # 10 surfaces x 50 pressures x 20 heat fluxes x 10 orientations x 10 subcoolings = 10^6 points
     rng = np.random.default_rng(3)

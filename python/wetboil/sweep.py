@@ -28,7 +28,7 @@ import numpy as np
 
 from . import boiling, chf, departure, nucleation
 from ._api import capture_validity, kernel
-from ._errors import WetboilTypeError, WetboilValueError, errstate
+from ._errors import WetboilError, WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation, from_coolprop, water
 from .surface import Surface
 
@@ -641,8 +641,14 @@ def screen(
     """
     if heat_flux is None:
         raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
-    ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
-               subcooling=subcooling, methods=methods)
+    try:
+        ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
+                   subcooling=subcooling, methods=methods)
+    except WetboilError as exc:
+        # the same checks as sweep's, named after the function the user called
+        if exc.args and isinstance(exc.args[0], str) and exc.args[0].startswith("sweep: "):
+            exc.args = ("screen: " + exc.args[0][len("sweep: "):],) + exc.args[1:]
+        raise
     return ranked_table(ds)
 
 
