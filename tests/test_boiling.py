@@ -384,6 +384,37 @@ def test_curve_wettability_and_methods(water):
     assert msg.startswith("boiling.curve: ") and "chf.kandlikar: 1 of 1" in msg and "boiling.rohsenow" in msg
 
 
+def test_curve_when_the_correlations_do_not_meet_in_order(water):
+    """Behavioural contract (no published curve): the branches come from independent correlations.
+    (a) Water at 5 kPa: the film branch reaches Berenson's q_min at a smaller superheat than the
+    Rohsenow branch reaches the CHF. The nucleate branch must still run up to the CHF (it used to
+    be cut off at the Leidenfrost superheat and relabelled film) and the call says so.
+    (b) Receding angles near 165 deg and above: Kandlikar's CHF falls below q_min; a warning."""
+    from wetboil.fluids import water as iapws_water
+
+    low = iapws_water(p=5e3)
+    dts = np.geomspace(1.0, 1000.0, 121)
+    # (the embryo of a 10 um cavity needs 50 K here, beyond the CHF superheat: no nucleate branch at all)
+    with pytest.warns(wetboil.RangeWarning, match="no nucleate branch"):
+        curve(low, dts, **curve_kw(receding_angle_deg=None))
+    with pytest.warns(wetboil.RangeWarning, match="no transition regime") as rec:
+        c = curve(low, dts, **curve_kw(receding_angle_deg=None, largest_cavity_radius=None))
+    assert not any("boiling.curve: boiling.curve" in str(w.message) for w in rec)
+    dt_chf, dt_min = float(c["critical_superheat"]), float(c["minimum_superheat"])
+    assert dt_min < dt_chf
+    reg, q = c["regime"].values, c["heat_flux"].values
+    assert set(reg[dts <= dt_chf]) == {"natural convection", "nucleate"} and reg[dts <= dt_chf][-1] == "nucleate"
+    assert set(reg[dts > dt_chf]) == {"film"} and "transition" not in set(reg)
+    nb = dts <= dt_chf
+    np.testing.assert_allclose(q[nb & (reg == "nucleate")], rohsenow(dts[nb & (reg == "nucleate")], low), rtol=1e-14)
+    for angle in (165.0, 180.0):
+        with pytest.warns(wetboil.RangeWarning, match="no boiling crisis"):
+            curve(water, dts, **curve_kw(receding_angle_deg=angle))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        curve(water, dts, **curve_kw(receding_angle_deg=150.0))
+
+
 def test_curve_bad_input(water):
     dts = np.array([1.0, 10.0, 100.0])
     for bad, match in [

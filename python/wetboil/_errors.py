@@ -180,8 +180,9 @@ def one_warning_per_category(function: str) -> Callable[[_F], _F]:
             finally:
                 _GATHER.reset(token)
                 parts: dict = {}
+                own = f"{function}: "  # the function's own reports name it already (for the raising case)
                 for category, msg in gathered:
-                    parts.setdefault(category, []).append(msg)
+                    parts.setdefault(category, []).append(msg[len(own):] if msg.startswith(own) else msg)
                 for category, messages in parts.items():
                     _warn(f"{function}: {'; '.join(messages)}", category)
 

@@ -1004,6 +1004,14 @@ def curve(
     pressure...) are passed on, gathered into one warning per category
     that names each correlation and its count.
 
+    The branches are independent correlations and need not meet in order:
+    the onset can lie beyond the CHF superheat (large cavities at low
+    pressure), the Leidenfrost superheat below it (water below about
+    20 kPa), or the CHF below the minimum heat flux (Kandlikar's CHF at
+    receding angles near 165 deg and above). Each case gives a
+    `RangeWarning`; the nucleate branch still runs to the CHF, and the film
+    branch starts at the larger of the two superheats.
+
     Examples
     --------
     >>> import numpy as np
@@ -1129,6 +1137,23 @@ def curve(
         return film_boiling(x, fluid, film_geometry, diameter, latent_factor, emissivity, g)
 
     dt_min = _bisect(lambda x: float(q_film(x)) - q_min, 1e-3, 1e4)
+    # The branches come from independent correlations and need not meet in order. Large cavities'
+    # embryo superheats at low pressure can put the onset beyond the CHF superheat. At low reduced
+    # pressure (water below about 20 kPa) the film branch reaches q_min at a smaller superheat than
+    # the nucleate branch reaches the CHF; on very non-wetting surfaces (Kandlikar's CHF at
+    # receding angles near 165 deg and above) the CHF falls below q_min. Either way there is no
+    # transition regime between a maximum and a minimum: say so.
+    if dt_onb >= dt_chf:
+        report(f"{fn}: the onset superheat ({dt_onb:.3g} K) is not below the CHF superheat ({dt_chf:.3g} K): "
+               "the correlations give no nucleate branch at this state", 1, 0, 1)
+    if dt_min <= dt_chf:
+        report(f"{fn}: the Leidenfrost superheat ({dt_min:.3g} K, film branch at the minimum heat flux) is not "
+               f"above the CHF superheat ({dt_chf:.3g} K): the correlations give no transition regime at this "
+               f"state; the curve drops from the CHF to the film branch at {dt_chf:.3g} K", 1, 0, 1)
+    elif q_max <= q_min:
+        report(f"{fn}: the critical heat flux ({q_max:.3g} W/m2, {chf}) is not above the minimum heat flux "
+               f"({q_min:.3g} W/m2, {minimum}): the correlations give no boiling crisis at this state; "
+               "the 'transition' line does not fall", 1, 0, 1)
 
     # -- assemble
     nat = np.asarray(q_nc(dts), dtype=float)
@@ -1138,7 +1163,7 @@ def curve(
     regime = np.empty(dts.shape, dtype=object)
     below = dts < dt_onb
     nucl = (~below) & (dts <= dt_chf)
-    film_mask = dts >= dt_min
+    film_mask = (dts >= dt_min) & ~(dts <= dt_chf)  # the nucleate branch runs to the CHF whatever dt_min is
     trans = (dts > dt_chf) & ~film_mask
     q[below] = nat[below]
     regime[below] = "natural convection"
