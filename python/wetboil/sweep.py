@@ -411,13 +411,16 @@ def sweep(
         facing-up value and are flagged in ``range_flags``.
     subcooling : array_like
         Bulk liquid subcooling [K] (``subcooling``). No quantity of the
-        present chain changes with it, and that is physics, not an omission:
-        Hsu's active cavity range takes it with a thermal layer
+        present chain changes with it. For Hsu's active cavity range that is
+        physics: it takes the subcooling with a thermal layer
         ``delta = k_l (dT_w + dT_sub) / q`` carrying the design flux, and then
         depends on the wall superheat and ``q / k_l`` alone (subcooling
-        cancels); the nucleate-boiling (Rohsenow, Cooper), onset and CHF
-        correlations here are for saturated pool boiling. The axis keeps
-        subcooled operating points labelled in the results.
+        cancels). The nucleate-boiling (Rohsenow, Cooper), onset and CHF
+        correlations here are for saturated pool boiling, and that is an
+        omission: subcooling raises the pool-boiling CHF markedly, so on
+        subcooled points ``chf`` and ``chf_margin`` are the saturated values
+        (conservative), with no subcooling correction applied. The axis keeps subcooled
+        operating points labelled in the results.
     methods : mapping, optional
         Method per step, e.g. ``{"onset": "kandlikar", "chf": ["kandlikar",
         "zuber"]}``; the defaults and the choices are
