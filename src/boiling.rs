@@ -230,8 +230,9 @@ pub const COOPER_EXPONENT: f64 = 0.67;
 ///
 /// * `superheat` [K], `p` saturation pressure [Pa], `p_crit` [Pa].
 /// * Possible: ΔT ≥ 0, 0 < p < p_crit, M > 0, R_p > 0; otherwise NaN.
-/// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\], and R_p outside
-///   [`COOPER_RP_BAND`] (0.01-20 µm, our bound against unit slips). Cooper suggested about
+/// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\], R_p outside
+///   [`COOPER_RP_BAND`] (0.01-20 µm) and M outside [`COOPER_M_BAND`]
+///   (1 g/mol to 1.5 kg/mol), our bounds against unit slips. Cooper suggested about
 ///   ×1.7 for horizontal copper cylinders (not applied) \[M\].
 /// * Verification: the form \[V2\] (CalebBell/ht, which cites Cooper 1984
 ///   and a handbook example); R_p is the old DIN 4762 smoothing depth, not R_a
@@ -266,7 +267,8 @@ pub fn cooper_coefficient_at_flux(heat_flux: f64, p: f64, p_crit: f64, molar_mas
 const COOPER_REFERENCE: &str = "M.G. Cooper, Saturation nucleate pool boiling - a simple correlation, IChemE Symp. Ser. 86 \
                                 (1984) 785-793";
 const COOPER_VALIDITY: &str = "0.001 <= p/p_crit <= 0.9 (from memory, medium confidence); \
-                               0.01 um <= roughness_Rp <= 20 um (our bound against unit slips, not published)";
+                               0.01 um <= roughness_Rp <= 20 um and 0.001 <= molar_mass <= 1.5 kg/mol (our bounds \
+                               against unit slips, not published)";
 const COOPER_VERIFICATION: &str = "form: secondary source (CalebBell/ht, a handbook example reproduced in the tests); \
                                    original not read";
 
@@ -275,9 +277,17 @@ const COOPER_VERIFICATION: &str = "form: secondary source (CalebBell/ht, a handb
 /// µm (1.0 read as 1 m) or in nm is reported rather than extrapolated silently.
 pub const COOPER_RP_BAND: (f64, f64) = (1e-8, 2e-5);
 
+/// Molar-mass band flagged by the Cooper kernels [kg/mol]: not a published limit but ours, from
+/// below hydrogen (2.016 g/mol) to above the heaviest dielectric coolants boiled in immersion
+/// cooling (about 0.65 kg/mol), so that a molar mass entered in g/mol is reported rather than
+/// used silently (water's 18.015 read as kg/mol gives a heat flux 3e-5 times too small).
+pub const COOPER_M_BAND: (f64, f64) = (1e-3, 1.5);
+
 #[inline(always)]
 fn cooper_in_range(x: &[f64; 5]) -> bool {
-    (0.001..=0.9).contains(&(x[1] / x[2])) & (COOPER_RP_BAND.0..=COOPER_RP_BAND.1).contains(&x[4])
+    (0.001..=0.9).contains(&(x[1] / x[2]))
+        & (COOPER_RP_BAND.0..=COOPER_RP_BAND.1).contains(&x[4])
+        & (COOPER_M_BAND.0..=COOPER_M_BAND.1).contains(&x[3])
 }
 
 /// Kernel of [`cooper`].

@@ -150,6 +150,20 @@ def test_cooper_flags_a_roughness_typed_in_micrometres(water):
         cooper_superheat(1e5, water, roughness_Rp=np.array([1e-6, 1.0, 1e-7]))
 
 
+def test_cooper_flags_a_molar_mass_typed_in_grams_per_mole(water):
+    # our bound, not a published one (boiling.cooper docstring): M outside 0.001-1.5 kg/mol is
+    # reported, so water's 18.015 g/mol read as kg/mol (a flux 3e-5 times too small) is not silent
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        cooper(10.0, water.replace(molar_mass=0.018015))
+        cooper(10.0, water.replace(molar_mass=0.338))  # a perfluorocarbon coolant's order of magnitude
+    for m in (18.015, 2e-4):
+        with pytest.warns(wetboil.RangeWarning, match="boiling.cooper: 1 of 1"):
+            cooper(10.0, water.replace(molar_mass=m))
+        with pytest.warns(wetboil.RangeWarning, match="boiling.cooper_superheat: 1 of 1"):
+            cooper_superheat(1e5, water.replace(molar_mass=m))
+
+
 def test_cooper_pressure_trend_and_form():
     # h = 55 p_r^0.12 (-log10 p_r)^-0.55 M^-0.5 q^0.67 at R_p = 1 um, rebuilt
     # term by term (units: M in kg/kmol); one fluid at two reduced pressures.

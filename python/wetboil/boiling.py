@@ -186,6 +186,8 @@ def cooper(wall_superheat: Any, fluid: Saturation, roughness_Rp: Any = 1e-6) -> 
         :math:`T_w - T_{sat}` [K], >= 0.
     fluid : Saturation
         Saturated state; uses ``p``, ``p_crit``, ``molar_mass`` [kg/mol].
+        Molar masses outside 0.001-1.5 kg/mol are flagged (`RangeWarning`):
+        not a published limit but ours, so that one typed in g/mol is caught.
     roughness_Rp : array_like, optional
         Surface roughness parameter R_p [m] (1 um = 1e-6, Cooper's value
         when unknown). R_p is the old DIN 4762 smoothing depth, not R_a
@@ -201,8 +203,8 @@ def cooper(wall_superheat: Any, fluid: Saturation, roughness_Rp: Any = 1e-6) -> 
     -----
     A reduced-pressure correlation: no surface tension, no contact angle;
     wettability enters only as far as it is reflected in R_p. Validity
-    flagged outside 0.001 <= p_r <= 0.9 [M, med] and for R_p outside
-    0.01-20 um (our bound, see above). Cooper suggested about
+    flagged outside 0.001 <= p_r <= 0.9 [M, med], for R_p outside
+    0.01-20 um and M outside 0.001-1.5 kg/mol (our bounds, see above). Cooper suggested about
     x1.7 for horizontal copper cylinders [M]; not applied. Verification: the
     form is [V2] (CalebBell/ht, citing Cooper 1984; the handbook value it
     quotes is reproduced in the tests); the original was not read.
