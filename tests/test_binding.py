@@ -391,6 +391,10 @@ def test_impossible_elements_nan_and_one_counted_warning():
     assert np.isnan(out[[0, 3]]).all() and np.isfinite(out[[1, 2, 4]]).all()
     # the warning points at the caller, not at wetboil's internals
     assert rec[0].filename == __file__
+    # ... also when wetboil runs part of the call through xarray (sweep's fluid states)
+    with pytest.warns(wetboil.RangeWarning, match="fluids.water_at_pressure") as rec:
+        wetboil.sweep([wetboil.Surface("a (invented)", 30, 40, 20)], "water", p=[21.9e6], heat_flux=3e5)
+    assert [w.filename for w in rec] == [__file__]
     with pytest.warns(wetboil.InvalidValueWarning):
         assert math.isnan(fritz(-1.0, WATER))
     bad = WATER.replace(rho_v=2000.0)

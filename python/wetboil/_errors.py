@@ -123,13 +123,16 @@ class errstate:
 
 
 def _stacklevel() -> int:
-    """Stack level of the first frame outside the wetboil package."""
+    """Stack level of the caller of the outermost wetboil frame: the user's line, also when wetboil
+    runs part of a call through another library (``sweep`` through ``xarray.apply_ufunc``)."""
     frame: Optional[FrameType] = sys._getframe(1)
-    level = 1
-    while frame is not None and frame.f_globals.get("__name__", "").startswith("wetboil"):
+    level, outermost = 1, 1
+    while frame is not None:
+        if frame.f_globals.get("__name__", "").startswith("wetboil"):
+            outermost = level
         frame = frame.f_back
         level += 1
-    return level
+    return outermost + 1
 
 
 def report(function: str, size: int, invalid: int, out_of_range: int) -> None:

@@ -458,7 +458,8 @@ def sweep(
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
         water above 0.997 T_crit). Flagged points give no warnings (the masks
-        record them); under ``wetboil.errstate(invalid="raise")`` or
+        record them), except the fluid layer's one warning per call for
+        states that are impossible or outside its range; under ``wetboil.errstate(invalid="raise")`` or
         ``(out_of_range="raise")`` a computed sweep with points of that kind
         raises instead.
 
