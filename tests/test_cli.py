@@ -126,6 +126,10 @@ def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
     (("chunks = 4", "chunkz = 4"), r"study.toml:9: unknown key 'chunkz' in \[study\]"),
     (('fluid = "water"', 'fluid = "Unobtainium"'), r"study.toml:4: \[study\] unknown fluid 'Unobtainium'"),
     (("orientations_deg = [0.0, 90.0]", "orientations_deg = []"), r"study.toml:7: \[study\] orientations_deg is empty"),
+    (("orientations_deg = [0.0, 90.0]", "orientations_deg = [0.0, 200.0]"),
+     r"study.toml:7: \[study\] orientations_deg must lie in 0-180"),
+    (("orientations_deg = [0.0, 90.0]", "orientations_deg = [0.0, 90.0]\nsubcoolings_K = [0.0, -5.0]"),
+     r"study.toml:8: \[study\] subcoolings_K must be zero or positive"),
     (("advancing_deg = 70.0", "advancing_deg = 30.0"), r"advancing angle 30 deg is below the receding angle 40"),
     (('onset = "kandlikar"', 'onset = "guess"'), r"study.toml:\d+: \[methods\] onset: unknown method 'guess'"),
     # kPa written as Pa: below the triple point (611.657 Pa, IAPWS R14-08(2011))

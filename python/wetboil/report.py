@@ -144,6 +144,15 @@ def load_spec(path: Any) -> Study:
     fluxes = [float(v) for v in study["heat_fluxes_W_m2"]]
     if any(q <= 0 for q in fluxes):
         raise fail("heat_fluxes_W_m2", "[study] heat_fluxes_W_m2 must be positive", "study")
+    # a heater's orientation is 0 (facing up) to 180 deg (facing down); a negative subcooling is a
+    # superheated pool, which no correlation of the chain describes
+    orientations = [float(v) for v in study.get("orientations_deg", [0.0])]
+    if any(not 0.0 <= v <= 180.0 for v in orientations):
+        raise fail("orientations_deg", "[study] orientations_deg must lie in 0-180 (0 facing up, 90 vertical, "
+                                       "180 facing down)", "study")
+    subcoolings = [float(v) for v in study.get("subcoolings_K", [0.0])]
+    if any(v < 0.0 for v in subcoolings):
+        raise fail("subcoolings_K", "[study] subcoolings_K must be zero or positive [K]", "study")
     if fluid.lower() != "water":
         try:
             import CoolProp.CoolProp as CP
@@ -200,8 +209,8 @@ def load_spec(path: Any) -> Study:
         raise fail("onset", f"[methods] {problem}", "methods")
     return Study(
         title=study.get("title", path.stem), fluid=fluid, axis=axis, states=states, heat_fluxes=fluxes,
-        orientations=[float(v) for v in study.get("orientations_deg", [0.0])],
-        subcoolings=[float(v) for v in study.get("subcoolings_K", [0.0])],
+        orientations=orientations,
+        subcoolings=subcoolings,
         methods=methods, surfaces=surfaces, chunks=chunks,
         meta={k: study[k] for k in ("lab", "product") if k in study},
     )
