@@ -305,6 +305,8 @@ def test_film_boiling_form(water):
         film_boiling(dt, water, "cone", D)
     with pytest.raises(ValueError, match="needs diameter"):
         film_boiling(dt, water, "cylinder")
+    with pytest.raises(ValueError, match="diameter is used by the cylinder and sphere geometries only"):
+        film_boiling(dt, water, "flat_plate", diameter=0.01)  # was silently ignored
 
 
 def test_film_boiling_emissivity_outside_0_to_1_is_impossible(water):

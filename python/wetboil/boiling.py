@@ -463,7 +463,8 @@ def film_boiling(
     geometry : str, optional
         One of `FILM_GEOMETRIES`.
     diameter : array_like, optional
-        Cylinder or sphere diameter [m] (required for those).
+        Cylinder or sphere diameter [m] (required for those; an error for
+        ``"flat_plate"``).
     latent_factor : array_like, optional
         a in :math:`h_{lv} + a\,c_{pv}\Delta T`: 0.4 (Bromley's restatement,
         default) or 0.8 (used by other texts) [M].
@@ -501,6 +502,9 @@ def film_boiling(
     check_choice("boiling.film_boiling", "geometry", geometry, FILM_GEOMETRIES)
     constant = FILM_GEOMETRIES[geometry][0]
     if geometry == "flat_plate":
+        if diameter is not None:
+            raise WetboilValueError("boiling.film_boiling: diameter is used by the cylinder and sphere geometries "
+                                    "only, not by 'flat_plate' (Berenson's length is the capillary length)")
         g = _chf._real("boiling.film_boiling", "g", g)
         try:
             length = (fluid.sigma / (g * (fluid.rho_l - fluid.rho_v))) ** 0.5
