@@ -45,6 +45,22 @@ def test_against_iapws95_from_coolprop_over_the_range():
         assert err < tol, f"{f}: worst relative error {err:.2e} (CoolProp {CP.get_global_param_string('version')})"
 
 
+def test_near_critical_band_holds_its_documented_accuracy():
+    # fluids.water docstring: from 0.97 to 0.997 T_crit, unflagged, within these bounds against
+    # IAPWS-95 (CoolProp); the reference values are CoolProp's, the bounds our measured worst cases
+    # rounded up
+    bound = {"p": 1e-4, "rho_l": 3e-4, "rho_v": 6e-4, "h_lv": 7e-4, "cp_l": 4e-3, "k_l": 6e-4, "mu_l": 3e-4,
+             "cp_v": 7e-3, "k_v": 3e-3, "mu_v": 4e-4}
+    T = np.linspace(0.97 * 647.096, 645.15, 120)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        ours = water(T=T)
+    ref = coolprop_sat(T)
+    for f, tol in bound.items():
+        err = np.max(np.abs(getattr(ours, f) / ref[f] - 1.0))
+        assert err < tol, f"{f}: worst relative error {err:.2e}"
+
+
 def test_against_the_iapws_package():
     # iapws (J.J. Gomez Romera) IAPWS95 class: an independent implementation
     # of the same formulation, including its transport properties.
