@@ -65,6 +65,21 @@ def test_mixed_dataarray_and_ndarray():
     np.testing.assert_allclose(out.values, fritz(np.linspace(0, 90, 5), WATER))
 
 
+def test_shapes_that_do_not_line_up_are_a_wetboil_error_naming_the_arguments():
+    # contract (README): shapes that do not broadcast raise a WetboilValueError (a ValueError) naming
+    # the arguments; with xarray inputs too, not NumPy's or xarray's own error
+    theta = xr.DataArray([30.0, 60.0], dims="angle")
+    with pytest.raises(wetboil.WetboilValueError, match=r"departure.fritz: argument shapes do not broadcast: "
+                                                        r"contact_angle_deg \{'angle': 2\}, .*, g \(3,\)"):
+        fritz(theta, WATER, np.full(3, 9.80665))
+    with pytest.raises(wetboil.WetboilValueError, match=r"sigma_sl \{'angle': 3\}.*AlignmentError"):
+        wetboil.wetting.young_angle(xr.DataArray([0.04, 0.05], dims="angle"),
+                                    xr.DataArray([0.01, 0.02, 0.03], dims="angle"), 0.0728)
+    # errors of the kernels themselves pass through unchanged
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError, match="departure.fritz: 1 of 2"):
+        fritz(xr.DataArray([30.0, -1.0], dims="angle"), WATER)
+
+
 def test_dask_stays_lazy_and_matches():
     x = da.from_array(np.linspace(0, 90, 100_001), chunks=20_000)
     lazy = fritz(x, WATER)

@@ -35,7 +35,7 @@ from typing import Any, Callable, Dict, Iterator, Mapping, NamedTuple, Optional,
 import numpy as np
 
 from . import _core
-from ._errors import WetboilTypeError, WetboilValueError, report
+from ._errors import WetboilError, WetboilTypeError, WetboilValueError, report
 
 __all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads", "set_buffer_cache", "buffer_cache_info",
            "ufunc_of", "model_of", "validity", "VALIDITY_CODES"]
@@ -518,7 +518,15 @@ def _dispatch(spec: _Spec, inputs: list, func: Callable[..., Any], dtypes: list,
         kwargs: Dict[str, Any] = dict(dask="parallelized", output_dtypes=dtypes)
         if n_out > 1:
             kwargs["output_core_dims"] = [[] for _ in range(n_out)]
-        outs = xr.apply_ufunc(func, *inputs, **kwargs)
+        try:
+            outs = xr.apply_ufunc(func, *inputs, **kwargs)
+        except WetboilError:
+            raise
+        except ValueError as exc:  # NumPy's broadcast error, xarray's AlignmentError (sizes of one dimension)
+            described = ", ".join(
+                f"{lab} {dict(x.sizes)}" if _is_xarray(x) else f"{lab} {_shape(x)}" for lab, x in zip(spec.labels, inputs))
+            raise WetboilValueError(f"{spec.function}: argument shapes do not broadcast: {described} "
+                                    f"({type(exc).__name__}: {exc})") from None
         units = {o.name: o.unit for o in spec.model.outputs}
 
         def labelled(o: Any, name: str) -> Any:
