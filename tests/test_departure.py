@@ -376,6 +376,24 @@ def test_impossible_elements_are_nan_with_one_warning(water, case, n_bad):
     assert np.isnan(values).sum() == n_bad
 
 
+def test_a_list_of_methods_is_one_call_with_one_warning_per_category(water):
+    # contract (README: one warning per call, with the count): each part names its method and the
+    # correlation that counted; strict mode raises at the first
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        d = diameter([-1.0, 30.0, 120.0], water, method=["fritz", "kocamustafaogullari_ishii", "fritz_jakob"])
+        f = frequency([-1.0, 1e-3], water, method=["cole", "zuber", "ivey"])
+    assert [w.category for w in rec] == [wetboil.InvalidValueWarning, wetboil.RangeWarning,
+                                         wetboil.InvalidValueWarning]
+    first = str(rec[0].message)
+    assert first.startswith("departure.diameter: method 'fritz' (departure.fritz): 1 of 3")
+    assert "method 'fritz_jakob' (departure.fritz): 1 of 3" in first
+    assert str(rec[2].message).startswith("departure.frequency: method 'cole': 1 of 2")
+    assert np.isnan(d.values[:, 0]).all() and np.isnan(f.values[:, 0]).all()
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError, match="departure.fritz: 1 of 3"):
+        diameter([-1.0, 30.0, 120.0], water, method=["fritz", "kocamustafaogullari_ishii"])
+
+
 def test_nan_input_propagates_silently(water):
     with warnings.catch_warnings():
         warnings.simplefilter("error")

@@ -7,7 +7,7 @@ import functools
 import sys
 import warnings
 from types import FrameType
-from typing import Any, Callable, Literal, NamedTuple, Optional, TypeVar
+from typing import Any, Callable, Literal, NamedTuple, Optional, Sequence, TypeVar
 
 _F = TypeVar("_F", bound=Callable[..., Any])
 
@@ -163,6 +163,31 @@ def _warn(msg: str, category: type) -> None:
         gathered.append((category, msg))
     else:
         warnings.warn(msg, category, stacklevel=_stacklevel())
+
+
+def each_method(function: str, methods: Sequence[str], one: Callable[[str], Any]) -> list:
+    """``[one(m) for m in methods]`` for a public function given a list of methods, as one call: the
+    element warnings of all methods are given as at most one warning per category, each part naming
+    its method and the correlation that counted (``"departure.diameter: method 'fritz_jakob'
+    (departure.fritz): 1 of 3 element(s) ..."``). Under ``errstate(...="raise")`` the first raises."""
+    results: list = []
+    parts: dict = {}
+    try:
+        for m in methods:
+            gathered: list = []
+            token = _GATHER.set(gathered)
+            try:
+                results.append(one(m))
+            finally:
+                _GATHER.reset(token)
+                for category, msg in gathered:
+                    source, sep, rest = msg.partition(": ")
+                    label = f"method {m!r}" if not sep or source == function else f"method {m!r} ({source})"
+                    parts.setdefault(category, []).append(f"{label}: {rest}" if sep else f"{label}: {msg}")
+    finally:
+        for category, messages in parts.items():
+            _warn(f"{function}: {'; '.join(messages)}", category)
+    return results
 
 
 def one_warning_per_category(function: str) -> Callable[[_F], _F]:

@@ -21,7 +21,7 @@ from typing import Any, Dict, NamedTuple, Sequence, Tuple
 import numpy as np
 
 from ._api import check_choice, kernel
-from ._errors import WetboilTypeError, WetboilValueError
+from ._errors import WetboilTypeError, WetboilValueError, each_method
 from .fluids import Saturation, _is_water
 
 __all__ = [
@@ -662,8 +662,10 @@ def frequency(diameter: Any, fluid: Saturation, method: Any = "zuber", g: Any = 
             f"departure.frequency: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}"
         )
     names, stacked = _methods("departure.frequency", method, FREQUENCY_METHODS)
-    results = [_frequency_one(m, diameter, fluid, g) for m in names]
-    return _stack(results, names, "frequency", "Hz") if stacked else results[0]
+    if not stacked:
+        return _frequency_one(names[0], diameter, fluid, g)
+    results = each_method("departure.frequency", names, lambda m: _frequency_one(m, diameter, fluid, g))
+    return _stack(results, names, "frequency", "Hz")
 
 
 # --------------------------------------------------------------------------- waiting time
@@ -855,5 +857,7 @@ def diameter(contact_angle_deg: Any, fluid: Saturation, method: Any = "fritz", *
             f"departure.diameter: model input(s) {unknown} not taken by method(s) {names}; "
             + "; ".join(f"{m} takes {', '.join(_ACCEPTS[m])}" for m in names)
         )
-    results = [_diameter_one(m, contact_angle_deg, fluid, model_inputs) for m in names]
-    return _stack(results, names, "departure_diameter", "m") if stacked else results[0]
+    if not stacked:
+        return _diameter_one(names[0], contact_angle_deg, fluid, model_inputs)
+    results = each_method("departure.diameter", names, lambda m: _diameter_one(m, contact_angle_deg, fluid, model_inputs))
+    return _stack(results, names, "departure_diameter", "m")
