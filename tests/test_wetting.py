@@ -231,6 +231,18 @@ def test_negative_root_is_constrained_to_zero():
     assert s.dispersive > 0
 
 
+def test_a_spreading_probe_liquid_is_reported():
+    # Young's equation holds only as an inequality at 0 deg (a liquid spreads on any solid of high
+    # enough energy): the surface's result is computed but reported, once per call with the count
+    # of such surfaces; angles above 0 are not
+    with pytest.warns(wetboil.RangeWarning, match=r"0 deg spreads.*surfaces: 1 of 2 element"):
+        s = surface_energy([[0.0, 20.0], [70.0, 40.0]], ["water", "diiodomethane"])
+    assert np.isfinite(s.total).all()
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        surface_energy([0.5, 20.0], ["water", "diiodomethane"])
+
+
 def test_predict_angle_of_the_working_fluid():
     # Water at saturation, 1 atm: its surface tension (58.9 mN/m) split like
     # water at 20 C. Lower surface tension, lower angle on the same solid.

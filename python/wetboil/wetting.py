@@ -657,7 +657,13 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
 
     Angles outside 0-180 make that surface's result NaN, with one
     `InvalidValueWarning` per call. NaN angles (missing data) give NaN
-    silently.
+    silently. A liquid at exactly 0 deg spreads: Young's equation holds
+    only as an inequality there (the angle says only that the solid's
+    energy is high enough for it to spread), so that surface's result is
+    computed at the limit of complete wetting, not fitted, and reported
+    with a `RangeWarning`. Prefer probe liquids that bead up; Zisman's
+    `critical_surface_tension` likewise leaves spreading liquids out of
+    its fit.
 
     The probe-liquid components matter: water 21.8/51.0 with diiodomethane
     50.8/0 (``"default"``) or 49.5/1.3 (``"owens_wendt_1969"``) give
@@ -708,6 +714,13 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
     if bad.any():
         report(function, int(theta.size), int(bad.sum()), 0)
     row_bad = bad.any(axis=-1)
+    # A liquid at 0 deg spreads: Young's equation then holds only as an inequality (its work of
+    # adhesion is at least 2 sigma_lv), so the angle says only that the solid's energy is high enough.
+    spread = (theta == 0.0).any(axis=-1) & ~row_bad
+    if spread.any():
+        report(f"{function}: a probe liquid at 0 deg spreads, where Young's equation is only an inequality "
+               "(the result is computed at the limit of complete wetting, not fitted); surfaces",
+               int(spread.size), 0, int(spread.sum()))
 
     b = (d + p) * (1.0 + np.cos(np.radians(theta))) / 2.0  # (..., n)
     # Unconstrained least squares (exact for n = 2).
