@@ -165,28 +165,47 @@ def _warn(msg: str, category: type) -> None:
         warnings.warn(msg, category, stacklevel=_stacklevel())
 
 
+def _gathered(parts: dict, label: Callable[[str], str], run: Callable[[], Any]) -> Any:
+    """``run()`` with the element warnings it reports gathered into `parts` (category -> messages),
+    each message passed through `label`."""
+    gathered: list = []
+    token = _GATHER.set(gathered)
+    try:
+        return run()
+    finally:
+        _GATHER.reset(token)
+        for category, msg in gathered:
+            parts.setdefault(category, []).append(label(msg))
+
+
+def _give(function: str, parts: dict) -> None:
+    """One warning per category of the gathered `parts`, naming `function`."""
+    for category, messages in parts.items():
+        _warn(f"{function}: {'; '.join(messages)}", category)
+
+
 def each_method(function: str, methods: Sequence[str], one: Callable[[str], Any]) -> list:
     """``[one(m) for m in methods]`` for a public function given a list of methods, as one call: the
     element warnings of all methods are given as at most one warning per category, each part naming
     its method and the correlation that counted (``"departure.diameter: method 'fritz_jakob'
     (departure.fritz): 1 of 3 element(s) ..."``). Under ``errstate(...="raise")`` the first raises."""
+
+    def labelled(m: str) -> Callable[[str], str]:
+        def label(msg: str) -> str:
+            source, sep, rest = msg.partition(": ")
+            if not sep:
+                return f"method {m!r}: {msg}"
+            return f"method {m!r}: {rest}" if source == function else f"method {m!r} ({source}): {rest}"
+
+        return label
+
     results: list = []
     parts: dict = {}
     try:
         for m in methods:
-            gathered: list = []
-            token = _GATHER.set(gathered)
-            try:
-                results.append(one(m))
-            finally:
-                _GATHER.reset(token)
-                for category, msg in gathered:
-                    source, sep, rest = msg.partition(": ")
-                    label = f"method {m!r}" if not sep or source == function else f"method {m!r} ({source})"
-                    parts.setdefault(category, []).append(f"{label}: {rest}" if sep else f"{label}: {msg}")
+            results.append(_gathered(parts, labelled(m), lambda: one(m)))
     finally:
-        for category, messages in parts.items():
-            _warn(f"{function}: {'; '.join(messages)}", category)
+        _give(function, parts)
     return results
 
 
@@ -197,22 +216,19 @@ def one_warning_per_category(function: str) -> Callable[[_F], _F]:
     when the call ends in an exception. The gathering is a context variable that `report` reads (per
     thread and task; the process-wide warning filters are not touched), so other warnings and other
     threads' calls are unaffected; under ``errstate(...="raise")`` the first part raises."""
+    own = f"{function}: "  # the function's own reports name it already (for the raising case)
+
+    def label(msg: str) -> str:
+        return msg[len(own):] if msg.startswith(own) else msg
 
     def decorate(f: _F) -> _F:
         @functools.wraps(f)
         def wrapper(*args: Any, **kwargs: Any) -> Any:
-            gathered: list = []
-            token = _GATHER.set(gathered)
+            parts: dict = {}
             try:
-                return f(*args, **kwargs)
+                return _gathered(parts, label, lambda: f(*args, **kwargs))
             finally:
-                _GATHER.reset(token)
-                parts: dict = {}
-                own = f"{function}: "  # the function's own reports name it already (for the raising case)
-                for category, msg in gathered:
-                    parts.setdefault(category, []).append(msg[len(own):] if msg.startswith(own) else msg)
-                for category, messages in parts.items():
-                    _warn(f"{function}: {'; '.join(messages)}", category)
+                _give(function, parts)
 
         return wrapper  # type: ignore[return-value]
 
