@@ -385,10 +385,43 @@ def test_ranking_puts_a_surface_without_chf_somewhere_after_the_others():
     summary = pd.DataFrame({
         "surface": ["a", "a", "b", "b", "c", "c"],
         "chf_margin [-]": [4.0, np.nan, 2.0, 3.0, 0.8, 1.5],
-        "flags": [np.nan, "chf_kandlikar", "", np.nan, "", ""],  # empty: as screen() gives, NaN: as read_csv
+        # empty: as screen() gives, NaN: as read_csv
+        "flags": [np.nan, "chf_kandlikar, chf, chf_margin", "", np.nan, "", ""],
     })
     r = margin_ranking(summary)
     assert list(r.index) == ["b", "c", "a"]
     assert list(r["no_chf"]) == [0, 0, 1] and list(r["flagged"]) == [0, 0, 1]
     assert margin_text(r.loc["a"]) == "4.00; no CHF prediction at 1 of 2 points"
     assert margin_text(r.loc["c"]).startswith("0.80 (below 1: design flux above the predicted CHF)")
+
+
+def test_auto_nucleate_points_carry_the_flags_of_the_method_they_use():
+    """Each point of "nucleate": "auto" keeps the validity of the correlation that computed it:
+    Cooper's range (p_r >= 0.001, as `cooper_superheat` documents) must not flag a surface that has a
+    C_sf and is computed with Rohsenow. Reference: the public functions' own `wetboil.validity`."""
+    with_csf = Surface("bare (invented)", 78, 88, 52, C_sf=0.013)
+    without = Surface("oxidised (invented)", 24, 33, 11)
+    ds = wetboil.sweep([with_csf, without], "water", p=2e3, heat_flux=1e5)  # water at 2 kPa: p_r = 9e-5
+    bit = ds["range_flags"].attrs["bits"].split(",").index("nucleate_superheat")
+    flagged = (ds["range_flags"] >> bit) & 1
+    w = water(p=2e3)
+    assert int(wetboil.validity(rohsenow_superheat, 1e5, w, 0.013, 1.0)) == 0
+    assert int(wetboil.validity(cooper_superheat, 1e5, w, 1e-6)) == 2  # 2: outside its published range
+    assert int(flagged.sel(surface="bare (invented)").max()) == 0
+    assert int(flagged.sel(surface="oxidised (invented)").min()) == 1
+    with wetboil.errstate(out_of_range="raise"):  # the Rohsenow surface alone has nothing to raise for
+        wetboil.sweep(with_csf, "water", p=2e3, heat_flux=1e5)
+
+
+def test_ranking_counts_flags_of_design_quantities_only():
+    """A comparison-only CHF method flagged on a row (Zuber's flat-plate form off horizontal) does
+    not make the row flagged in the ranking; the design quantities' flags do."""
+    from wetboil.report import margin_ranking
+
+    summary = pd.DataFrame({
+        "surface": ["a", "a", "b", "b"],
+        "chf_margin [-]": [2.0, 3.0, 2.0, 3.0],
+        "flags": ["chf_zuber", "", "chf_kandlikar, chf, chf_margin", "departure_diameter, chf_zuber"],
+    })
+    r = margin_ranking(summary)
+    assert r.loc["a", "flagged"] == 0 and r.loc["b", "flagged"] == 2

@@ -366,12 +366,20 @@ _METHOD_KERNELS = {
 }
 
 
+def _design_flagged(flags: str) -> bool:
+    """Whether a row's ``flags`` text names a design quantity: any but the
+    per-method ``chf_<method>`` columns kept for comparison."""
+    return any(n and not (n.startswith("chf_") and n != "chf_margin") for n in flags.split(", "))
+
+
 def margin_ranking(summary: Any) -> Any:
     """Per surface of a `summary.csv` table (as `wetboil.screen` returns it):
     the lowest CHF margin over the operating points that have a CHF
     prediction (``lowest_margin``), the points that have none (``no_chf``:
-    NaN, e.g. Kandlikar facing down or an impossible input), the rows with a
-    validity flag (``flagged``) and the points (``points``). Ranked best
+    NaN, e.g. Kandlikar facing down or an impossible input), the rows where a
+    design quantity carries a validity flag (``flagged``: the comparison-only
+    ``chf_<method>`` columns do not count; the design method's flag is on
+    ``chf``) and the points (``points``). Ranked best
     first; a surface without a prediction at some point comes after every
     surface predicted everywhere, since its worst point is unknown."""
     import pandas as pd
@@ -380,7 +388,7 @@ def margin_ranking(summary: Any) -> Any:
     table = pd.DataFrame({
         "lowest_margin": g["chf_margin [-]"].min(),
         "no_chf": g["chf_margin [-]"].apply(lambda s: int(s.isna().sum())),
-        "flagged": g["flags"].apply(lambda s: int((s.fillna("").astype(str) != "").sum())),
+        "flagged": g["flags"].apply(lambda s: int(s.fillna("").astype(str).map(_design_flagged).sum())),
         "points": g.size(),
     })
     order = table.assign(gap=table["no_chf"] > 0).sort_values(["gap", "lowest_margin"], ascending=[True, False],
@@ -463,7 +471,7 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
     lines += ["", "## Methods and references", ""] + _references(study)
     lines += ["", "## Ranking (best worst-case CHF margin first)", ""]
     ranking = margin_ranking(summary)
-    lines += ["| surface | lowest CHF margin over the operating points | rows flagged |", "|---|---|---|"]
+    lines += ["| surface | lowest CHF margin over the operating points | rows with a design quantity flagged |", "|---|---|---|"]
     lines += [f"| {name} | {margin_text(r)} | {int(r['flagged'])} of {int(r['points'])} |"
               for name, r in ranking.iterrows()]
     lines += ["", "Full table: `summary.csv` (one row per surface and operating point); all quantities: `sweep.nc`.",

@@ -77,6 +77,10 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
 #: its own validity range (water above 0.997 T_crit).
 STATE_FLAG = "fluid_state"
 
+#: C_sf for "nucleate": "rohsenow" on a surface that gives none: the default of
+#: `wetboil.boiling.rohsenow_superheat` (water on polished copper).
+_C_SF_DEFAULT = 0.013
+
 
 def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
     out = dict(DEFAULT_METHODS)
@@ -304,18 +308,26 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     else:  # Bergles-Rohsenow: a fit of the onset superheat, with no nucleus and so no radius
         res.add("onset_cavity_radius", math.nan, False, False, uses_state=False)
 
-    def nucleate() -> Any:
-        m = methods["nucleate"]
-        c_sf = inputs["C_sf"]
-        by_cooper = boiling.cooper_superheat(q, fluid, inputs["Rp"]) if m in ("auto", "cooper") else None
-        if m == "cooper":
-            return by_cooper
-        by_rohsenow = boiling.rohsenow_superheat(q, fluid, np.where(np.isnan(c_sf), 0.013, c_sf), inputs["n"])
-        if m == "rohsenow":
-            return by_rohsenow
-        return np.where(np.isnan(c_sf), by_cooper, by_rohsenow)
-
-    dtw = run("nucleate_superheat", nucleate)
+    # nucleate superheat: each method's value and flags, and with "auto" each point keeps those of
+    # the method it uses (Cooper where the surface has no C_sf, Rohsenow elsewhere)
+    nucleate = {}
+    c_sf = inputs["C_sf"]
+    if methods["nucleate"] in ("auto", "cooper"):
+        with capture_validity() as cap:
+            nucleate["cooper"] = (boiling.cooper_superheat(q, fluid, inputs["Rp"]), cap)
+    if methods["nucleate"] in ("auto", "rohsenow"):
+        with capture_validity() as cap:
+            value = boiling.rohsenow_superheat(q, fluid, np.where(np.isnan(c_sf), _C_SF_DEFAULT, c_sf),
+                                               inputs["n"])
+        nucleate["rohsenow"] = (value, cap)
+    if methods["nucleate"] == "auto":
+        by_cooper = np.isnan(c_sf)
+        (vc, cc), (vr, cr) = nucleate["cooper"], nucleate["rohsenow"]
+        dtw = res.add("nucleate_superheat", np.where(by_cooper, vc, vr), np.where(by_cooper, cc.invalid, cr.invalid),
+                      np.where(by_cooper, cc.out_of_range, cr.out_of_range))
+    else:
+        value, cap = nucleate[methods["nucleate"]]
+        dtw = res.add("nucleate_superheat", value, cap.invalid, cap.out_of_range)
     # linear thermal layer carrying the design flux: delta = k_l (dT_w + dT_sub) / q
     delta = fluid.k_l * (dtw + sub) / q
     with capture_validity() as cap:
@@ -430,7 +442,10 @@ def sweep(
         method is the design method behind ``chf`` and ``chf_margin``; every
         selected method also gets its own ``chf_<method>`` variable to compare
         against. With "nucleate": "auto", Rohsenow is used where the surface
-        has a C_sf and Cooper elsewhere. Onset uses the static angle, or the
+        has a C_sf and Cooper elsewhere (each point carries the flags of the
+        method it used); with "rohsenow", a surface without a C_sf takes
+        0.013 (`wetboil.boiling.rohsenow_superheat`'s default, water on
+        polished copper). Onset uses the static angle, or the
         receding angle for "kandlikar"; departure uses the static angle; CHF
         (Kandlikar) the receding angle. Onset "bergles_rohsenow" is a fit of
         the onset superheat for water with no nucleus: ``onset_cavity_radius``
