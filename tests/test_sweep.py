@@ -425,3 +425,18 @@ def test_ranking_counts_flags_of_design_quantities_only():
     })
     r = margin_ranking(summary)
     assert r.loc["a", "flagged"] == 0 and r.loc["b", "flagged"] == 2
+
+
+def test_lazy_sweep_keeps_the_strict_policy_of_the_call_that_built_it():
+    """Behavioural contract (README: a lazy result keeps the errstate of the call that built it):
+    a sweep built lazily under errstate(out_of_range="raise") raises when computed, wherever it is
+    computed; one built under the default policy does not, even if computed under "raise"."""
+    with wetboil.errstate(out_of_range="raise"):
+        lazy = wetboil.sweep(SURFACES[:1], "water", p=[1e5, 2e5], heat_flux=3e5, orientation_deg=[0.0, 120.0],
+                             chunks=1, compute=False)
+    with pytest.raises(wetboil.OutOfRangeError, match="chf_kandlikar"):
+        lazy.compute()
+    lazy = wetboil.sweep(SURFACES[:1], "water", p=[1e5, 2e5], heat_flux=3e5, orientation_deg=[0.0, 120.0],
+                         chunks=1, compute=False)
+    with wetboil.errstate(out_of_range="raise"):
+        assert int(lazy.compute()["range_flags"].max()) > 0

@@ -28,7 +28,7 @@ import numpy as np
 
 from . import boiling, chf, departure, nucleation
 from ._api import capture_validity, kernel
-from ._errors import WetboilError, WetboilTypeError, WetboilValueError, errstate
+from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation, from_coolprop, water
 from .surface import Surface
 
@@ -359,9 +359,11 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     return res
 
 
-def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str]) -> Any:
+def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], strict: Any = None) -> Any:
     """Evaluate the chain on one block of the broadcast input Dataset (NumPy
-    data); module-level so that dask can ship it to workers."""
+    data); module-level so that dask can ship it to workers. `strict`: the
+    element policy of the call that built a lazy sweep, applied to the block
+    when it is computed."""
     import xarray as xr
 
     arrays = {k: ds[k].values for k in ds.data_vars}
@@ -375,7 +377,10 @@ def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str]) -> Any:
         data[name] = (dims, np.ascontiguousarray(np.broadcast_to(np.asarray(value, float), shape)))
     data["invalid_flags"] = (dims, res.invalid)
     data["range_flags"] = (dims, res.out_of_range)
-    return xr.Dataset(data, coords=ds.coords)
+    out = xr.Dataset(data, coords=ds.coords)
+    if strict is not None:
+        _strict(out, strict, list(res.values) + [STATE_FLAG], where=" of a block")
+    return out
 
 
 _FLUID_FIELDS = ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
@@ -476,7 +481,8 @@ def sweep(
         record them), except the fluid layer's one warning per call for
         states that are impossible or outside its range; under ``wetboil.errstate(invalid="raise")`` or
         ``(out_of_range="raise")`` a computed sweep with points of that kind
-        raises instead.
+        raises instead; a lazy one (``compute=False``) keeps that policy and
+        raises when a block with such points is computed.
 
     Examples
     --------
@@ -524,7 +530,9 @@ def sweep(
     if chunks is not None:
         ds_in = ds_in.chunk(chunks if isinstance(chunks, Mapping) else {d: chunks for d in order})
         template = _template(ds_in, meth, order)
-        result = xr.map_blocks(_block, ds_in, args=(meth, states.name), template=template)
+        # a lazy result keeps the element policy of this call, as lazy kernel calls do
+        lazy_policy = None if compute or "raise" not in _STATE.get() else _STATE.get()
+        result = xr.map_blocks(_block, ds_in, args=(meth, states.name, lazy_policy), template=template)
         if compute:
             if progress:
                 result = _compute_with_progress(result)
@@ -534,28 +542,28 @@ def sweep(
         result = _block(ds_in.compute(), meth, states.name)
     result = _decorate(result, meth, state_dim)
     if chunks is None or compute:
-        _strict(result)
+        _strict(result, _STATE.get(), result["range_flags"].attrs["bits"].split(","))
     return result
 
 
-def _strict(ds: Any) -> None:
-    """Under ``errstate(invalid="raise")`` or ``(out_of_range="raise")``, raise
-    for a computed sweep with points of that kind instead of returning them
-    flagged (the default records them in the flag masks, without warnings)."""
-    from ._errors import _STATE, InvalidValueError, OutOfRangeError
+def _strict(ds: Any, state: Any, bits: List[str], where: str = "") -> None:
+    """Under ``errstate(invalid="raise")`` or ``(out_of_range="raise")`` (the
+    policy `state`), raise for a computed sweep (or block of one, `where`)
+    with points of that kind instead of returning them flagged (the default
+    records them in the flag masks, without warnings)."""
+    from ._errors import InvalidValueError, OutOfRangeError
 
-    state = _STATE.get()
     for key, action, flags, error, what in (
             ("invalid", state.invalid, "invalid_flags", InvalidValueError, "a physically impossible input (NaN)"),
             ("out_of_range", state.out_of_range, "range_flags", OutOfRangeError,
              "a correlation outside its published validity range")):
-        mask = ds[flags].values
+        mask = np.asarray(ds[flags].values)
         if action != "raise" or not mask.any():
             continue
         seen = int(np.bitwise_or.reduce(mask.ravel()))
-        names = [b for i, b in enumerate(ds[flags].attrs["bits"].split(",")) if seen >> i & 1]
-        raise error(f"sweep: {int(np.count_nonzero(mask))} of {mask.size} points with {what}: {', '.join(names)} "
-                    f"(errstate {key}='raise'; by default they are recorded in {flags})")
+        names = [b for i, b in enumerate(bits) if seen >> i & 1]
+        raise error(f"sweep: {int(np.count_nonzero(mask))} of {mask.size} points{where} with {what}: "
+                    f"{', '.join(names)} (errstate {key}='raise'; by default they are recorded in {flags})")
 
 
 # `wetboil.sweep` names this function (it shadows the module of the same name
