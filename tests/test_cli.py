@@ -240,3 +240,17 @@ def test_failed_run_leaves_no_empty_output_folder(tmp_path, monkeypatch):
     kept.mkdir()
     assert cli.main(["run", str(spec), "--out", str(kept)]) == 1
     assert kept.is_dir()  # a folder the user made is left alone
+
+
+def test_an_output_folder_that_cannot_be_made_is_a_one_line_error(tmp_path, capsys):
+    """Behavioural contract: --out naming a file, or a folder under one, is an error message with
+    exit code 1, not a traceback."""
+    from wetboil import cli
+
+    a_file = tmp_path / "afile"
+    a_file.write_text("not a folder")
+    assert cli.main(["demo", "--out", str(a_file)]) == 1
+    assert "is a file, not a folder" in capsys.readouterr().err
+    assert cli.main(["demo", "--out", str(a_file / "below")]) == 1
+    assert "cannot create the output folder" in capsys.readouterr().err
+    assert a_file.read_text() == "not a folder"

@@ -17,7 +17,7 @@ from typing import Any, List, Optional
 
 import numpy as np
 
-from ._errors import WetboilError
+from ._errors import WetboilError, WetboilValueError
 
 from .report import CAUTION
 
@@ -32,7 +32,12 @@ def _new_out_dir(out: Optional[str], stem: str) -> pathlib.Path:
             path = pathlib.Path(f"{stem}-{stamp}-{i}")
     else:
         path = pathlib.Path(out)
-    path.mkdir(parents=True, exist_ok=True)
+        if path.exists() and not path.is_dir():
+            raise WetboilValueError(f"--out {out}: is a file, not a folder")
+    try:
+        path.mkdir(parents=True, exist_ok=True)
+    except OSError as exc:
+        raise WetboilValueError(f"--out {path}: cannot create the output folder ({exc.strerror or exc})") from None
     return path
 
 
@@ -164,6 +169,9 @@ def main(argv: Optional[List[str]] = None) -> int:
 
         os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
         return 0
+    except OSError as exc:  # a file that cannot be read or written (full disk, permissions, ...)
+        print(f"wetboil: error: {exc}", file=sys.stderr)
+        return 1
 
 
 if __name__ == "__main__":  # pragma: no cover
