@@ -513,3 +513,19 @@ def test_validity_never_emits_numpy_warnings():
                     warnings.simplefilter("error")
                     codes = wetboil.validity(f, **dict(args, **{p: bad}))
                 assert codes.dtype == np.int8 and codes.shape == (5,), case_id
+
+
+def test_python_integers_beyond_int64():
+    """Behavioural contract: an int beyond int64 is converted as float64 does (exactly like
+    float(value)); one beyond float64 is a clear WetboilValueError naming the argument, not a bare
+    OverflowError from the conversion."""
+    import wetboil
+    from wetboil.departure import fritz
+    from wetboil.fluids import water
+
+    w = water(p=101325.0)
+    with pytest.warns(wetboil.InvalidValueWarning):  # an impossible angle: NaN and a warning
+        assert np.isnan(fritz(2**63, w))
+    assert fritz(45, w, g=2**70) == fritz(45.0, w, g=float(2**70))
+    with pytest.raises(wetboil.WetboilValueError, match="contact_angle_deg is an integer beyond the range"):
+        fritz(10**400, w)

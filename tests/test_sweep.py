@@ -91,6 +91,21 @@ def test_bad_input_is_named():
         Surface("x", 25, 20, 30)
     with pytest.raises(ValueError, match="unique"):
         wetboil.sweep([SURFACES[0], SURFACES[0]], "water", p=1e5, heat_flux=3e5)
+    # the axes take the kernels' input checks: None, text and None inside a list are not numbers
+    with pytest.raises(TypeError, match="heat_flux must be a number"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=None)
+    with pytest.raises(TypeError, match="p contains None"):
+        wetboil.sweep(SURFACES, "water", p=[1e5, None], heat_flux=3e5)
+    with pytest.raises(TypeError, match="p must be a number"):
+        wetboil.sweep(SURFACES, "water", p="1e5", heat_flux=3e5)
+    with pytest.raises(TypeError, match="orientation_deg must hold real numbers"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=3e5, orientation_deg=[0.0, "up"])
+    with pytest.raises(TypeError, match="surfaces must be a wetboil.Surface or a sequence"):
+        wetboil.sweep(None, "water", p=1e5, heat_flux=3e5)
+    with pytest.raises(TypeError, match=r"methods\['onset'\] must be a method name"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=3e5, methods={"onset": None})
+    with pytest.raises(ValueError, match="chunks must be a positive integer"):
+        wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=3e5, chunks=0)
 
 
 def test_screen_errors_name_screen():

@@ -198,8 +198,16 @@ def _coerce(function: str, label: str, value: Any) -> Any:
     """Check one kernel input and bring it to a form the ufunc takes."""
     if type(value) is np.ndarray and value.dtype.kind in _NUMERIC_KINDS and value.dtype.itemsize <= 8:
         return value  # the common case, first (the checks below cost microseconds per call)
-    if isinstance(value, float) or (isinstance(value, int) and not isinstance(value, bool)):
+    if isinstance(value, float):
         return value
+    if isinstance(value, int) and not isinstance(value, bool):
+        if -(1 << 63) <= value < 1 << 63:
+            return value
+        try:
+            return float(value)  # beyond int64 the ufunc would not convert it
+        except OverflowError:
+            raise WetboilValueError(f"{function}: {label} is an integer beyond the range of float64 "
+                                    "(about 1.8e308)") from None
     if value is None or isinstance(value, (str, bytes, bool, np.bool_)):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got {type(value).__name__}")
     if isinstance(value, _saturation_type()):
@@ -230,7 +238,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
             raise WetboilTypeError(f"{function}: {label} contains None; use nan for a missing value")
         try:
             return arr.astype(np.float64)
-        except (TypeError, ValueError):
+        except (TypeError, ValueError, OverflowError):
             pass
     raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {arr.dtype}")
 

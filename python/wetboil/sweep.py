@@ -22,12 +22,12 @@ so that a result table can say which rows are extrapolations.
 from __future__ import annotations
 
 import math
-from typing import Any, Dict, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
+from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
 
 import numpy as np
 
 from . import boiling, chf, departure, nucleation
-from ._api import capture_validity, kernel
+from ._api import _coerce, capture_validity, kernel
 from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, errstate
 from .fluids import Saturation, from_coolprop, water
 from .surface import Surface
@@ -91,6 +91,9 @@ def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
     for key, value in methods.items():
         if key not in METHOD_CHOICES:
             raise WetboilValueError(f"methods: unknown key {key!r}; keys are {sorted(METHOD_CHOICES)}")
+        if not isinstance(value, (str, list, tuple)):
+            raise WetboilTypeError(f"methods[{key!r}] must be a method name{' or a list of them' if key == 'chf' else ''}"
+                                   f", got {type(value).__name__}; choices are {METHOD_CHOICES[key]}")
         values = (value,) if isinstance(value, str) else tuple(value)
         if key != "chf" and len(values) != 1:
             raise WetboilValueError(f"methods[{key!r}] takes one method name, got {value!r}")
@@ -163,10 +166,12 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
     return msg
 
 
-def _axis(name: str, values: Any, xr: Any) -> Any:
-    arr = np.atleast_1d(np.asarray(values, dtype=float))
+def _axis(name: str, values: Any, xr: Any, label: str = "") -> Any:
+    """The 1-D axis `name` from the argument `label` (default: `name`)."""
+    label = label or name
+    arr = np.atleast_1d(np.asarray(_coerce("sweep", label, values), dtype=float))  # the kernels' input checks
     if arr.ndim != 1:
-        raise WetboilValueError(f"sweep: {name} must be a number or a 1-D sequence, got shape {arr.shape}")
+        raise WetboilValueError(f"sweep: {label} must be a number or a 1-D sequence, got shape {arr.shape}")
     if arr.size == 0:
         raise WetboilValueError(f"sweep: the {name} axis is empty")
     return xr.DataArray(arr, dims=name, coords={name: arr})
@@ -420,7 +425,9 @@ def sweep(
         ``fluid_state`` bit in ``invalid_flags``, and one warning per call
         from the fluid layer (an error under ``errstate(invalid="raise")``).
     heat_flux : array_like
-        Design wall heat fluxes [W/m2] (the ``heat_flux`` axis).
+        Design wall heat fluxes [W/m2] (the ``heat_flux`` axis), positive: a
+        zero or negative design flux is an error (`WetboilValueError`), not
+        a NaN point, since every margin would divide by it.
     orientation_deg : array_like
         Heater orientations [deg], 0 facing up, 90 vertical (``orientation``).
         Kandlikar's CHF depends on it; the Zuber and Lienhard-Dhir flat-plate
@@ -500,6 +507,9 @@ def sweep(
 
     if isinstance(surfaces, Surface):
         surfaces = [surfaces]
+    if not isinstance(surfaces, Iterable) or isinstance(surfaces, (str, bytes)):
+        raise WetboilTypeError(f"sweep: surfaces must be a wetboil.Surface or a sequence of them, "
+                               f"got {type(surfaces).__name__}")
     surfaces = list(surfaces)
     if not surfaces:
         raise WetboilValueError("sweep: the surface axis is empty")
@@ -514,7 +524,7 @@ def sweep(
     table["fluid_invalid"], table["fluid_out_of_range"] = state_invalid, state_out_of_range
     axes = {
         "heat_flux": _axis("heat_flux", heat_flux, xr),
-        "orientation": _axis("orientation", orientation_deg, xr),
+        "orientation": _axis("orientation", orientation_deg, xr, "orientation_deg"),
         "subcooling": _axis("subcooling", subcooling, xr),
     }
     if (axes["heat_flux"] <= 0).any():
@@ -528,6 +538,11 @@ def sweep(
     ds_in = xr.Dataset(parts)
     ds_in = xr.broadcast(ds_in)[0].transpose(*order)
     if chunks is not None:
+        sizes = list(chunks.values()) if isinstance(chunks, Mapping) else [chunks]
+        if not all(isinstance(c, (int, np.integer)) and not isinstance(c, bool) and (c > 0 or c == -1)
+                   for c in sizes):
+            raise WetboilValueError(f"sweep: chunks must be a positive integer (-1: a whole axis) or a mapping of "
+                                    f"axis names to such integers, got {chunks!r}")
         ds_in = ds_in.chunk(chunks if isinstance(chunks, Mapping) else {d: chunks for d in order})
         template = _template(ds_in, meth, order)
         # a lazy result keeps the element policy of this call, as lazy kernel calls do
