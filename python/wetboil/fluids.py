@@ -432,9 +432,14 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     Notes
     -----
     Accuracy against IAPWS-95 (CoolProp 8 and iapws 1.5, 275 K to 0.97
-    T_crit): p 7e-5, rho_l 3e-6, rho_v 7e-5, h_lv 2e-5, cp_l 1.4e-5, k_l 1.5e-6,
-    mu_l 3.3e-6, cp_v 1.2e-4, k_v 6e-5, mu_v 7e-6 relative at worst; sigma
-    reproduces the R1-76 table. Close to the critical point the residual
+    T_crit), from `T`: p 7e-5, rho_l 3e-6, rho_v 7e-5, h_lv 2e-5, cp_l 1.4e-5,
+    k_l 1.5e-6, mu_l 3.3e-6, cp_v 1.2e-4, k_v 6e-5, mu_v 7e-6 relative at
+    worst; sigma reproduces the R1-76 table. From `p`, the SR1-86 saturation
+    line places T_sat within 1.1 mK of the IAPWS-95 phase equilibrium (worst
+    near 285 K), and the liquid fields follow that offset: rho_l 8e-6, rho_v
+    1.7e-5, h_lv 6e-6, cp_l 3.7e-5, k_l 4.4e-6, mu_l 3.1e-5, cp_v 8.8e-5,
+    k_v 4e-5, mu_v 3.6e-6 relative at worst against CoolProp's state at the
+    same pressure. Close to the critical point the residual
     difference between the SR1-86 saturation line and the IAPWS-95 phase
     equilibrium is amplified by the diverging compressibility. From 0.97 to
     0.997 T_crit (627.7 to 645.15 K) the worst errors against CoolProp 8 grow
