@@ -8,6 +8,7 @@ Such inputs are copied once into contiguous float64 and then take the ufunc's
 threaded loop; the ratio "vs contiguous" is the price of that copy.
 """
 
+import os
 import sys
 import time
 
@@ -17,6 +18,9 @@ import wetboil
 from wetboil.chf import kandlikar
 from wetboil.departure import fritz
 from wetboil.fluids import water
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import formulas  # noqa: E402  (the hand-written NumPy baselines of benches/run.py)
 
 N = 10**7 if "--quick" not in sys.argv else 10**6
 W = water(p=101325.0)
@@ -33,14 +37,12 @@ def best(f, *args, repeat=5):
     return out
 
 
-def numpy_kandlikar(beta, phi=0.0):  # Kandlikar (2001), as in benches/formulas.py
-    b, p = np.radians(beta), np.radians(phi)
-    return (W.h_lv * np.sqrt(W.rho_v) * ((1 + np.cos(b)) / 16) * (2 / np.pi + np.pi / 4 * (1 + np.cos(b)) * np.cos(p))
-            ** 0.5 * (W.sigma * G * (W.rho_l - W.rho_v)) ** 0.25)
+def numpy_kandlikar(beta):
+    return formulas.NUMPY["kandlikar_chf"](beta, 0.0, W.h_lv, W.rho_l, W.rho_v, W.sigma, G)
 
 
-def numpy_fritz(theta):  # Fritz (1935)
-    return 0.0208 * theta * np.sqrt(W.sigma / (G * (W.rho_l - W.rho_v)))
+def numpy_fritz(theta):
+    return formulas.NUMPY["fritz_departure"](theta, W.sigma, W.rho_l, W.rho_v, G)
 
 
 def main():
