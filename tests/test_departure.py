@@ -340,6 +340,25 @@ def test_diameter_dispatches_and_compares_methods(water):
     assert d.shape == (2, 2) and d.dims == ("method", "dim_0")
 
 
+def test_diameter_without_angle_dependence_keeps_the_angles_shape_and_labels(water):
+    # One method alone gives what its column of the stacked comparison gives: a diameter per angle.
+    # (Consistency within the project: Cole-Rohsenow's value itself is checked against its
+    # published form above.)
+    pd = pytest.importorskip("pandas")
+    xr = pytest.importorskip("xarray")
+    angles = np.array([[10.0, 45.0, 90.0], [120.0, 150.0, 170.0]])
+    d = diameter(angles, water, method="cole_rohsenow")
+    assert d.shape == angles.shape
+    np.testing.assert_array_equal(d, cole_rohsenow(water))
+    s = diameter(pd.Series([30.0, 60.0], index=["a", "b"]), water, method="cole_rohsenow")
+    assert list(s.index) == ["a", "b"] and s.name == "departure_diameter"
+    x = diameter(xr.DataArray([30.0, 60.0], dims="contact_angle_deg"), water, method="cole_rohsenow")
+    assert x.dims == ("contact_angle_deg",)
+    assert np.ndim(diameter(45.0, water, method="cole_rohsenow")) == 0
+    with pytest.raises(wetboil.WetboilTypeError, match="contact_angle_deg"):
+        diameter("45", water, method="cole_rohsenow")
+
+
 def test_diameter_errors(water):
     with pytest.raises(wetboil.WetboilValueError, match="fritz, fritz_jakob, cole_rohsenow, kocamustafaogullari_ishii, force_balance"):
         diameter(45.0, water, method="zuber")

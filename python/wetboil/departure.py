@@ -765,6 +765,23 @@ _ACCEPTS: Dict[str, Tuple[str, ...]] = {
 }
 
 
+def _over_angles(value: Any, contact_angle_deg: Any) -> Any:
+    """A method without angle dependence, given the shape and labels of the angles, as the
+    angle-dependent methods' results have (one diameter per angle, whatever the angle's value)."""
+    from ._api import _coerce, _is_pandas, _pandas_like
+
+    angles = _coerce("departure.diameter", "contact_angle_deg", contact_angle_deg)
+    if hasattr(angles, "dims"):
+        import xarray as xr
+
+        return value + xr.zeros_like(angles, dtype=float)
+    if _is_pandas(angles):
+        return value + _pandas_like(angles, np.zeros(np.shape(angles)), "departure_diameter")
+    if np.ndim(angles) == 0:
+        return value
+    return value + np.zeros_like(angles, dtype=float)  # a dask array stays lazy
+
+
 def _diameter_one(method: str, contact_angle_deg: Any, fluid: Any, inputs: Dict[str, Any]) -> Any:
     kw = {k: v for k, v in inputs.items() if k in _ACCEPTS[method]}
     if method == "fritz":
@@ -772,7 +789,7 @@ def _diameter_one(method: str, contact_angle_deg: Any, fluid: Any, inputs: Dict[
     if method == "fritz_jakob":
         return fritz(contact_angle_deg, fluid, **kw) * _JAKOB_OVER_FRITZ
     if method == "cole_rohsenow":
-        return cole_rohsenow(fluid, **kw)
+        return _over_angles(cole_rohsenow(fluid, **kw), contact_angle_deg)
     if method == "kocamustafaogullari_ishii":
         return kocamustafaogullari_ishii(contact_angle_deg, fluid, **kw)
     if "wall_superheat" not in kw:
