@@ -10,6 +10,7 @@ library, not as a publication.
 """
 
 import math
+import pickle
 import sys
 import warnings
 
@@ -71,12 +72,18 @@ def test_rohsenow_identities_and_warnings():
         rohsenow(5.0, INCROPERA, C_sf=0.1)
     with pytest.warns(wetboil.InvalidValueWarning, match="boiling.rohsenow"):
         assert math.isnan(rohsenow(-1.0, INCROPERA))
-    # A state without transport properties (NaN fields) has no answer: NaN
-    # propagates as missing data, without a warning (the foundation's rule).
+    # A state without transport properties has no answer: NaN. A NaN the caller
+    # passed is missing data and propagates silently (the foundation's rule); a
+    # field never given to the hand-built state is named by one warning.
     bare = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
+    with pytest.warns(wetboil.WetboilWarning, match=r"boiling.rohsenow: fluid.cp_l, fluid.k_l, fluid.mu_l not given") as rec:
+        assert math.isnan(rohsenow(5.0, bare))
+        assert np.isnan(rohsenow(np.array([5.0, 6.0]), pickle.loads(pickle.dumps(bare)))).all()
+    assert len(rec) == 2  # one per call, also after a round trip through pickle (dask workers)
+    given_nan = bare.replace(cp_l=float("nan"), k_l=np.array([np.nan]), mu_l=2.8e-4)
     with warnings.catch_warnings():
         warnings.simplefilter("error")
-        assert math.isnan(rohsenow(5.0, bare))
+        assert np.isnan(rohsenow(5.0, given_nan)).all()
     with pytest.raises(TypeError):
         rohsenow("5 K", INCROPERA)
     with pytest.raises(TypeError):

@@ -498,7 +498,7 @@ def _saturation_type() -> type:
 
 def _gather(spec: _Spec, args: Sequence[Any]) -> list:
     """The kernel inputs of a call, checked and coerced, in kernel order."""
-    inputs = []
+    inputs, missing = [], []
     for (ai, field), label in zip(spec.plan, spec.labels):
         a = args[ai]
         if field:
@@ -508,7 +508,14 @@ def _gather(spec: _Spec, args: Sequence[Any]) -> list:
                     f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
                 )
             a = getattr(a, field)
+            if a is math.nan:  # the constructor's "not given" (see Saturation's Notes)
+                missing.append(label)
         inputs.append(_coerce(spec.function, label, a))
+    if missing:
+        from ._errors import WetboilWarning, _warn
+
+        _warn(f"{spec.function}: {', '.join(missing)} not given to the Saturation, so the result is NaN "
+              f"(set {'them' if len(missing) > 1 else 'it'} with .replace())", WetboilWarning)
     return inputs
 
 

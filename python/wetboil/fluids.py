@@ -129,7 +129,8 @@ class Saturation:
 
     Notes
     -----
-    Missing optional properties are NaN; a kernel that needs one returns NaN.
+    Optional properties not given are NaN; a kernel that needs one returns NaN
+    and warns (`WetboilWarning`) naming the fields to set with `replace`.
     Physically impossible values (``rho_l <= rho_v``, ``sigma <= 0``...) are
     not rejected here: the kernels turn those elements into NaN and warn
     (see `wetboil.errstate`). Wrong types raise `TypeError` at once.
@@ -203,7 +204,8 @@ class Saturation:
         raise AttributeError("Saturation is immutable; use .replace(field=value)")
 
     def __reduce__(self):
-        return (_rebuild, (tuple(getattr(self, f) for f in FIELDS), self.name))
+        values = tuple(getattr(self, f) for f in FIELDS)
+        return (_rebuild, (values, self.name, tuple(f for f, v in zip(FIELDS, values) if v is math.nan)))
 
     # -- construction helpers -------------------------------------------------
     def replace(self, **changes: Any) -> "Saturation":
@@ -317,8 +319,9 @@ class Saturation:
         return head + sep + ", ".join(parts) + ")"
 
 
-def _rebuild(values: tuple, name: Optional[str]) -> Saturation:
+def _rebuild(values: tuple, name: Optional[str], not_given: tuple = ()) -> Saturation:
     kw: dict = dict(zip(FIELDS, values))
+    kw.update(dict.fromkeys(not_given, math.nan))  # "not given" is this very NaN; unpickling made new ones
     kw["name"] = name
     return Saturation(**kw)
 
@@ -592,6 +595,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     # properties CoolProp has no model for (often surface tension or transport properties of less
     # common fluids): say so once here, or every kernel that needs them gives a silent NaN
     have_state = ~np.isnan(out["T"])
+    absent: list = []
     if have_state.any():
         absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
         if absent:
@@ -606,6 +610,6 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
             v = template.copy(data=v).rename(f)
             v.attrs = {"units": UNITS[f]}
         elif v.ndim == 0:
-            v = float(v)
+            v = math.nan if f in absent else float(v)  # a kernel needing it then says so (see Saturation)
         fields[f] = v
     return Saturation(**fields, molar_mass=state.molar_mass(), T_crit=t_crit, p_crit=p_crit, name=name)

@@ -28,8 +28,8 @@ import numpy as np
 
 from . import boiling, chf, departure, nucleation
 from ._api import _coerce, capture_validity, kernel
-from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, errstate
-from .fluids import Saturation, from_coolprop, water
+from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
+from .fluids import FIELDS, Saturation, from_coolprop, water
 from .surface import Surface
 
 __all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES",
@@ -185,6 +185,10 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     if isinstance(fluid, Saturation):
         if p is not None or T is not None:
             raise WetboilValueError("sweep: give p or T with a fluid name, not with a Saturation")
+        not_given = [f for f in FIELDS if getattr(fluid, f) is math.nan]  # the constructor's default
+        if not_given:
+            _warn(f"sweep: {', '.join(not_given)} not given to the Saturation: NaN in every quantity that needs "
+                  f"{'them' if len(not_given) > 1 else 'it'} (set with .replace())", WetboilWarning)
         shape = fluid.shape
         if len(shape) > 1:
             raise WetboilValueError(f"sweep: a Saturation fluid must be a single state or 1-D, got shape {shape}")
