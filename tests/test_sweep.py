@@ -336,6 +336,20 @@ def test_bergles_rohsenow_with_another_fluid_is_refused_before_computing():
             wetboil.sweep(SURFACES[:1], other, heat_flux=3e5, methods={"onset": "bergles_rohsenow"}, **kw)
 
 
+def test_a_hand_built_state_without_transport_properties_is_named_once():
+    """Consistency with the kernels (each warns for a field never given): the sweep says so once,
+    and the quantities that need those fields are NaN while the others are the kernels' values."""
+    w = water(p=1e5)
+    bare = wetboil.fluids.Saturation(T=w.T, p=w.p, rho_l=w.rho_l, rho_v=w.rho_v, h_lv=w.h_lv, sigma=w.sigma,
+                                     molar_mass=w.molar_mass, T_crit=w.T_crit, p_crit=w.p_crit, name="water")
+    with pytest.warns(wetboil.WetboilWarning, match="sweep: cp_l, k_l, mu_l, mu_v, cp_v, k_v not given") as rec:
+        ds = wetboil.sweep(SURFACES[:1], bare, heat_flux=3e5)
+    assert len([r for r in rec if "not given" in str(r.message)]) == 1
+    assert np.isnan(ds["onset_superheat"]).all()
+    static = SURFACES[0].angles(w)[0]
+    assert float(ds["departure_diameter"].squeeze()) == fritz(static, w)
+
+
 def test_method_tables_reachable_from_the_sweep_function():
     """Behavioural contract: `wetboil.sweep` (the function) carries the tables its
     docstring names; module imports keep working."""
