@@ -330,6 +330,41 @@ def test_film_boiling_emissivity_outside_0_to_1_is_impossible(water):
     assert isinstance(film_boiling(300.0, water, "cylinder", 5e-3, emissivity=0.5), float)
 
 
+def test_film_boiling_flat_plate_on_an_impossible_state_is_nan_and_one_warning(water):
+    # contract (README "Errors"): an impossible state (sigma <= 0, rho_l <= rho_v; the critical point,
+    # where both hold) is NaN plus one InvalidValueWarning, not a ZeroDivisionError or a TypeError; as
+    # the cylinder geometry does. Berenson's length is the capillary length [Berenson 1961].
+    critical = water.replace(sigma=0.0, rho_v=water.rho_l)
+    for state in (critical, water.replace(sigma=-0.01), water.replace(rho_v=2000.0)):
+        with warnings.catch_warnings(record=True) as rec:
+            warnings.simplefilter("always")
+            assert math.isnan(film_boiling(100.0, state, "flat_plate"))
+        assert [w.category for w in rec] == [wetboil.InvalidValueWarning], rec
+        with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError):
+            film_boiling(100.0, state, "flat_plate")
+    with pytest.warns(wetboil.InvalidValueWarning, match="1 of 2"):
+        q = film_boiling(np.array([100.0, 200.0]), water.replace(sigma=np.array([water.sigma, 0.0])), "flat_plate")
+    assert q[0] == pytest.approx(film_boiling(100.0, water, "flat_plate"), rel=1e-14) and np.isnan(q[1])
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert math.isnan(film_boiling(100.0, water.replace(sigma=float("nan")), "flat_plate"))  # missing data
+    l_c = (water.sigma / (9.80665 * (water.rho_l - water.rho_v))) ** 0.5
+    expected = 0.425 * (9.80665 * water.k_v**3 * water.rho_v * (water.rho_l - water.rho_v)
+                        * (water.h_lv + 0.4 * water.cp_v * 100.0) / (water.mu_v * l_c * 100.0)) ** 0.25 * 100.0
+    assert film_boiling(100.0, water, "flat_plate") == pytest.approx(expected, rel=1e-13)
+
+
+def test_curve_on_a_state_without_an_answer_is_nan_not_left_over_memory(water):
+    # A state with no onset, CHF or Leidenfrost point (missing or impossible sigma or rho_v) has no
+    # curve: NaN heat flux, regime "none" (it used to return whatever np.empty held).
+    dts = np.array([1.0, 10.0, 100.0])
+    for change in (dict(sigma=float("nan")), dict(sigma=0.0), dict(rho_v=float("nan"))):
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            c = curve(water.replace(**change), dts, **curve_kw())
+        assert np.isnan(c["heat_flux"].values).all(), change
+        assert c["regime"].values.tolist() == ["none"] * 3, change
+
 
 @pytest.mark.parametrize("dt", [445.81244991012744, 590.5791271659746, 490.6134934040716, 419.2737258269676])
 def test_film_boiling_radiation_number_and_array_agree(dt):

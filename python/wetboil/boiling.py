@@ -428,6 +428,7 @@ _film_kernel.__name__ = "film_boiling"
 _film_kernel = kernel("film_boiling")(_film_kernel)
 
 
+@one_warning_per_category("boiling.film_boiling")
 def film_boiling(
     wall_superheat: Any,
     fluid: Saturation,
@@ -506,10 +507,9 @@ def film_boiling(
             raise WetboilValueError("boiling.film_boiling: diameter is used by the cylinder and sphere geometries "
                                     "only, not by 'flat_plate' (Berenson's length is the capillary length)")
         g = _chf._real("boiling.film_boiling", "g", g)
-        try:
-            length = (fluid.sigma / (g * (fluid.rho_l - fluid.rho_v))) ** 0.5
-        except ValueError as exc:
-            raise WetboilValueError(f"boiling.film_boiling: argument shapes do not broadcast ({exc})") from None
+        # the capillary length as 1 m over Lienhard & Dhir's L' of 1 m: that kernel's checks (sigma > 0,
+        # rho_l > rho_v; one warning, named under this function) and labels, for any state
+        length = 1.0 / _chf.dimensionless_size(1.0, fluid, g)
     else:
         if diameter is None:
             raise WetboilValueError(f"boiling.film_boiling: geometry {geometry!r} needs diameter=... [m]")
@@ -987,7 +987,9 @@ def curve(
         With xarray installed, a Dataset along ``superheat`` with variables
         ``heat_flux`` (the assembled curve), ``natural_convection``,
         ``nucleate``, ``film`` (each branch over the whole range),
-        ``regime`` (labels) and 0-d variables ``onset_superheat``,
+        ``regime`` (labels: "natural convection", "nucleate", "transition",
+        "film"; "none", with a NaN heat flux, where the state gives no onset,
+        CHF or Leidenfrost point) and 0-d variables ``onset_superheat``,
         ``critical_heat_flux``, ``critical_superheat``,
         ``minimum_heat_flux``, ``minimum_superheat``, ``design_heat_flux``,
         ``design_superheat``, ``chf_margin`` (units in ``attrs``). Without
@@ -1165,8 +1167,8 @@ def curve(
     nat = np.asarray(q_nc(dts), dtype=float)
     nuc = np.asarray(q_nb(dts), dtype=float)
     fil = np.asarray(q_film(dts), dtype=float)
-    q = np.empty_like(dts)
-    regime = np.empty(dts.shape, dtype=object)
+    q = np.full(dts.shape, np.nan)  # no branch (a NaN onset, CHF or Leidenfrost point): no answer
+    regime = np.full(dts.shape, "none", dtype=object)
     below = dts < dt_onb
     nucl = (~below) & (dts <= dt_chf)
     film_mask = (dts >= dt_min) & ~(dts <= dt_chf)  # the nucleate branch runs to the CHF whatever dt_min is
