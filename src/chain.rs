@@ -65,7 +65,7 @@ impl Kernel<6, 4> for WaterScreening {
             arg("departure_diameter", "m"),
             arg("critical_heat_flux", "W/m2"),
         ],
-        domain: "as the four models: 611.657 Pa <= p <= 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
+        domain: "as the four models: 611.657 Pa <= p < 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
         validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
                    orientation_deg <= 90 (Kandlikar)",
         reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",
@@ -93,6 +93,7 @@ impl Kernel<6, 4> for WaterScreening {
     #[inline(always)]
     fn possible(x: &[f64; 6]) -> bool {
         !water::t_sat(x[0]).is_nan()
+            && x[0] < water::P_CRIT // one phase: no surface tension, no bubble, no CHF
             && angle_deg(x[1])
             && angle_deg(x[2])
             && angle_deg(x[3])
@@ -123,6 +124,16 @@ mod tests {
             }
         }
         assert!(water_screening(-1.0, 45.0, 20.0, 0.0, 1e5, 9.80665).iter().all(|v| v.is_nan()));
+    }
+
+    /// At the critical point (IAPWS R6-95: 22.064 MPa) liquid and vapour are one phase: the chain's
+    /// input is impossible, as each model's state is (sigma = 0); just below it is possible.
+    #[test]
+    fn critical_pressure_is_impossible() {
+        let x = |p: f64| [p, 45.0, 20.0, 0.0, 1e5, 9.80665];
+        assert!(!WaterScreening::possible(&x(water::P_CRIT)));
+        assert!(WaterScreening::possible(&x(22.0e6)) && !WaterScreening::in_range(&x(22.0e6)));
+        assert!(WaterScreening::possible(&x(water::P_TRIPLE)));
     }
 
     /// The block path (saturation temperatures solved together) gives the element path's bits.

@@ -307,10 +307,10 @@ fn allowances(kernel: &str) -> Allow {
         "kandlikar_chf" => no_answer,
         // The drop never slides: NaN (furmidge_sliding_angle validity).
         "furmidge_sliding_angle" => no_answer,
-        // The fused chain has the answers of its steps: none at the critical
-        // point (rho_l = rho_v), none from Kandlikar facing down.
+        // The fused chain has the answers of its steps: none from Kandlikar
+        // facing down (the critical point is an impossible input).
         "water_screening_chain" => Allow {
-            no_answer_where: Some(|x| x[0] >= water::P_CRIT || x[3] > 90.0),
+            no_answer_where: Some(|x| x[3] > 90.0),
             ..Allow::default()
         },
         _ => Allow::default(),

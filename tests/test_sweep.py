@@ -3,6 +3,7 @@ public functions it chains, which have their own reference tests), labels,
 flags, laziness, a dask.distributed cluster, and surface files."""
 
 import importlib
+import math
 import warnings
 
 import numpy as np
@@ -209,6 +210,27 @@ def test_fused_water_chain_equals_the_separate_functions_bit_for_bit():
     np.testing.assert_array_equal(r.departure_diameter, fritz(th, w))
     np.testing.assert_array_equal(r.critical_heat_flux, kandlikar(rec, w, phi))
     assert water_chain(101325.0, 70.0, 40.0, 3e5).T_sat == water(p=101325.0).T
+
+
+def test_fused_water_chain_has_one_status_per_element():
+    """Documented behaviour: an impossible input makes the element's four results NaN, counted
+    once. The critical point (22.064 MPa, IAPWS R6-95(2018)) is impossible here as it is for each
+    separate model (sigma = 0 there), strict mode included."""
+    from wetboil.sweep import water_chain
+
+    with pytest.warns(wetboil.InvalidValueWarning, match="1 of 3"):
+        r = water_chain(np.array([1e5, 1e5, 2e5]), 45.0, np.array([40.0, -1.0, 40.0]), 1e5)
+    assert np.isnan(r.T_sat[1]) and np.isnan(r.critical_heat_flux[1]) and not np.isnan(r.T_sat[[0, 2]]).any()
+    with wetboil.errstate(invalid="raise"):
+        for p_crit in (22.064e6, np.array([1e5, 22.064e6])):
+            with pytest.raises(wetboil.InvalidValueError):
+                water_chain(p_crit, 45.0, 40.0, 1e5)
+        with pytest.warns(wetboil.RangeWarning):
+            critical = water(p=22.064e6)  # the state itself, flagged near-critical
+        with pytest.raises(wetboil.InvalidValueError):
+            kandlikar(40.0, critical)
+    with pytest.warns(wetboil.RangeWarning):
+        assert not math.isnan(water_chain(22.0e6, 45.0, 40.0, 1e5).T_sat)
 
 
 # --------------------------------------------------------------------------- impossible operating points

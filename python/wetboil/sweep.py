@@ -740,6 +740,13 @@ def water_chain(p: Any, contact_angle_deg: Any, receding_angle_deg: Any, heat_fl
     meant for Monte-Carlo studies and sweeps of 10^7-10^8 points where each
     element has its own pressure.
 
+    One status per element: where any input is impossible (a pressure
+    outside 611.657 Pa to 22.064 MPa, the critical point included, where
+    liquid and vapour are one phase; an angle outside 0-180 deg; a negative
+    heat flux; g <= 0) all four results of that element are NaN, ``T_sat``
+    too, and the call counts it once. Call the separate functions to keep
+    the results that do not depend on the bad input.
+
     Returns
     -------
     WaterChain
