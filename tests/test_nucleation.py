@@ -392,6 +392,15 @@ def test_site_density_values_and_forms():
         assert site_density(12.0, W, 45.0, m) > site_density(6.0, W, 45.0, m)
     for m in ("wang_dhir", "hibiki_ishii", "basu"):
         assert site_density(10.0, W, 80.0, m) > site_density(10.0, W, 40.0, m)
+    # Where the published density function f(rho+) (Hibiki & Ishii 2003, cubic above) is not positive
+    # (rho+ <= 0.0223; water above about 21.3 MPa) there is no positive density: NaN with a RangeWarning.
+    near, beyond = (wetboil.fluids.water(p=p) for p in (21.30e6, 21.32e6))
+    for state, positive in ((near, True), (beyond, False)):
+        rp = math.log10((state.rho_l - state.rho_v) / state.rho_v)
+        assert (-0.01064 + 0.48246 * rp - 0.22712 * rp**2 + 0.05468 * rp**3 > 0) == positive
+        with pytest.warns(wetboil.RangeWarning):
+            n = site_density(10.0, state, 45.0)
+        assert (n > 0) if positive else math.isnan(n)
 
 
 def test_hibiki_ishii_needs_the_molar_mass():

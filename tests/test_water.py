@@ -77,6 +77,10 @@ def test_near_critical_band_holds_its_documented_accuracy():
     for f, tol in bound.items():
         err = np.max(np.abs(getattr(ours, f) / ref[f] - 1.0))
         assert err < tol, f"{f}: worst relative error {err:.2e}"
+    ref = coolprop_sat(p=ref["p"])  # the pressure route: T_sat within 2.4 mK (docstring)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert np.max(np.abs(water(p=ref["p"]).T - ref["T"])) < 2.4e-3
 
 
 def test_against_the_iapws_package():

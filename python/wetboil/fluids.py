@@ -447,7 +447,8 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     equilibrium is amplified by the diverging compressibility. From 0.97 to
     0.997 T_crit (627.7 to 645.15 K) the worst errors against CoolProp 8 grow
     to cp_v 6e-3, cp_l 3.5e-3, k_v 2.2e-3, h_lv 5.8e-4, k_l 5.1e-4, rho_v
-    4.7e-4 and below 3.1e-4 for the others, unflagged; above 0.997 T_crit
+    4.7e-4 and below 3.1e-4 for the others, and T_sat from `p` to 2.4 mK
+    (worst near 640 K, 20.4 MPa), unflagged; above 0.997 T_crit
     (21.55 MPa) cp, h_lv and the densities degrade past 0.1-1 %, and those
     elements are flagged with `RangeWarning`. At exactly T_crit, rho_l = rho_v, h_lv = sigma = 0 and cp,
     k, mu are infinite. Outside the triple-to-critical range: NaN and

@@ -990,7 +990,10 @@ def site_density(wall_superheat: Any, fluid: Saturation, contact_angle_deg: Any,
 
     Hibiki-Ishii grows explosively outside its data (the exponent goes as
     :math:`1/R_c`; water at 70 bar and 20 K gives about 1e21 m^-2, possibly
-    +inf): such values are flagged, never returned silently. Basu's two
+    +inf): such values are flagged, never returned silently. Where
+    :math:`f(\rho^+) \le 0` (:math:`\rho^+ \le 0.0223`: water above about
+    21.3 MPa) the correlation gives no positive density: NaN, flagged by
+    the same `RangeWarning`. Basu's two
     branches do not meet at 15 K (76.5 against 58.2 sites/cm2 per unit
     :math:`1-\cos\theta`); the jump is the paper's and is kept. The paper
     applies its correlation above the onset superheat only.
