@@ -81,7 +81,8 @@ pub fn cos_deg(deg: f64) -> f64 {
     // Branch-free quadrant selection: angles in a sweep fall in random
     // quadrants, and a mispredicted branch costs more than both polynomials.
     // q = 0: cos t, 1: -sin t, 2: -cos t, 3: sin t.
-    let v = select(q & 1 == 1, kernel_sin(t), kernel_cos(t), (q + 1) & 2 != 0);
+    // `+ 0.0`: an exact zero (cos 90, from -sin 0) is +0.0, not -0.0 (every other value unchanged)
+    let v = select(q & 1 == 1, kernel_sin(t), kernel_cos(t), (q + 1) & 2 != 0) + 0.0;
     if deg.abs() <= MAX_ANGLE_DEG { v } else { f64::NAN }
 }
 
@@ -98,7 +99,7 @@ fn select(pick_a: bool, a: f64, b: f64, negate: bool) -> f64 {
 pub fn sin_deg(deg: f64) -> f64 {
     let (q, t) = reduce(deg);
     // q = 0: sin t, 1: cos t, 2: -sin t, 3: -cos t.
-    let v = select(q & 1 == 0, kernel_sin(t), kernel_cos(t), q & 2 != 0);
+    let v = select(q & 1 == 0, kernel_sin(t), kernel_cos(t), q & 2 != 0) + 0.0; // +0.0 at exact zeros
     if deg.abs() <= MAX_ANGLE_DEG { v } else { f64::NAN }
 }
 
@@ -116,6 +117,12 @@ mod tests {
         assert_eq!(sin_deg(180.0), 0.0);
         assert_eq!(sin_deg(90.0), 1.0);
         assert_eq!(sin_deg(-90.0), -1.0);
+        // exact zeros are +0.0 (a -0.0 made results at 90 and 180 deg print as "-0")
+        for z in [-0.0, 0.0, 90.0, 180.0, 270.0, -90.0, -180.0, 360.0] {
+            for v in [cos_deg(z), sin_deg(z)] {
+                assert!(v != 0.0 || v.is_sign_positive(), "{z} deg");
+            }
+        }
         assert!((cos_deg(60.0) - 0.5).abs() <= f64::EPSILON);
         assert!((sin_deg(30.0) - 0.5).abs() <= f64::EPSILON);
     }

@@ -275,6 +275,10 @@ def test_hsu_range_limits_and_no_answer_is_not_invalid():
     out, w = warns(Warning, hsu_active_radii, [0.0, -3.0, 10.0], W, 60.0, 1e-4)
     assert np.isnan(out.r_min[:2]).all() and np.isfinite(out.r_min[2]) and not w
     assert hsu_active_radii(10.0, W, 180.0, 1e-4) == HsuRadii(0.0, math.inf)
+    # ... a zero that is +0.0 (Hsu's sin(theta/2)-type factors vanish there), not a "-0" in tables
+    assert not math.copysign(1.0, hsu_active_radii(10.0, W, 180.0, 1e-4).r_min) < 0
+    for m in ("hsu", "kandlikar", "davis_anderson"):
+        assert not math.copysign(1.0, onset_superheat(1e5, W, 180.0, method=m)) < 0, m
     assert math.isnan(hsu_active_radii(10.0, W, 0.0, 1e-4).r_max)
     # Hsu's 53 deg constants: prefactor delta/4 and root term 12.8 sigma T/(rho_v h delta theta_w) (MODELS B5).
     t = math.degrees(math.acos(0.6))
