@@ -345,7 +345,13 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     res.add("cavity_radius_min", radii.r_min, cap.invalid, cap.out_of_range)
     res.add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range)
     d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"]))
-    run("departure_frequency", lambda: departure.frequency(d, fluid, method=methods["frequency"]))
+    # A zero diameter (Fritz at 0 deg: a perfectly wetting wall, a measurable surface) has no departure
+    # cycle for the frequency correlations: no answer there (NaN, flagged out of range), not an impossible
+    # input.
+    no_bubble = np.asarray(d) == 0.0
+    with capture_validity() as cap:
+        f = departure.frequency(np.where(no_bubble, np.nan, d), fluid, method=methods["frequency"])
+    res.add("departure_frequency", f, cap.invalid, np.logical_or(cap.out_of_range, no_bubble))
     for m in methods["chf"]:
         if m == "kandlikar":
             run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi))
@@ -466,7 +472,10 @@ def sweep(
         (Kandlikar) the receding angle. Onset "bergles_rohsenow" is a fit of
         the onset superheat for water with no nucleus: ``onset_cavity_radius``
         is NaN (not flagged), and another named fluid raises
-        `WetboilValueError`.
+        `WetboilValueError`. A static angle of 0 deg gives Fritz's zero
+        departure diameter, for which the frequency correlations have no
+        answer: ``departure_frequency`` is NaN there, flagged in
+        ``range_flags`` (a valid surface, not an impossible input).
     chunks : int or mapping, optional
         Chunk sizes (per axis name, or one size for every axis): the result
         is computed lazily on dask, block by block (on a `dask.distributed`
