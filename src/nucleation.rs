@@ -435,8 +435,10 @@ pub fn cnt_superheat_water(f: f64, p: f64, rate: f64, exponent: f64) -> f64 {
 }
 
 #[inline(always)]
+/// The liquid pressures `water::t_sat` takes, the critical point excluded: from the published
+/// triple-point pressure (R14-08), as `fluids.water(p=...)` takes them.
 fn water_pressure(p: f64) -> bool {
-    (p >= water::p_sat(water::T_TRIPLE)) & (p < water::P_CRIT)
+    (p >= water::P_TRIPLE) & (p < water::P_CRIT)
 }
 
 /// Kernel of the heterogeneous (wall) kinetic superheat of water.
@@ -449,7 +451,7 @@ impl Kernel<3, 1> for KineticSuperheatWater {
                    eta = exp((p - p_sat)/(rho_l R T)); solved for T - T_sat(p)",
         inputs: &[arg("contact_angle_deg", "deg"), arg("p", "Pa"), arg("rate", "1/(m2 s)")],
         outputs: &[arg("superheat", "K")],
-        domain: "0 <= contact_angle_deg <= 180, p_sat(273.16 K) <= p < 22.064 MPa, rate > 0",
+        domain: "0 <= contact_angle_deg <= 180, 611.657 Pa <= p < 22.064 MPa, rate > 0",
         validity: "no published numeric range (classical capillarity approximation; IAPWS-95 extrapolated into the metastable liquid)",
         reference: "M. Blander, J.L. Katz, Bubble nucleation in liquids, AIChE J. 21 (1975) 833-848; IAPWS R6-95(2018), R1-76(2014), SR1-86(1992)",
         doi: "10.1002/aic.690210502",
@@ -478,7 +480,7 @@ impl Kernel<2, 1> for HomogeneousSuperheatWater {
                    eta = exp((p - p_sat)/(rho_l R T)); solved for T - T_sat(p)",
         inputs: &[arg("p", "Pa"), arg("rate", "1/(m3 s)")],
         outputs: &[arg("superheat", "K")],
-        domain: "p_sat(273.16 K) <= p < 22.064 MPa, rate > 0",
+        domain: "611.657 Pa <= p < 22.064 MPa, rate > 0",
         validity: "no published numeric range (classical capillarity approximation; IAPWS-95 extrapolated into the metastable liquid)",
         reference: "M. Blander, J.L. Katz, Bubble nucleation in liquids, AIChE J. 21 (1975) 833-848; IAPWS R6-95(2018), R1-76(2014), SR1-86(1992)",
         doi: "10.1002/aic.690210502",
@@ -1507,6 +1509,13 @@ mod tests {
         assert!(KineticSuperheatWater::eval(&[30.0, p, -1.0])[0].is_nan());
         // Higher pressure: smaller superheat (surface tension and barrier fall).
         assert!(HomogeneousSuperheatWater::eval(&[1e6, 1e12])[0] < HomogeneousSuperheatWater::eval(&[p, 1e12])[0]);
+        // The pressure range is that of the water state (from IAPWS R14-08's 611.657 Pa): the
+        // triple point itself has an answer, continuous with the pressures just above it.
+        for f in [|p: f64| KineticSuperheatWater::eval(&[90.0, p, 1e12])[0], |p: f64| HomogeneousSuperheatWater::eval(&[p, 1e12])[0]] {
+            let (at, above) = (f(water::P_TRIPLE), f(611.66));
+            assert!(at.is_finite() && (at - above).abs() < 1e-3 * above, "{at} {above}");
+            assert!(f(611.656).is_nan());
+        }
     }
 
     // ------------------------------------------------------------------ Bankoff
