@@ -508,7 +508,7 @@ def _gather(spec: _Spec, args: Sequence[Any]) -> list:
                     f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
                 )
             a = getattr(a, field)
-            if a is math.nan:  # the constructor's "not given" (see Saturation's Notes)
+            if a is math.nan:  # the constructor's "not given" (Saturation._not_given), per field here
                 missing.append(label)
         inputs.append(_coerce(spec.function, label, a))
     if missing:

@@ -204,8 +204,12 @@ class Saturation:
         raise AttributeError("Saturation is immutable; use .replace(field=value)")
 
     def __reduce__(self):
-        values = tuple(getattr(self, f) for f in FIELDS)
-        return (_rebuild, (values, self.name, tuple(f for f, v in zip(FIELDS, values) if v is math.nan)))
+        return (_rebuild, (tuple(getattr(self, f) for f in FIELDS), self.name, self._not_given()))
+
+    def _not_given(self) -> tuple:
+        """The fields the constructor was not given: they hold its default, this very `math.nan`
+        object (kept by `replace`, indexing and pickling), which kernels check by identity."""
+        return tuple(f for f in FIELDS if getattr(self, f) is math.nan)
 
     # -- construction helpers -------------------------------------------------
     def replace(self, **changes: Any) -> "Saturation":

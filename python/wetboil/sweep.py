@@ -185,7 +185,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     if isinstance(fluid, Saturation):
         if p is not None or T is not None:
             raise WetboilValueError("sweep: give p or T with a fluid name, not with a Saturation")
-        not_given = [f for f in FIELDS if getattr(fluid, f) is math.nan]  # the constructor's default
+        not_given = fluid._not_given()
         if not_given:
             _warn(f"sweep: {', '.join(not_given)} not given to the Saturation: NaN in every quantity that needs "
                   f"{'them' if len(not_given) > 1 else 'it'} (set with .replace())", WetboilWarning)
@@ -198,8 +198,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
             np.arange(shape[0]), dims="state")
         dim = axis.dims[0]
         fields = {}
-        for f in ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
-                  "molar_mass", "T_crit", "p_crit"):
+        for f in FIELDS:
             v = getattr(fluid, f)
             fields[f] = v if np.ndim(v) == 0 else xr.DataArray(np.asarray(v), dims=dim, coords=axis.coords)
         none = xr.DataArray(np.zeros(shape[0]), dims=dim, coords=axis.coords)
@@ -382,7 +381,7 @@ def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], strict: 
     import xarray as xr
 
     arrays = {k: ds[k].values for k in ds.data_vars}
-    fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in _FLUID_FIELDS}, name=fluid_name)
+    fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in FIELDS}, name=fluid_name)
     dims = ds["static_angle"].dims
     shape = ds["static_angle"].shape
     with errstate(invalid="ignore", out_of_range="ignore"):
@@ -398,8 +397,6 @@ def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], strict: 
     return out
 
 
-_FLUID_FIELDS = ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
-                 "molar_mass", "T_crit", "p_crit")
 
 
 def sweep(
@@ -544,7 +541,7 @@ def sweep(
         raise WetboilValueError("sweep: heat_flux must be positive")
     parts = dict(table)
     parts.update({f"in_{k}": v for k, v in axes.items()})
-    for f in _FLUID_FIELDS:
+    for f in FIELDS:
         v = getattr(states, f)
         parts[f"fluid_{f}"] = v if hasattr(v, "dims") else xr.DataArray(float(v))
     order = ["surface"] + ([state_dim] if state_dim else []) + ["heat_flux", "orientation", "subcooling"]
