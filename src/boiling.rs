@@ -9,7 +9,7 @@
 
 use crate::fastmath;
 use crate::all_positive;
-use crate::model::{arg, densities, nan_unless, nans_unless, Kernel, Model};
+use crate::model::{arg, densities, iterate_block, iterate_one, nan_unless, nans_unless, BlockSummary, Iteration, Kernel, Model};
 use std::f64::consts::PI;
 
 // ---------------------------------------------------------------------------
@@ -97,13 +97,7 @@ pub fn rohsenow_superheat(
     mu_l: f64,
     g: f64,
 ) -> f64 {
-    let ok = rohsenow_possible(heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g);
-    // Pr^n and the cube root through one exponential: (C_sf h_lv / c_pl) exp(n ln Pr + ln(X)/3),
-    // X = q / (mu_l h_lv [g (rho_l - rho_v)/sigma]^(1/2)); q = 0 gives ln 0 = -inf and a zero superheat.
-    let pr = cp_l * mu_l / k_l;
-    let x = heat_flux / (mu_l * h_lv * (g * (rho_l - rho_v) / sigma).sqrt());
-    let e = fastmath::exp(n * fastmath::ln(pr) + fastmath::ln(x) * (1.0 / 3.0));
-    nan_unless(ok, c_sf * h_lv / cp_l * e)
+    iterate_one::<RohsenowSuperheat, 11, 1, 2>(&[heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g])[0]
 }
 
 const ROHSENOW_INPUTS_TAIL: [crate::model::Arg; 10] = [
@@ -183,7 +177,11 @@ impl Kernel<11, 1> for RohsenowSuperheat {
     };
     #[inline(always)]
     fn eval(x: &[f64; 11]) -> [f64; 1] {
-        [rohsenow_superheat(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10])]
+        iterate_one::<Self, 11, 1, 2>(x)
+    }
+    #[inline(always)]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 11], len: usize, y: &mut [[f64; B]; 1]) -> BlockSummary {
+        iterate_block::<Self, Self, 11, 1, 2, B>(at, len, y)
     }
     #[inline(always)]
     fn possible(x: &[f64; 11]) -> bool {
@@ -192,6 +190,26 @@ impl Kernel<11, 1> for RohsenowSuperheat {
     #[inline(always)]
     fn in_range(x: &[f64; 11]) -> bool {
         rohsenow_in_range(x)
+    }
+}
+
+/// [`rohsenow_superheat`] in two passes (see [`Iteration`] on why): the
+/// logarithms and the prefactor, then the exponential.
+impl Iteration<11, 1, 2> for RohsenowSuperheat {
+    const MAX_STEPS: usize = 0;
+    #[inline(always)]
+    fn start(x: &[f64; 11]) -> [f64; 2] {
+        let [heat_flux, c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g] = *x;
+        // Pr^n and the cube root through one exponential: (C_sf h_lv / c_pl) exp(n ln Pr + ln(X)/3),
+        // X = q / (mu_l h_lv [g (rho_l - rho_v)/sigma]^(1/2)); q = 0 gives ln 0 = -inf and a zero superheat.
+        let pr = cp_l * mu_l / k_l;
+        let x = heat_flux / (mu_l * h_lv * (g * (rho_l - rho_v) / sigma).sqrt());
+        [n * fastmath::ln(pr) + fastmath::ln(x) * (1.0 / 3.0), c_sf * h_lv / cp_l]
+    }
+    #[inline(always)]
+    fn finish(x: &[f64; 11], s: &[f64; 2]) -> [f64; 1] {
+        let ok = rohsenow_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7], x[8], x[9], x[10]);
+        [nan_unless(ok, s[1] * fastmath::exp(s[0]))]
     }
 }
 

@@ -930,14 +930,7 @@ pub const BERGLES_ROHSENOW_P_MAX: f64 = 2000.0 * PSI;
 /// doi:10.1115/1.3688697 (DOI from memory).
 #[inline(always)]
 pub fn bergles_rohsenow(heat_flux: f64, p: f64) -> f64 {
-    const LN_1082: f64 = 6.986_566_459_406_426_5; // ln(1082)
-    let ok = non_negative(heat_flux) & positive(p);
-    // (q/(1082 P^1.156))^(P^0.0234/2.16) with one logarithm of P shared by
-    // its three powers: exp(e (ln q - ln 1082 - 1.156 ln P)), e = exp(0.0234 ln P)/2.16
-    let ln_bar = fastmath::ln(p * 1e-5);
-    let e = fastmath::exp(0.0234 * ln_bar) * (1.0 / 2.16);
-    let ln_ratio = fastmath::ln(heat_flux) - (LN_1082 + 1.156 * ln_bar);
-    nan_unless(ok, fastmath::exp(e * ln_ratio) / 1.8)
+    iterate_one::<BerglesRohsenow, 2, 1, 1>(&[heat_flux, p])[0]
 }
 
 /// Kernel of [`bergles_rohsenow`].
@@ -959,7 +952,11 @@ impl Kernel<2, 1> for BerglesRohsenow {
     };
     #[inline(always)]
     fn eval(x: &[f64; 2]) -> [f64; 1] {
-        [bergles_rohsenow(x[0], x[1])]
+        iterate_one::<Self, 2, 1, 1>(x)
+    }
+    #[inline(always)]
+    fn eval_block<const B: usize>(at: impl Fn(usize) -> [f64; 2], len: usize, y: &mut [[f64; B]; 1]) -> BlockSummary {
+        iterate_block::<Self, Self, 2, 1, 1, B>(at, len, y)
     }
     #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
@@ -968,6 +965,27 @@ impl Kernel<2, 1> for BerglesRohsenow {
     #[inline(always)]
     fn in_range(x: &[f64; 2]) -> bool {
         (BERGLES_ROHSENOW_P_MIN..=BERGLES_ROHSENOW_P_MAX).contains(&x[1])
+    }
+}
+
+/// [`bergles_rohsenow`] in two passes (see [`Iteration`] on why): the
+/// exponent, then its exponential.
+impl Iteration<2, 1, 1> for BerglesRohsenow {
+    const MAX_STEPS: usize = 0;
+    #[inline(always)]
+    fn start(x: &[f64; 2]) -> [f64; 1] {
+        const LN_1082: f64 = 6.986_566_459_406_426_5; // ln(1082)
+        let [heat_flux, p] = *x;
+        // (q/(1082 P^1.156))^(P^0.0234/2.16) with one logarithm of P shared by
+        // its three powers: exp(e (ln q - ln 1082 - 1.156 ln P)), e = exp(0.0234 ln P)/2.16
+        let ln_bar = fastmath::ln(p * 1e-5);
+        let e = fastmath::exp(0.0234 * ln_bar) * (1.0 / 2.16);
+        [e * (fastmath::ln(heat_flux) - (LN_1082 + 1.156 * ln_bar))]
+    }
+    #[inline(always)]
+    fn finish(x: &[f64; 2], s: &[f64; 1]) -> [f64; 1] {
+        let ok = non_negative(x[0]) & positive(x[1]);
+        [nan_unless(ok, fastmath::exp(s[0]) / 1.8)]
     }
 }
 
