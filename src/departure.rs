@@ -16,6 +16,7 @@
 use crate::fastmath;
 use crate::all_positive;
 use crate::model::{angle_deg, arg, densities, nan_unless, non_negative, positive, Factored, Kernel, Model};
+use crate::trig::{cos_deg, sin_deg};
 use std::f64::consts::PI;
 
 // ---------------------------------------------------------------------------
@@ -401,20 +402,6 @@ impl Forces {
     }
 }
 
-/// Sine and cosine of an angle in degrees, exact at multiples of 90°.
-#[inline(always)]
-fn sin_cos_deg(x: f64) -> (f64, f64) {
-    if x == 0.0 {
-        (0.0, 1.0)
-    } else if x == 90.0 {
-        (1.0, 0.0)
-    } else if x == 180.0 {
-        (0.0, -1.0)
-    } else {
-        x.to_radians().sin_cos()
-    }
-}
-
 /// sin(h)/h, with its limit 1 at h = 0.
 #[inline(always)]
 fn sinc(h: f64) -> f64 {
@@ -476,8 +463,8 @@ impl Balance {
         let kg = 2.0 * b / PI.sqrt() * ja * alpha_l.sqrt();
         // R = K √t: r² (3/2 C_s ṙ² + r r̈) = K⁴ (3 C_s/2 − 1)/4 for every t.
         let growth = rho_l * PI * kg.powi(4) * (1.5 * KLAUSNER_GROWTH_COEFFICIENT - 1.0) / 4.0;
-        let (sin_tilt, cos_tilt) = sin_cos_deg(tilt);
-        let (sin_phi, cos_phi) = sin_cos_deg(orientation);
+        let (sin_tilt, cos_tilt) = (sin_deg(tilt), cos_deg(tilt));
+        let (sin_phi, cos_phi) = (sin_deg(orientation), cos_deg(orientation));
         Balance {
             sigma,
             rho_l,
