@@ -431,6 +431,7 @@ def status(key):
         if line.startswith(key + ":"):
             return int(line.split()[1]) * 1024
 n = int(sys.argv[1])
+chunks = {"p": int(sys.argv[2])} if len(sys.argv) > 2 else None
 na = 2000
 s = [wetboil.Surface(f"S{i}", 30.0 + i, 40.0 + i, 20.0 + i) for i in range(10)]
 p = np.geomspace(1e5, 5e6, n // (10 * na))
@@ -440,7 +441,7 @@ with open("/proc/self/clear_refs", "w") as f:
     f.write("5")  # reset the peak resident size (VmHWM) to the current one
 before = status("VmRSS")
 tracemalloc.start()
-ds = wetboil.sweep(s, "water", p=p, heat_flux=hf)
+ds = wetboil.sweep(s, "water", p=p, heat_flux=hf, chunks=chunks)
 cur, peak = tracemalloc.get_traced_memory()
 high = status("VmHWM")
 # distinct buffers only: "chf" shares its array with the design method's chf_<method>
@@ -454,15 +455,20 @@ def section_memory(table, n):
     """Peak resident memory the sweep added (what the process really held,
     freed buffers kept by the buffer cache included), plus its inputs,
     against inputs plus outputs. The peak traced by tracemalloc (live NumPy
-    arrays only) is given in the note."""
-    r = subprocess.run([sys.executable, "-c", _MEMORY_PROBE, str(n)], capture_output=True, text=True, timeout=3600)
-    if r.returncode != 0:
-        print("memory probe failed:", r.stderr[-2000:])
-        return
-    peak, traced, io, points = (int(float(v)) for v in r.stdout.split())
-    table.add("6. memory", f"sweep of {points:.0e} points: peak resident vs inputs + outputs", f"{peak / 2**20:.0f} MiB",
-              f"{io / 2**20:.0f} MiB", ">= 1/1.2", ratio=io / peak,
-              note=f"(ratio = (in+out)/peak; traced arrays peak {traced / 2**20:.0f} MiB)")
+    arrays only) is given in the note. Then the same sweep chunked with dask
+    (blocks of a tenth of the pressures), computed into memory (context: the
+    target is for the sweep itself)."""
+    for chunk, target in ((None, ">= 1/1.2"), (max(n // (10 * 2000 * 10), 1), "(context)")):
+        r = subprocess.run([sys.executable, "-c", _MEMORY_PROBE, str(n)] + ([str(chunk)] if chunk else []),
+                           capture_output=True, text=True, timeout=3600)
+        if r.returncode != 0:
+            print("memory probe failed:", r.stderr[-2000:])
+            return
+        peak, traced, io, points = (int(float(v)) for v in r.stdout.split())
+        what = f"sweep of {points:.0e} points" if chunk is None else f"  the same in dask blocks of {chunk} pressures"
+        table.add("6. memory", f"{what}: peak resident vs inputs + outputs", f"{peak / 2**20:.0f} MiB",
+                  f"{io / 2**20:.0f} MiB", target, ratio=io / peak,
+                  note=f"(ratio = (in+out)/peak; traced arrays peak {traced / 2**20:.0f} MiB)")
 
 
 def main(argv=None):

@@ -137,6 +137,8 @@ def test_million_point_sweep_in_process_dask_and_cluster_identical():
     lazy = _big_grid(chunks={"surface": 5, "p": 25}, compute=False)
     assert hasattr(lazy["chf"].data, "dask")
     chunked = lazy.compute()
+    stored = _big_grid(chunks={"surface": 5, "p": 25})  # computed block by block into the outputs
+    with_bar = _big_grid(chunks={"p": 10}, progress=True)
     with warnings.catch_warnings():
         warnings.simplefilter("ignore")
         with distributed.LocalCluster(n_workers=2, threads_per_worker=1, processes=True,
@@ -145,6 +147,32 @@ def test_million_point_sweep_in_process_dask_and_cluster_identical():
     for name in eager.data_vars:
         np.testing.assert_array_equal(eager[name].values, chunked[name].values, err_msg=name)
         np.testing.assert_array_equal(eager[name].values, clustered[name].values, err_msg=name)
+        np.testing.assert_array_equal(eager[name].values, stored[name].values, err_msg=name)
+        np.testing.assert_array_equal(eager[name].values, with_bar[name].values, err_msg=name)
+        assert stored[name].attrs == eager[name].attrs and stored[name].dims == eager[name].dims
+
+
+def test_a_lazy_sweep_keeps_its_inputs_on_their_own_axes():
+    """Chunking must not first copy every input field to the size of the grid
+    (27 fields: 216 MB for this 10^6-point grid, tens of GB at 10^8 points,
+    before the first block). What building the lazy sweep allocates is
+    counted by tracemalloc, which sees NumPy's buffers."""
+    import tracemalloc
+
+    _big_grid(chunks=5, compute=False)  # imports and one-time tables first
+    tracemalloc.start()
+    try:
+        lazy = _big_grid(chunks={"surface": 5, "p": 25}, compute=False)
+        peak = tracemalloc.get_traced_memory()[1]
+    finally:
+        tracemalloc.stop()
+    assert lazy["chf"].size == 10**6
+    assert peak < 10**6 * 8, f"building the lazy sweep allocated {peak / 2**20:.0f} MiB"
+
+
+def test_chunks_must_name_axes_of_the_sweep():
+    with pytest.raises(ValueError, match=r"^sweep: chunks names pressure, not an axis of this sweep \(surface, p, "):
+        wetboil.sweep(SURFACES, "water", p=[1e5, 2e5], heat_flux=3e5, chunks={"pressure": 1})
 
 
 def test_results_save_to_netcdf_and_csv(tmp_path):

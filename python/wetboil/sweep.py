@@ -77,6 +77,9 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
 #: its own validity range (water above 0.997 T_crit).
 STATE_FLAG = "fluid_state"
 
+# every axis a sweep can have, in the order of its outputs (the state axis is one of "p", "T", "state")
+_AXES = ("surface", "p", "T", "state", "heat_flux", "orientation", "subcooling")
+
 #: C_sf for "nucleate": "rohsenow" on a surface that gives none: the default of
 #: `wetboil.boiling.rohsenow_superheat` (water on polished copper).
 _C_SF_DEFAULT = 0.013
@@ -380,6 +383,10 @@ def _block(ds: Any, methods: Dict[str, Any], fluid_name: Optional[str], strict: 
     when it is computed."""
     import xarray as xr
 
+    # the inputs arrive on their own axes; broadcast here, as views, so that no
+    # full-size copy of an input exists (a chunked sweep would otherwise hold
+    # every input field at the size of the grid before its first block)
+    ds = xr.broadcast(ds)[0].transpose(*(d for d in _AXES if d in ds.dims))
     arrays = {k: ds[k].values for k in ds.data_vars}
     fluid = Saturation(**{f: arrays[f"fluid_{f}"] for f in FIELDS}, name=fluid_name)
     dims = ds["static_angle"].dims
@@ -476,7 +483,12 @@ def sweep(
     chunks : int or mapping, optional
         Chunk sizes (per axis name, or one size for every axis): the result
         is computed lazily on dask, block by block (on a `dask.distributed`
-        cluster when a client is active).
+        cluster when a client is active). The inputs stay on their own axes
+        until a block needs them, so a lazy sweep costs memory only for its
+        blocks in flight, and a computed one writes each block into the
+        outputs as it finishes (peak about the outputs plus the blocks in
+        flight). Chunk so that a block is a small part of the grid: one
+        block of the whole grid needs twice the outputs.
     progress : bool
         Show a progress bar while computing a chunked sweep.
     compute : bool
@@ -545,24 +557,25 @@ def sweep(
         v = getattr(states, f)
         parts[f"fluid_{f}"] = v if hasattr(v, "dims") else xr.DataArray(float(v))
     order = ["surface"] + ([state_dim] if state_dim else []) + ["heat_flux", "orientation", "subcooling"]
-    ds_in = xr.Dataset(parts)
-    ds_in = xr.broadcast(ds_in)[0].transpose(*order)
+    ds_in = xr.Dataset(parts)  # each input on its own axes: _block broadcasts
     if chunks is not None:
         sizes = list(chunks.values()) if isinstance(chunks, Mapping) else [chunks]
         if not all(isinstance(c, (int, np.integer)) and not isinstance(c, bool) and (c > 0 or c == -1)
                    for c in sizes):
             raise WetboilValueError(f"sweep: chunks must be a positive integer (-1: a whole axis) or a mapping of "
                                     f"axis names to such integers, got {chunks!r}")
-        ds_in = ds_in.chunk(chunks if isinstance(chunks, Mapping) else {d: chunks for d in order})
+        want = dict(chunks) if isinstance(chunks, Mapping) else dict.fromkeys(order, chunks)
+        unknown = set(want) - set(order)
+        if unknown:
+            raise WetboilValueError(f"sweep: chunks names {', '.join(sorted(map(str, unknown)))}, not an axis of "
+                                    f"this sweep ({', '.join(order)})")
+        ds_in = ds_in.chunk({d: c for d, c in want.items() if d in ds_in.dims})
         template = _template(ds_in, meth, order)
         # a lazy result keeps the element policy of this call, as lazy kernel calls do
         lazy_policy = None if compute or "raise" not in _STATE.get() else _STATE.get()
         result = xr.map_blocks(_block, ds_in, args=(meth, states.name, lazy_policy), template=template)
         if compute:
-            if progress:
-                result = _compute_with_progress(result)
-            else:
-                result = result.compute()
+            result = _compute(result, progress)
     else:
         result = _block(ds_in.compute(), meth, states.name)
     result = _decorate(result, meth, state_dim)
@@ -603,16 +616,24 @@ def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
     import dask.array as da
     import xarray as xr
 
-    like = ds_in["static_angle"]
+    # the broadcast shape of the inputs, with their chunks (an axis no input was chunked along: one chunk)
+    shape = tuple(ds_in.sizes[d] for d in order)
+    chunks = tuple(ds_in.chunks.get(d, (ds_in.sizes[d],)) for d in order)
     # the order in which _chain produces them (it is also the flag-bit order)
     names = list(QUANTITIES)[:-2] + [f"chf_{m}" for m in meth["chf"]] + ["chf", "chf_margin"]
-    data = {n: (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=float)) for n in names}
+    data = {n: (order, da.zeros(shape, chunks=chunks, dtype=float)) for n in names}
     for n in ("invalid_flags", "range_flags"):
-        data[n] = (like.dims, da.zeros(like.shape, chunks=like.chunks, dtype=np.int32))
+        data[n] = (order, da.zeros(shape, chunks=chunks, dtype=np.int32))
     return xr.Dataset(data, coords=ds_in.coords)
 
 
-def _compute_with_progress(result: Any) -> Any:
+def _compute(result: Any, progress: bool) -> Any:
+    """The lazy sweep `result` computed into memory. Locally each block is
+    written into preallocated outputs as soon as it is done (``dask.array.store``)
+    and then dropped, so the peak is the outputs plus the blocks in flight;
+    ``.compute()`` would first hold every block and then copy them into the
+    outputs (twice the outputs). With a ``distributed`` client, whose workers
+    cannot write into this process's arrays, the client computes."""
     try:
         from distributed import get_client
 
@@ -620,15 +641,23 @@ def _compute_with_progress(result: Any) -> Any:
     except (ImportError, ValueError):
         client = None
     if client is not None:
+        if not progress:
+            return result.compute()
         from distributed import progress as dist_progress
 
         persisted = result.persist()
         dist_progress(persisted)
         return persisted.compute()
+    import contextlib
+
+    import dask.array as da
     from dask.diagnostics import ProgressBar
 
-    with ProgressBar():
-        return result.compute()
+    names = list(result.data_vars)
+    out = {n: np.empty(result[n].shape, dtype=result[n].dtype) for n in names}
+    with ProgressBar() if progress else contextlib.nullcontext():
+        da.store([result[n].data for n in names], [out[n] for n in names], lock=False)
+    return result.copy(data=out)
 
 
 def _decorate(ds: Any, meth: Dict[str, Any], state_dim: str) -> Any:
