@@ -320,25 +320,28 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
         res.add("onset_cavity_radius", math.nan, False, False, uses_state=False)
 
     # nucleate superheat: each method's value and flags, and with "auto" each point keeps those of
-    # the method it uses (Cooper where the surface has no C_sf, Rohsenow elsewhere)
-    nucleate = {}
+    # the method it uses (Cooper where the surface has no C_sf, Rohsenow elsewhere; a method that
+    # no point uses is not run)
     c_sf = inputs["C_sf"]
-    if methods["nucleate"] in ("auto", "cooper"):
+    by_cooper = np.isnan(c_sf)
+    used = [methods["nucleate"]] if methods["nucleate"] != "auto" else (
+        ["cooper"] if by_cooper.all() else ["rohsenow"] if not by_cooper.any() else ["cooper", "rohsenow"])
+    nucleate = {}
+    for m in used:
         with capture_validity() as cap:
-            nucleate["cooper"] = (boiling.cooper_superheat(q, fluid, inputs["Rp"]), cap)
-    if methods["nucleate"] in ("auto", "rohsenow"):
-        with capture_validity() as cap:
-            value = boiling.rohsenow_superheat(q, fluid, np.where(np.isnan(c_sf), _C_SF_DEFAULT, c_sf),
-                                               inputs["n"])
-        nucleate["rohsenow"] = (value, cap)
-    if methods["nucleate"] == "auto":
-        by_cooper = np.isnan(c_sf)
+            if m == "cooper":
+                value = boiling.cooper_superheat(q, fluid, inputs["Rp"])
+            else:
+                value = boiling.rohsenow_superheat(q, fluid, np.where(by_cooper, _C_SF_DEFAULT, c_sf), inputs["n"])
+        nucleate[m] = (value, cap)
+    if len(used) == 2:
         (vc, cc), (vr, cr) = nucleate["cooper"], nucleate["rohsenow"]
         dtw = res.add("nucleate_superheat", np.where(by_cooper, vc, vr), np.where(by_cooper, cc.invalid, cr.invalid),
                       np.where(by_cooper, cc.out_of_range, cr.out_of_range))
     else:
-        value, cap = nucleate[methods["nucleate"]]
+        value, cap = nucleate[used[0]]
         dtw = res.add("nucleate_superheat", value, cap.invalid, cap.out_of_range)
+    del nucleate
     # linear thermal layer carrying the design flux: delta = k_l (dT_w + dT_sub) / q
     delta = fluid.k_l * (dtw + sub) / q
     with capture_validity() as cap:
