@@ -631,29 +631,36 @@ def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
 
 
 def _compute(result: Any, progress: bool) -> Any:
-    """The lazy sweep `result` computed into memory. Locally each block is
-    written into preallocated outputs as soon as it is done (``dask.array.store``)
-    and then dropped, so the peak is the outputs plus the blocks in flight;
-    ``.compute()`` would first hold every block and then copy them into the
-    outputs (twice the outputs). With a ``distributed`` client, whose workers
-    cannot write into this process's arrays, the client computes."""
-    try:
-        from distributed import get_client
-
-        client = get_client()
-    except (ImportError, ValueError):
-        client = None
-    if client is not None:
-        if not progress:
-            return result.compute()
-        from distributed import progress as dist_progress
-
-        persisted = result.persist()
-        dist_progress(persisted)
-        return persisted.compute()
+    """The lazy sweep `result` computed into memory. With a scheduler that
+    runs in this process (dask's threads, or synchronous), each block is
+    written into preallocated outputs as soon as it is done
+    (``dask.array.store``) and then dropped, so the peak is the outputs plus
+    the blocks in flight; ``.compute()`` would first hold every block and then
+    copy them into the outputs (twice the outputs). Any other scheduler (a
+    ``distributed`` client, processes), whose workers cannot write into this
+    process's arrays, computes the usual way."""
     import contextlib
 
     import dask.array as da
+    import dask.base
+    import dask.local
+    import dask.threaded
+
+    scheduler = dask.base.get_scheduler(collections=[result])
+    if scheduler not in (dask.threaded.get, dask.local.get_sync):
+        client = getattr(scheduler, "__self__", None)  # a distributed Client's bound get
+        if progress and client is not None and hasattr(client, "persist"):
+            from distributed import progress as dist_progress
+
+            persisted = result.persist()
+            dist_progress(persisted)
+            return persisted.compute()
+        if progress:
+            from dask.diagnostics import ProgressBar
+
+            with ProgressBar():
+                return result.compute()
+        return result.compute()
     from dask.diagnostics import ProgressBar
 
     names = list(result.data_vars)
