@@ -645,6 +645,7 @@ def _compute(result: Any, progress: bool) -> Any:
     import dask.base
     import dask.local
     import dask.threaded
+    from dask.diagnostics import ProgressBar
 
     scheduler = dask.base.get_scheduler(collections=[result])
     if scheduler not in (dask.threaded.get, dask.local.get_sync):
@@ -656,13 +657,9 @@ def _compute(result: Any, progress: bool) -> Any:
             dist_progress(persisted)
             return persisted.compute()
         if progress:
-            from dask.diagnostics import ProgressBar
-
             with ProgressBar():
                 return result.compute()
         return result.compute()
-    from dask.diagnostics import ProgressBar
-
     names = list(result.data_vars)
     out = {n: np.empty(result[n].shape, dtype=result[n].dtype) for n in names}
     with ProgressBar() if progress else contextlib.nullcontext():
