@@ -75,7 +75,7 @@ def test_rohsenow_identities_and_warnings():
     # A state without transport properties has no answer: NaN. A NaN the caller
     # passed is missing data and propagates silently (the foundation's rule); a
     # field never given to the hand-built state is named by one warning.
-    bare = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
+    bare = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3, name="water")
     with pytest.warns(wetboil.WetboilWarning, match=r"boiling.rohsenow: fluid.cp_l, fluid.k_l, fluid.mu_l not given") as rec:
         assert math.isnan(rohsenow(5.0, bare))
         assert np.isnan(rohsenow(np.array([5.0, 6.0]), pickle.loads(pickle.dumps(bare)))).all()
@@ -88,6 +88,45 @@ def test_rohsenow_identities_and_warnings():
         rohsenow("5 K", INCROPERA)
     with pytest.raises(TypeError):
         rohsenow(5.0, 1.0)
+
+
+def test_rohsenow_exponent_by_fluid():
+    # The tabulated (C_sf, n) pairs were fitted with n = 1.0 for water and 1.7
+    # for every other liquid (Cengel & Ghajar Table 10-3, the table behind
+    # SURFACE_CONSTANTS; Rohsenow 1952 used 1.7): the default must agree with
+    # every row, or a tabulated C_sf used without its n gives a wrong answer.
+    for row in SURFACE_CONSTANTS:
+        assert boiling.rohsenow_exponent(INCROPERA.replace(name=row.liquid)) == row.n, row
+    assert boiling.rohsenow_exponent(INCROPERA.replace(name="H2O")) == boiling.rohsenow_exponent(INCROPERA) == 1.0
+    assert boiling.rohsenow_exponent(INCROPERA.replace(name=None)) == 1.7
+    for wrong in (3.0, None, "water"):
+        with pytest.raises(TypeError):
+            boiling.rohsenow_exponent(wrong)
+    # Left out, n follows the fluid: the water example keeps n = 1 ...
+    assert rohsenow(18.0, INCROPERA, C_sf=0.0128, g=G_BOOK) == rohsenow(18.0, INCROPERA, C_sf=0.0128, n=1.0, g=G_BOOK)
+    # ... and another liquid gets 1.7, on the scalar and the array path: Rohsenow's
+    # superheat recomputed by hand from CoolProp's R134a properties at 5 bar
+    # (a reference library; the formula as in the docstring, n = 1.7).
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    r134a = wetboil.fluids.from_coolprop("R134a", p=5e5)
+    props = {k: CP.PropsSI(key, "P", 5e5, "Q", q, "R134a") for k, key, q in (
+        ("rho_l", "D", 0), ("rho_v", "D", 1), ("cp", "C", 0), ("mu", "V", 0), ("k", "L", 0), ("s", "I", 0))}
+    h_lv = CP.PropsSI("H", "P", 5e5, "Q", 1, "R134a") - CP.PropsSI("H", "P", 5e5, "Q", 0, "R134a")
+    pr = props["cp"] * props["mu"] / props["k"]
+    q = 1e5
+    by_hand = (0.013 * h_lv * pr**1.7 / props["cp"]
+               * (q / (props["mu"] * h_lv) * math.sqrt(props["s"] / (9.80665 * (props["rho_l"] - props["rho_v"])))) ** (1 / 3))
+    assert rohsenow_superheat(q, r134a) == pytest.approx(by_hand, rel=1e-9)
+    assert rohsenow_superheat(np.array([q, q]), r134a) == pytest.approx([by_hand] * 2, rel=1e-9)
+    assert rohsenow_superheat(q, r134a, n=1.0) < 0.5 * by_hand  # water's exponent: a wrong answer by 2x or more
+    assert rohsenow(by_hand, r134a) == pytest.approx(q, rel=1e-9)
+    # An unnamed state gets 1.7 with a warning that says so.
+    unnamed = INCROPERA.replace(name=None)
+    with pytest.warns(wetboil.WetboilWarning, match="has no name, so Rohsenow's n = 1.7"):
+        assert rohsenow(18.0, unnamed) == rohsenow(18.0, INCROPERA, n=1.7)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        rohsenow(18.0, unnamed, n=1.0)  # n given: nothing to warn about
 
 
 def test_surface_constant_table():

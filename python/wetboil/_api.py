@@ -753,7 +753,8 @@ def _validity_by_running(function: Callable[..., Any], args: Sequence[Any], kwar
 F = TypeVar("F", bound=Callable[..., Any])
 
 
-def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Optional[int] = None) -> Callable[[F], F]:
+def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Optional[int] = None,
+           fill: Optional[Callable[[Tuple[Any, ...]], Tuple[Any, ...]]] = None) -> Callable[[F], F]:
     """Make a public function from kernel `name` and a template.
 
     The template supplies the public signature and docstring; its body is
@@ -763,7 +764,10 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
     `result` is the named tuple type of a multi-output kernel; `output=k`
     instead makes a function that returns output k only (and computes only
     that one where the evaluation path allows, as the factorised grid path
-    does).
+    does). `fill` maps the call's arguments (a tuple in template order) to
+    the arguments evaluated: it replaces a ``None`` default by a value that
+    depends on other arguments (Rohsenow's exponent by fluid). Calls that
+    leave such a default out take the Python path.
 
     The result is a builtin function (no Python frame on the scalar path) with
     the template's signature, docstring and module; it pickles by name. Calls
@@ -812,8 +816,9 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
                 star_done = True
             pieces.append(p.name if p.default is p.empty else f"{p.name}=None")
         arglist = ", ".join(params) + ("," if len(params) == 1 else "")
-        src = f"def {template.__name__}({', '.join(pieces)}):\n    return _evaluate(_spec, ({arglist}))\n"
-        namespace: Dict[str, Any] = {"__name__": template.__module__, "_evaluate": _evaluate, "_spec": spec}
+        src = f"def {template.__name__}({', '.join(pieces)}):\n    return _evaluate(_spec, _fill(({arglist})))\n"
+        namespace: Dict[str, Any] = {"__name__": template.__module__, "_evaluate": _evaluate, "_spec": spec,
+                                     "_fill": fill or (lambda args: args)}
         exec(compile(src, f"<wetboil front door {function}>", "exec"), namespace)
         fallback = namespace[template.__name__]
         fallback.__defaults__ = template.__defaults__

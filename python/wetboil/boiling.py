@@ -24,18 +24,21 @@ only in a secondary source; [M] from memory; [D] derived here.
 from __future__ import annotations
 
 import math
+import warnings
 from typing import Any, Callable, Dict, NamedTuple, Optional, Tuple
 
 import numpy as np
 
 from . import chf as _chf
 from ._api import check_choice, kernel, need_saturation
-from ._errors import WetboilTypeError, WetboilValueError, errstate, one_warning_per_category, report
-from .fluids import Saturation
+from ._errors import (WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, errstate,
+                      one_warning_per_category, report)
+from .fluids import Saturation, _is_water
 
 __all__ = [
     "rohsenow",
     "rohsenow_superheat",
+    "rohsenow_exponent",
     "cooper",
     "cooper_superheat",
     "SURFACE_CONSTANTS",
@@ -64,9 +67,80 @@ G = 9.80665
 
 # --------------------------------------------------------------------------- Rohsenow
 
+#: Rohsenow's Prandtl exponent for water and for other liquids [-].
+ROHSENOW_N_WATER = 1.0
+ROHSENOW_N_OTHER = 1.7
 
-@kernel("rohsenow_heat_flux")
-def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = 1.0, g: Any = G) -> Any:
+
+def rohsenow_exponent(fluid: Any) -> float:
+    """Rohsenow's Prandtl exponent for a fluid when the surface-liquid pair
+    has no fitted one: 1.0 for water, 1.7 for every other liquid.
+
+    Parameters
+    ----------
+    fluid : Saturation
+        A saturated state; its ``name`` says whether it is water (any name
+        in `wetboil.fluids.WATER_NAMES`).
+
+    Returns
+    -------
+    float
+        1.0 or 1.7. An unnamed state gets 1.7, the value for liquids other
+        than water; `rohsenow` and `rohsenow_superheat` warn when they take
+        it for an unnamed state.
+
+    Notes
+    -----
+    Rohsenow (1952) correlated every liquid with 1.7 [M]; the constants for
+    water were later tabulated with 1.0 (Vachon, Nix & Tanger 1968 [M]), and
+    the tabulated surface-liquid constants (`SURFACE_CONSTANTS`) carry 1.0
+    for water and 1.7 for every other liquid [V2]. This rule is common
+    practice. Like C_sf, n is a property of the surface-liquid pair
+    (Vachon et al. fitted both per pair): a fitted (C_sf, n) pair always
+    takes precedence.
+
+    References
+    ----------
+    .. [1] W.M. Rohsenow, Trans. ASME 74 (1952) 969-976.
+    .. [2] R.I. Vachon, G.H. Nix, G.E. Tanger, "Evaluation of constants for
+       the Rohsenow pool-boiling correlation", J. Heat Transfer 90 (1968)
+       239-247.
+
+    Examples
+    --------
+    >>> from wetboil.boiling import rohsenow_exponent
+    >>> from wetboil.fluids import water
+    >>> w = water(p=101325.0)
+    >>> rohsenow_exponent(w), rohsenow_exponent(w.replace(name="R134a"))
+    (1.0, 1.7)
+    """
+    if not isinstance(fluid, Saturation):
+        raise WetboilTypeError(f"boiling.rohsenow_exponent: fluid must be a Saturation, got {type(fluid).__name__}")
+    return ROHSENOW_N_WATER if _is_water(fluid.name) else ROHSENOW_N_OTHER
+
+
+def _default_exponent(fluid: Saturation, function: str) -> float:
+    """`rohsenow_exponent` of a state, with a warning when the state has no
+    name (the choice of exponent then rests on an assumption)."""
+    if fluid.name is None:
+        warnings.warn(
+            f"{function}: the fluid state has no name, so Rohsenow's n = 1.7 (his value for liquids other than "
+            "water) was used; pass n=1.0 for water, or name the state (Saturation(..., name=...))",
+            WetboilWarning, stacklevel=_stacklevel(),
+        )
+    return rohsenow_exponent(fluid)
+
+
+def _rohsenow_fill(args: Tuple[Any, ...]) -> Tuple[Any, ...]:
+    """Rohsenow's exponent by fluid where the call leaves ``n`` out."""
+    x, fluid, C_sf, n, g = args
+    if n is None and isinstance(fluid, Saturation):
+        n = _default_exponent(fluid, "boiling.rohsenow")
+    return x, fluid, C_sf, n, g
+
+
+@kernel("rohsenow_heat_flux", fill=_rohsenow_fill)
+def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
     r"""Rohsenow (1952) nucleate pool-boiling heat flux [W/m2].
 
     .. math::
@@ -84,7 +158,9 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
         Surface-liquid constant [-]; see `SURFACE_CONSTANTS` and
         `surface_constant`. Default 0.013 (water on polished copper).
     n : array_like, optional
-        Prandtl exponent [-]: 1 for water, 1.7 for other liquids.
+        Prandtl exponent [-]. Default: `rohsenow_exponent` of the fluid,
+        1.0 for water and 1.7 for other liquids (an unnamed state gets 1.7
+        with a `WetboilWarning`). Give the n fitted with your C_sf.
     g : array_like, optional
         Acceleration [m/s2]; standard gravity by default.
 
@@ -117,7 +193,7 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
     >>> from wetboil.fluids import Saturation
     >>> from wetboil.boiling import rohsenow
     >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3,
-    ...                cp_l=4217.0, mu_l=279e-6, k_l=4217.0 * 279e-6 / 1.76)
+    ...                cp_l=4217.0, mu_l=279e-6, k_l=4217.0 * 279e-6 / 1.76, name="water")
     >>> round(rohsenow(18.0, w, C_sf=0.0128, g=9.8) / 1e3)   # kW/m2
     836
     >>> (rohsenow([5.0, 10.0, 20.0], w, C_sf=0.0128, g=9.8) / 1e3).round()
@@ -125,8 +201,8 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
     """
 
 
-@kernel("rohsenow_superheat")
-def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = 1.0, g: Any = G) -> Any:
+@kernel("rohsenow_superheat", fill=_rohsenow_fill)
+def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
     r"""Wall superheat at a nucleate-boiling heat flux, Rohsenow (1952) [K];
     the inverse of `rohsenow`.
 
@@ -157,7 +233,7 @@ def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = 0.013, n: 
     >>> from wetboil.fluids import Saturation
     >>> from wetboil.boiling import rohsenow_superheat
     >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3,
-    ...                cp_l=4217.0, mu_l=279e-6, k_l=4217.0 * 279e-6 / 1.76)
+    ...                cp_l=4217.0, mu_l=279e-6, k_l=4217.0 * 279e-6 / 1.76, name="water")
     >>> round(rohsenow_superheat(836.1e3, w, C_sf=0.0128, g=9.8), 2)
     18.0
     """
@@ -881,7 +957,7 @@ def curve(
     orientation_deg: float = 0.0,
     nucleate: str = "rohsenow",
     C_sf: float = 0.013,
-    n: float = 1.0,
+    n: Optional[float] = None,
     roughness_Rp: float = 1e-6,
     chf: Optional[str] = None,
     geometry: str = "flat_plate",
@@ -946,7 +1022,8 @@ def curve(
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
-        Rohsenow constants (see `surface_constant`).
+        Rohsenow constants (see `surface_constant`); n by default from
+        `rohsenow_exponent` (1.0 water, 1.7 other liquids).
     roughness_Rp : float, optional
         Cooper's R_p [m].
     chf : str, optional
@@ -1026,7 +1103,7 @@ def curve(
     >>> from wetboil.fluids import Saturation
     >>> from wetboil.boiling import curve
     >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3,
-    ...                cp_l=4217.0, mu_l=279e-6, k_l=0.680, cp_v=2080.0, k_v=0.0331, mu_v=14.85e-6)
+    ...                cp_l=4217.0, mu_l=279e-6, k_l=0.680, cp_v=2080.0, k_v=0.0331, mu_v=14.85e-6, name="water")
     >>> c = curve(w, np.geomspace(1.0, 1000.0, 61), receding_angle_deg=45.0, C_sf=0.0128,
     ...           natural_convection_coefficient=1000.0, onset_superheat=5.0, design_heat_flux=8e5)
     >>> round(float(c["critical_heat_flux"]) / 1e6, 2), round(float(c["critical_superheat"]), 1)
@@ -1069,6 +1146,8 @@ def curve(
     # -- nucleate branch and its inverse
     if nucleate == "rohsenow":
         _require(fluid, ("cp_l", "k_l", "mu_l"), "the Rohsenow branch")
+        if n is None:  # chosen (and an unnamed state warned about) once, not at every call below
+            n = _default_exponent(fluid, fn)
 
         def q_nb(x: Any) -> Any:
             return rohsenow(x, fluid, C_sf, n, g)
