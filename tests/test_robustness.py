@@ -78,6 +78,8 @@ def dispatcher_cases() -> List[Tuple[str, Callable[..., Any], Dict[str, Any]]]:
          dict(sigma_lv=[0.0240, 0.0254, 0.0276], contact_angle_deg=[35.0, 42.0, 46.0])),
         ("wetting.split_surface_tension", wetting.split_surface_tension, dict(sigma_lv=0.0589)),
         ("wetting.probe_liquid", wetting.probe_liquid, dict(name="water")),
+        ("wetting.dispersive_fraction", wetting.dispersive_fraction, dict(fluid="water")),
+        ("boiling.rohsenow_exponent", boiling.rohsenow_exponent, dict(fluid=W)),
         ("wetting.hamaker_constant", wetting.hamaker_constant, dict(name="water")),
         ("boiling.surface_constant", boiling.surface_constant, dict(liquid="water", surface="copper, polished")),
         ("boiling.curve", boiling.curve,

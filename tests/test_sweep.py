@@ -79,6 +79,89 @@ def test_probe_liquid_surface_angles_vary_with_pressure():
     assert a[0] != a[1]  # surface tension falls with temperature: the angle follows
 
 
+def _owens_wendt_by_hand(probes_deg, liquid_d, liquid_p):
+    """Owens & Wendt (J. Appl. Polym. Sci. 13 (1969) 1741) by hand: the
+    solid's sqrt components from two probe angles, then the liquid's angle.
+    Probe splits [mN/m]: water 21.8/51.0 (Fowkes, Ind. Eng. Chem. 56(12)
+    (1964) 40), diiodomethane 50.8/0 (Strom et al. 1987; from memory, as in
+    wetting.PROBE_LIQUIDS)."""
+    rows = {"water": (21.8, 51.0), "diiodomethane": (50.8, 0.0)}
+    a = np.array([[2 * math.sqrt(rows[k][0]), 2 * math.sqrt(rows[k][1])] for k in probes_deg])
+    b = np.array([sum(rows[k]) * (1 + math.cos(math.radians(v))) for k, v in probes_deg.items()])
+    sd, sp = np.linalg.solve(a, b)  # sqrt(gamma_s^d), sqrt(gamma_s^p) [sqrt(mN/m)]
+    total = liquid_d + liquid_p
+    cos = -1 + 2 * (sd * math.sqrt(liquid_d) + sp * math.sqrt(liquid_p)) / total
+    return math.degrees(math.acos(min(1.0, max(-1.0, cos))))
+
+
+def test_probe_liquid_angles_split_the_working_fluid_by_its_own_kind():
+    # A low-energy coating (invented) probed with water and diiodomethane.
+    probes = {"water": 118.0, "diiodomethane": 88.0}
+    s = Surface("fluoro coat (invented)", probe_static_deg=probes)
+    # n-Pentane has no polar part (saturated hydrocarbons: dispersion forces
+    # only, Fowkes 1964): its angle follows from the solid's dispersive part
+    # alone. Its surface tension from CoolProp (a reference library).
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    pentane = wetboil.fluids.from_coolprop("n-Pentane", T=280.0)
+    sigma = CP.PropsSI("I", "T", 280.0, "Q", 0, "n-Pentane") * 1e3  # mN/m
+    expected = _owens_wendt_by_hand(probes, sigma, 0.0)
+    assert 30.0 < expected < 45.0  # a case with an angle, not a spreading limit
+    assert float(s.angles(pentane).static_deg) == pytest.approx(expected, abs=1e-9)
+    # Split as water's (30 % dispersive), the same liquid would read 85 deg: the old error.
+    assert _owens_wendt_by_hand(probes, 0.2995 * sigma, 0.7005 * sigma) > expected + 40.0
+    # Water keeps its split (and its values bit for bit).
+    w = water(p=1e5)
+    energy = wetboil.wetting.surface_energy(list(probes.values()), list(probes))
+    assert float(s.angles(w).static_deg) == float(wetboil.wetting.predict_angle(
+        energy, *wetboil.wetting.split_surface_tension(w.sigma)))
+    sw = w.sigma * 1e3
+    assert float(s.angles(w).static_deg) == pytest.approx(_owens_wendt_by_hand(probes, sw * 21.8 / 72.8,
+                                                                               sw * 51.0 / 72.8), abs=1e-9)
+    # A fluid with no tabulated split is refused until the user gives one.
+    r134a = wetboil.fluids.from_coolprop("R134a", p=5e5)
+    with pytest.raises(ValueError, match="no published dispersive/polar split.*R134a.*dispersive_fraction"):
+        s.angles(r134a)
+    with pytest.raises(ValueError, match="has no name"):
+        s.angles(w.replace(name=None))
+    sr = r134a.sigma * 1e3
+    got = float(s.angles(r134a, dispersive_fraction=0.6).static_deg)
+    assert got == pytest.approx(_owens_wendt_by_hand(probes, 0.6 * sr, 0.4 * sr), abs=1e-9)
+    with pytest.raises(ValueError, match="dispersive_fraction = 1.5 is outside"):
+        s.angles(r134a, dispersive_fraction=1.5)
+    # Surfaces with the working fluid's own angles need no split.
+    assert Surface("direct (invented)", 70, 80, 40).angles(r134a).static_deg == 70
+    # The sweep passes the choice through, and refuses in the same way.
+    with pytest.raises(ValueError, match="no published dispersive/polar split"):
+        wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5)
+    ds = wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5, dispersive_fraction=0.6)
+    assert float(ds["static_angle"].squeeze()) == got
+    ds = wetboil.sweep([s], "n-Pentane", T=280.0, heat_flux=1e5)
+    assert float(ds["static_angle"].squeeze()) == pytest.approx(expected, abs=1e-9)
+
+
+def test_rohsenow_exponent_follows_the_fluid_in_sweeps():
+    # Rohsenow's n: 1.0 for water, 1.7 for other liquids (Rohsenow 1952;
+    # Vachon, Nix & Tanger 1968; common practice) unless the surface gives one.
+    pytest.importorskip("CoolProp")
+    surfaces = [Surface("given C_sf (invented)", 60, 70, 40, C_sf=0.013),
+                Surface("given n (invented)", 60, 70, 40, C_sf=0.013, n=1.0)]
+    ds = wetboil.sweep(surfaces, "R134a", p=5e5, heat_flux=1e5)
+    r134a = wetboil.fluids.from_coolprop("R134a", p=5e5)
+    dt = ds["nucleate_superheat"].squeeze()
+    assert float(dt.sel(surface="given C_sf (invented)")) == pytest.approx(
+        rohsenow_superheat(1e5, r134a, 0.013, 1.7), rel=1e-14)
+    assert float(dt.sel(surface="given n (invented)")) == pytest.approx(
+        rohsenow_superheat(1e5, r134a, 0.013, 1.0), rel=1e-14)
+    ds = wetboil.sweep(surfaces[:1], "water", p=1e5, heat_flux=1e5)
+    assert float(ds["nucleate_superheat"].squeeze()) == pytest.approx(
+        rohsenow_superheat(1e5, water(p=1e5), 0.013, 1.0), rel=1e-14)
+    # an unnamed state: 1.7, with a warning naming the choice
+    with pytest.warns(wetboil.WetboilWarning, match="sweep: the fluid state has no name"):
+        ds = wetboil.sweep(surfaces[:1], r134a.replace(name=None), heat_flux=1e5)
+    assert float(ds["nucleate_superheat"].squeeze()) == pytest.approx(
+        rohsenow_superheat(1e5, r134a, 0.013, 1.7), rel=1e-14)
+
+
 def test_bad_input_is_named():
     with pytest.raises(ValueError, match="heat_flux axis is empty"):
         wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])

@@ -13,6 +13,9 @@ Spec format (every key optional unless marked)::
     subcoolings_K = [0.0]                     # default [0.0]
     surfaces_file = "surfaces.toml"           # .toml or .csv, relative to the spec; or [[surface]] tables below
     chunks = 200000                           # optional: run lazily on dask in chunks of this many points
+    dispersive_fraction = 0.5                 # optional: dispersive part of the fluid's surface tension (0-1),
+                                              # for probe-liquid surfaces in a fluid other than water or a
+                                              # saturated hydrocarbon (see wetboil.wetting.dispersive_fraction)
 
     [methods]                                 # optional, see wetboil.sweep.METHOD_CHOICES
     onset = "hsu"
@@ -60,7 +63,7 @@ CAUTION = (
 _STUDY_KEYS: Dict[str, type] = {
     "title": str, "fluid": str, "pressures_Pa": list, "temperatures_K": list, "heat_fluxes_W_m2": list,
     "orientations_deg": list, "subcoolings_K": list, "surfaces_file": str, "chunks": int,
-    "lab": str, "product": str,
+    "lab": str, "product": str, "dispersive_fraction": float,
 }
 _TOP_KEYS = ("study", "methods", "surface")
 
@@ -74,8 +77,10 @@ class Study:
 
     def __init__(self, title: str, fluid: str, axis: str, states: List[float], heat_fluxes: List[float],
                  orientations: List[float], subcoolings: List[float], methods: Dict[str, Any],
-                 surfaces: List[Surface], chunks: Optional[int] = None, meta: Optional[Dict[str, str]] = None):
+                 surfaces: List[Surface], chunks: Optional[int] = None, meta: Optional[Dict[str, str]] = None,
+                 dispersive_fraction: Optional[float] = None):
         self.title, self.fluid, self.axis, self.states = title, fluid, axis, states
+        self.dispersive_fraction = dispersive_fraction
         self.heat_fluxes, self.orientations, self.subcoolings = heat_fluxes, orientations, subcoolings
         self.methods, self.surfaces, self.chunks, self.meta = methods, surfaces, chunks, meta or {}
 
@@ -124,6 +129,8 @@ def load_spec(path: Any) -> Study:
         if key not in _STUDY_KEYS:
             raise fail(key, f"unknown key {key!r} in [study]; known keys: {', '.join(_STUDY_KEYS)}", "study")
         want = _STUDY_KEYS[key]
+        if want is float and isinstance(value, int) and not isinstance(value, bool):
+            value = study[key] = float(value)
         if want is list and not isinstance(value, list):
             value = [value]
             study[key] = value
@@ -207,12 +214,24 @@ def load_spec(path: Any) -> Study:
     problem = _method_fluid_problem(methods, fluid)
     if problem:
         raise fail("onset", f"[methods] {problem}", "methods")
+    fraction = study.get("dispersive_fraction")
+    if fraction is not None and not 0.0 <= fraction <= 1.0:
+        raise fail("dispersive_fraction", "[study] dispersive_fraction must lie in 0-1", "study")
+    probed = [s.name for s in surfaces if s.probe_static_deg is not None]
+    if probed and fraction is None:
+        from .wetting import dispersive_fraction
+
+        try:
+            dispersive_fraction(fluid)
+        except WetboilValueError as exc:
+            raise fail("fluid", f"[study] surface(s) {probed} are described by probe-liquid angles, and {exc}; "
+                                "set [study] dispersive_fraction", "study") from None
     return Study(
         title=study.get("title", path.stem), fluid=fluid, axis=axis, states=states, heat_fluxes=fluxes,
         orientations=orientations,
         subcoolings=subcoolings,
         methods=methods, surfaces=surfaces, chunks=chunks,
-        meta={k: study[k] for k in ("lab", "product") if k in study},
+        meta={k: study[k] for k in ("lab", "product") if k in study}, dispersive_fraction=fraction,
     )
 
 
@@ -240,7 +259,8 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
             kw["chunks"] = _chunk_sizes(study, study.chunks)
             kw["progress"] = progress
         ds = sweep(study.surfaces, study.fluid, heat_flux=study.heat_fluxes, orientation_deg=study.orientations,
-                   subcooling=study.subcoolings, methods=study.methods, **kw)
+                   subcooling=study.subcoolings, methods=study.methods,
+                   dispersive_fraction=study.dispersive_fraction, **kw)
         ds.attrs["title"] = study.title
         ds.to_netcdf(scratch / "sweep.nc")
         summary = ranked_table(ds)
@@ -290,12 +310,12 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     superheat = np.geomspace(0.5, 1500.0, 400)
     design = study.heat_fluxes[0]
     for s in study.surfaces:
-        a = s.angles(state)
+        a = s.angles(state, dispersive_fraction=study.dispersive_fraction)
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")
             c = boiling.curve(state, superheat, receding_angle_deg=float(np.asarray(a.receding_deg)),
                               contact_angle_deg=float(np.asarray(a.static_deg)), orientation_deg=study.orientations[0],
-                              nucleate="rohsenow" if s.C_sf else "cooper", C_sf=s.C_sf or 0.013, n=s.n or 1.0,
+                              nucleate="rohsenow" if s.C_sf else "cooper", C_sf=s.C_sf or 0.013, n=s.n,
                               roughness_Rp=s.Rp or 1e-6, natural_convection_coefficient=1000.0,
                               design_heat_flux=design)
         ax.loglog(superheat, c["heat_flux"].values, label=s.name)
@@ -320,7 +340,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             warnings.simplefilter("ignore", RangeWarning)
             ax.plot(beta, chf.kandlikar(beta, state, phi) / 1e6, label=f"Kandlikar (2001), {phi:g} deg")
     for s in study.surfaces:
-        r = float(np.asarray(s.angles(state).receding_deg))
+        r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
         ax.plot(r, chf.kandlikar(r, state, study.orientations[0]) / 1e6, "o", ms=6)
         ax.annotate(s.name, (r, chf.kandlikar(r, state, study.orientations[0]) / 1e6), fontsize=7,
                     textcoords="offset points", xytext=(4, 4))
@@ -450,6 +470,8 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         lines.append(f"- {k}: {v}")
     lines += [
         f"- fluid: {study.fluid}",
+        *([f"- dispersive fraction of its surface tension (for probe-liquid surfaces): {study.dispersive_fraction:g}"]
+          if study.dispersive_fraction is not None else []),
         f"- {axis_name}: {', '.join(f'{v:g}' for v in study.states)}",
         f"- design heat fluxes [W/m2]: {', '.join(f'{v:g}' for v in study.heat_fluxes)}",
         f"- orientations [deg]: {', '.join(f'{v:g}' for v in study.orientations)}",

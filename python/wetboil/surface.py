@@ -88,7 +88,10 @@ class Surface:
         Cooper's surface roughness parameter [m] (default 1 um, Cooper's
         value when unknown).
     C_sf, n : float, optional
-        Rohsenow's surface-liquid constant and Prandtl exponent, where known.
+        Rohsenow's surface-liquid constant and Prandtl exponent, where known
+        (give the n that C_sf was fitted with). Without n, the working
+        fluid's decides (`wetboil.boiling.rohsenow_exponent`: 1.0 for water,
+        1.7 for other liquids).
     cavity_radius : float, optional
         Typical cavity mouth radius [m], where known.
     cavity_half_angle_deg : float, optional
@@ -117,7 +120,7 @@ class Surface:
         solid_fraction: Optional[float] = None,
         Rp: float = 1e-6,
         C_sf: Optional[float] = None,
-        n: float = 1.0,
+        n: Optional[float] = None,
         cavity_radius: Optional[float] = None,
         cavity_half_angle_deg: Optional[float] = None,
         probe_static_deg: Optional[Mapping[str, float]] = None,
@@ -179,7 +182,7 @@ class Surface:
             )
 
     # -- the working fluid's angles -------------------------------------------------
-    def angles(self, fluid: Optional[Saturation] = None) -> WorkingAngles:
+    def angles(self, fluid: Optional[Saturation] = None, *, dispersive_fraction: Optional[float] = None) -> WorkingAngles:
         """Apparent static, advancing and receding angles of the working fluid
         [deg].
 
@@ -187,10 +190,20 @@ class Surface:
         they are intrinsic). Probe-liquid angles need `fluid`: the surface
         energy is fitted to each probe set (static, advancing, receding) and
         the working fluid's angle predicted with its surface tension at
-        saturation, split into dispersive and polar parts in the proportions
-        of water at 20 C (`wetboil.wetting.split_surface_tension`, our
-        assumption). Missing advancing/receding data give the static angle
-        (no hysteresis).
+        saturation, split into dispersive and polar parts. Missing
+        advancing/receding data give the static angle (no hysteresis).
+
+        Parameters
+        ----------
+        fluid : Saturation, optional
+            The working fluid's saturated state(s); needed for probe-liquid
+            angles only.
+        dispersive_fraction : float, optional
+            Dispersive part of the working fluid's surface tension over the
+            total, 0-1. By default the fluid's tabulated value
+            (`wetboil.wetting.dispersive_fraction`: water and saturated
+            hydrocarbons); other fluids raise `WetboilValueError` until it is
+            given. Held constant up to saturation (our assumption).
         """
         from . import wetting
 
@@ -204,7 +217,12 @@ class Surface:
                     f"surface {self.name!r} is described by probe-liquid angles: angles() needs the working fluid "
                     "(a wetboil.fluids.Saturation)"
                 )
-            d, p = wetting.split_surface_tension(fluid.sigma)
+            if dispersive_fraction is None:
+                fd, fp = _tabulated_split(fluid)
+            else:
+                fd = float(_number(self.name, "dispersive_fraction", dispersive_fraction, 0.0, 1.0))  # type: ignore[arg-type]
+                fp = 1.0 - fd
+            d, p = fluid.sigma * fd, fluid.sigma * fp
 
             def predict(probes: Optional[Dict[str, float]]) -> Any:
                 if probes is None:
@@ -247,13 +265,25 @@ class Surface:
 
     def __repr__(self) -> str:
         parts = [repr(self.name)]
-        defaults = {"angles_are": "apparent", "roughness_ratio": 1.0, "Rp": 1e-6, "n": 1.0, "notes": ""}
+        defaults = {"angles_are": "apparent", "roughness_ratio": 1.0, "Rp": 1e-6, "notes": ""}
         for k in _KEYS[1:]:
             v = getattr(self, k)
             if v is None or defaults.get(k, object()) == v:
                 continue
             parts.append(f"{k}={v:g}" if isinstance(v, float) else f"{k}={v!r}")
         return f"Surface({', '.join(parts)})"
+
+
+def _tabulated_split(fluid: Saturation) -> "tuple[float, float]":
+    """Dispersive and polar fractions of a fluid's surface tension from the
+    table (water as the probe table splits it, bit for bit)."""
+    from . import wetting
+
+    fd = wetting.dispersive_fraction(fluid)
+    if fd == wetting.DISPERSIVE_FRACTIONS["Water"][0]:
+        w = wetting.PROBE_LIQUIDS["default"]["water"]
+        return w.dispersive / w.total, w.polar / w.total
+    return fd, 1.0 - fd
 
 
 # ---------------------------------------------------------------------------------

@@ -228,7 +228,8 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     return states, dim, masks[0], masks[1]
 
 
-def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> Dict[str, Any]:
+def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str,
+                   dispersive_fraction: Optional[float], xr: Any) -> Dict[str, Any]:
     """Per-surface inputs as DataArrays along `surface` (angles may also vary
     with the fluid state when they are predicted from probe liquids)."""
     names = [s.name for s in surfaces]
@@ -239,7 +240,7 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> D
     for s in surfaces:
         # the angle conversions (Wenzel, Cassie-Baxter, OWRK) are flagged like every other step
         with errstate(invalid="ignore", out_of_range="ignore"), capture_validity() as cap:
-            angles.append(s.angles(fluid))
+            angles.append(s.angles(fluid, dispersive_fraction=dispersive_fraction))
         invalid.append(bool(np.any(cap.invalid)))
         out_of_range.append(bool(np.any(cap.out_of_range)))
 
@@ -258,7 +259,12 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, xr: Any) -> D
     }
     table["angle_invalid"] = xr.DataArray(np.asarray(invalid, dtype=float), dims="surface", coords=coord)
     table["angle_out_of_range"] = xr.DataArray(np.asarray(out_of_range, dtype=float), dims="surface", coords=coord)
-    for key, default in (("C_sf", math.nan), ("n", 1.0), ("Rp", 1e-6)):
+    # Rohsenow's exponent of a surface that gives none: by fluid (warned once for an unnamed state,
+    # where Rohsenow's nucleate superheat will use it)
+    rohsenow_default = any(s.n is None and (nucleate == "rohsenow" or (nucleate == "auto" and s.C_sf is not None))
+                           for s in surfaces)
+    n_default = boiling._default_exponent(fluid, "sweep") if rohsenow_default else boiling.rohsenow_exponent(fluid)
+    for key, default in (("C_sf", math.nan), ("n", n_default), ("Rp", 1e-6)):
         vals = [getattr(s, key) if getattr(s, key) is not None else default for s in surfaces]
         table[key] = xr.DataArray(np.asarray(vals, dtype=float), dims="surface", coords=coord)
     return table
@@ -422,6 +428,7 @@ def sweep(
     chunks: Optional[Union[int, Mapping[str, int]]] = None,
     progress: bool = False,
     compute: bool = True,
+    dispersive_fraction: Optional[float] = None,
 ) -> Any:
     """Evaluate the boiling chain over a labelled grid.
 
@@ -496,6 +503,13 @@ def sweep(
         Show a progress bar while computing a chunked sweep.
     compute : bool
         With `chunks`, return the computed Dataset (default) or the lazy one.
+    dispersive_fraction : float, optional
+        Dispersive part of the working fluid's surface tension over the
+        total, 0-1, for surfaces described by probe-liquid angles (see
+        `wetboil.Surface.angles`). By default the fluid's tabulated value
+        (`wetboil.wetting.dispersive_fraction`: water, saturated
+        hydrocarbons); for another fluid such surfaces raise
+        `WetboilValueError` until it is given.
 
     Returns
     -------
@@ -545,7 +559,7 @@ def sweep(
     problem = _method_fluid_problem(meth, states.name)
     if problem:
         raise WetboilValueError(f"sweep: {problem}")
-    table = _surface_table(surfaces, states, xr)
+    table = _surface_table(surfaces, states, meth["nucleate"], dispersive_fraction, xr)
     table["fluid_invalid"], table["fluid_out_of_range"] = state_invalid, state_out_of_range
     axes = {
         "heat_flux": _axis("heat_flux", heat_flux, xr),

@@ -39,7 +39,7 @@ import numpy as np
 
 from ._api import kernel
 from ._errors import WetboilTypeError, WetboilValueError, report
-from .fluids import Saturation
+from .fluids import Saturation, _is_water
 
 __all__ = [
     # kernels
@@ -61,6 +61,8 @@ __all__ = [
     "predict_angle",
     "critical_surface_tension",
     "split_surface_tension",
+    "dispersive_fraction",
+    "DISPERSIVE_FRACTIONS",
     "probe_liquid",
     "hamaker_constant",
     "ProbeLiquid",
@@ -811,6 +813,91 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
         s = _float_array("split_surface_tension", "sigma_lv", s)  # float64: float32, int and object arrays too
     fd, fp = liquid.dispersive / liquid.total, liquid.polar / liquid.total
     return s * fd, s * fp
+
+
+_FOWKES_HYDROCARBONS = (
+    "saturated hydrocarbons interact by dispersion forces only, so their surface tension is all dispersive: "
+    "F.M. Fowkes, Ind. Eng. Chem. 56(12) (1964) 40-52, doi:10.1021/ie50660a008"
+)
+
+#: Dispersive part of a working fluid's surface tension over the total [-],
+#: by CoolProp name, for `dispersive_fraction`: water as split by Fowkes
+#: (21.8 of 72.8 mN/m at 20 C, the default probe table's water) and the
+#: saturated hydrocarbons, which Fowkes treats as dispersion-only (1.0).
+#: Other fluids have no tabulated split: give one (``dispersive_fraction=``).
+DISPERSIVE_FRACTIONS: Dict[str, Tuple[float, str]] = {
+    "Water": (PROBE_LIQUIDS["default"]["water"].dispersive / PROBE_LIQUIDS["default"]["water"].total, _FOWKES_WATER),
+    **{name: (1.0, _FOWKES_HYDROCARBONS) for name in (
+        "Methane", "Ethane", "n-Propane", "n-Butane", "IsoButane", "n-Pentane", "Isopentane", "Neopentane",
+        "n-Hexane", "Isohexane", "n-Heptane", "n-Octane", "n-Nonane", "n-Decane", "n-Undecane", "n-Dodecane",
+        "Cyclopentane", "CycloHexane",
+    )},
+}
+
+# lower-case names without separators -> DISPERSIVE_FRACTIONS key (CoolProp's usual aliases included)
+_FRACTION_KEYS = {re.sub(r"[\s_\-]+", "", k.lower()): k for k in DISPERSIVE_FRACTIONS}
+_FRACTION_KEYS.update({"propane": "n-Propane", "butane": "n-Butane", "pentane": "n-Pentane", "hexane": "n-Hexane",
+                       "heptane": "n-Heptane", "octane": "n-Octane", "nonane": "n-Nonane", "decane": "n-Decane",
+                       "undecane": "n-Undecane", "dodecane": "n-Dodecane", "isobutane": "IsoButane"})
+
+
+def dispersive_fraction(fluid: Any) -> float:
+    r"""Dispersive part of a working fluid's surface tension over the total
+    [-], for predicting its contact angle from a solid's surface energy.
+
+    Parameters
+    ----------
+    fluid : Saturation or str
+        A saturated state (its ``name`` is used) or a fluid name (CoolProp's
+        names and aliases, any case).
+
+    Returns
+    -------
+    float
+        :math:`\sigma^d/\sigma` from `DISPERSIVE_FRACTIONS`: 0.299 for water
+        (Fowkes' 21.8 of 72.8 mN/m), 1.0 for saturated hydrocarbons.
+
+    Raises
+    ------
+    WetboilValueError
+        A fluid with no tabulated split (refrigerants, alcohols, fluorinated
+        liquids...) or a state without a name: the polar part of such a
+        fluid is not known here, and guessing it moves the predicted angle
+        by tens of degrees. Give the fraction yourself where a split is
+        needed (``Surface.angles(fluid, dispersive_fraction=...)``,
+        ``sweep(..., dispersive_fraction=...)``).
+
+    Notes
+    -----
+    The fraction is taken as constant up to the saturation temperature
+    (**our assumption**; the components' temperature dependence is rarely
+    measured).
+
+    Examples
+    --------
+    >>> from wetboil.wetting import dispersive_fraction
+    >>> round(dispersive_fraction("water"), 4), dispersive_fraction("n-Pentane")
+    (0.2995, 1.0)
+    """
+    name = fluid.name if isinstance(fluid, Saturation) else fluid
+    if name is None:
+        raise WetboilValueError(
+            "wetting.dispersive_fraction: the fluid state has no name, so its surface tension cannot be split; "
+            "name it (Saturation(..., name=...)) or give dispersive_fraction=... [0-1]"
+        )
+    if not isinstance(name, str):
+        raise WetboilTypeError(
+            f"wetting.dispersive_fraction: fluid must be a Saturation or a fluid name, got {type(fluid).__name__}"
+        )
+    key = "Water" if _is_water(name) else _FRACTION_KEYS.get(re.sub(r"[\s_\-]+", "", name.strip().lower()))
+    if key is None:
+        raise WetboilValueError(
+            f"wetting.dispersive_fraction: no published dispersive/polar split of the surface tension of {name!r} "
+            f"is tabulated (known: water and saturated hydrocarbons, see wetting.DISPERSIVE_FRACTIONS); give "
+            "dispersive_fraction=... [0-1], the dispersive part of its surface tension over the total, from a "
+            "measurement or the literature"
+        )
+    return DISPERSIVE_FRACTIONS[key][0]
 
 
 # -----------------------------------------------------------------------------
