@@ -254,3 +254,104 @@ def test_an_output_folder_that_cannot_be_made_is_a_one_line_error(tmp_path, caps
     assert cli.main(["demo", "--out", str(a_file / "below")]) == 1
     assert "cannot create the output folder" in capsys.readouterr().err
     assert a_file.read_text() == "not a folder"
+
+
+FACING_DOWN_SPEC = """
+[study]
+title = "Facing-down check (invented)"
+fluid = "water"
+pressures_Pa = [101325.0, 500000.0]
+heat_fluxes_W_m2 = [300000.0]
+orientations_deg = [180.0, 0.0]
+
+[[surface]]
+name = "hydrophilic (invented)"
+static_deg = 30.0
+advancing_deg = 40.0
+receding_deg = 20.0
+
+[[surface]]
+name = "hydrophobic (invented)"
+static_deg = 120.0
+advancing_deg = 130.0
+receding_deg = 110.0
+"""
+
+
+def _run_keeping_figures(tmp_path, monkeypatch, spec_text):
+    """Run a spec in-process and keep the figures the report draws (plt.close is skipped)."""
+    import warnings
+
+    import matplotlib.pyplot as plt
+
+    from wetboil.report import load_spec, run_study
+
+    figures = []
+    monkeypatch.setattr(plt, "close", lambda fig=None: figures.append(fig))
+    spec = tmp_path / "study.toml"
+    spec.write_text(spec_text)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        report = run_study(load_spec(spec), tmp_path / "out", spec_text=spec_text)
+    return report.read_text(), figures
+
+
+def test_report_legend_names_only_surfaces_with_a_drawn_curve(tmp_path, monkeypatch):
+    """Behavioural contract: a surface whose boiling curve has no critical heat flux gets neither a
+    curve nor a legend entry, and the report says why. Facing down (180 deg) Kandlikar's CHF,
+    q = K rho_v^0.5 h_fg [sigma g (rho_l - rho_v)]^0.25 with
+    K = (1 + cos b)/16 [2/pi + (pi/4)(1 + cos b) cos phi]^0.5 (Kandlikar, J. Heat Transfer 123 (2001)
+    1071-1079, eq. for K written from memory), has no real value for b = 20 deg
+    (2/pi - (pi/4)(1.94) < 0) and one for b = 110 deg; the paper's validity is 0-90 deg."""
+    import numpy as np
+
+    text, figures = _run_keeping_figures(tmp_path, monkeypatch, FACING_DOWN_SPEC)
+    curves, chf_plot = figures[0].axes[0], figures[1].axes[0]
+    for ax in (curves, chf_plot):
+        labels = [t.get_text() for t in ax.get_legend().get_texts()]
+        drawn = {line.get_label(): line for line in ax.get_lines()}
+        for label in labels:  # every legend entry has a line with values
+            assert np.isfinite(np.asarray(drawn[label].get_ydata(), dtype=float)).any(), label
+    labels = [t.get_text() for t in curves.get_legend().get_texts()]
+    assert "hydrophobic (invented)" in labels and "hydrophilic (invented)" not in labels
+    assert ("No curve: hydrophilic (invented) (Kandlikar (2001) CHF has no answer at receding angle 20.0 deg "
+            "facing 180 deg") in text
+    assert "No point: hydrophilic (invented)" in text
+    assert "CAUTION" in text
+
+
+def test_report_surfaces_table_names_its_pressures(tmp_path, monkeypatch):
+    """Behavioural contract: with several pressures the surfaces table says at which pressure each
+    angle holds: angles that change with pressure (predicted from probe liquids) are listed per
+    pressure, in the order the caption names. Check against the physics outside the project: the
+    surface tension of water falls with temperature (IAPWS R1-76(2014)), so the OWRK-predicted
+    water angle of the same solid falls along the saturation line, 1 to 5 bar."""
+    import re
+
+    import xarray as xr
+
+    from wetboil.demo import study_path
+
+    text, _ = _run_keeping_figures(tmp_path, monkeypatch, study_path().read_text())
+    assert "Working-fluid contact angles at each pressure: 1.01325 bar / 2 bar / 5 bar." in text
+    row = next(line for line in text.splitlines() if line.startswith("| NV-E sintered-oxide primer |"))
+    static = [float(v) for v in row.split("|")[2].split("/")]
+    assert len(static) == 3 and static[0] > static[1] > static[2]
+    ds = xr.load_dataset(tmp_path / "out" / "sweep.nc")
+    want = ds["static_angle"].sel(surface="NV-E sintered-oxide primer").isel(heat_flux=0, orientation=0, subcooling=0)
+    assert static == [round(float(v), 1) for v in want.values]
+    # angles given for the working fluid do not change with pressure: one number
+    row = next(line for line in text.splitlines() if line.startswith("| NV-A bare copper, as machined |"))
+    assert re.match(r"\| NV-A bare copper, as machined \| 78\.0 \| 88\.0 \| 52\.0 \|", row)
+
+
+def test_report_states_the_ranking_rule(tmp_path, monkeypatch):
+    """Behavioural contract: the report says how surfaces are ranked, and keeps the CHF cautions."""
+    from wetboil.report import CAUTION, RANKING_RULE
+
+    text, _ = _run_keeping_figures(tmp_path, monkeypatch, FACING_DOWN_SPEC)
+    assert RANKING_RULE in text and "higher is better" in RANKING_RULE and "below 1" in RANKING_RULE
+    assert text.count(CAUTION) == 2
+    ranking = text[text.index("## Ranking"):text.index("## Validity flags")]
+    # predicted everywhere (flagged) before the surface without a prediction facing down
+    assert ranking.index("| hydrophobic (invented) |") < ranking.index("| hydrophilic (invented) |")

@@ -52,7 +52,7 @@ try:  # Python >= 3.11
 except ModuleNotFoundError:  # pragma: no cover
     import tomli as _toml  # type: ignore[no-redef,import-not-found]
 
-__all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION"]
+__all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION", "RANKING_RULE"]
 
 CAUTION = (
     "CAUTION: critical heat flux and burnout predictions carry correlation uncertainty of tens of "
@@ -305,32 +305,51 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
                         (study.states[0], saturated(study.states[0])))
     label = f"{first / 1e5:g} bar" if axis == "p" else f"{first:g} K"
 
-    # 1. boiling curves per surface at the first pressure
+    # 1. boiling curves per surface at the first pressure. A surface whose curve has no critical heat
+    # flux (e.g. Kandlikar facing down, where the model has no answer) is left out of the plot and the
+    # legend, and the caption says why: what would remain is the film branch alone, which does not
+    # depend on wettability and hides behind the other surfaces' film branches.
     fig, ax = plt.subplots(figsize=(7.5, 5))
     superheat = np.geomspace(0.5, 1500.0, 400)
-    design = study.heat_fluxes[0]
+    design, phi0 = study.heat_fluxes[0], study.orientations[0]
+    missing: List[str] = []
+    reasons: List[str] = []
     for s in study.surfaces:
-        a = s.angles(state, dispersive_fraction=study.dispersive_fraction)
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")
-            c = boiling.curve(state, superheat, receding_angle_deg=float(np.asarray(a.receding_deg)),
-                              contact_angle_deg=float(np.asarray(a.static_deg)), orientation_deg=study.orientations[0],
+            a = s.angles(state, dispersive_fraction=study.dispersive_fraction)
+            rec, sta = float(np.asarray(a.receding_deg)), float(np.asarray(a.static_deg))
+            c = boiling.curve(state, superheat, receding_angle_deg=rec, contact_angle_deg=sta, orientation_deg=phi0,
                               nucleate="rohsenow" if s.C_sf else "cooper", C_sf=s.C_sf or 0.013, n=s.n,
                               roughness_Rp=s.Rp or 1e-6, natural_convection_coefficient=1000.0,
                               design_heat_flux=design)
+        reason = _no_curve_reason(c, rec, phi0)
+        if reason:
+            missing.append(s.name)
+            reasons.append(f"{s.name} ({reason})")
+            continue
         ax.loglog(superheat, c["heat_flux"].values, label=s.name)
     ax.axhline(design, color="k", ls="--", lw=1, label="design heat flux")
+    ax.set_yscale("log")
+    ax.set_xscale("log")
     ax.set_xlabel("wall superheat [K]")
     ax.set_ylabel("heat flux [W/m2]")
-    ax.set_title(f"Pool-boiling curves, {study.fluid} at {label}, orientation {study.orientations[0]:g} deg")
+    ax.set_title(f"Pool-boiling curves, {study.fluid} at {label}, orientation {phi0:g} deg")
     ax.set_ylim(1e3, None)
     ax.grid(alpha=0.3, which="both")
     ax.legend(fontsize=7)
     fig.tight_layout()
+    if missing:  # a footnote under the axes; the report's caption gives the reasons
+        fig.text(0.01, 0.01, "no curve drawn (reason in the report): " + "; ".join(missing), fontsize=7,
+                 va="bottom")
+        fig.subplots_adjust(bottom=fig.subplotpars.bottom + 0.04)
     fig.savefig(folder / "boiling_curves.png", dpi=110)
     plt.close(fig)
-    made.append(("boiling_curves.png", "Assembled pool-boiling curves per surface (natural convection h = 1000 "
-                 "W/m2K assumed; transition branch is a log-log construction)."))
+    caption = ("Assembled pool-boiling curves per surface (natural convection h = 1000 W/m2K assumed; transition "
+               "branch is a log-log construction).")
+    if reasons:
+        caption += " No curve: " + "; ".join(reasons) + "."
+    made.append(("boiling_curves.png", caption))
 
     # 2. CHF against receding angle and orientation
     fig, ax = plt.subplots(figsize=(7.5, 5))
@@ -338,12 +357,20 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     for phi in sorted(set(study.orientations) | {0.0, 90.0}):
         with warnings.catch_warnings():
             warnings.simplefilter("ignore", RangeWarning)
-            ax.plot(beta, chf.kandlikar(beta, state, phi) / 1e6, label=f"Kandlikar (2001), {phi:g} deg")
+            q = chf.kandlikar(beta, state, phi) / 1e6
+        # an orientation where the model has no answer at any angle gets no legend entry
+        ax.plot(beta, q, label=f"Kandlikar (2001), {phi:g} deg" if np.isfinite(q).any() else "_nolegend_")
+    no_point: List[str] = []
     for s in study.surfaces:
-        r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
-        ax.plot(r, chf.kandlikar(r, state, study.orientations[0]) / 1e6, "o", ms=6)
-        ax.annotate(s.name, (r, chf.kandlikar(r, state, study.orientations[0]) / 1e6), fontsize=7,
-                    textcoords="offset points", xytext=(4, 4))
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
+            q = float(chf.kandlikar(r, state, phi0)) / 1e6 if np.isfinite(r) else math.nan
+        if not np.isfinite(q):
+            no_point.append(f"{s.name} ({_no_chf_reason(r, phi0)})")
+            continue
+        ax.plot(r, q, "o", ms=6)
+        ax.annotate(s.name, (r, q), fontsize=7, textcoords="offset points", xytext=(4, 4))
     for q in study.heat_fluxes:
         ax.axhline(q / 1e6, color="k", ls=":", lw=0.8)
     ax.set_xlabel("receding contact angle [deg]")
@@ -354,8 +381,11 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     fig.tight_layout()
     fig.savefig(folder / "chf_receding_orientation.png", dpi=110)
     plt.close(fig)
-    made.append(("chf_receding_orientation.png", "Kandlikar CHF against receding angle for each orientation; "
-                 "dotted lines: design heat fluxes."))
+    caption = (f"Kandlikar CHF against receding angle for each orientation; points: the surfaces at {phi0:g} deg; "
+               "dotted lines: design heat fluxes.")
+    if no_point:
+        caption += " No point: " + "; ".join(no_point) + "."
+    made.append(("chf_receding_orientation.png", caption))
 
     # 3. onset superheat map: surface x pressure (first heat flux, orientation, subcooling)
     onset = ds["onset_superheat"].isel(heat_flux=0, orientation=0, subcooling=0)
@@ -377,6 +407,27 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     return made
 
 
+def _no_chf_reason(receding_deg: float, orientation_deg: float) -> str:
+    """Why Kandlikar's CHF has no value for a surface at an orientation."""
+    if not np.isfinite(receding_deg):
+        return "no working-fluid receding angle"
+    if orientation_deg > 90.0:
+        return (f"Kandlikar (2001) CHF has no answer at receding angle {receding_deg:.1f} deg facing "
+                f"{orientation_deg:g} deg, beyond its published validity (0-90 deg)")
+    return "no CHF prediction (see the validity flags)"
+
+
+def _no_curve_reason(curve: Any, receding_deg: float, orientation_deg: float) -> str:
+    """Why a `boiling.curve` is not drawn ("" when it is): it has no value at
+    all, or no critical heat flux (then only the film branch, which does not
+    depend on wettability, would remain)."""
+    if not np.isfinite(curve["heat_flux"].values).any():
+        return "no value at any superheat"
+    if not np.isfinite(float(curve["critical_heat_flux"])):
+        return _no_chf_reason(receding_deg, orientation_deg)
+    return ""
+
+
 _METHOD_KERNELS = {
     ("onset", "hsu"): "hsu_onset", ("onset", "davis_anderson"): "davis_anderson_onset",
     ("onset", "kandlikar"): "kandlikar_onset", ("onset", "bergles_rohsenow"): "bergles_rohsenow_onset",
@@ -392,6 +443,18 @@ def _design_flagged(flags: str) -> bool:
     return any(n and not (n.startswith("chf_") and n != "chf_margin") for n in flags.split(", "))
 
 
+RANKING_RULE = (
+    "Ranking rule: each surface is judged by its lowest CHF margin over all its operating points (the design "
+    "method's CHF divided by the design heat flux; higher is better, below 1 the design heat flux is above the "
+    "predicted CHF). Surfaces come in three groups: first those with a CHF prediction at every point and no design "
+    "quantity flagged; then those predicted everywhere but with some design quantity computed outside its "
+    "correlation's published validity range (extrapolated); last those without a CHF prediction at some point "
+    "(their worst point is unknown; the margin shown is over the points that have one, and a surface with none "
+    "comes at the very end). Within a group: highest lowest margin first; equal margins: fewer flagged rows "
+    "first, then by name. A margin is a correlation estimate, not a safety factor: see the cautions."
+)
+
+
 def margin_ranking(summary: Any) -> Any:
     """Per surface of a `summary.csv` table (as `wetboil.screen` returns it):
     the lowest CHF margin over the operating points that have a CHF
@@ -399,9 +462,11 @@ def margin_ranking(summary: Any) -> Any:
     NaN, e.g. Kandlikar facing down or an impossible input), the rows where a
     design quantity carries a validity flag (``flagged``: the comparison-only
     ``chf_<method>`` columns do not count; the design method's flag is on
-    ``chf``) and the points (``points``). Ranked best
-    first; a surface without a prediction at some point comes after every
-    surface predicted everywhere, since its worst point is unknown."""
+    ``chf``) and the points (``points``). Ranked best first by `RANKING_RULE`:
+    surfaces predicted everywhere without a flagged row, then those predicted
+    everywhere with flagged rows, then those without a prediction at some
+    point (their worst point is unknown); within each group by the lowest
+    margin, highest first (NaN last), ties by fewer flagged rows, then name."""
     import pandas as pd
 
     g = summary.groupby("surface", sort=False)
@@ -411,8 +476,9 @@ def margin_ranking(summary: Any) -> Any:
         "flagged": g["flags"].apply(lambda s: int(s.fillna("").astype(str).map(_design_flagged).sum())),
         "points": g.size(),
     })
-    order = table.assign(gap=table["no_chf"] > 0).sort_values(["gap", "lowest_margin"], ascending=[True, False],
-                                                              na_position="last")
+    group = np.where(table["no_chf"] > 0, 2, np.where(table["flagged"] > 0, 1, 0))
+    order = table.assign(group=group, name=table.index.astype(str)).sort_values(
+        ["group", "lowest_margin", "flagged", "name"], ascending=[True, False, True, True], na_position="last")
     return table.loc[order.index]
 
 
@@ -448,6 +514,36 @@ def _references(study: Study) -> List[str]:
     return refs
 
 
+def _state_label(study: Study, value: float) -> str:
+    return f"{value / 1e5:g} bar" if study.axis == "p" else f"{value:g} K"
+
+
+def _per_state(ds: Any, name: str, surface: str, axis: str) -> List[float]:
+    """A per-surface input (the angles) at each state of the study: the
+    angles depend on the fluid state only (predicted from probe liquids, or
+    roughened with the liquid's properties), not on the heat flux,
+    orientation or subcooling."""
+    v = ds[name].sel(surface=surface)
+    v = v.isel({d: 0 for d in v.dims if d != axis})
+    return [float(x) for x in np.atleast_1d(v.values)]
+
+
+def _angle_cell(ds: Any, name: str, surface: str, axis: str) -> str:
+    """One number when the angle is the same at every state, else one per
+    state in the study's order, separated by " / "."""
+    cells = ["n/a" if not math.isfinite(x) else f"{x:.1f}" for x in _per_state(ds, name, surface, axis)]
+    return cells[0] if len(set(cells)) == 1 else " / ".join(cells)
+
+
+def _angles_caption(study: Study, ds: Any) -> str:
+    states = [float(v) for v in np.atleast_1d(ds[study.axis].values)] if study.axis in ds.dims else study.states
+    what = "pressure" if study.axis == "p" else "saturation temperature"
+    if len(states) == 1:
+        return f"Working-fluid contact angles at {_state_label(study, states[0])}."
+    return (f"Working-fluid contact angles at each {what}: {' / '.join(_state_label(study, v) for v in states)}. "
+            f"One number: the same at every {what}; otherwise one value per {what} in this order.")
+
+
 def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str]], spec_text: str) -> str:
     bits = ds["range_flags"].attrs["bits"].split(",")
     flagged = {name: int(((ds["range_flags"].values >> i) & 1).sum()) for i, name in enumerate(bits)}
@@ -480,18 +576,19 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         "",
         "### Surfaces",
         "",
+        _angles_caption(study, ds),
+        "",
         "| surface | static [deg] | advancing [deg] | receding [deg] | notes |",
         "|---|---|---|---|---|",
     ]
     for s in study.surfaces:
-        a = ds["static_angle"].sel(surface=s.name).values.ravel()[0]
-        b = ds["advancing_angle"].sel(surface=s.name).values.ravel()[0]
-        c = ds["receding_angle"].sel(surface=s.name).values.ravel()[0]
+        a, b, c = (_angle_cell(ds, name, s.name, study.axis)
+                   for name in ("static_angle", "advancing_angle", "receding_angle"))
         src = "from probe liquids" if s.probe_static_deg else ("intrinsic, roughened" if s.angles_are == "intrinsic"
                                                               else "as measured")
-        lines.append(f"| {s.name} | {a:.1f} | {b:.1f} | {c:.1f} | {src}{'; ' + s.notes if s.notes else ''} |")
+        lines.append(f"| {s.name} | {a} | {b} | {c} | {src}{'; ' + s.notes if s.notes else ''} |")
     lines += ["", "## Methods and references", ""] + _references(study)
-    lines += ["", "## Ranking (best worst-case CHF margin first)", ""]
+    lines += ["", "## Ranking (best worst-case CHF margin first)", "", RANKING_RULE, ""]
     ranking = margin_ranking(summary)
     lines += ["| surface | lowest CHF margin over the operating points | rows with a design quantity flagged |", "|---|---|---|"]
     lines += [f"| {name} | {margin_text(r)} | {int(r['flagged'])} of {int(r['points'])} |"
