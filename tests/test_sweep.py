@@ -8,12 +8,16 @@ import warnings
 
 import numpy as np
 import pytest
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
 
 xr = pytest.importorskip("xarray")
 pd = pytest.importorskip("pandas")
 
 import wetboil  # noqa: E402
 from wetboil import Surface, load_surfaces, save_surfaces  # noqa: E402
+from wetboil import wetting  # noqa: E402
+from wetboil.surface import SurfaceFileError  # noqa: E402
 from wetboil.chf import kandlikar, zuber  # noqa: E402
 from wetboil.departure import fritz, frequency  # noqa: E402
 from wetboil.fluids import water  # noqa: E402
@@ -309,6 +313,145 @@ def test_surface_file_errors_name_key_and_line(tmp_path):
     badcsv.write_text("name,static_deg\na,thirty\n")
     with pytest.raises(ValueError, match=r"bad.csv:2: static_deg = 'thirty' is not a number"):
         load_surfaces(badcsv)
+
+
+# Awkward text for the file writers (invented): every character TOML 1.0 makes a basic string escape
+# (quote, backslash, U+0000-U+001F, U+007F; toml.io/en/v1.0.0#string), tab, CR and CRLF, non-ASCII
+# letters, an astral-plane character and U+2028 (a line separator to str.splitlines, not to TOML).
+AWKWARD = 'line 1\nline 2\r\nline 3\r\ttab "quoted" back\\slash \\n \x00\x01\x08\x0c\x1b\x1f\x7f ü é 日本 🜁 \u2028 end'
+
+
+def test_surface_files_escape_strings_and_round_trip(tmp_path):
+    import tomllib
+
+    surfaces = [
+        Surface('odd "name" \\ ü\tx (invented)', 70, 80, 50, notes=AWKWARD),
+        Surface("plain (invented)", 30, notes="  leading and trailing blanks, kept  \n"),
+        Surface("probes (invented)", probe_static_deg={"Methylene iodide": 45.0, "water": 80.0},
+                notes='[[surface]]\nstatic_deg = 1\n"""'),
+    ]
+    for ext in ("toml", "csv"):
+        path = save_surfaces(surfaces, tmp_path / f"s.{ext}")
+        assert load_surfaces(path) == surfaces, ext
+    # the TOML is read by the standard library's TOML 1.0 parser as written, with the spec's short escapes
+    text = (tmp_path / "s.toml").read_text(encoding="utf-8")
+    assert [t["notes"] for t in tomllib.loads(text)["surface"]] == [s.notes for s in surfaces]
+    assert 'notes = "line 1\\nline 2\\r\\nline 3\\r\\ttab \\"quoted\\" back\\\\slash \\\\n \\u0000' in text
+    assert "\\u007F" in text and "\\b\\f" in text
+
+
+@settings(max_examples=150, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(name=st.text(min_size=1).filter(str.strip), notes=st.text())
+def test_surface_files_round_trip_any_text(name, notes):
+    # Surface strips the name (and refuses a blank one); notes are kept exactly
+    import tempfile
+
+    surfaces = [Surface(name, 40, notes=notes), Surface(name + " 2", probe_static_deg={"water": 80, "diiodomethane": 45},
+                                                        notes=notes + notes)]
+    with tempfile.TemporaryDirectory() as tmp:
+        for ext in ("toml", "csv"):
+            back = load_surfaces(save_surfaces(surfaces, f"{tmp}/s.{ext}"))
+            assert back == surfaces, ext
+            assert back[0].name == name.strip() and back[0].notes == notes
+
+
+def test_surface_text_utf8_cannot_store_is_refused_before_writing(tmp_path):
+    for ext in ("toml", "csv"):
+        with pytest.raises(wetboil.WetboilValueError, match="notes holds .*lone surrogate"):
+            save_surfaces([Surface("s (invented)", 30, notes="x\ud800")], tmp_path / f"s.{ext}")
+        assert not (tmp_path / f"s.{ext}").exists()
+
+
+def test_csv_from_a_spreadsheet_bom_and_empty_rows(tmp_path):
+    # "CSV UTF-8" as spreadsheets save it: a byte-order mark (U+FEFF encoded in UTF-8, Unicode
+    # standard ch. 23.8), CRLF rows, a quoted cell spanning lines, empty rows left at the end
+    path = tmp_path / "sheet.csv"
+    rows = ['name,static_deg,notes,probe_static_deg:water,probe_static_deg:diiodomethane',
+            'Büro (invented),30,"two\nlines",,', ',,,,', '', '   ,  ,,,', 'probes (invented),,,80,45', ',,,,', ',,,,', '']
+    path.write_bytes("\r\n".join(rows).encode("utf-8-sig"))
+    assert load_surfaces(path) == [
+        Surface("Büro (invented)", 30, notes="two\nlines"),
+        Surface("probes (invented)", probe_static_deg={"water": 80.0, "diiodomethane": 45.0}),
+    ]
+    # error lines count physical lines: the two-line cell and the skipped rows included
+    rows[5] = 'probes (invented),,,200,45'
+    path.write_bytes("\r\n".join(rows).encode("utf-8-sig"))
+    with pytest.raises(SurfaceFileError, match=r"sheet.csv:7: surface 'probes \(invented\)': "
+                                                       r"probe_static_deg.water = 200 is outside"):
+        load_surfaces(path)
+
+
+THREE_SURFACES = """\
+# a study file with three surfaces (invented); load_surfaces reads its [[surface]] tables
+[study]
+title = "three surfaces"
+fluid = "water"
+
+[[surface]]
+name = "one"
+static_deg = 30.0
+n = 1.0
+receding_deg = 20.0
+
+[[surface]]
+name = "two"
+static_deg = 40.0
+{two}
+
+[[surface]]
+name = "three"
+{three}
+"""
+
+
+@pytest.mark.parametrize("two, three, line, message", [
+    ("n = 0.0", "static_deg = 50.0", 15, r"surface 'two': n = 0 is outside"),
+    ("n = 1.0", "static_deg = 50.0\nn = -1.0", 20, r"surface 'three': n = -1 is outside"),
+    ("n = 1.0", "static_deg = 50.0\nC_sf = 0.01\ntitle = 3.0", 21, r"unknown key 'title' in surface 'three'"),
+    ('fluid = "R134a"', "static_deg = 50.0", 15, r"unknown key 'fluid' in surface 'two'"),
+    ("n = 1.0", "static_deg = 50.0\nreceding_deg = 60.0", 20, r"surface 'three': receding angle 60 deg is above"),
+    ("n = 1.0", 'probe_static_deg = { water = 80.0, diiodomethane = 45.0 }\n[surface.probe_receding_deg]\n'
+                'water = 60.0\n"diiodomethane" = 200.0', 22,
+     r"surface 'three': probe_receding_deg.diiodomethane = 200 is outside"),
+    ("n = 1.0", "probe_static_deg.water = 80.0\nprobe_static_deg.diodomethane = 45.0", 20,
+     r"surface 'three': probe_static_deg: unknown probe liquid 'diodomethane'; known liquids: diiodomethane, "),
+])
+def test_toml_errors_point_at_the_key_in_its_own_surface(tmp_path, two, three, line, message):
+    path = tmp_path / "three.toml"
+    path.write_text(THREE_SURFACES.format(two=two, three=three), encoding="utf-8")
+    with pytest.raises(SurfaceFileError, match=rf"three.toml:{line}: {message}"):
+        load_surfaces(path)
+
+
+def test_toml_error_lines_skip_other_tables_and_multiline_strings(tmp_path):
+    path = tmp_path / "spec.toml"
+    path.write_text('[study]\nn = 2\n\n[[surface]]\nname = "a"\nstatic_deg = 30.0\nnotes = """\n[[surface]]\n'
+                    'n = 0.5\n"""\n\n[methods]\nn = 3\n\n[[surface]]\nname = "b"\nstatic_deg = 30.0\nn = 0.0\n',
+                    encoding="utf-8")
+    with pytest.raises(SurfaceFileError, match=r"spec.toml:18: surface 'b': n = 0 is outside"):
+        load_surfaces(path)
+
+
+def test_unknown_probe_liquid_is_refused_when_the_surface_is_built(tmp_path):
+    # known names: wetboil.wetting.PROBE_LIQUIDS (sources there), with probe_liquid's spelling variants
+    with pytest.raises(wetboil.WetboilValueError, match=r"surface 'p': probe_receding_deg: unknown probe liquid "
+                                                        r"'diodomethane'; known liquids: diiodomethane, ethylene glycol, "
+                                                        r"formamide, glycerol, hexadecane, water"):
+        Surface("p", probe_static_deg={"water": 80, "diiodomethane": 45},
+                probe_receding_deg={"water": 60, "diodomethane": 30})
+    s = Surface("p", probe_static_deg={"Water": 80, "methylene_iodide": 45, "Glycerin": 70})
+    assert list(s.probe_static_deg) == ["Water", "methylene_iodide", "Glycerin"]  # kept as written
+    path = tmp_path / "p.csv"
+    path.write_text("name,probe_static_deg:water,probe_static_deg:diiodomethane,probe_static_deg:diodomethane\n"
+                    "ok,80,45,\nbad,80,,45\n", encoding="utf-8")
+    with pytest.raises(SurfaceFileError, match=r"p.csv:3: surface 'bad': probe_static_deg: unknown probe "
+                                                       r"liquid 'diodomethane'"):
+        load_surfaces(path)
+    # a liquid of one's own goes through wetboil.wetting (unchanged): its fitted energy gives the
+    # working fluid's angle, which a Surface takes directly (components invented, in N/m)
+    energy = wetting.surface_energy([80.0, 45.0], {"own polar": (0.022, 0.050), "own apolar": (0.050, 0.0)})
+    theta = float(wetting.predict_angle(energy, *wetting.split_surface_tension(water(p=101325.0).sigma)))
+    assert Surface("own liquids (invented)", theta).static_deg == theta
 
 
 def test_intrinsic_angles_go_through_wenzel():

@@ -4,11 +4,10 @@ else the boiling models need, loaded from and saved to plain TOML or CSV."""
 from __future__ import annotations
 
 import csv
-import io
 import math
 import pathlib
 import re
-from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Union
+from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Tuple, Union
 
 import numpy as np
 
@@ -156,6 +155,29 @@ class Surface:
             return None
         if not isinstance(value, Mapping):
             raise WetboilTypeError(f"surface {self.name!r}: {key} must map probe-liquid names to angles")
+        from . import wetting
+
+        def known(liquid: str) -> bool:
+            # a name some published table knows, read as `wetboil.wetting.probe_liquid` reads it
+            # (aliases, case, spacing); `angles` uses the "default" table, which has them all today
+            for table in wetting.PROBE_LIQUIDS:
+                try:
+                    wetting.probe_liquid(liquid, table)
+                except WetboilValueError:
+                    continue
+                return True
+            return False
+
+        for liquid in map(str, value):
+            if not known(liquid):
+                names = sorted({name for rows in wetting.PROBE_LIQUIDS.values() for name in rows})
+                raise WetboilValueError(
+                    f"surface {self.name!r}: {key}: unknown probe liquid {liquid!r}; known liquids: "
+                    f"{', '.join(names)} (case, spaces, hyphens and underscores do not matter; 'methylene iodide' "
+                    "and 'glycerin' are understood). For a liquid of your own, fit wetboil.wetting.surface_energy "
+                    "with liquids={name: (dispersive, polar)} in N/m and give the working fluid's angles directly "
+                    "(static_deg, ...), e.g. from wetboil.wetting.predict_angle"
+                )
         out = {str(k): _number(self.name, f"{key}.{k}", v, 0.0, 180.0) for k, v in value.items()}
         if len(out) < 2:
             raise WetboilValueError(f"surface {self.name!r}: {key} needs at least two probe liquids, got {len(out)}")
@@ -289,16 +311,127 @@ def _tabulated_split(fluid: Saturation) -> "tuple[float, float]":
 # ---------------------------------------------------------------------------------
 # files
 
+# A TOML key (bare, "basic" or 'literal'), a dotted key path and a table header line.
+_TOML_KEY = r"""(?:[A-Za-z0-9_-]+|"(?:[^"\\]|\\.)*"|'[^']*')"""
+_TOML_HEADER = re.compile(rf"^\s*(\[\[?)\s*({_TOML_KEY}(?:\s*\.\s*{_TOML_KEY})*)\s*\]\]?\s*(?:#.*)?$")
 
-def _line_of(text: str, key: str, occurrence: int = 0) -> int:
-    """1-based line of the `occurrence`-th assignment to `key` in a TOML text."""
-    pat = re.compile(rf"^\s*{re.escape(key)}\s*=")
-    hits = [i + 1 for i, line in enumerate(text.splitlines()) if pat.match(line)]
-    return hits[occurrence] if occurrence < len(hits) else 0
+
+def _toml_lines(text: str) -> List[str]:
+    """The lines of a TOML text (split at ``\\n`` as TOML counts them), with
+    every line that begins inside a multi-line string blanked, so that a
+    string's content is never taken for a key or a table header."""
+    out = []
+    inside: Optional[str] = None  # '"""' or "'''" while in a multi-line string
+    for line in text.split("\n"):
+        out.append(line if inside is None else "")
+        i, n = 0, len(line)
+        while i < n:
+            if inside is not None:
+                if inside == '"""' and line[i] == "\\":
+                    i += 2
+                elif line.startswith(inside, i):
+                    run = len(line[i:]) - len(line[i:].lstrip(inside[0]))  # up to two more quotes are content
+                    inside, i = None, i + run
+                else:
+                    i += 1
+                continue
+            c = line[i]
+            if c == "#":
+                break
+            if line.startswith('"""', i) or line.startswith("'''", i):
+                inside, i = line[i:i + 3], i + 3
+            elif c == '"':
+                i += 1
+                while i < n and line[i] != '"':
+                    i += 2 if line[i] == "\\" else 1
+                i += 1
+            elif c == "'":
+                j = line.find("'", i + 1)
+                i = n if j < 0 else j + 1
+            else:
+                i += 1
+    return out
+
+
+def _toml_header(line: str) -> Optional[Tuple[bool, List[str]]]:
+    """``(is_array_of_tables, key parts)`` of a table header line, else None."""
+    m = _TOML_HEADER.match(line)
+    if m is None:
+        return None
+    parts = [p[1:-1] if p[0] in "\"'" else p for p in re.findall(_TOML_KEY, m.group(2))]
+    return m.group(1) == "[[", parts
+
+
+def _surface_spans(lines: List[str], count: int) -> List[Tuple[int, int]]:
+    """0-based ``(first, end)`` line ranges of the `count` ``[[surface]]``
+    tables, sub-tables (``[surface.probe_static_deg]``) included; the whole
+    text for each when the headers cannot be matched to the tables (an inline
+    array ``surface = [...]``, say)."""
+    spans: List[List[int]] = []
+    for i, line in enumerate(lines):
+        head = _toml_header(line)
+        if head is None:
+            continue
+        is_array, parts = head
+        if spans and spans[-1][1] == len(lines) and not (parts[0] == "surface" and len(parts) > 1):
+            spans[-1][1] = i  # any other table ends the current one
+        if is_array and parts == ["surface"]:
+            spans.append([i, len(lines)])
+    if len(spans) != count:
+        return [(-1, len(lines))] * count
+    return [(a, b) for a, b in spans]
+
+
+def _key_line(lines: List[str], span: Tuple[int, int], key: str, liquid: Optional[str] = None) -> int:
+    """1-based line where the ``[[surface]]`` table spanning `span` sets `key`
+    (and, for a probe-liquid table, the `liquid` in it): ``key = ...``,
+    ``key.sub = ...`` or a ``[surface.key]`` header. Falls back to the
+    table's ``[[surface]]`` line (0 when that is unknown)."""
+
+    def quoted(k: str) -> str:
+        return rf"""(?:{re.escape(k)}|"{re.escape(k)}"|'{re.escape(k)}')"""
+
+    first, end = span
+    heads = {i: h for i in range(first + 1, end) if (h := _toml_header(lines[i])) is not None}
+    own_end = min(heads, default=end)  # the table's own keys come before its first sub-table
+    assign = re.compile(rf"^\s*{quoted(key)}\s*=")
+    dotted = re.compile(rf"^\s*{quoted(key)}\s*\.\s*" + (rf"{quoted(liquid)}\s*=" if liquid is not None else ""))
+    for i in range(first + 1, own_end):
+        if assign.match(lines[i]) or dotted.match(lines[i]):
+            return i + 1
+    for i, (_, parts) in heads.items():
+        if parts[:2] == ["surface", key]:
+            if liquid is not None:
+                inner = re.compile(rf"^\s*{quoted(liquid)}\s*=")
+                stop = min((j for j in heads if j > i), default=end)
+                return next((j + 1 for j in range(i + 1, stop) if inner.match(lines[j])), i + 1)
+            return i + 1
+    if liquid is not None:
+        return _key_line(lines, span, key)
+    return first + 1
+
+
+def _culprit(rec: Mapping[str, Any], message: str) -> Tuple[str, Optional[str]]:
+    """The key (and probe liquid) a `Surface` error message is about, for its
+    line in the file: messages read ``surface 'name': key ...``."""
+    name = rec.get("name")
+    prefix = f"surface {name.strip()!r}: " if isinstance(name, str) else ""
+    body = message[len(prefix):] if prefix and message.startswith(prefix) else message
+    for key in sorted(rec, key=len, reverse=True):  # "notes" before "n"
+        if re.match(rf"{re.escape(key)}(?![\w])", body):
+            probes = rec[key] if key in _PROBE_KEYS and isinstance(rec[key], Mapping) else {}
+            liquid = next((str(k) for k in sorted(probes, key=lambda k: -len(str(k)))
+                           if body.startswith(f"{key}.{k} ") or f"probe liquid {str(k)!r}" in body), None)
+            return key, liquid
+    for phrase, keys in (("advancing angle", ("advancing_deg",)), ("receding angle", ("receding_deg",)),
+                         ("give either", ("static_deg", "probe_static_deg"))):
+        if body.startswith(phrase):
+            return next((k for k in keys if k in rec), "name"), None
+    return "name", None
 
 
 def _from_toml(path: pathlib.Path) -> List[Surface]:
-    text = path.read_text()
+    text = path.read_text(encoding="utf-8")
     try:
         data = _toml.loads(text)
     except _toml.TOMLDecodeError as exc:
@@ -306,53 +439,61 @@ def _from_toml(path: pathlib.Path) -> List[Surface]:
     records = data.get("surface")
     if not isinstance(records, list) or not records:
         raise SurfaceFileError(f"{path}: no [[surface]] tables found")
+    if not all(isinstance(rec, dict) for rec in records):
+        raise SurfaceFileError(f"{path}: 'surface' must be [[surface]] tables")
+    lines = _toml_lines(text)
     out = []
-    seen: Dict[str, int] = {}
-    for rec in records:
+    for rec, span in zip(records, _surface_spans(lines, len(records))):
         for key in rec:
             if key not in _KEYS:
-                n = seen.get(key, 0)
-                seen[key] = n + 1
                 raise SurfaceFileError(
-                    f"{path}:{_line_of(text, key, n)}: unknown key {key!r} in surface {rec.get('name', '?')!r}; "
+                    f"{path}:{_key_line(lines, span, key)}: unknown key {key!r} in surface {rec.get('name', '?')!r}; "
                     f"known keys are {', '.join(_KEYS)}"
                 )
         try:
             out.append(Surface.from_dict(rec))
         except (WetboilValueError, WetboilTypeError) as exc:
-            bad = next((k for k in rec if k in str(exc)), "name")
-            raise SurfaceFileError(f"{path}:{_line_of(text, bad)}: {exc}") from None
+            raise SurfaceFileError(f"{path}:{_key_line(lines, span, *_culprit(rec, str(exc)))}: {exc}") from None
     return out
 
 
 def _from_csv(path: pathlib.Path) -> List[Surface]:
-    text = path.read_text()
-    reader = csv.DictReader(io.StringIO(text))
-    if reader.fieldnames is None:
-        raise SurfaceFileError(f"{path}: empty CSV file")
-    out = []
-    for line_no, row in enumerate(reader, start=2):
-        rec: Dict[str, Any] = {}
-        for key, value in row.items():
-            if key is None:
-                raise SurfaceFileError(f"{path}:{line_no}: more values than column names")
-            value = (value or "").strip()
-            if ":" in key:
-                group, liquid = key.split(":", 1)
-                if group not in _PROBE_KEYS:
-                    raise SurfaceFileError(f"{path}:1: unknown column {key!r}")
-                if value:
-                    rec.setdefault(group, {})[liquid] = _csv_number(path, line_no, key, value)
-                continue
-            if key not in _KEYS:
+    # utf-8-sig: Excel's "CSV UTF-8" starts with a byte-order mark; newline="": quoted cells keep
+    # their line breaks as written (csv's own rule)
+    with path.open(encoding="utf-8-sig", newline="") as fh:
+        reader = csv.reader(fh)
+        columns = next(reader, None)
+        if columns is None:
+            raise SurfaceFileError(f"{path}: empty CSV file")
+        for key in columns:
+            group = key.split(":", 1)[0] if ":" in key else None
+            if group is not None and group not in _PROBE_KEYS:
+                raise SurfaceFileError(f"{path}:1: unknown column {key!r}")
+            if group is None and key not in _KEYS:
                 raise SurfaceFileError(f"{path}:1: unknown column {key!r}; known columns are {', '.join(_KEYS)}")
-            if value == "":
-                continue
-            rec[key] = value if key in ("name", "angles_are", "notes") else _csv_number(path, line_no, key, value)
-        try:
-            out.append(Surface.from_dict(rec))
-        except (WetboilValueError, WetboilTypeError) as exc:
-            raise SurfaceFileError(f"{path}:{line_no}: {exc}") from None
+        out = []
+        end = reader.line_num
+        for row in reader:
+            line_no, end = end + 1, reader.line_num  # a quoted cell may span lines: its row's first line
+            if all(not cell.strip() for cell in row):
+                continue  # blank lines and the ",,,," rows spreadsheets leave at the end
+            if len(row) > len(columns):
+                raise SurfaceFileError(f"{path}:{line_no}: more values than column names")
+            rec: Dict[str, Any] = {}
+            for key, cell in zip(columns, row):
+                value = cell if key == "notes" else cell.strip()  # notes are kept as written
+                if ":" in key:
+                    group, liquid = key.split(":", 1)
+                    if value:
+                        rec.setdefault(group, {})[liquid] = _csv_number(path, line_no, key, value)
+                    continue
+                if value == "":
+                    continue
+                rec[key] = value if key in ("name", "angles_are", "notes") else _csv_number(path, line_no, key, value)
+            try:
+                out.append(Surface.from_dict(rec))
+            except (WetboilValueError, WetboilTypeError) as exc:
+                raise SurfaceFileError(f"{path}:{line_no}: {exc}") from None
     if not out:
         raise SurfaceFileError(f"{path}: no surfaces")
     return out
@@ -368,7 +509,12 @@ def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
 def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
     """Read surfaces from a TOML file (``[[surface]]`` tables with the keys of
     `Surface`) or a CSV file (one row per surface; probe angles as columns
-    ``probe_static_deg:water`` ...). Errors name the file, line and key."""
+    ``probe_static_deg:water`` ...). Errors name the file, line and key.
+
+    Both are read as UTF-8; a CSV file may start with a byte-order mark (as
+    spreadsheets write "CSV UTF-8"), and rows whose every cell is empty are
+    skipped.
+    """
     path = pathlib.Path(path)
     if not path.exists():
         raise SurfaceFileError(f"{path}: no such file")
@@ -379,19 +525,37 @@ def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
     raise SurfaceFileError(f"{path}: unknown format (use .toml or .csv)")
 
 
+# TOML 1.0 basic strings: the quote, the backslash and the control characters U+0000-U+001F and U+007F
+# must be escaped (tab may stand as is; it is escaped too); the short escapes where TOML has them.
+_TOML_ESCAPES = {'"': '\\"', "\\": "\\\\", "\b": "\\b", "\t": "\\t", "\n": "\\n", "\f": "\\f", "\r": "\\r"}
+
+
 def _toml_value(v: Any) -> str:
+    """`v` as a TOML value: a basic string (escaped as TOML 1.0 requires) or a float."""
     if isinstance(v, str):
-        return '"' + v.replace("\\", "\\\\").replace('"', '\\"') + '"'
+        return '"' + re.sub(r'["\\\x00-\x1f\x7f]',
+                            lambda m: _TOML_ESCAPES.get(m.group(), f"\\u{ord(m.group()):04X}"), v) + '"'
     return repr(float(v))
 
 
 def save_surfaces(surfaces: Iterable[Surface], path: Union[str, pathlib.Path]) -> pathlib.Path:
-    """Write surfaces to a TOML or CSV file (by the extension) that
+    """Write surfaces to a TOML or CSV file (by the extension), in UTF-8, that
     `load_surfaces` reads back unchanged."""
     path = pathlib.Path(path)
     surfaces = list(surfaces)
     if not all(isinstance(s, Surface) for s in surfaces):
         raise WetboilTypeError("save_surfaces: expected Surface objects")
+    for s in surfaces:
+        texts = [("name", s.name), ("notes", s.notes)]
+        texts += [(k, liq) for k in _PROBE_KEYS for liq in (getattr(s, k) or {})]
+        for key, text in texts:
+            try:
+                text.encode("utf-8")
+            except UnicodeEncodeError:
+                raise WetboilValueError(
+                    f"save_surfaces: surface {s.name!r}: {key} holds {text!r}, which has a character UTF-8 cannot "
+                    "store (a lone surrogate)"
+                ) from None
     if path.suffix.lower() == ".toml":
         lines = ["# wetboil surface descriptions", ""]
         for s in surfaces:
@@ -406,13 +570,13 @@ def save_surfaces(surfaces: Iterable[Surface], path: Union[str, pathlib.Path]) -
                 lines.append(f"{k} = {_toml_value(v)}")
             for k, v in probes:
                 lines.append(f"[surface.{k}]")
-                lines.extend(f'"{liq}" = {_toml_value(a)}' for liq, a in v.items())
+                lines.extend(f"{_toml_value(liq)} = {_toml_value(a)}" for liq, a in v.items())
             lines.append("")
-        path.write_text("\n".join(lines))
+        path.write_text("\n".join(lines), encoding="utf-8")
     elif path.suffix.lower() == ".csv":
         probe_cols = sorted({f"{k}:{liq}" for s in surfaces for k in _PROBE_KEYS for liq in (getattr(s, k) or {})})
         cols = [k for k in _KEYS if k not in _PROBE_KEYS] + probe_cols
-        with path.open("w", newline="") as fh:
+        with path.open("w", newline="", encoding="utf-8") as fh:
             w = csv.DictWriter(fh, fieldnames=cols)
             w.writeheader()
             for s in surfaces:
