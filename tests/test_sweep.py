@@ -166,6 +166,20 @@ def test_rohsenow_exponent_follows_the_fluid_in_sweeps():
         rohsenow_superheat(1e5, r134a, 0.013, 1.7), rel=1e-14)
 
 
+def test_chunked_and_eager_sweeps_have_the_same_dimension_order():
+    # A probe-liquid surface's angles vary along p, so p can enter the inputs
+    # before surface; the result's dims (and to_dataframe's rows) must not
+    # depend on that, nor on chunking. (Wiring check: no outside value.)
+    probe = Surface("probe (invented)", probe_static_deg={"water": 95.0, "diiodomethane": 50.0})
+    direct = Surface("direct (invented)", 70, 80, 40)
+    for surfaces in ([probe, direct], [direct, probe]):
+        eager = wetboil.sweep(surfaces, "water", p=[1e5, 1e6], heat_flux=3e5)
+        for chunks in (1, {"p": 1}):
+            lazy = wetboil.sweep(surfaces, "water", p=[1e5, 1e6], heat_flux=3e5, chunks=chunks)
+            assert list(lazy.dims) == list(eager.dims) == ["surface", "p", "heat_flux", "orientation", "subcooling"]
+            pd.testing.assert_frame_equal(lazy.to_dataframe(), eager.to_dataframe())
+
+
 def test_bad_input_is_named():
     with pytest.raises(ValueError, match="heat_flux axis is empty"):
         wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])

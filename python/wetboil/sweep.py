@@ -641,7 +641,11 @@ def _template(ds_in: Any, meth: Dict[str, Any], order: List[str]) -> Any:
     data = {n: (order, da.zeros(shape, chunks=chunks, dtype=float)) for n in names}
     for n in ("invalid_flags", "range_flags"):
         data[n] = (order, da.zeros(shape, chunks=chunks, dtype=np.int32))
-    return xr.Dataset(data, coords=ds_in.coords)
+    # the axes' coordinates first, in output order: the Dataset's dims (and to_dataframe's index) then
+    # come in the same order as an eager sweep's, whichever input brought an axis in first
+    coords = {d: ds_in.coords[d] for d in order if d in ds_in.coords}
+    coords.update({k: v for k, v in ds_in.coords.items() if k not in coords})
+    return xr.Dataset(data, coords=coords)
 
 
 def _compute(result: Any, progress: bool) -> Any:
