@@ -495,3 +495,148 @@ def test_xarray_labels_and_dask_laziness():
     lazy = wenzel(da.from_array(np.array([40.0, 60.0]), chunks=1), 1.2)
     assert isinstance(lazy, da.Array)
     np.testing.assert_allclose(lazy.compute(), wenzel(np.array([40.0, 60.0]), 1.2))
+
+
+# =============================================================================
+# surface_energy with labelled angles: matched to the liquids by name
+
+# Probe-liquid components [mN/m] at 20 C, typed here rather than read from the
+# package's table: water 21.8 dispersive + 51.0 polar (dispersive part from
+# F.M. Fowkes, Ind. Eng. Chem. 56(12) (1964) 40-52, the split as used by
+# Owens & Wendt, J. Appl. Polym. Sci. 13 (1969) 1741-1747) and diiodomethane
+# 50.8 + 0 (G. Strom, M. Fredriksson, P. Stenius, J. Colloid Interface Sci.
+# 119 (1987) 352-361) [memory, high confidence for water, medium for
+# diiodomethane].
+HAND_WATER = (21.8, 51.0)
+HAND_DIIODOMETHANE = (50.8, 0.0)
+
+
+def owens_wendt_by_hand(theta_water, theta_diiodomethane):
+    """Solid's (dispersive, polar) [N/m] from the Owens-Wendt / Kaelble pair
+    sigma_l (1 + cos theta) / 2 = sqrt(sd sld) + sqrt(sp slp), solved by hand:
+    diiodomethane is apolar, so the system is triangular [identity]."""
+    (wd, wp), (md, mp) = HAND_WATER, HAND_DIIODOMETHANE
+    assert mp == 0.0
+    cw, cm = np.cos(np.radians(theta_water)), np.cos(np.radians(theta_diiodomethane))
+    x = (md + mp) * (1.0 + cm) / 2.0 / np.sqrt(md)  # sqrt(sd), mN/m^0.5
+    y = ((wd + wp) * (1.0 + cw) / 2.0 - np.sqrt(wd) * x) / np.sqrt(wp)  # sqrt(sp)
+    assert np.all(y >= 0.0)  # the chosen angles need no non-negative refit
+    return x**2 * MN, y**2 * MN
+
+
+# Two surfaces (PTFE- and PMMA-like angles, water then diiodomethane [deg]).
+LABELLED_THETA = {"a": (108.0, 88.0), "b": (80.0, 41.0)}
+
+
+def test_labelled_dataarray_is_matched_by_liquid_name():
+    xr = pytest.importorskip("xarray")
+    surfaces = list(LABELLED_THETA)
+    water = np.array([LABELLED_THETA[s][0] for s in surfaces])
+    mi = np.array([LABELLED_THETA[s][1] for s in surfaces])
+    hand_d, hand_p = owens_wendt_by_hand(water, mi)
+    ordered = surface_energy(np.stack([water, mi], axis=-1), ["water", "diiodomethane"])
+    np.testing.assert_allclose(ordered.dispersive, hand_d, rtol=1e-12)
+    np.testing.assert_allclose(ordered.polar, hand_p, rtol=1e-12)
+    # the liquid dimension first and its labels in the other order (spelled differently)
+    da = xr.DataArray(np.stack([mi, water]), dims=("liquid", "surface"),
+                      coords={"liquid": ["Methylene iodide", "Water"], "surface": surfaces})
+    s = surface_energy(da, ["water", "diiodomethane"])
+    np.testing.assert_allclose(s.dispersive, hand_d, rtol=1e-12)
+    np.testing.assert_allclose(s.polar, hand_p, rtol=1e-12)
+    np.testing.assert_allclose(s.total, ordered.total, rtol=1e-14)
+    # the liquid dimension last, reordered: the same again
+    s_last = surface_energy(da.transpose("surface", "liquid"), ["water", "diiodomethane"])
+    np.testing.assert_allclose(s_last.total, hand_d + hand_p, rtol=1e-12)
+    # the names in a non-index coordinate along the liquid dimension
+    aux = xr.DataArray(np.stack([mi, water]), dims=("liquid", "surface"), coords={"name": ("liquid", ["CH2I2", "H2O"])})
+    np.testing.assert_allclose(surface_energy(aux, ["water", "diiodomethane"]).total, hand_d + hand_p, rtol=1e-12)
+    # one surface, reordered
+    one = surface_energy(da.sel(surface="a"), ["water", "diiodomethane"])
+    assert float(one.total) == pytest.approx(hand_d[0] + hand_p[0], rel=1e-12)
+
+
+def test_labelled_pandas_is_matched_by_liquid_name():
+    pd = pytest.importorskip("pandas")
+    surfaces = list(LABELLED_THETA)
+    water = np.array([LABELLED_THETA[s][0] for s in surfaces])
+    mi = np.array([LABELLED_THETA[s][1] for s in surfaces])
+    hand_d, hand_p = owens_wendt_by_hand(water, mi)
+    df = pd.DataFrame({"diiodomethane": mi, "water": water}, index=surfaces)  # columns not in liquids' order
+    for frame in (df, df.T):  # liquids as columns (rows are surfaces), or as the index
+        s = surface_energy(frame, ["water", "diiodomethane"])
+        np.testing.assert_allclose(np.asarray(s.dispersive), hand_d, rtol=1e-12)
+        np.testing.assert_allclose(np.asarray(s.polar), hand_p, rtol=1e-12)
+        assert isinstance(s.total, pd.Series) and list(s.total.index) == surfaces
+    one = surface_energy(df.loc["b"], ["water", "diiodomethane"])  # a Series indexed by liquid
+    assert one.total == pytest.approx(hand_d[1] + hand_p[1], rel=1e-12)
+    # own liquids given as a mapping are matched by their keys
+    mine = {"my water": (21.8e-3, 51.0e-3), "my MI": (50.8e-3, 0.0)}
+    s = surface_energy(df.rename(columns={"water": "my_water", "diiodomethane": "my MI"}), mine)
+    np.testing.assert_allclose(np.asarray(s.total), hand_d + hand_p, rtol=1e-12)
+
+
+def test_labelled_angles_that_do_not_name_the_liquids_raise():
+    xr = pytest.importorskip("xarray")
+    pd = pytest.importorskip("pandas")
+    liquids = ["water", "diiodomethane"]
+    # the liquid (last) axis labelled with another liquid's name
+    bad_last = xr.DataArray([[108.0, 88.0]], dims=("surface", "liquid"), coords={"liquid": ["water", "mercury"]})
+    with pytest.raises(wetboil.WetboilValueError, match=r"'mercury'.*do not name the liquids"):
+        surface_energy(bad_last, liquids)
+    # liquid names on the first axis, one of them unknown: not silently taken by position along the last
+    bad_first = xr.DataArray([[108.0, 80.0], [88.0, 41.0]], dims=("liquid", "surface"),
+                             coords={"liquid": ["water", "MI"]})
+    with pytest.raises(wetboil.WetboilValueError, match="do not name the liquids"):
+        surface_energy(bad_first, liquids)
+    # a name repeated, a name missing
+    with pytest.raises(wetboil.WetboilValueError, match="do not name the liquids"):
+        surface_energy(pd.DataFrame([[108.0, 88.0]], columns=["water", "water"]), liquids)
+    with pytest.raises(wetboil.WetboilValueError, match="do not name the liquids"):
+        surface_energy(pd.Series({"water": 108.0, "diiodomethane": 88.0, "formamide": 70.0}), liquids)
+    # string column labels that are not liquid names at all
+    with pytest.raises(wetboil.WetboilValueError, match="do not name the liquids"):
+        surface_energy(pd.DataFrame({"w": [108.0], "m": [88.0]}), liquids)
+    # names on two axes
+    both = xr.DataArray([[108.0, 88.0], [88.0, 108.0]], dims=("l1", "l2"),
+                        coords={"l1": liquids, "l2": liquids[::-1]})
+    with pytest.raises(wetboil.WetboilValueError, match="more than one axis"):
+        surface_energy(both, liquids)
+    # two coordinates of the liquid dimension that disagree on the order
+    two = xr.DataArray([[108.0, 88.0]], dims=("surface", "liquid"),
+                       coords={"liquid": liquids, "name": ("liquid", liquids[::-1])})
+    with pytest.raises(wetboil.WetboilValueError, match="two orders"):
+        surface_energy(two, liquids)
+
+
+def test_batch_labels_are_kept():
+    xr = pytest.importorskip("xarray")
+    pd = pytest.importorskip("pandas")
+    liquids = ["water", "diiodomethane"]
+    theta = np.array([[[108.0, 94.0, 80.0], [88.0, 52.0, 41.0]],
+                      [[100.0, 90.0, 70.0], [80.0, 50.0, 40.0]]])  # (run, liquid, surface)
+    da = xr.DataArray(theta, dims=("run", "liquid", "surface"),
+                      coords={"run": [1, 2], "liquid": liquids, "surface": ["ptfe", "pe", "pmma"],
+                              "T": 293.15, "supplier": ("liquid", ["x", "y"])},
+                      attrs={"units": "deg"})
+    s = surface_energy(da, liquids)
+    flat = surface_energy(np.moveaxis(theta, 1, -1), liquids)  # the documented array form
+    for field in ("total", "dispersive", "polar"):
+        out = getattr(s, field)
+        assert isinstance(out, xr.DataArray) and out.dims == ("run", "surface")
+        assert out.coords["surface"].values.tolist() == ["ptfe", "pe", "pmma"]
+        assert out.coords["run"].values.tolist() == [1, 2] and float(out.coords["T"]) == 293.15
+        assert "liquid" not in out.coords and "supplier" not in out.coords
+        assert out.name == f"surface_energy_{field}" and out.attrs == {"units": "N/m"}
+        np.testing.assert_allclose(out.values, getattr(flat, field), rtol=1e-14)
+    hand_d, hand_p = owens_wendt_by_hand(theta[:, 0, :], theta[:, 1, :])
+    np.testing.assert_allclose(s.total.values, hand_d + hand_p, rtol=1e-12)
+    # without coordinates the liquids lie along the last axis, by position; the batch dims stay
+    plain = surface_energy(xr.DataArray(np.moveaxis(theta, 1, -1), dims=("run", "surface", "liquid")), liquids)
+    assert plain.total.dims == ("run", "surface")
+    np.testing.assert_allclose(plain.total.values, flat.total, rtol=1e-14)
+    # a DataFrame: one Series per field over the surfaces' axis
+    df = pd.DataFrame(theta[0].T, columns=liquids, index=["ptfe", "pe", "pmma"])
+    s = surface_energy(df, liquids)
+    assert list(s.total.index) == ["ptfe", "pe", "pmma"] and s.total.name == "surface_energy_total"
+    assert s.total.attrs["units"] == "N/m"
+    np.testing.assert_allclose(s.total.to_numpy(), flat.total[0], rtol=1e-14)

@@ -529,11 +529,14 @@ def _custom_liquid(name: Any, spec: Any) -> ProbeLiquid:
     return ProbeLiquid(str(name), d, p, "user supplied")
 
 
-def _resolve_liquids(liquids: Any, table: str) -> List[ProbeLiquid]:
+def _resolve_liquids(liquids: Any, table: str) -> Tuple[List[ProbeLiquid], List[str]]:
+    """The probe liquids, and the name the caller gave each (a table name as spelled, a mapping key,
+    a `ProbeLiquid`'s name), in order."""
     if isinstance(liquids, str):
         raise WetboilTypeError("surface_energy: liquids must be a sequence of names, not a single string")
     if isinstance(liquids, Mapping):
         out = [_custom_liquid(k, v) for k, v in liquids.items()]
+        given = [str(k) for k in liquids]
     else:
         try:
             items = list(liquids)
@@ -543,13 +546,14 @@ def _resolve_liquids(liquids: Any, table: str) -> List[ProbeLiquid]:
                 f"got {type(liquids).__name__}"
             ) from None
         out = [item if isinstance(item, ProbeLiquid) else probe_liquid(item, table) for item in items]
+        given = [item.name if isinstance(item, ProbeLiquid) else item for item in items]
     if len(out) < 2:
         known = sorted(PROBE_LIQUIDS.get(table, PROBE_LIQUIDS["default"]))
         raise WetboilValueError(
             f"surface_energy: needs at least two probe liquids (one mostly dispersive, one polar), got {len(out)}; "
             f"known liquids: {known}"
         )
-    return out
+    return out, given
 
 
 # -----------------------------------------------------------------------------
@@ -605,6 +609,130 @@ def _out(x: np.ndarray) -> Any:
     return float(x) if np.ndim(x) == 0 else x
 
 
+def _string_labels(values: Any) -> Any:
+    """The labels of an axis (a pandas index, an xarray coordinate's values) as a list when every one is a
+    string, else None (numbers, tuples of a MultiIndex: not liquid names)."""
+    labels = list(values)
+    return [str(v) for v in labels] if labels and all(isinstance(v, str) for v in labels) else None
+
+
+def _angles_by_liquid(
+    function: str, angles: Any, given: List[str], liqs: List[ProbeLiquid], table: str
+) -> Tuple[np.ndarray, Any]:
+    """`surface_energy`'s angles as float64 with the liquids along the last axis, in the order of `liqs`,
+    and a function ``label(values, name)`` that labels a result of the batch shape like the input (None
+    for unlabelled input: plain numbers, lists, ndarrays).
+
+    Labelled angles (an xarray DataArray, a pandas Series or DataFrame) are aligned by name: the one axis
+    whose labels name the liquids one to one, in any order, holds them. Without such an axis the last
+    axis holds them by position, as for arrays, unless its labels are strings (they would have to be the
+    liquids' names) or another axis carries probe-liquid names: then a `WetboilValueError`, never a
+    positional match against labels that say otherwise."""
+    import sys
+
+    from ._api import _check_pandas, _pandas_values
+
+    label = "contact_angles_deg"
+    xr = sys.modules.get("xarray")
+    pd = sys.modules.get("pandas")
+    # (axis, where, labels, index): the labels along each axis; `index` for an index (a pandas axis, an
+    # xarray dimension coordinate), False for another 1-D xarray coordinate along that dimension
+    axes: List[Tuple[int, str, Any, bool]]
+    if xr is not None and isinstance(angles, xr.DataArray):
+        axes = [(i, f"dimension {d!r}" if c == d else f"coordinate {c!r} (dimension {d!r})",
+                 _string_labels(angles.coords[c].values), c == d)
+                for i, d in enumerate(angles.dims) for c in angles.coords if angles.coords[c].dims == (d,)]
+        ndim = angles.ndim
+    elif pd is not None and isinstance(angles, pd.DataFrame):
+        axes = [(0, "the index (rows)", _string_labels(angles.index), True),
+                (1, "the columns", _string_labels(angles.columns), True)]
+        ndim = 2
+    elif pd is not None and isinstance(angles, pd.Series):
+        axes = [(0, "the index", _string_labels(angles.index), True)]
+        ndim = 1
+    else:
+        return _float_array(function, label, angles), None
+
+    n = len(liqs)
+    index: Dict[str, int] = {}
+    repeated = set()
+    for i, (name, liq) in enumerate(zip(given, liqs)):
+        for key in {_normalise(str(name)), _normalise(liq.name)}:
+            if index.setdefault(key, i) != i:
+                repeated.add(key)
+    labelled = [(pos, where, labs, is_index) for pos, where, labs, is_index in axes if labs is not None]
+    if repeated and labelled:
+        raise WetboilValueError(
+            f"{function}: liquids {given} name {sorted(repeated)} more than once, so labelled {label} cannot be "
+            "aligned with them by name; give each liquid its own name"
+        )
+
+    def order(labels: List[str]) -> Any:
+        """perm with ``perm[i]`` the position of liquid i among `labels`; None unless one to one."""
+        where = [index.get(_normalise(lab)) for lab in labels]
+        if None in where or sorted(where) != list(range(n)):  # type: ignore[type-var]
+            return None
+        return [where.index(i) for i in range(n)]
+
+    def shown(labels: List[str]) -> str:
+        return repr(labels) if len(labels) <= 8 else repr(labels[:8])[:-1] + f", ... ({len(labels)} labels)]"
+
+    found = [(pos, where, perm) for pos, where, labs, _ in labelled for perm in [order(labs)] if perm is not None]
+    last = ndim - 1
+    if len({pos for pos, _, _ in found}) > 1 or len({tuple(perm) for _, _, perm in found}) > 1:
+        raise WetboilValueError(
+            f"{function}: {label} names the liquids along more than one axis, or in two orders along one "
+            f"({', '.join(w for _, w, _ in found)}); only the liquid axis may carry their names, in one order"
+        )
+    if found:
+        pos, perm = found[0][0], found[0][2]
+    else:
+        known = set(index) | {_normalise(k) for k in PROBE_LIQUIDS.get(table, {})} | set(_ALIASES)
+        for p_, where, labs, is_index in labelled:
+            if (p_ == last and is_index) or any(_normalise(lab) in known for lab in labs):
+                raise WetboilValueError(
+                    f"{function}: the labels of {label} along {where}, {shown(labs)}, do not name the liquids "
+                    f"{given} one to one. Labelled angles are matched to liquids by name, never by position: "
+                    "label the liquid axis with exactly these names (any order; case, spaces, hyphens and "
+                    "underscores ignored), or pass plain numbers in the order of liquids"
+                )
+        pos, perm = last, None  # no labels to go by: the documented positional contract (last axis)
+
+    def take(values: np.ndarray) -> np.ndarray:
+        theta = _float_array(function, label, values)
+        return theta if perm is None else theta[..., perm]
+
+    if xr is not None and isinstance(angles, xr.DataArray):
+        if ndim == 0:
+            return _float_array(function, label, angles.values), None  # the shape check reports it
+        dim = angles.dims[pos]
+        batch = [d for d in angles.dims if d != dim]
+        theta = take(angles.transpose(*batch, dim).values)
+        # the batch dimensions with their coordinates (and scalar ones); coordinates along the liquid
+        # dimension describe liquids, not surfaces, and are dropped
+        template = angles.isel({dim: 0}, drop=True)
+
+        def label_xarray(values: np.ndarray, name: str) -> Any:
+            return xr.DataArray(values, dims=template.dims, coords=template.coords, name=name,
+                                attrs={"units": "N/m"})
+
+        return theta, label_xarray
+    _check_pandas(function, label, angles)
+    values = _pandas_values(function, label, angles)
+    if values.ndim == 1:
+        return take(values), None  # a Series is one surface: floats, as for a 1-D array
+    theta = take(values if pos == 1 else values.T)
+    surfaces = angles.index if pos == 1 else angles.columns
+    import pandas
+
+    def label_pandas(values: np.ndarray, name: str) -> Any:
+        out = pandas.Series(values, index=surfaces, name=name)
+        out.attrs["units"] = "N/m"
+        return out
+
+    return theta, label_pandas
+
+
 def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "default") -> SurfaceEnergy:
     r"""Surface free energy of a solid from probe-liquid contact angles
     (Owens-Wendt-Rabel-Kaelble).
@@ -620,13 +748,24 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
 
     Parameters
     ----------
-    contact_angles_deg : array_like
+    contact_angles_deg : array_like, DataArray, Series or DataFrame
         Measured (static or advancing) angles [deg], one per liquid along the
         **last** axis; leading axes are independent surfaces (a batch).
+        **Labelled angles are matched to the liquids by name**, not by
+        position: an xarray DataArray whose dimension coordinate (or another
+        1-D coordinate along one dimension) holds the liquid names (that
+        dimension, wherever it is, holds the liquids), a pandas Series
+        indexed by liquid name (one surface), or a DataFrame with the liquid
+        names as columns (rows are surfaces) or as its index (columns are
+        surfaces). Names are those given in `liquids`, in any
+        order (case, spaces, hyphens and underscores ignored, the aliases of
+        `probe_liquid` understood). Without liquid names on any axis the last
+        axis holds the liquids by position, as for arrays.
     liquids : sequence of str or ProbeLiquid, or mapping
-        The probe liquids in the same order: names from the table (see
-        `probe_liquid`), `ProbeLiquid` objects, or a mapping
-        ``{name: (dispersive, polar)}`` of your own liquids in **N/m**.
+        The probe liquids, in the order of the angles' last axis for
+        unlabelled angles: names from the table (see `probe_liquid`),
+        `ProbeLiquid` objects, or a mapping ``{name: (dispersive, polar)}`` of
+        your own liquids in **N/m**.
     table : str, optional
         Which published probe-liquid table names refer to: ``"default"`` or
         ``"owens_wendt_1969"``. The result depends noticeably on the table.
@@ -639,15 +778,23 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
         least-squares covariance of *(x, y)* scaled by the residual variance
         (n - 2 degrees of freedom), propagated to first order. With two
         liquids the uncertainties are NaN (no degrees of freedom). Floats for
-        one surface, arrays for a batch.
+        one surface, arrays for a batch. A DataArray gives DataArrays (also
+        for one surface) over its other dimensions, with their coordinates,
+        named ``surface_energy_total`` ... ``surface_energy_polar_error``,
+        with ``attrs["units"] = "N/m"``; a DataFrame gives Series labelled by
+        its surfaces' axis, named and with units likewise; a Series gives
+        floats.
 
     Raises
     ------
     WetboilValueError
         Fewer than two liquids; an unknown liquid name (the message lists the
-        known ones); angles whose last axis does not match the liquids; probe
-        liquids whose components are proportional (they cannot separate the
-        dispersive from the polar part).
+        known ones); angles whose last axis does not match the liquids;
+        labelled angles whose labels do not name the liquids one to one (a
+        string-labelled last axis with other names, liquid names on an axis
+        that misses or repeats some, names on two axes or in two orders along
+        one); probe liquids whose components are proportional (they cannot
+        separate the dispersive from the polar part).
 
     Notes
     -----
@@ -695,8 +842,8 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
     (43.0, 4.5)
     """
     function = "wetting.surface_energy"
-    liqs = _resolve_liquids(liquids, table)
-    theta = _float_array(function, "contact_angles_deg", contact_angles_deg)
+    liqs, given = _resolve_liquids(liquids, table)
+    theta, relabel = _angles_by_liquid(function, contact_angles_deg, given, liqs, table)
     n = len(liqs)
     if theta.ndim == 0 or theta.shape[-1] != n:
         raise WetboilValueError(
@@ -760,7 +907,11 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
         err_t = np.where(np.isnan(s2), np.nan, np.sqrt(np.maximum(var_t, 0.0)))
 
     sd, sp = x**2, y**2
-    t, d_, p_, et, ed, ep = (_out(np.where(row_bad, np.nan, o)) for o in (sd + sp, sd, sp, err_t, err_d, err_p))
+    outs = [np.where(row_bad, np.nan, o) for o in (sd + sp, sd, sp, err_t, err_d, err_p)]
+    if relabel is None:
+        t, d_, p_, et, ed, ep = (_out(o) for o in outs)
+    else:
+        t, d_, p_, et, ed, ep = (relabel(o, f"surface_energy_{f}") for o, f in zip(outs, SurfaceEnergy._fields))
     return SurfaceEnergy(t, d_, p_, et, ed, ep, tuple(l.name for l in liqs))
 
 
