@@ -180,6 +180,19 @@ def test_chunked_and_eager_sweeps_have_the_same_dimension_order():
             pd.testing.assert_frame_equal(lazy.to_dataframe(), eager.to_dataframe())
 
 
+def test_sweep_names_its_fluid_and_the_fields_it_lacks():
+    # Wiring: the attrs carry the fluid and the fields NaN at every state (no outside value).
+    s = SURFACES[:1]
+    ds = wetboil.sweep(s, "water", p=[1e5, 2e5], heat_flux=3e5)
+    assert ds.attrs["fluid"] == "water" and "fluid_fields_missing" not in ds.attrs
+    bare = water(p=1e5).replace(sigma=float("nan"), k_v=float("nan"))
+    ds = wetboil.sweep(s, bare, heat_flux=3e5)
+    assert ds.attrs["fluid_fields_missing"] == "sigma, k_v"
+    assert np.isnan(ds["chf"].values).all()  # Kandlikar needs sigma
+    df = wetboil.screen(s, bare, heat_flux=3e5)
+    assert df.attrs["fluid_fields_missing"] == "sigma, k_v" and df.attrs["fluid"] == "water"
+
+
 def test_bad_input_is_named():
     with pytest.raises(ValueError, match="heat_flux axis is empty"):
         wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])

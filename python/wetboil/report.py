@@ -319,11 +319,14 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             warnings.simplefilter("ignore")
             a = s.angles(state, dispersive_fraction=study.dispersive_fraction)
             rec, sta = float(np.asarray(a.receding_deg)), float(np.asarray(a.static_deg))
-            c = boiling.curve(state, superheat, receding_angle_deg=rec, contact_angle_deg=sta, orientation_deg=phi0,
-                              nucleate="rohsenow" if s.C_sf else "cooper", C_sf=s.C_sf or 0.013, n=s.n,
-                              roughness_Rp=s.Rp or 1e-6, natural_convection_coefficient=1000.0,
-                              design_heat_flux=design)
-        reason = _no_curve_reason(c, rec, phi0)
+            try:
+                c = boiling.curve(state, superheat, receding_angle_deg=rec, contact_angle_deg=sta,
+                                  orientation_deg=phi0, nucleate="rohsenow" if s.C_sf else "cooper",
+                                  C_sf=s.C_sf or 0.013, n=s.n, roughness_Rp=s.Rp or 1e-6,
+                                  natural_convection_coefficient=1000.0, design_heat_flux=design)
+            except WetboilValueError as exc:  # a fluid without some property (CoolProp has no model for it)
+                c, why = None, str(exc).replace("boiling.curve: ", "")
+        reason = why if c is None else _no_curve_reason(c, rec, phi0)
         if reason:
             missing.append(s.name)
             reasons.append(f"{s.name} ({reason})")
@@ -367,7 +370,9 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
             q = float(chf.kandlikar(r, state, phi0)) / 1e6 if np.isfinite(r) else math.nan
         if not np.isfinite(q):
-            no_point.append(f"{s.name} ({_no_chf_reason(r, phi0)})")
+            why = (f"the fluid lacks {ds.attrs['fluid_fields_missing']}" if ds.attrs.get("fluid_fields_missing")
+                   else _no_chf_reason(r, phi0))
+            no_point.append(f"{s.name} ({why})")
             continue
         ax.plot(r, q, "o", ms=6)
         ax.annotate(s.name, (r, q), fontsize=7, textcoords="offset points", xytext=(4, 4))
@@ -566,6 +571,9 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         lines.append(f"- {k}: {v}")
     lines += [
         f"- fluid: {study.fluid}",
+        *([f"- fluid properties missing at every state (no model in CoolProp): {ds.attrs['fluid_fields_missing']}; "
+           "every quantity that needs one is NaN. Give them in Python (wetboil.fluids.from_coolprop(...).replace(...)"
+           ", then wetboil.sweep of that Saturation)"] if ds.attrs.get("fluid_fields_missing") else []),
         *([f"- dispersive fraction of its surface tension (for probe-liquid surfaces): {study.dispersive_fraction:g}"]
           if study.dispersive_fraction is not None else []),
         f"- {axis_name}: {', '.join(f'{v:g}' for v in study.states)}",

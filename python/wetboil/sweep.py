@@ -528,7 +528,12 @@ def sweep(
         states that are impossible or outside its range; under ``wetboil.errstate(invalid="raise")`` or
         ``(out_of_range="raise")`` a computed sweep with points of that kind
         raises instead; a lazy one (``compute=False``) keeps that policy and
-        raises when a block with such points is computed.
+        raises when a block with such points is computed. ``attrs`` name the
+        ``fluid``, the ``methods``, the ``caution``, and, when some fluid
+        field is NaN at every state (CoolProp has no model for it, or the
+        Saturation lacks it), ``fluid_fields_missing``: every quantity that
+        needs one is NaN, unflagged (give them with
+        ``from_coolprop(...).replace(...)`` and sweep that Saturation).
 
     Examples
     --------
@@ -596,9 +601,29 @@ def sweep(
     else:
         result = _block(ds_in.compute(), meth, states.name)
     result = _decorate(result, meth, state_dim)
+    result.attrs["fluid"] = states.name if states.name is not None else "(unnamed Saturation)"
+    missing = _missing_fields(states)
+    if missing:
+        result.attrs["fluid_fields_missing"] = ", ".join(missing)
     if chunks is None or compute:
         _strict(result, _STATE.get(), result["range_flags"].attrs["bits"].split(","))
     return result
+
+
+def _missing_fields(states: Saturation) -> List[str]:
+    """Fluid fields that are NaN at every state that has one (CoolProp has no
+    model for them, or a Saturation was built without them): the quantities
+    that need them are NaN everywhere, which no flag records."""
+    have = ~np.isnan(np.asarray(getattr(states.rho_l, "values", states.rho_l), dtype=float))
+    if not have.any():
+        return []
+    out = []
+    for f in FIELDS:
+        v = np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)), dtype=float),
+                            have.shape)
+        if np.isnan(v[have]).all():
+            out.append(f)
+    return out
 
 
 def _strict(ds: Any, state: Any, bits: List[str], where: str = "") -> None:
@@ -771,8 +796,9 @@ def ranked_table(ds: Any) -> Any:
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
     df.attrs["units"] = units
-    df.attrs["methods"] = ds.attrs["methods"]
-    df.attrs["caution"] = ds.attrs["caution"]
+    for key in ("fluid", "fluid_fields_missing", "methods", "caution"):
+        if key in ds.attrs:
+            df.attrs[key] = ds.attrs[key]
     return df
 
 
