@@ -8,7 +8,7 @@
 //! and writes the outputs once. The separate public functions give the same
 //! numbers bit for bit (tests).
 
-use crate::model::{angle_deg, arg, positive, BlockSummary, Kernel, Model};
+use crate::model::{angle_deg, arg, nan_unless, positive, BlockSummary, Kernel, Model};
 use crate::{chf, departure, nucleation, water};
 
 /// Onset superheat [K] (Hsu, general contact angle), departure diameter [m]
@@ -39,7 +39,11 @@ fn screening_from(
     let [t, _p, rho_l, rho_v, h_lv, sigma, _cp_l, k_l, ..] = w;
     let onset = nucleation::hsu_onset(heat_flux, sigma, t, rho_l, rho_v, h_lv, k_l, contact_angle_deg)[0];
     let d = departure::fritz(contact_angle_deg, sigma, rho_l, rho_v, g);
-    let q = chf::kandlikar(receding_angle_deg, orientation_deg, h_lv, rho_l, rho_v, sigma, g);
+    // a receding angle above the static one is no surface: NaN, which `settle` spreads to all four
+    let q = nan_unless(
+        receding_angle_deg <= contact_angle_deg,
+        chf::kandlikar(receding_angle_deg, orientation_deg, h_lv, rho_l, rho_v, sigma, g),
+    );
     [t, onset, d, q]
 }
 
@@ -65,7 +69,8 @@ impl Kernel<6, 4> for WaterScreening {
             arg("departure_diameter", "m"),
             arg("critical_heat_flux", "W/m2"),
         ],
-        domain: "as the four models: 611.657 Pa <= p < 22.064 MPa, angles 0-180 deg, heat_flux >= 0, g > 0",
+        domain: "as the four models: 611.657 Pa <= p < 22.064 MPa, angles 0-180 deg with receding_angle_deg <= \
+                 contact_angle_deg, heat_flux >= 0, g > 0",
         validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
                    orientation_deg <= 90 (Kandlikar)",
         reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",
@@ -96,6 +101,7 @@ impl Kernel<6, 4> for WaterScreening {
             && x[0] < water::P_CRIT // one phase: no surface tension, no bubble, no CHF
             && angle_deg(x[1])
             && angle_deg(x[2])
+            && x[2] <= x[1] // a receding angle above the static one: no such surface
             && angle_deg(x[3])
             && x[4] >= 0.0
             && x[4].is_finite()
@@ -134,6 +140,9 @@ mod tests {
         assert!(!WaterScreening::possible(&x(water::P_CRIT)));
         assert!(WaterScreening::possible(&x(22.0e6)) && !WaterScreening::in_range(&x(22.0e6)));
         assert!(WaterScreening::possible(&x(water::P_TRIPLE)));
+        // hysteresis: the receding angle cannot exceed the static one (equal is a surface without hysteresis)
+        assert!(!WaterScreening::possible(&[1e5, 40.0, 60.0, 0.0, 1e5, 9.80665]));
+        assert!(WaterScreening::possible(&[1e5, 40.0, 40.0, 0.0, 1e5, 9.80665]));
     }
 
     /// The block path (saturation temperatures solved together) gives the element path's bits.

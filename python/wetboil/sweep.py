@@ -828,8 +828,9 @@ def water_chain(p: Any, contact_angle_deg: Any, receding_angle_deg: Any, heat_fl
 
     One status per element: where any input is impossible (a pressure
     outside 611.657 Pa to 22.064 MPa, the critical point included, where
-    liquid and vapour are one phase; an angle outside 0-180 deg; a negative
-    heat flux; g <= 0) all four results of that element are NaN, ``T_sat``
+    liquid and vapour are one phase; an angle outside 0-180 deg; a receding
+    angle above the static one, which no surface has; a negative heat flux;
+    g <= 0) all four results of that element are NaN, ``T_sat``
     too, and the call counts it once. Call the separate functions to keep
     the results that do not depend on the bad input.
 
