@@ -204,6 +204,10 @@ def test_bad_input_is_named():
         wetboil.sweep(SURFACES, "water", heat_flux=3e5)
     with pytest.raises(ValueError, match="advancing angle 20 deg is below the receding angle 30"):
         Surface("x", 25, 20, 30)
+    with pytest.raises(ValueError, match="advancing_deg / receding_deg need static_deg too"):
+        Surface("x", advancing_deg=80, receding_deg=40)
+    with pytest.raises(ValueError, match="probe_advancing_deg / probe_receding_deg need probe_static_deg too"):
+        Surface("x", probe_receding_deg={"water": 60, "diiodomethane": 30})
     with pytest.raises(ValueError, match="unique"):
         wetboil.sweep([SURFACES[0], SURFACES[0]], "water", p=1e5, heat_flux=3e5)
     # the axes take the kernels' input checks: None, text and None inside a list are not numbers

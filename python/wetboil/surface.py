@@ -73,7 +73,7 @@ class Surface:
     static_deg, advancing_deg, receding_deg : float, optional
         Angles of the working fluid [deg], through the liquid; advancing >=
         static >= receding. A missing advancing or receding angle is taken
-        equal to the static one (no hysteresis data) and noted in `notes`.
+        equal to the static one (no hysteresis data; `angles` returns it so).
     angles_are : {"apparent", "intrinsic"}
         "apparent" (default): measured on this surface as it is, roughness
         included. "intrinsic": measured on a smooth coupon of the same
@@ -186,6 +186,13 @@ class Surface:
     def _validate(self) -> None:
         direct = self.static_deg is not None
         probes = self.probe_static_deg is not None
+        for kind, given, static in (("", (self.advancing_deg, self.receding_deg), "static_deg"),
+                                    ("probe_", (self.probe_advancing_deg, self.probe_receding_deg), "probe_static_deg")):
+            if getattr(self, static) is None and any(v is not None for v in given):
+                raise WetboilValueError(
+                    f"surface {self.name!r}: {kind}advancing_deg / {kind}receding_deg need {static} too (the "
+                    "static angle drives the onset and departure models)"
+                )
         if direct == probes:
             raise WetboilValueError(
                 f"surface {self.name!r}: give either the working fluid's angles (static_deg, ...) "
