@@ -193,6 +193,16 @@ def test_sweep_names_its_fluid_and_the_fields_it_lacks():
     assert df.attrs["fluid_fields_missing"] == "sigma, k_v" and df.attrs["fluid"] == "water"
 
 
+def test_a_pressure_in_kpa_gets_the_unit_hint_in_python_too():
+    # 101.325 "Pa" is below water's triple point, 611.657 Pa (IAPWS R14-08(2011)); as kPa it is 1 atm.
+    with pytest.warns(wetboil.WetboilWarning, match=r"101.325 Pa outside .* they look like kPa \(x 1e3\)"):
+        with pytest.warns(wetboil.InvalidValueWarning):
+            wetboil.sweep(SURFACES[:1], "water", p=[101.325], heat_flux=3e5)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")  # a correct pressure: no hint
+        wetboil.sweep(SURFACES[:1], "water", p=[101325.0], heat_flux=3e5)
+
+
 def test_bad_input_is_named():
     with pytest.raises(ValueError, match="heat_flux axis is empty"):
         wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])

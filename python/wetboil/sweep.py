@@ -224,6 +224,10 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     no_state = np.isnan(np.broadcast_to(np.asarray(getattr(states.rho_l, "values", states.rho_l)), given.shape))
     invalid = np.logical_or(np.broadcast_to(cap.invalid, given.shape), no_state & given)
     out_of_range = np.broadcast_to(cap.out_of_range, given.shape)
+    if invalid.any():  # a unit slip (kPa, bar, MPa given as Pa; degC as K) is the usual cause: say so
+        problem = _states_outside_range(fluid, dim, axis.values)
+        if problem and "they look like" in problem:
+            _warn(f"sweep: {problem}", WetboilWarning)
     masks = [xr.DataArray(m.astype(float), dims=dim, coords=axis.coords) for m in (invalid, out_of_range)]
     return states, dim, masks[0], masks[1]
 
