@@ -203,6 +203,19 @@ def test_a_pressure_in_kpa_gets_the_unit_hint_in_python_too():
         wetboil.sweep(SURFACES[:1], "water", p=[101325.0], heat_flux=3e5)
 
 
+def test_surface_angles_give_one_warning_per_category():
+    # Wiring of the warning policy (no outside value): Wenzel on a rough hydrophobic surface
+    # (cos < -1/r saturates at 180 deg) is flagged once per call, not once per angle.
+    s = Surface("rough (invented)", probe_static_deg={"water": 160.0, "diiodomethane": 120.0},
+                probe_receding_deg={"water": 150.0, "diiodomethane": 110.0}, angles_are="intrinsic",
+                roughness_ratio=2.0)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        s.angles(water(p=[1e5, 2e5]))
+    ranges = [str(w.message) for w in rec if issubclass(w.category, wetboil.RangeWarning)]
+    assert len(ranges) == 1 and ranges[0].count("wetting.wenzel") == 1, ranges
+
+
 def test_bad_input_is_named():
     with pytest.raises(ValueError, match="heat_flux axis is empty"):
         wetboil.sweep(SURFACES, "water", p=1e5, heat_flux=[])

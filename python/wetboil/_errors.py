@@ -181,7 +181,7 @@ def _gathered(parts: dict, label: Callable[[str], str], run: Callable[[], Any]) 
 def _give(function: str, parts: dict) -> None:
     """One warning per category of the gathered `parts`, naming `function`."""
     for category, messages in parts.items():
-        _warn(f"{function}: {'; '.join(messages)}", category)
+        _warn(f"{function}: {'; '.join(dict.fromkeys(messages))}", category)  # each distinct part once
 
 
 def each_method(function: str, methods: Sequence[str], one: Callable[[str], Any]) -> list:

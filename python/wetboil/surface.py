@@ -11,7 +11,7 @@ from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Tup
 
 import numpy as np
 
-from ._errors import WetboilTypeError, WetboilValueError
+from ._errors import WetboilTypeError, WetboilValueError, one_warning_per_category
 from .fluids import Saturation
 
 try:  # Python >= 3.11
@@ -211,6 +211,7 @@ class Surface:
             )
 
     # -- the working fluid's angles -------------------------------------------------
+    @one_warning_per_category("Surface.angles")
     def angles(self, fluid: Optional[Saturation] = None, *, dispersive_fraction: Optional[float] = None) -> WorkingAngles:
         """Apparent static, advancing and receding angles of the working fluid
         [deg].
