@@ -640,3 +640,21 @@ def test_batch_labels_are_kept():
     assert list(s.total.index) == ["ptfe", "pe", "pmma"] and s.total.name == "surface_energy_total"
     assert s.total.attrs["units"] == "N/m"
     np.testing.assert_allclose(s.total.to_numpy(), flat.total[0], rtol=1e-14)
+
+
+def test_cassie_baxter_on_a_hydrophilic_texture_is_flagged():
+    # A hydrophilic texture (intrinsic angle < 90 deg) does not hold gas under a drop at
+    # equilibrium: it fills or wicks (Bico, Thiele & Quere, Colloids Surf. A 206 (2002) 41,
+    # from memory). The formula would turn 20 deg into a hydrophobic 98 deg: flagged.
+    import warnings
+
+    import wetboil
+    from wetboil.wetting import cassie_baxter
+
+    with pytest.warns(wetboil.RangeWarning, match="cassie_baxter"):
+        v = cassie_baxter(20.0, 0.3, 2.0)
+    assert v == pytest.approx(math.degrees(math.acos(2.0 * 0.3 * math.cos(math.radians(20.0)) + 0.3 - 1.0)), abs=1e-9)
+    assert list(wetboil.validity(cassie_baxter, [20.0, 110.0], 0.3, 1.0)) == [2, 0]
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        cassie_baxter(110.0, 0.1)  # a superhydrophobic texture: inside the range

@@ -1243,7 +1243,8 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
     -------
     float or ndarray or DataArray
         Apparent angle [deg]; saturates at 0 / 180 deg, flagged with
-        `RangeWarning` as in `wenzel`.
+        `RangeWarning` as in `wenzel`. An intrinsic angle below 90 deg is
+        flagged too (see Notes).
 
     Notes
     -----
@@ -1251,6 +1252,11 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
     Wenzel, ``f = 0`` is a drop resting on gas (180 deg). The equation holds
     while the liquid rests on the texture tops; whether that state or the
     wetted (Wenzel) state is reached depends on how the drop was deposited.
+    On a hydrophilic texture (intrinsic angle below 90 deg) the trapped-gas
+    state is not the stable one: the liquid fills the texture or wicks into
+    it and the surface wets better, not worse (Bico, Thiele & Quere, Colloids
+    Surf. A 206 (2002) 41-46, from memory), so the formula's answer there is
+    flagged `RangeWarning` (use `wenzel`).
     Milne and Amirfazli (2012) point out that the fractions under the
     contact line, not area averages, are what matter.
 
