@@ -91,10 +91,11 @@ def test_rohsenow_identities_and_warnings():
 
 
 def test_rohsenow_exponent_by_fluid():
-    # The tabulated (C_sf, n) pairs were fitted with n = 1.0 for water and 1.7
-    # for every other liquid (Cengel & Ghajar Table 10-3, the table behind
-    # SURFACE_CONSTANTS; Rohsenow 1952 used 1.7): the default must agree with
-    # every row, or a tabulated C_sf used without its n gives a wrong answer.
+    # The published (C_sf, n) pairs carry n = 1.0 for water and 1.7 for every
+    # other liquid (the rows of SURFACE_CONSTANTS, transcribed with their
+    # sources; they go back to Rohsenow 1952 and Vachon, Nix & Tanger 1968
+    # [from memory]): the default must agree with every row, or a tabulated
+    # C_sf used without its n gives a wrong answer.
     for row in SURFACE_CONSTANTS:
         assert boiling.rohsenow_exponent(INCROPERA.replace(name=row.liquid)) == row.n, row
     assert boiling.rohsenow_exponent(INCROPERA.replace(name="H2O")) == boiling.rohsenow_exponent(INCROPERA) == 1.0
@@ -120,10 +121,14 @@ def test_rohsenow_exponent_by_fluid():
     assert rohsenow_superheat(np.array([q, q]), r134a) == pytest.approx([by_hand] * 2, rel=1e-9)
     assert rohsenow_superheat(q, r134a, n=1.0) < 0.5 * by_hand  # water's exponent: a wrong answer by 2x or more
     assert rohsenow(by_hand, r134a) == pytest.approx(q, rel=1e-9)
-    # An unnamed state gets 1.7 with a warning that says so.
+    # validity() fills the default the same way (it raised on n=None)
+    assert wetboil.validity(rohsenow_superheat, q, r134a) == wetboil.validity(rohsenow_superheat, q, r134a, n=1.7)
+    # An unnamed state gets 1.7 with a warning that says so, naming the function called.
     unnamed = INCROPERA.replace(name=None)
-    with pytest.warns(wetboil.WetboilWarning, match="has no name, so Rohsenow's n = 1.7"):
+    with pytest.warns(wetboil.WetboilWarning, match="boiling.rohsenow: the fluid state has no name, so Rohsenow's n = 1.7"):
         assert rohsenow(18.0, unnamed) == rohsenow(18.0, INCROPERA, n=1.7)
+    with pytest.warns(wetboil.WetboilWarning, match="boiling.rohsenow_superheat: the fluid state has no name"):
+        rohsenow_superheat(1e5, unnamed)
     with warnings.catch_warnings():
         warnings.simplefilter("error")
         rohsenow(18.0, unnamed, n=1.0)  # n given: nothing to warn about

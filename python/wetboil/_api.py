@@ -483,6 +483,7 @@ class _Spec(NamedTuple):
     params: Tuple[str, ...]
     result_type: Optional[Callable[..., Any]]
     output: Optional[int] = None  # the one output returned, for `kernel(..., output=k)`
+    fill: Optional[Callable[[Tuple[Any, ...]], Tuple[Any, ...]]] = None  # see `kernel`
 
 
 def _saturation_type() -> type:
@@ -704,7 +705,8 @@ def validity(function: Callable[..., Any], *args: Any, **kwargs: Any) -> Any:
     except TypeError as exc:
         raise WetboilTypeError(f"validity: {exc}") from None
     bound.apply_defaults()
-    inputs = _gather(spec, [bound.arguments[p] for p in spec.params])
+    args = tuple(bound.arguments[p] for p in spec.params)
+    inputs = _gather(spec, spec.fill(args) if spec.fill is not None else args)
     func = functools.partial(_status_arrays, spec.model.name)
     out = _dispatch(spec, inputs, func, [np.int8], ["validity"])
     return out if not isinstance(out, float) else np.int8(out)
@@ -766,8 +768,10 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
     that one where the evaluation path allows, as the factorised grid path
     does). `fill` maps the call's arguments (a tuple in template order) to
     the arguments evaluated: it replaces a ``None`` default by a value that
-    depends on other arguments (Rohsenow's exponent by fluid). Calls that
-    leave such a default out take the Python path.
+    depends on other arguments (Rohsenow's exponent by fluid), returning
+    the very tuple it was given when there is nothing to fill. A filled call
+    is made again through the public function, so plain numbers still take
+    the Rust fast path; `validity` fills the same way.
 
     The result is a builtin function (no Python frame on the scalar path) with
     the template's signature, docstring and module; it pickles by name. Calls
@@ -804,7 +808,8 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
         for p in sig.parameters.values():
             if p.kind not in (p.POSITIONAL_OR_KEYWORD, p.KEYWORD_ONLY):
                 raise RuntimeError(f"{function}: only plain or keyword-only parameters are supported")
-        spec = _Spec(model, function, tuple(plan), tuple(labels), params, None if output is not None else result, output)
+        spec = _Spec(model, function, tuple(plan), tuple(labels), params, None if output is not None else result, output,
+                     fill)
 
         # The fallback: a Python function with exactly the template's
         # parameters (so binding errors read like any Python function's),
@@ -816,9 +821,12 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
                 star_done = True
             pieces.append(p.name if p.default is p.empty else f"{p.name}=None")
         arglist = ", ".join(params) + ("," if len(params) == 1 else "")
-        src = f"def {template.__name__}({', '.join(pieces)}):\n    return _evaluate(_spec, _fill(({arglist})))\n"
+        src = f"def {template.__name__}({', '.join(pieces)}):\n    return _evaluate(_spec, ({arglist}))\n"
+        if fill is not None:  # a filled call goes back through the builtin: plain numbers take the Rust fast path
+            src = (f"def {template.__name__}({', '.join(pieces)}):\n    args = ({arglist})\n    filled = _fill(args)\n"
+                   f"    return _evaluate(_spec, args) if filled is args else _public(*filled)\n")
         namespace: Dict[str, Any] = {"__name__": template.__module__, "_evaluate": _evaluate, "_spec": spec,
-                                     "_fill": fill or (lambda args: args)}
+                                     "_fill": fill}
         exec(compile(src, f"<wetboil front door {function}>", "exec"), namespace)
         fallback = namespace[template.__name__]
         fallback.__defaults__ = template.__defaults__
@@ -830,6 +838,7 @@ def kernel(name: str, *, result: Optional[Callable[..., Any]] = None, output: Op
                      [(None, name, [(ai, FIELDS.index(fl) if fl else -1) for ai, fl in plan],
                        -1 if output is None else output, spec.result_type)], -1)
         _FUNCTIONS[f] = spec
+        namespace["_public"] = f
         return f  # type: ignore[return-value]
 
     return build

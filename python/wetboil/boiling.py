@@ -131,15 +131,19 @@ def _default_exponent(fluid: Saturation, function: str) -> float:
     return rohsenow_exponent(fluid)
 
 
-def _rohsenow_fill(args: Tuple[Any, ...]) -> Tuple[Any, ...]:
-    """Rohsenow's exponent by fluid where the call leaves ``n`` out."""
-    x, fluid, C_sf, n, g = args
-    if n is None and isinstance(fluid, Saturation):
-        n = _default_exponent(fluid, "boiling.rohsenow")
-    return x, fluid, C_sf, n, g
+def _rohsenow_fill(function: str) -> Callable[[Tuple[Any, ...]], Tuple[Any, ...]]:
+    """Rohsenow's exponent by fluid where a call of `function` leaves ``n`` out."""
+
+    def fill(args: Tuple[Any, ...]) -> Tuple[Any, ...]:
+        x, fluid, C_sf, n, g = args
+        if n is not None or not isinstance(fluid, Saturation):
+            return args  # nothing to fill (a wrong fluid type is reported by the call itself)
+        return x, fluid, C_sf, _default_exponent(fluid, function), g
+
+    return fill
 
 
-@kernel("rohsenow_heat_flux", fill=_rohsenow_fill)
+@kernel("rohsenow_heat_flux", fill=_rohsenow_fill("boiling.rohsenow"))
 def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
     r"""Rohsenow (1952) nucleate pool-boiling heat flux [W/m2].
 
@@ -201,7 +205,7 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
     """
 
 
-@kernel("rohsenow_superheat", fill=_rohsenow_fill)
+@kernel("rohsenow_superheat", fill=_rohsenow_fill("boiling.rohsenow_superheat"))
 def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
     r"""Wall superheat at a nucleate-boiling heat flux, Rohsenow (1952) [K];
     the inverse of `rohsenow`.
