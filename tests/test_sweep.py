@@ -784,21 +784,22 @@ def test_ranking_puts_a_surface_without_chf_somewhere_after_the_others():
     assert margin_text(r.loc["c"]).startswith("0.80 (below 1: design flux above the predicted CHF)")
 
 
-def test_ranking_puts_valid_surfaces_before_flagged_ones_and_breaks_ties_by_name():
-    """Behavioural contract (the rule the report states, `RANKING_RULE`): surfaces predicted
-    everywhere with no design quantity flagged come first, then those with flagged (extrapolated)
-    rows, then those without a CHF prediction at some point; within a group the highest lowest
-    margin (CHF / design heat flux: larger is further from burnout) first; equal margins: fewer
-    flagged rows, then by name. The rule is this project's own (no published source)."""
+def test_ranking_is_by_lowest_margin_with_flags_breaking_ties_then_names():
+    """Behavioural contract (the rule the report states, `RANKING_RULE`): the highest lowest margin
+    (CHF / design heat flux: larger is further from burnout) first, whatever else is flagged, so a
+    predicted burnout never ranks above a surface with margin; surfaces without a CHF prediction at
+    some point after all others; equal margins: fewer flagged rows, then by name. The rule is this
+    project's own (no published source)."""
     from wetboil.report import margin_ranking
 
     summary = pd.DataFrame({
-        "surface": ["flagged", "flagged", "q", "q", "p", "p", "gap", "gap", "none", "none", "bad", "bad"],
-        "chf_margin [-]": [3.0, 4.0, 2.0, 2.5, 2.5, 2.0, np.nan, 5.0, np.nan, np.nan, 0.5, 0.9],
-        "flags": ["chf, chf_margin", "", "", "", "", "", "chf, chf_margin", "", "", "", "", ""],
+        "surface": ["flagged", "flagged", "q", "q", "p", "p", "tie", "tie", "gap", "gap", "none", "none", "bad", "bad"],
+        "chf_margin [-]": [3.0, 4.0, 2.0, 2.5, 2.5, 2.0, 2.0, 2.2, np.nan, 5.0, np.nan, np.nan, 0.5, 0.9],
+        "flags": ["departure_frequency", "", "", "", "", "", "chf, chf_margin", "", "chf, chf_margin", "", "", "",
+                  "", ""],
     })
     r = margin_ranking(summary)
-    assert list(r.index) == ["p", "q", "bad", "flagged", "gap", "none"]
+    assert list(r.index) == ["flagged", "p", "q", "tie", "bad", "gap", "none"]
     assert r.loc["flagged", "lowest_margin"] == 3.0 and r.loc["gap", "lowest_margin"] == 5.0
 
 

@@ -451,12 +451,12 @@ def _design_flagged(flags: str) -> bool:
 RANKING_RULE = (
     "Ranking rule: each surface is judged by its lowest CHF margin over all its operating points (the design "
     "method's CHF divided by the design heat flux; higher is better, below 1 the design heat flux is above the "
-    "predicted CHF). Surfaces come in three groups: first those with a CHF prediction at every point and no design "
-    "quantity flagged; then those predicted everywhere but with some design quantity computed outside its "
-    "correlation's published validity range (extrapolated); last those without a CHF prediction at some point "
-    "(their worst point is unknown; the margin shown is over the points that have one, and a surface with none "
-    "comes at the very end). Within a group: highest lowest margin first; equal margins: fewer flagged rows "
-    "first, then by name. A margin is a correlation estimate, not a safety factor: see the cautions."
+    "predicted CHF). Highest lowest margin first; surfaces without a CHF prediction at some point come after every "
+    "surface predicted everywhere (their worst point is unknown; the margin shown is over the points that have one, "
+    "and a surface with none comes at the very end). Equal margins: fewer rows with a design quantity outside its "
+    "correlation's published validity range (the flagged column) first, then by name. Read the flagged column with "
+    "the margin: a flagged CHF is an extrapolation. A margin is a correlation estimate, not a safety factor: see the "
+    "cautions."
 )
 
 
@@ -468,10 +468,9 @@ def margin_ranking(summary: Any) -> Any:
     design quantity carries a validity flag (``flagged``: the comparison-only
     ``chf_<method>`` columns do not count; the design method's flag is on
     ``chf``) and the points (``points``). Ranked best first by `RANKING_RULE`:
-    surfaces predicted everywhere without a flagged row, then those predicted
-    everywhere with flagged rows, then those without a prediction at some
-    point (their worst point is unknown); within each group by the lowest
-    margin, highest first (NaN last), ties by fewer flagged rows, then name."""
+    the lowest margin, highest first, with surfaces lacking a prediction at
+    some point after every surface predicted everywhere (their worst point is
+    unknown; NaN last); ties by fewer flagged rows, then name."""
     import pandas as pd
 
     g = summary.groupby("surface", sort=False)
@@ -481,9 +480,8 @@ def margin_ranking(summary: Any) -> Any:
         "flagged": g["flags"].apply(lambda s: int(s.fillna("").astype(str).map(_design_flagged).sum())),
         "points": g.size(),
     })
-    group = np.where(table["no_chf"] > 0, 2, np.where(table["flagged"] > 0, 1, 0))
-    order = table.assign(group=group, name=table.index.astype(str)).sort_values(
-        ["group", "lowest_margin", "flagged", "name"], ascending=[True, False, True, True], na_position="last")
+    order = table.assign(gap=table["no_chf"] > 0, name=table.index.astype(str)).sort_values(
+        ["gap", "lowest_margin", "flagged", "name"], ascending=[True, False, True, True], na_position="last")
     return table.loc[order.index]
 
 
