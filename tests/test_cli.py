@@ -392,4 +392,4 @@ def test_probe_surfaces_in_a_fluid_without_a_tabulated_split_need_the_fraction(t
     with pytest.raises(SpecError, match="dispersive_fraction must lie in 0-1"):
         load_spec(path)
     text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec.replace("[study]\n", "[study]\ndispersive_fraction = 0.8\n"))
-    assert "dispersive fraction of its surface tension (for probe-liquid surfaces): 0.8" in text
+    assert "dispersive fraction of its surface tension, for the angles predicted from probe liquids: 0.8 (given" in text

@@ -135,12 +135,24 @@ def test_probe_liquid_angles_split_the_working_fluid_by_its_own_kind():
     # Surfaces with the working fluid's own angles need no split.
     assert Surface("direct (invented)", 70, 80, 40).angles(r134a).static_deg == 70
     # The sweep passes the choice through, and refuses in the same way.
-    with pytest.raises(ValueError, match="no published dispersive/polar split"):
+    with pytest.raises(ValueError, match=r"sweep: surface 'fluoro coat \(invented\)' .*no published dispersive"
+                                         r"/polar split.*pass sweep\(..., dispersive_fraction=...\)"):
         wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5)
+    with pytest.raises(ValueError, match="screen: surface 'fluoro coat"):
+        wetboil.screen([s], "R134a", p=5e5, heat_flux=1e5)
     ds = wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5, dispersive_fraction=0.6)
-    assert float(ds["static_angle"].squeeze()) == got
+    assert float(ds["static_angle"].squeeze()) == got and ds.attrs["dispersive_fraction"] == 0.6
+    df = wetboil.screen([s], "R134a", p=5e5, heat_flux=1e5, dispersive_fraction=0.6)
+    assert df["static_angle [deg]"].iloc[0] == got
+    for wrong in (1.5, -0.1, True, "0.5"):
+        with pytest.raises(ValueError, match="dispersive_fraction must be a number in 0-1"):
+            wetboil.sweep([Surface("direct (invented)", 70, 80, 40)], "water", p=1e5, heat_flux=1e5,
+                          dispersive_fraction=wrong)
     ds = wetboil.sweep([s], "n-Pentane", T=280.0, heat_flux=1e5)
     assert float(ds["static_angle"].squeeze()) == pytest.approx(expected, abs=1e-9)
+    assert ds.attrs["dispersive_fraction"] == 1.0
+    assert "dispersive_fraction" not in wetboil.sweep([Surface("direct (invented)", 70, 80, 40)], "n-Pentane",
+                                                      T=280.0, heat_flux=1e5).attrs
 
 
 def test_rohsenow_exponent_follows_the_fluid_in_sweeps():

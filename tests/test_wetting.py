@@ -658,3 +658,18 @@ def test_cassie_baxter_on_a_hydrophilic_texture_is_flagged():
     with warnings.catch_warnings():
         warnings.simplefilter("error")
         cassie_baxter(110.0, 0.1)  # a superhydrophobic texture: inside the range
+
+
+def test_dispersive_fraction_knows_every_coolprop_alias_of_its_fluids():
+    # Names as CoolProp spells them (a reference library): every alias of a tabulated fluid
+    # resolves to the same fraction; Fowkes (1964): saturated hydrocarbons are dispersion-only.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    from wetboil.wetting import DISPERSIVE_FRACTIONS, dispersive_fraction
+
+    for name, (fraction, _) in DISPERSIVE_FRACTIONS.items():
+        for alias in CP.get_fluid_param_string(name, "aliases").split(",") + [name]:
+            assert dispersive_fraction(alias) == fraction, alias
+    assert dispersive_fraction("R290") == dispersive_fraction("R600a") == 1.0
+    assert dispersive_fraction("R718") == pytest.approx(21.8 / 72.8, rel=1e-15)  # Fowkes 1964
+    with pytest.raises(ValueError, match="R134a"):
+        dispersive_fraction("R134a")

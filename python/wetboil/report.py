@@ -572,8 +572,9 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         *([f"- fluid properties missing at every state (no model in CoolProp): {ds.attrs['fluid_fields_missing']}; "
            "every quantity that needs one is NaN. Give them in Python (wetboil.fluids.from_coolprop(...).replace(...)"
            ", then wetboil.sweep of that Saturation)"] if ds.attrs.get("fluid_fields_missing") else []),
-        *([f"- dispersive fraction of its surface tension (for probe-liquid surfaces): {study.dispersive_fraction:g}"]
-          if study.dispersive_fraction is not None else []),
+        *([f"- dispersive fraction of its surface tension, for the angles predicted from probe liquids: "
+           f"{ds.attrs['dispersive_fraction']:.4g} ({'given in the spec' if study.dispersive_fraction is not None else 'tabulated, wetboil.wetting.DISPERSIVE_FRACTIONS'})"]
+          if "dispersive_fraction" in ds.attrs else []),
         f"- {axis_name}: {', '.join(f'{v:g}' for v in study.states)}",
         f"- design heat fluxes [W/m2]: {', '.join(f'{v:g}' for v in study.heat_fluxes)}",
         f"- orientations [deg]: {', '.join(f'{v:g}' for v in study.orientations)}",

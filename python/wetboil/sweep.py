@@ -26,7 +26,7 @@ from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Seq
 
 import numpy as np
 
-from . import boiling, chf, departure, nucleation
+from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
 from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
 from .fluids import FIELDS, Saturation, from_coolprop, water
@@ -244,7 +244,13 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
     for s in surfaces:
         # the angle conversions (Wenzel, Cassie-Baxter, OWRK) are flagged like every other step
         with errstate(invalid="ignore", out_of_range="ignore"), capture_validity() as cap:
-            angles.append(s.angles(fluid, dispersive_fraction=dispersive_fraction))
+            try:
+                angles.append(s.angles(fluid, dispersive_fraction=dispersive_fraction))
+            except WetboilValueError as exc:
+                if "dispersive_fraction" not in str(exc):
+                    raise
+                raise WetboilValueError(f"sweep: surface {s.name!r} is described by probe-liquid angles, and "
+                                        f"{exc}: pass sweep(..., dispersive_fraction=...)") from None
         invalid.append(bool(np.any(cap.invalid)))
         out_of_range.append(bool(np.any(cap.out_of_range)))
 
@@ -564,6 +570,10 @@ def sweep(
     if not all(isinstance(s, Surface) for s in surfaces):
         raise WetboilTypeError("sweep: surfaces must be wetboil.Surface objects")
     meth = _methods(methods)
+    if dispersive_fraction is not None and (
+            isinstance(dispersive_fraction, bool) or not isinstance(dispersive_fraction, (int, float, np.integer, np.floating))
+            or not 0.0 <= float(dispersive_fraction) <= 1.0):
+        raise WetboilValueError(f"sweep: dispersive_fraction must be a number in 0-1, got {dispersive_fraction!r}")
     states, state_dim, state_invalid, state_out_of_range = _fluid_states(fluid, p, T, xr)
     problem = _method_fluid_problem(meth, states.name)
     if problem:
@@ -606,6 +616,9 @@ def sweep(
         result = _block(ds_in.compute(), meth, states.name)
     result = _decorate(result, meth, state_dim)
     result.attrs["fluid"] = states.name if states.name is not None else "(unnamed Saturation)"
+    if any(s.probe_static_deg is not None for s in surfaces):  # the split behind the predicted angles
+        result.attrs["dispersive_fraction"] = float(
+            dispersive_fraction if dispersive_fraction is not None else wetting.dispersive_fraction(states))
     missing = _missing_fields(states)
     if missing:
         result.attrs["fluid_fields_missing"] = ", ".join(missing)
@@ -754,11 +767,13 @@ def screen(
     *,
     p: Any = None,
     T: Any = None,
+    dispersive_fraction: Optional[float] = None,
 ) -> Any:
     """Rank surface treatments: one row per surface and operating point.
 
-    Takes the arguments of `sweep` (the operating points are the grid of the
-    given pressures or states, heat fluxes, orientations and subcoolings) and
+    Takes the arguments of `sweep` but its chunking ones (the operating
+    points are the grid of the given pressures or states, heat fluxes,
+    orientations and subcoolings; `dispersive_fraction` as there) and
     returns a `pandas.DataFrame` sorted by CHF margin, highest first (the
     best candidates first; ties by surface name). Column names carry units;
     ``flags`` names the quantities whose correlations left their published
@@ -778,7 +793,7 @@ def screen(
         raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
     try:
         ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
-                   subcooling=subcooling, methods=methods)
+                   subcooling=subcooling, methods=methods, dispersive_fraction=dispersive_fraction)
     except WetboilError as exc:
         # the same checks as sweep's, named after the function the user called
         if exc.args and isinstance(exc.args[0], str) and exc.args[0].startswith("sweep: "):

@@ -987,9 +987,15 @@ DISPERSIVE_FRACTIONS: Dict[str, Tuple[float, str]] = {
 
 # lower-case names without separators -> DISPERSIVE_FRACTIONS key (CoolProp's usual aliases included)
 _FRACTION_KEYS = {re.sub(r"[\s_\-]+", "", k.lower()): k for k in DISPERSIVE_FRACTIONS}
-_FRACTION_KEYS.update({"propane": "n-Propane", "butane": "n-Butane", "pentane": "n-Pentane", "hexane": "n-Hexane",
-                       "heptane": "n-Heptane", "octane": "n-Octane", "nonane": "n-Nonane", "decane": "n-Decane",
-                       "undecane": "n-Undecane", "dodecane": "n-Dodecane", "isobutane": "IsoButane"})
+# CoolProp's aliases of these fluids (CoolProp.get_fluid_param_string(name, "aliases"), CoolProp 8)
+_FRACTION_KEYS.update({re.sub(r"[\s_\-]+", "", alias.lower()): key for key, aliases in {
+    "Methane": "CH4 R50 n-C1H4", "Ethane": "R170 n-C2H6", "n-Propane": "Propane R290 C3H8 NC3H8 n-C3H8",
+    "n-Butane": "Butane R600 NC4H10 n-C4H10", "IsoButane": "R600a ISOBUTAN", "n-Pentane": "Pentane R601 NC5H12 n-C5H12",
+    "Isopentane": "ipentane R601a", "Neopentane": "neopentn", "n-Hexane": "Hexane NC6H14 n-C6H14", "Isohexane": "ihexane",
+    "n-Heptane": "Heptane NC7H16 n-C7H16", "n-Octane": "Octane NC8H18 n-C8H18", "n-Nonane": "Nonane NC9H20 n-C9H20",
+    "n-Decane": "Decane NC10H22 n-C10H22", "n-Undecane": "Undecane C11 NC11H24 n-C11H24",
+    "n-Dodecane": "Dodecane C12 NC12H26 n-C12H26", "Cyclopentane": "CYCLOPEN", "CycloHexane": "CYCLOHEX",
+}.items() for alias in aliases.split()})
 
 
 def dispersive_fraction(fluid: Any) -> float:
