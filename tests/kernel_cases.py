@@ -220,8 +220,9 @@ def fluid_params(spec: Any) -> set:
 
 def fix(spec: Any, args: Dict[str, Any]) -> Dict[str, Any]:
     """Make drawn arguments obey the orderings a kernel needs (receding <=
-    advancing); works on scalars and arrays alike."""
-    for adv, rec in (("advancing_angle_deg", "receding_angle_deg"), ("advancing_deg", "receding_deg")):
+    advancing, receding <= static); works on scalars and arrays alike."""
+    for adv, rec in (("advancing_angle_deg", "receding_angle_deg"), ("advancing_deg", "receding_deg"),
+                     ("contact_angle_deg", "receding_angle_deg")):
         if adv in args and rec in args:
             a, r = args[adv], args[rec]
             args[adv], args[rec] = np.maximum(a, r), np.minimum(a, r)

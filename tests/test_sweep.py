@@ -171,6 +171,13 @@ def test_rohsenow_exponent_follows_the_fluid_in_sweeps():
     ds = wetboil.sweep(surfaces[:1], "water", p=1e5, heat_flux=1e5)
     assert float(ds["nucleate_superheat"].squeeze()) == pytest.approx(
         rohsenow_superheat(1e5, water(p=1e5), 0.013, 1.0), rel=1e-14)
+    # n without C_sf (as every file saved before n became optional carries, n = 1.0): not a fitted
+    # pair, so not used, with a warning at construction; the fluid's exponent applies
+    with pytest.warns(wetboil.WetboilWarning, match="n = 1 is given without C_sf"):
+        old_file = Surface("old file (invented)", 60, 70, 40, n=1.0)
+    ds = wetboil.sweep([old_file], "R134a", p=5e5, heat_flux=1e5, methods={"nucleate": "rohsenow"})
+    assert float(ds["nucleate_superheat"].squeeze()) == pytest.approx(
+        rohsenow_superheat(1e5, r134a, 0.013, 1.7), rel=1e-14)
     # an unnamed state: 1.7, with a warning naming the choice
     with pytest.warns(wetboil.WetboilWarning, match="sweep: the fluid state has no name"):
         ds = wetboil.sweep(surfaces[:1], r134a.replace(name=None), heat_flux=1e5)
@@ -456,7 +463,7 @@ fluid = "water"
 [[surface]]
 name = "one"
 static_deg = 30.0
-n = 1.0
+C_sf = 0.013
 receding_deg = 20.0
 
 [[surface]]
@@ -472,14 +479,14 @@ name = "three"
 
 @pytest.mark.parametrize("two, three, line, message", [
     ("n = 0.0", "static_deg = 50.0", 15, r"surface 'two': n = 0 is outside"),
-    ("n = 1.0", "static_deg = 50.0\nn = -1.0", 20, r"surface 'three': n = -1 is outside"),
-    ("n = 1.0", "static_deg = 50.0\nC_sf = 0.01\ntitle = 3.0", 21, r"unknown key 'title' in surface 'three'"),
+    ("C_sf = 0.013", "static_deg = 50.0\nn = -1.0", 20, r"surface 'three': n = -1 is outside"),
+    ("C_sf = 0.013", "static_deg = 50.0\nC_sf = 0.01\ntitle = 3.0", 21, r"unknown key 'title' in surface 'three'"),
     ('fluid = "R134a"', "static_deg = 50.0", 15, r"unknown key 'fluid' in surface 'two'"),
-    ("n = 1.0", "static_deg = 50.0\nreceding_deg = 60.0", 20, r"surface 'three': receding angle 60 deg is above"),
-    ("n = 1.0", 'probe_static_deg = { water = 80.0, diiodomethane = 45.0 }\n[surface.probe_receding_deg]\n'
+    ("C_sf = 0.013", "static_deg = 50.0\nreceding_deg = 60.0", 20, r"surface 'three': receding angle 60 deg is above"),
+    ("C_sf = 0.013", 'probe_static_deg = { water = 80.0, diiodomethane = 45.0 }\n[surface.probe_receding_deg]\n'
                 'water = 60.0\n"diiodomethane" = 200.0', 22,
      r"surface 'three': probe_receding_deg.diiodomethane = 200 is outside"),
-    ("n = 1.0", "probe_static_deg.water = 80.0\nprobe_static_deg.diodomethane = 45.0", 20,
+    ("C_sf = 0.013", "probe_static_deg.water = 80.0\nprobe_static_deg.diodomethane = 45.0", 20,
      r"surface 'three': probe_static_deg: unknown probe liquid 'diodomethane'; known liquids: diiodomethane, "),
 ])
 def test_toml_errors_point_at_the_key_in_its_own_surface(tmp_path, two, three, line, message):

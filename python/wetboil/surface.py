@@ -7,12 +7,13 @@ import csv
 import math
 import pathlib
 import re
+import warnings
 from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Tuple, Union
 
 import numpy as np
 
-from ._errors import WetboilTypeError, WetboilValueError, one_warning_per_category
-from .fluids import Saturation
+from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, one_warning_per_category
+from .fluids import Saturation, _is_water
 
 try:  # Python >= 3.11
     import tomllib as _toml
@@ -87,10 +88,12 @@ class Surface:
         Cooper's surface roughness parameter [m] (default 1 um, Cooper's
         value when unknown).
     C_sf, n : float, optional
-        Rohsenow's surface-liquid constant and Prandtl exponent, where known
-        (give the n that C_sf was fitted with). Without n, the working
-        fluid's decides (`wetboil.boiling.rohsenow_exponent`: 1.0 for water,
-        1.7 for other liquids).
+        Rohsenow's surface-liquid constant and Prandtl exponent, where known:
+        a fitted pair (give the n that C_sf was fitted with). Without n, the
+        working fluid's decides (`wetboil.boiling.rohsenow_exponent`: 1.0 for
+        water, 1.7 for other liquids). An n without C_sf is not used (a
+        `WetboilWarning` says so): files written before n became optional
+        carry n = 1.0 for every surface.
     cavity_radius : float, optional
         Typical cavity mouth radius [m], where known.
     cavity_half_angle_deg : float, optional
@@ -147,6 +150,10 @@ class Surface:
         self.probe_receding_deg = self._probe("probe_receding_deg", probe_receding_deg)
         if not isinstance(notes, str):
             raise WetboilTypeError(f"surface {self.name!r}: notes must be a string")
+        if self.n is not None and self.C_sf is None:
+            warnings.warn(f"surface {self.name!r}: n = {self.n:g} is given without C_sf; Rohsenow's constants are a "
+                          "fitted pair, so n is used only with the surface's own C_sf (without one, the fluid's "
+                          "exponent: 1.0 water, 1.7 other liquids)", WetboilWarning, stacklevel=_stacklevel())
         self.notes = notes
         self._validate()
 
@@ -306,11 +313,11 @@ class Surface:
 
 def _tabulated_split(fluid: Saturation) -> "tuple[float, float]":
     """Dispersive and polar fractions of a fluid's surface tension from the
-    table (water as the probe table splits it, bit for bit)."""
+    table (water's as the probe table splits it, bit for bit)."""
     from . import wetting
 
-    fd = wetting.dispersive_fraction(fluid)
-    if fd == wetting.DISPERSIVE_FRACTIONS["Water"][0]:
+    fd = wetting.dispersive_fraction(fluid)  # raises for a fluid without a tabulated split
+    if _is_water(fluid.name):
         w = wetting.PROBE_LIQUIDS["default"]["water"]
         return w.dispersive / w.total, w.polar / w.total
     return fd, 1.0 - fd

@@ -271,11 +271,14 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
     table["angle_out_of_range"] = xr.DataArray(np.asarray(out_of_range, dtype=float), dims="surface", coords=coord)
     # Rohsenow's exponent of a surface that gives none: by fluid (warned once for an unnamed state,
     # where Rohsenow's nucleate superheat will use it)
-    rohsenow_default = any(s.n is None and (nucleate == "rohsenow" or (nucleate == "auto" and s.C_sf is not None))
-                           for s in surfaces)
+    # (C_sf, n) are a fitted pair: a surface's n is used with its own C_sf only (see Surface)
+    fitted_n = [s.n if s.C_sf is not None else None for s in surfaces]
+    rohsenow_default = any(n is None and (nucleate == "rohsenow" or (nucleate == "auto" and s.C_sf is not None))
+                           for s, n in zip(surfaces, fitted_n))
     n_default = boiling._default_exponent(fluid, "sweep") if rohsenow_default else boiling.rohsenow_exponent(fluid)
-    for key, default in (("C_sf", math.nan), ("n", n_default), ("Rp", 1e-6)):
-        vals = [getattr(s, key) if getattr(s, key) is not None else default for s in surfaces]
+    for key, given, default in (("C_sf", [s.C_sf for s in surfaces], math.nan), ("n", fitted_n, n_default),
+                                ("Rp", [s.Rp for s in surfaces], 1e-6)):
+        vals = [v if v is not None else default for v in given]
         table[key] = xr.DataArray(np.asarray(vals, dtype=float), dims="surface", coords=coord)
     return table
 
