@@ -117,21 +117,37 @@ def test_rohsenow_exponent_by_fluid():
     q = 1e5
     by_hand = (0.013 * h_lv * pr**1.7 / props["cp"]
                * (q / (props["mu"] * h_lv) * math.sqrt(props["s"] / (9.80665 * (props["rho_l"] - props["rho_v"])))) ** (1 / 3))
-    assert rohsenow_superheat(q, r134a) == pytest.approx(by_hand, rel=1e-9)
-    assert rohsenow_superheat(np.array([q, q]), r134a) == pytest.approx([by_hand] * 2, rel=1e-9)
-    assert rohsenow_superheat(q, r134a, n=1.0) < 0.5 * by_hand  # water's exponent: a wrong answer by 2x or more
-    assert rohsenow(by_hand, r134a) == pytest.approx(q, rel=1e-9)
+    C = 0.013  # given, so that only n is left to the default here
+    assert rohsenow_superheat(q, r134a, C) == pytest.approx(by_hand, rel=1e-9)
+    assert rohsenow_superheat(np.array([q, q]), r134a, C) == pytest.approx([by_hand] * 2, rel=1e-9)
+    assert rohsenow_superheat(q, r134a, C, n=1.0) < 0.5 * by_hand  # water's exponent: a wrong answer by 2x or more
+    assert rohsenow(by_hand, r134a, C) == pytest.approx(q, rel=1e-9)
     # validity() fills the default the same way (it raised on n=None)
-    assert wetboil.validity(rohsenow_superheat, q, r134a) == wetboil.validity(rohsenow_superheat, q, r134a, n=1.7)
+    assert wetboil.validity(rohsenow_superheat, q, r134a, C) == wetboil.validity(rohsenow_superheat, q, r134a, C, 1.7)
     # An unnamed state gets 1.7 with a warning that says so, naming the function called.
     unnamed = INCROPERA.replace(name=None)
     with pytest.warns(wetboil.WetboilWarning, match="boiling.rohsenow: the fluid state has no name, so Rohsenow's n = 1.7"):
-        assert rohsenow(18.0, unnamed) == rohsenow(18.0, INCROPERA, n=1.7)
+        assert rohsenow(18.0, unnamed, 0.013) == rohsenow(18.0, INCROPERA, n=1.7)
     with pytest.warns(wetboil.WetboilWarning, match="boiling.rohsenow_superheat: the fluid state has no name"):
-        rohsenow_superheat(1e5, unnamed)
+        rohsenow_superheat(1e5, unnamed, 0.013)
     with warnings.catch_warnings():
         warnings.simplefilter("error")
-        rohsenow(18.0, unnamed, n=1.0)  # n given: nothing to warn about
+        rohsenow(18.0, unnamed, 0.013, n=1.0)  # C_sf and n given: nothing to warn about
+
+
+def test_rohsenow_default_constant_is_water_on_copper_and_says_so_for_other_fluids():
+    # 0.013: water on polished copper (SURFACE_CONSTANTS, transcribed from published tables).
+    assert rohsenow(5.0, INCROPERA) == rohsenow(5.0, INCROPERA, C_sf=0.013, n=1.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        rohsenow(5.0, INCROPERA)  # water: the default is a published pair, no warning
+    ethanol = INCROPERA.replace(name="Ethanol")
+    with pytest.warns(wetboil.WetboilWarning, match=r"rohsenow_superheat: no C_sf given, so 0.013 \(water on polished"):
+        v = rohsenow_superheat(1e5, ethanol)
+    assert v == rohsenow_superheat(1e5, ethanol, C_sf=0.013, n=1.7)
+    with pytest.warns(wetboil.WetboilWarning, match="boiling.curve: no C_sf given"):
+        curve(ethanol.replace(cp_v=2000.0, k_v=0.02, mu_v=1e-5), [5.0, 10.0], receding_angle_deg=30.0,
+              natural_convection_coefficient=1000.0)
 
 
 def test_surface_constant_table():

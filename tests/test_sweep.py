@@ -175,7 +175,8 @@ def test_rohsenow_exponent_follows_the_fluid_in_sweeps():
     # pair, so not used, with a warning at construction; the fluid's exponent applies
     with pytest.warns(wetboil.WetboilWarning, match="n = 1 is given without C_sf"):
         old_file = Surface("old file (invented)", 60, 70, 40, n=1.0)
-    ds = wetboil.sweep([old_file], "R134a", p=5e5, heat_flux=1e5, methods={"nucleate": "rohsenow"})
+    with pytest.warns(wetboil.WetboilWarning, match="sweep: no C_sf given, so 0.013 .* for 'R134a'"):
+        ds = wetboil.sweep([old_file], "R134a", p=5e5, heat_flux=1e5, methods={"nucleate": "rohsenow"})
     assert float(ds["nucleate_superheat"].squeeze()) == pytest.approx(
         rohsenow_superheat(1e5, r134a, 0.013, 1.7), rel=1e-14)
     # an unnamed state: 1.7, with a warning naming the choice

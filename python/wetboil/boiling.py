@@ -131,20 +131,39 @@ def _default_exponent(fluid: Saturation, function: str) -> float:
     return rohsenow_exponent(fluid)
 
 
+#: Rohsenow's C_sf where none is given: water on polished copper (`SURFACE_CONSTANTS`).
+ROHSENOW_C_SF_DEFAULT = 0.013
+
+
+def _default_constant(fluid: Saturation, function: str) -> float:
+    """`ROHSENOW_C_SF_DEFAULT`, with a warning when the fluid is not water
+    (the constant belongs to a surface-liquid pair)."""
+    if not _is_water(fluid.name):
+        warnings.warn(
+            f"{function}: no C_sf given, so 0.013 (water on polished copper) was used for "
+            f"{fluid.name or 'an unnamed fluid'!r}; Rohsenow's C_sf belongs to the surface-liquid pair and the "
+            "superheat is proportional to it: give the constant of your pair (see boiling.SURFACE_CONSTANTS)",
+            WetboilWarning, stacklevel=_stacklevel(),
+        )
+    return ROHSENOW_C_SF_DEFAULT
+
+
 def _rohsenow_fill(function: str) -> Callable[[Tuple[Any, ...]], Tuple[Any, ...]]:
-    """Rohsenow's exponent by fluid where a call of `function` leaves ``n`` out."""
+    """Rohsenow's constant and exponent by fluid where a call of `function`
+    leaves ``C_sf`` or ``n`` out."""
 
     def fill(args: Tuple[Any, ...]) -> Tuple[Any, ...]:
         x, fluid, C_sf, n, g = args
-        if n is not None or not isinstance(fluid, Saturation):
+        if (C_sf is not None and n is not None) or not isinstance(fluid, Saturation):
             return args  # nothing to fill (a wrong fluid type is reported by the call itself)
-        return x, fluid, C_sf, _default_exponent(fluid, function), g
+        return (x, fluid, _default_constant(fluid, function) if C_sf is None else C_sf,
+                _default_exponent(fluid, function) if n is None else n, g)
 
     return fill
 
 
 @kernel("rohsenow_heat_flux", fill=_rohsenow_fill("boiling.rohsenow"))
-def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
+def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = None, n: Any = None, g: Any = G) -> Any:
     r"""Rohsenow (1952) nucleate pool-boiling heat flux [W/m2].
 
     .. math::
@@ -160,7 +179,8 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
         ``cp_l``, ``k_l``, ``mu_l`` (properties of the saturated liquid).
     C_sf : array_like, optional
         Surface-liquid constant [-]; see `SURFACE_CONSTANTS` and
-        `surface_constant`. Default 0.013 (water on polished copper).
+        `surface_constant`. Default 0.013 (water on polished copper), with
+        a `WetboilWarning` when the fluid is not water.
     n : array_like, optional
         Prandtl exponent [-]. Default: `rohsenow_exponent` of the fluid,
         1.0 for water and 1.7 for other liquids (an unnamed state gets 1.7
@@ -206,7 +226,7 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any =
 
 
 @kernel("rohsenow_superheat", fill=_rohsenow_fill("boiling.rohsenow_superheat"))
-def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = 0.013, n: Any = None, g: Any = G) -> Any:
+def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = None, n: Any = None, g: Any = G) -> Any:
     r"""Wall superheat at a nucleate-boiling heat flux, Rohsenow (1952) [K];
     the inverse of `rohsenow`.
 
@@ -960,7 +980,7 @@ def curve(
     contact_angle_deg: Optional[float] = None,
     orientation_deg: float = 0.0,
     nucleate: str = "rohsenow",
-    C_sf: float = 0.013,
+    C_sf: Optional[float] = None,
     n: Optional[float] = None,
     roughness_Rp: float = 1e-6,
     chf: Optional[str] = None,
@@ -1026,7 +1046,8 @@ def curve(
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
-        Rohsenow constants (see `surface_constant`); n by default from
+        Rohsenow constants (see `surface_constant`); by default C_sf 0.013
+        (water on polished copper; a warning for other fluids) and n from
         `rohsenow_exponent` (1.0 water, 1.7 other liquids).
     roughness_Rp : float, optional
         Cooper's R_p [m].
@@ -1150,7 +1171,9 @@ def curve(
     # -- nucleate branch and its inverse
     if nucleate == "rohsenow":
         _require(fluid, ("cp_l", "k_l", "mu_l"), "the Rohsenow branch")
-        if n is None:  # chosen (and an unnamed state warned about) once, not at every call below
+        if C_sf is None:  # chosen (and warned about) once, not at every call below
+            C_sf = _default_constant(fluid, fn)
+        if n is None:
             n = _default_exponent(fluid, fn)
 
         def q_nb(x: Any) -> Any:

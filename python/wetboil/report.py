@@ -322,7 +322,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             try:
                 c = boiling.curve(state, superheat, receding_angle_deg=rec, contact_angle_deg=sta,
                                   orientation_deg=phi0, nucleate="rohsenow" if s.C_sf else "cooper",
-                                  C_sf=s.C_sf or 0.013, n=s.n if s.C_sf else None, roughness_Rp=s.Rp or 1e-6,
+                                  C_sf=s.C_sf, n=s.n if s.C_sf else None, roughness_Rp=s.Rp or 1e-6,
                                   natural_convection_coefficient=1000.0, design_heat_flux=design)
             except WetboilValueError as exc:  # a fluid without some property (CoolProp has no model for it)
                 c, why = None, str(exc).replace("boiling.curve: ", "")

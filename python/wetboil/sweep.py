@@ -80,9 +80,6 @@ STATE_FLAG = "fluid_state"
 # every axis a sweep can have, in the order of its outputs (the state axis is one of "p", "T", "state")
 _AXES = ("surface", "p", "T", "state", "heat_flux", "orientation", "subcooling")
 
-#: C_sf for "nucleate": "rohsenow" on a surface that gives none: the default of
-#: `wetboil.boiling.rohsenow_superheat` (water on polished copper).
-_C_SF_DEFAULT = 0.013
 
 
 def _methods(methods: Optional[Mapping[str, Any]]) -> Dict[str, Any]:
@@ -276,6 +273,8 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
     rohsenow_default = any(n is None and (nucleate == "rohsenow" or (nucleate == "auto" and s.C_sf is not None))
                            for s, n in zip(surfaces, fitted_n))
     n_default = boiling._default_exponent(fluid, "sweep") if rohsenow_default else boiling.rohsenow_exponent(fluid)
+    if nucleate == "rohsenow" and any(s.C_sf is None for s in surfaces):
+        boiling._default_constant(fluid, "sweep")  # warns when the fluid is not water
     for key, given, default in (("C_sf", [s.C_sf for s in surfaces], math.nan), ("n", fitted_n, n_default),
                                 ("Rp", [s.Rp for s in surfaces], 1e-6)):
         vals = [v if v is not None else default for v in given]
@@ -351,7 +350,8 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
             if m == "cooper":
                 value = boiling.cooper_superheat(q, fluid, inputs["Rp"])
             else:
-                value = boiling.rohsenow_superheat(q, fluid, np.where(by_cooper, _C_SF_DEFAULT, c_sf), inputs["n"])
+                value = boiling.rohsenow_superheat(q, fluid, np.where(by_cooper, boiling.ROHSENOW_C_SF_DEFAULT, c_sf),
+                                                   inputs["n"])
         nucleate[m] = (value, cap)
     if len(used) == 2:
         (vc, cc), (vr, cr) = nucleate["cooper"], nucleate["rohsenow"]
@@ -494,7 +494,7 @@ def sweep(
         has a C_sf and Cooper elsewhere (each point carries the flags of the
         method it used); with "rohsenow", a surface without a C_sf takes
         0.013 (`wetboil.boiling.rohsenow_superheat`'s default, water on
-        polished copper). Onset uses the static angle, or the
+        polished copper; a warning when the fluid is not water). Onset uses the static angle, or the
         receding angle for "kandlikar"; departure uses the static angle; CHF
         (Kandlikar) the receding angle. Onset "bergles_rohsenow" is a fit of
         the onset superheat for water with no nucleus: ``onset_cavity_radius``
