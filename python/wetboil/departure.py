@@ -16,12 +16,13 @@ here. The catalogue `wetboil.models()` carries the same facts per kernel.
 from __future__ import annotations
 
 import math
+import warnings
 from typing import Any, Dict, NamedTuple, Sequence, Tuple
 
 import numpy as np
 
 from ._api import check_choice, kernel
-from ._errors import WetboilTypeError, WetboilValueError, each_method
+from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, each_method
 from .fluids import Saturation, _is_water
 
 __all__ = [
@@ -168,7 +169,8 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
     C : array_like, optional
         The constant [-]. By default 1.5e-4 when ``fluid.name`` names water
         ("water", "H2O" or "R718", any case: `wetboil.fluids.WATER_NAMES`)
-        and 4.65e-4 otherwise (also for an unnamed state).
+        and 4.65e-4 otherwise (also for an unnamed state, with a
+        `WetboilWarning`: 3.1 times water's diameter).
 
     Returns
     -------
@@ -205,6 +207,10 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
                 f"departure.cole_rohsenow: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}"
             )
         C = COLE_ROHSENOW_WATER if _is_water(fluid.name) else COLE_ROHSENOW_OTHER
+        if fluid.name is None:
+            warnings.warn("departure.cole_rohsenow: the fluid state has no name, so C = 4.65e-4 (the constant for "
+                          "liquids other than water) was used; pass C=1.5e-4 for water, or name the state "
+                          "(Saturation(..., name=...))", WetboilWarning, stacklevel=_stacklevel())
     return _cole_rohsenow_kernel(fluid, C, g)
 
 
