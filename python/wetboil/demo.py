@@ -42,8 +42,8 @@ def print_ranking(out: pathlib.Path, title: str) -> None:
     print(f"{'surface':<42} {'rows flagged':>13}  lowest CHF margin")
     for name, r in ranking.iterrows():
         print(f"{name:<42} {int(r['flagged']):>6} / {int(r['points']):<4}  {margin_text(r)}")
-    print("\nOrder: predicted everywhere without flagged rows, then with flagged rows, then surfaces without a CHF\n"
-          "prediction at some point; within each, highest lowest margin first (the report states the full rule).")
+    print("\nOrder: highest lowest margin first; surfaces without a CHF prediction at some point last; equal\n"
+          "margins by fewer flagged rows (the report states the full rule).")
     print("\nFlagged rows computed a design quantity with a correlation outside its published validity range;\n"
           "the report lists every flag, also those of the CHF methods kept for comparison.")
     print(f"\n{CAUTION}")
