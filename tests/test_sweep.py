@@ -242,13 +242,32 @@ def test_nucleate_superheat_below_the_onset_superheat_is_flagged():
     # wall is not boiling yet by the onset model and the nucleate value is outside its domain.
     s = Surface("m (invented)", 60, 70, 40)
     w = water(p=1e3)
-    onset, dtw = onset_superheat(1e5, w, 60.0, method="hsu"), cooper_superheat(1e5, w, 1e-6)
+    with pytest.warns(wetboil.RangeWarning, match="cooper_superheat"):  # p_r = 4.5e-5: below Cooper's range too
+        onset, dtw = onset_superheat(1e5, w, 60.0, method="hsu"), cooper_superheat(1e5, w, 1e-6)
     assert onset > dtw
     ds = wetboil.sweep([s], "water", p=[1e3, 1e5], heat_flux=1e5)
     bit = ds["range_flags"].attrs["bits"].split(",").index("nucleate_superheat")
     flagged = ((ds["range_flags"] >> bit) & 1).squeeze()
     assert list(flagged.values) == [1, 0]  # 1 kPa flagged, 1 bar (onset 5.4 K < 10.5 K) not
     assert float(ds["nucleate_superheat"].sel(p=1e3).squeeze()) == pytest.approx(dtw, rel=1e-14)
+
+
+def test_a_property_missing_at_some_states_is_flagged_and_warned():
+    # CoolProp (the reference library) has no ammonia surface tension at 0.999 p_crit but has one at
+    # 1 bar: the near-critical point's NaN results carry the fluid_state flag, and the fluid layer
+    # says which property is missing where.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    p_hi = 0.999 * CP.PropsSI("pcrit", "Ammonia")
+    try:
+        CP.PropsSI("I", "P", p_hi, "Q", 0, "Ammonia")
+        pytest.skip("this CoolProp gives ammonia's surface tension at 0.999 p_crit")
+    except ValueError:
+        pass
+    with pytest.warns(wetboil.WetboilWarning, match="CoolProp gave no sigma at 1 of 2 saturated state"):
+        df = wetboil.screen(SURFACES[:1], "Ammonia", heat_flux=1e5, p=[1e5, p_hi])
+    near = df[df["p [Pa]"] == p_hi].iloc[0]
+    assert math.isnan(near["chf [W/m2]"]) and "fluid_state" in near["flags"]
+    assert "fluid_state" not in df[df["p [Pa]"] == 1e5].iloc[0]["flags"]
 
 
 def test_bad_input_is_named():

@@ -607,6 +607,15 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
             warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(absent)} for {name!r}: NaN in "
                           f"those fields, and in every result that needs them (set them with .replace())",
                           WetboilWarning, stacklevel=_stacklevel())
+        # a model that fails at some states only (surface tension close to the critical point, say)
+        gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12] if f not in absent}
+        gaps = {f: k for f, k in gaps.items() if k}
+        if gaps:
+            n_state = int(have_state.sum())
+            warnings.warn(f"fluids.from_coolprop: CoolProp gave no "
+                          f"{', '.join(f'{f} at {k} of {n_state}' for f, k in gaps.items())} saturated state(s) of "
+                          f"{name!r}: NaN there, and in every result that needs them", WetboilWarning,
+                          stacklevel=_stacklevel())
     fields: dict = {}
     for f in FIELDS[:12]:
         v = out[f]

@@ -221,7 +221,15 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
     no_state = np.isnan(np.broadcast_to(np.asarray(getattr(states.rho_l, "values", states.rho_l)), given.shape))
     invalid = np.logical_or(np.broadcast_to(cap.invalid, given.shape), no_state & given)
-    out_of_range = np.broadcast_to(cap.out_of_range, given.shape)
+    # a state with a field the property library could not give there (but gives elsewhere: a model that
+    # fails near the critical point) is flagged with the state, or its NaN results would go unexplained
+    gaps = np.zeros(given.shape, bool)
+    for f in FIELDS[:12]:
+        nan = np.isnan(np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)),
+                                                  dtype=float), given.shape)) & ~no_state
+        if nan.any() and not nan[~no_state].all():
+            gaps |= nan
+    out_of_range = np.logical_or(np.broadcast_to(cap.out_of_range, given.shape), gaps)
     if invalid.any():  # a unit slip (kPa, bar, MPa given as Pa; degC as K) is the usual cause: say so
         problem = _states_outside_range(fluid, dim, axis.values)
         if problem and "they look like" in problem:
@@ -541,7 +549,9 @@ def sweep(
         ``fluid_state`` (``wetboil.sweep.STATE_FLAG``), is the operating
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
-        water above 0.997 T_crit). Flagged points give no warnings (the masks
+        water above 0.997 T_crit; also a state where CoolProp gives no value
+        of a property it gives at the other states, as surface tension near
+        the critical point). Flagged points give no warnings (the masks
         record them), except the fluid layer's one warning per call for
         states that are impossible or outside its range; under ``wetboil.errstate(invalid="raise")`` or
         ``(out_of_range="raise")`` a computed sweep with points of that kind
