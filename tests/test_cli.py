@@ -393,3 +393,19 @@ def test_probe_surfaces_in_a_fluid_without_a_tabulated_split_need_the_fraction(t
         load_spec(path)
     text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec.replace("[study]\n", "[study]\ndispersive_fraction = 0.8\n"))
     assert "dispersive fraction of its surface tension, for the angles predicted from probe liquids: 0.8 (given" in text
+
+
+def test_report_names_each_surfaces_nucleate_correlation_and_the_subcooling_caveat(tmp_path, monkeypatch):
+    """Behavioural contract: the report says which nucleate correlation each surface used with its
+    constants (Rohsenow 1952 with C_sf and n, 1.7 for liquids other than water; Cooper 1984 with
+    R_p), cites both under nucleate 'auto', and says subcooled rows carry saturated values."""
+    spec = ('[study]\nfluid = "water"\npressures_Pa = [1e5]\nheat_fluxes_W_m2 = [3e5]\nsubcoolings_K = [0.0, 10.0]\n'
+            '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\nC_sf = 0.0068\nn = 1.0\n'
+            '[[surface]]\nname = "b (invented)"\nstatic_deg = 30.0\nC_sf = 0.006\n'
+            '[[surface]]\nname = "c (invented)"\nstatic_deg = 30.0\nRp = 2e-6\n')
+    text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec)
+    assert "| Rohsenow, C_sf 0.0068, n 1 |" in text
+    assert "| Rohsenow, C_sf 0.006, n 1 (the fluid's) |" in text
+    assert "| Cooper, R_p 2 um |" in text
+    assert "nucleate: auto (cooper)** -- M.G. Cooper" in text and "nucleate: auto (rohsenow)** -- W.M. Rohsenow" in text
+    assert "subcooled rows carry the saturated values" in text

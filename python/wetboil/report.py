@@ -439,6 +439,7 @@ _METHOD_KERNELS = {
     ("departure", "fritz"): "fritz_departure", ("departure", "cole_rohsenow"): "cole_rohsenow_departure",
     ("departure", "kocamustafaogullari_ishii"): "kocamustafaogullari_ishii_departure",
     ("chf", "kandlikar"): "kandlikar_chf", ("chf", "zuber"): "zuber_chf", ("chf", "lienhard_dhir_flat"): "zuber_chf",
+    ("nucleate", "rohsenow"): "rohsenow_superheat", ("nucleate", "cooper"): "cooper_superheat",
 }
 
 
@@ -505,7 +506,11 @@ def _references(study: Study) -> List[str]:
     refs = []
     for key, value in study.methods.items():
         for v in (value if isinstance(value, tuple) else (value,)):
-            if v == "auto":
+            if v == "auto":  # both, where surfaces use them
+                uses = {"cooper" if s.C_sf is None else "rohsenow" for s in study.surfaces}
+                for u in sorted(uses):
+                    m = by_name[f"{u}_superheat"]
+                    refs.append(f"- **{key}: auto ({u})** -- {m.reference}" + (f", doi:{m.doi}" if m.doi else ""))
                 continue
             m = by_name.get(_METHOD_KERNELS.get((key, v), ""))
             if m is None:
@@ -515,6 +520,21 @@ def _references(study: Study) -> List[str]:
     refs.append("- **properties** -- " + (by_name["water_saturation_p"].reference if study.fluid.lower() == "water"
                                           else "CoolProp (Bell et al., Ind. Eng. Chem. Res. 53 (2014) 2498-2508)"))
     return refs
+
+
+def _nucleate_cell(study: Study, s: Surface) -> str:
+    """Which nucleate-boiling correlation the sweep used for surface `s`, with its constants."""
+    from .boiling import ROHSENOW_C_SF_DEFAULT, ROHSENOW_N_OTHER, ROHSENOW_N_WATER
+    from .fluids import _is_water
+
+    method = study.methods["nucleate"]
+    if method == "cooper" or (method == "auto" and s.C_sf is None):
+        return f"Cooper, R_p {(s.Rp if s.Rp is not None else 1e-6) * 1e6:g} um"
+    c_sf = f"C_sf {s.C_sf:g}" if s.C_sf is not None else f"C_sf {ROHSENOW_C_SF_DEFAULT:g} (water on polished copper)"
+    if s.C_sf is not None and s.n is not None:
+        return f"Rohsenow, {c_sf}, n {s.n:g}"
+    n = ROHSENOW_N_WATER if _is_water(study.fluid) else ROHSENOW_N_OTHER
+    return f"Rohsenow, {c_sf}, n {n:g} (the fluid's)"
 
 
 def _state_label(study: Study, value: float) -> str:
@@ -578,22 +598,27 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         f"- {axis_name}: {', '.join(f'{v:g}' for v in study.states)}",
         f"- design heat fluxes [W/m2]: {', '.join(f'{v:g}' for v in study.heat_fluxes)}",
         f"- orientations [deg]: {', '.join(f'{v:g}' for v in study.orientations)}",
-        f"- subcoolings [K]: {', '.join(f'{v:g}' for v in study.subcoolings)}",
+        f"- subcoolings [K]: {', '.join(f'{v:g}' for v in study.subcoolings)}"
+        + ("" if not any(v > 0 for v in study.subcoolings) else
+           " (the onset, nucleate and CHF correlations here are for saturated pool boiling: subcooled rows carry "
+           "the saturated values, no subcooling correction; subcooling raises the CHF, so the margins shown are "
+           "the saturated, conservative ones)"),
         f"- grid points: {n}",
         "",
         "### Surfaces",
         "",
         _angles_caption(study, ds),
         "",
-        "| surface | static [deg] | advancing [deg] | receding [deg] | notes |",
-        "|---|---|---|---|---|",
+        "| surface | static [deg] | advancing [deg] | receding [deg] | nucleate boiling | notes |",
+        "|---|---|---|---|---|---|",
     ]
     for s in study.surfaces:
         a, b, c = (_angle_cell(ds, name, s.name, study.axis)
                    for name in ("static_angle", "advancing_angle", "receding_angle"))
         src = "from probe liquids" if s.probe_static_deg else ("intrinsic, roughened" if s.angles_are == "intrinsic"
                                                               else "as measured")
-        lines.append(f"| {s.name} | {a} | {b} | {c} | {src}{'; ' + s.notes if s.notes else ''} |")
+        lines.append(f"| {s.name} | {a} | {b} | {c} | {_nucleate_cell(study, s)} | "
+                     f"{src}{'; ' + s.notes if s.notes else ''} |")
     lines += ["", "## Methods and references", ""] + _references(study)
     lines += ["", "## Ranking (best worst-case CHF margin first)", "", RANKING_RULE, ""]
     ranking = margin_ranking(summary)
