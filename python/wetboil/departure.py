@@ -97,8 +97,10 @@ def fritz(contact_angle_deg: Any, fluid: Saturation, g: Any = G) -> Any:
     Notes
     -----
     Fritz fitted the maximum volume of a *static* bubble on an upward-facing
-    horizontal wall; with real boiling use the dynamic (advancing) angle, as
-    Han and Griffith (1965) recommend. Results are flagged (`RangeWarning`)
+    horizontal wall; for real boiling Han and Griffith (1965) recommend the
+    dynamic (advancing) angle [M]. `wetboil.sweep` passes the static angle
+    (the one every surface description has); pass the advancing angle here
+    to see the difference. Results are flagged (`RangeWarning`)
     above 90 deg, where boiling data to support the static fit are scarce
     (our own flag, not a published limit).
 

@@ -508,7 +508,8 @@ def sweep(
         method it used); with "rohsenow", a surface without a C_sf takes
         0.013 (`wetboil.boiling.rohsenow_superheat`'s default, water on
         polished copper; a warning when the fluid is not water). Onset uses the static angle, or the
-        receding angle for "kandlikar"; departure uses the static angle; CHF
+        receding angle for "kandlikar"; departure uses the static angle (see
+        `wetboil.departure.fritz` on the advancing one); CHF
         (Kandlikar) the receding angle. Onset "bergles_rohsenow" is a fit of
         the onset superheat for water with no nucleus: ``onset_cavity_radius``
         is NaN (not flagged), and another named fluid raises
