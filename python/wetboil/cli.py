@@ -159,8 +159,16 @@ def main(argv: Optional[List[str]] = None) -> int:
     if not getattr(args, "func", None):
         ap.print_help()
         return 2
+    import warnings
+
+    def show(message: Any, category: type, filename: str, lineno: int, file: Any = None, line: Any = None) -> None:
+        # one line per warning, as the errors are: the Python source line means nothing to a command's user
+        print(f"wetboil: {category.__name__}: {message}", file=sys.stderr if file is None else file)
+
     try:
-        return int(args.func(args))
+        with warnings.catch_warnings():
+            warnings.showwarning = show
+            return int(args.func(args))
     except WetboilError as exc:
         print(f"wetboil: error: {exc}", file=sys.stderr)
         return 1

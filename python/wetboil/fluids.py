@@ -605,7 +605,8 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
         if absent:
             warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(absent)} for {name!r}: NaN in "
-                          f"those fields, and in every result that needs them (set them with .replace())",
+                          f"those fields, and in every result that needs them (set them with .replace(), and pass that "
+                          f"Saturation where a fluid name was given, e.g. to sweep)",
                           WetboilWarning, stacklevel=_stacklevel())
         # a model that fails at some states only (surface tension close to the critical point, say)
         gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12] if f not in absent}

@@ -359,7 +359,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     beta = np.linspace(0.0, 150.0, 301)
     for phi in sorted(set(study.orientations) | {0.0, 90.0}):
         with warnings.catch_warnings():
-            warnings.simplefilter("ignore", RangeWarning)
+            warnings.simplefilter("ignore")  # the sweep has flagged and warned already
             q = chf.kandlikar(beta, state, phi) / 1e6
         # an orientation where the model has no answer at any angle gets no legend entry
         ax.plot(beta, q, label=f"Kandlikar (2001), {phi:g} deg" if np.isfinite(q).any() else "_nolegend_")
@@ -382,7 +382,8 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     ax.set_ylabel("critical heat flux [MW/m2]")
     ax.set_title(f"CHF against receding angle and orientation, {study.fluid} at {label}")
     ax.grid(alpha=0.3)
-    ax.legend(fontsize=7)
+    if ax.get_legend_handles_labels()[0]:
+        ax.legend(fontsize=7)
     fig.tight_layout()
     fig.savefig(folder / "chf_receding_orientation.png", dpi=110)
     plt.close(fig)

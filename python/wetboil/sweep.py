@@ -22,6 +22,7 @@ so that a result table can say which rows are extrapolations.
 from __future__ import annotations
 
 import math
+import warnings
 from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
 
 import numpy as np
@@ -140,7 +141,8 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
 
     def missing(v: Sequence[float]) -> Any:
         arr = np.asarray(v, dtype=float)
-        with errstate(invalid="ignore", out_of_range="ignore"):
+        with errstate(invalid="ignore", out_of_range="ignore"), warnings.catch_warnings():
+            warnings.simplefilter("ignore", WetboilWarning)  # missing properties: the sweep's own call says so
             if is_water:
                 s = water(p=arr) if axis == "p" else water(T=arr)
             else:
