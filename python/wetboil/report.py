@@ -331,10 +331,10 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             missing.append(s.name)
             reasons.append(f"{s.name} ({reason})")
             continue
-        ax.loglog(superheat, c["heat_flux"].values, label=s.name)
+        ax.plot(superheat, c["heat_flux"].values, label=s.name)
     ax.axhline(design, color="k", ls="--", lw=1, label="design heat flux")
+    ax.set_xscale("log")  # set here, also when no surface has a curve to draw
     ax.set_yscale("log")
-    ax.set_xscale("log")
     ax.set_xlabel("wall superheat [K]")
     ax.set_ylabel("heat flux [W/m2]")
     ax.set_title(f"Pool-boiling curves, {study.fluid} at {label}, orientation {phi0:g} deg")
