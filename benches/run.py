@@ -290,7 +290,8 @@ def section_chain(table, n, repeat):
 
     rng = np.random.default_rng(7)
     p = rng.uniform(5e4, 5e6, n)
-    th, rec, phi, q = rng.uniform(5, 90, n), rng.uniform(5, 85, n), rng.uniform(0, 90, n), rng.uniform(1e4, 1e6, n)
+    th, phi, q = rng.uniform(5, 90, n), rng.uniform(0, 90, n), rng.uniform(1e4, 1e6, n)
+    rec = th * rng.uniform(0.1, 0.95, n)  # a surface's receding angle lies below its static one
 
     def public():
         w = water(p=p)
