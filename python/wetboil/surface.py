@@ -81,9 +81,14 @@ class Surface:
         chemistry; the apparent angles then follow from Wenzel (or
         Cassie-Baxter when `solid_fraction` is given).
     roughness_ratio : float
-        Wenzel roughness ratio r >= 1 (true / projected area).
+        Wenzel roughness ratio r >= 1 (true / projected area). With
+        `solid_fraction` it is instead the roughness ratio r_f of the wetted
+        texture tops in Cassie-Baxter (1 for flat-topped pillars, the
+        default), not the whole texture's Wenzel ratio.
     solid_fraction : float, optional
-        Cassie-Baxter wetted solid fraction, 0 < f <= 1.
+        Cassie-Baxter wetted solid fraction, 0 < f <= 1 (gas trapped under
+        the drop: meant for intrinsic angles above 90 deg; below, see
+        `wetboil.wetting.cassie_baxter`, which flags them).
     Rp : float
         Cooper's surface roughness parameter [m] (default 1 um, Cooper's
         value when unknown).
