@@ -59,11 +59,12 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "static_angle": ("deg", "working fluid's apparent static contact angle"),
     "advancing_angle": ("deg", "working fluid's apparent advancing contact angle"),
     "receding_angle": ("deg", "working fluid's apparent receding contact angle"),
-    "onset_superheat": ("K", "wall superheat at the onset of nucleate boiling at the design heat flux"),
+    "onset_superheat": ("K", "wall superheat at the onset of nucleate boiling at the design heat flux (above "
+                        "nucleate_superheat: a temperature overshoot at incipience, the wall reaching this superheat "
+                        "before boiling starts and then falling to nucleate_superheat)"),
     "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset (NaN with the onset method "
                             "'bergles_rohsenow', which gives no radius)"),
-    "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux (flagged in range_flags "
-                           "where it is below onset_superheat: not boiling yet by the onset model)"),
+    "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux"),
     "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu)"),
     "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu)"),
     "departure_diameter": ("m", "bubble departure diameter"),
@@ -366,16 +367,12 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
         nucleate[m] = (value, cap)
     if len(used) == 2:
         (vc, cc), (vr, cr) = nucleate["cooper"], nucleate["rohsenow"]
-        value, invalid = np.where(by_cooper, vc, vr), np.where(by_cooper, cc.invalid, cr.invalid)
-        out_of_range = np.where(by_cooper, cc.out_of_range, cr.out_of_range)
+        dtw = res.add("nucleate_superheat", np.where(by_cooper, vc, vr), np.where(by_cooper, cc.invalid, cr.invalid),
+                      np.where(by_cooper, cc.out_of_range, cr.out_of_range))
     else:
         value, cap = nucleate[used[0]]
-        invalid, out_of_range = cap.invalid, cap.out_of_range
+        dtw = res.add("nucleate_superheat", value, cap.invalid, cap.out_of_range)
     del nucleate
-    # below the onset superheat at the same flux the wall is not boiling yet by the onset model: the
-    # nucleate correlation is then outside its domain (fully developed nucleate boiling)
-    dtw = res.add("nucleate_superheat", value, invalid,
-                  np.logical_or(out_of_range, value < res.values["onset_superheat"]))
     # linear thermal layer carrying the design flux: delta = k_l (dT_w + dT_sub) / q
     delta = fluid.k_l * (dtw + sub) / q
     with capture_validity() as cap:
