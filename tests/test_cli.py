@@ -409,3 +409,22 @@ def test_report_names_each_surfaces_nucleate_correlation_and_the_subcooling_cave
     assert "| Cooper, R_p 2 um |" in text
     assert "nucleate: auto (cooper)** -- M.G. Cooper" in text and "nucleate: auto (rohsenow)** -- W.M. Rohsenow" in text
     assert "subcooled rows carry the saturated values" in text
+
+
+def test_report_names_the_incipience_overshoot(tmp_path, monkeypatch):
+    """Behavioural contract: where the onset superheat (Hsu 1962) exceeds the nucleate superheat
+    (Cooper 1984) at the design flux, the report names the overshoot (boiling hysteresis) with its
+    size, the difference of the two public functions."""
+    from wetboil.boiling import cooper_superheat
+    from wetboil.fluids import water
+    from wetboil.nucleation import onset_superheat
+
+    w = water(p=101325.0)
+    over = onset_superheat(3e5, w, 48.9, method="hsu") - cooper_superheat(3e5, w, 4e-6)
+    assert over > 0
+    spec = ('[study]\nfluid = "water"\npressures_Pa = [101325.0]\nheat_fluxes_W_m2 = [3e5]\n'
+            '[[surface]]\nname = "d (invented)"\nstatic_deg = 48.9\nadvancing_deg = 64.4\nreceding_deg = 20.5\n'
+            'Rp = 4e-6\n'
+            '[[surface]]\nname = "e (invented)"\nstatic_deg = 60.0\nC_sf = 0.013\n')
+    text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec)
+    assert f"largest overshoot per surface: d (invented) {over:.1f} K." in text

@@ -640,6 +640,14 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         state_note = " (the fluid has no saturated state there: outside triple point to critical point)"
         lines.append("Quantities without a value because an input was physically impossible:")
         lines += [f"- {k}{state_note if k == STATE_FLAG else ''}: {v} of {n} points" for k, v in impossible.items()]
+    over = (ds["onset_superheat"] - ds["nucleate_superheat"]).max(
+        [d for d in ds["onset_superheat"].dims if d != "surface"])
+    over = {s: float(v) for s, v in zip(over["surface"].values, over.values) if v > 0}
+    if over:
+        lines += ["", "Incipience overshoot: the onset superheat exceeds the nucleate superheat at the same design "
+                  "heat flux, so the wall overshoots to the onset superheat before boiling starts and then falls to "
+                  "the nucleate curve (boiling hysteresis); largest overshoot per surface: "
+                  + "; ".join(f"{s} {v:.1f} K" for s, v in over.items()) + "."]
     lines += ["", "## Plots", ""]
     for f, caption in plots:
         lines += [f"![{caption}]({f})", "", caption, ""]
