@@ -428,3 +428,23 @@ def test_report_names_the_incipience_overshoot(tmp_path, monkeypatch):
             '[[surface]]\nname = "e (invented)"\nstatic_deg = 60.0\nC_sf = 0.013\n')
     text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec)
     assert f"largest overshoot per surface: d (invented) {over:.1f} K." in text
+
+
+def test_command_line_prints_each_warning_once_on_one_line(tmp_path, capsys):
+    """Behavioural contract: warnings reach a command's user as one 'wetboil: <Category>: ...' line
+    each, without Python source lines; the report's figures do not repeat the sweep's warnings.
+    (A spec whose fluid lacks properties in CoolProp, here Novec649, gives exactly one.)"""
+    from wetboil import cli
+
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    try:
+        CP.PropsSI("I", "P", 1e5, "Q", 0, "Novec649")
+        pytest.skip("this CoolProp has a surface-tension model for Novec649")
+    except ValueError:
+        pass
+    spec = tmp_path / "s.toml"
+    spec.write_text('[study]\nfluid = "Novec649"\npressures_Pa = [1e5]\nheat_fluxes_W_m2 = [1e5]\n'
+                    '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\nadvancing_deg = 70.0\nreceding_deg = 40.0\n')
+    assert cli.main(["run", str(spec), "--out", str(tmp_path / "out")]) == 0
+    err = capsys.readouterr().err.strip().splitlines()
+    assert len(err) == 1 and err[0].startswith("wetboil: WetboilWarning: fluids.from_coolprop: CoolProp has no sigma"), err

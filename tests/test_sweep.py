@@ -134,14 +134,14 @@ def test_probe_liquid_angles_split_the_working_fluid_by_its_own_kind():
     assert Surface("direct (invented)", 70, 80, 40).angles(r134a).static_deg == 70
     # The sweep passes the choice through, and refuses in the same way.
     with pytest.raises(ValueError, match=r"sweep: surface 'fluoro coat \(invented\)' .*no published dispersive"
-                                         r"/polar split.*pass sweep\(..., dispersive_fraction=...\)"):
+                                         r"/polar split.*pass dispersive_fraction=... to this call"):
         wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5)
     with pytest.raises(ValueError, match="screen: surface 'fluoro coat"):
         wetboil.screen([s], "R134a", p=5e5, heat_flux=1e5)
     ds = wetboil.sweep([s], "R134a", p=5e5, heat_flux=1e5, dispersive_fraction=0.6)
     assert float(ds["static_angle"].squeeze()) == got and ds.attrs["dispersive_fraction"] == 0.6
     df = wetboil.screen([s], "R134a", p=5e5, heat_flux=1e5, dispersive_fraction=0.6)
-    assert df["static_angle [deg]"].iloc[0] == got
+    assert df["static_angle [deg]"].iloc[0] == got and df.attrs["dispersive_fraction"] == 0.6
     for wrong in (1.5, -0.1, True, "0.5"):
         with pytest.raises(ValueError, match="dispersive_fraction must be a number in 0-1"):
             wetboil.sweep([Surface("direct (invented)", 70, 80, 40)], "water", p=1e5, heat_flux=1e5,
@@ -250,6 +250,27 @@ def test_a_property_missing_at_some_states_is_flagged_and_warned():
     near = df[df["p [Pa]"] == p_hi].iloc[0]
     assert math.isnan(near["chf [W/m2]"]) and "fluid_state" in near["flags"]
     assert "fluid_state" not in df[df["p [Pa]"] == 1e5].iloc[0]["flags"]
+    # requested alone, the near-critical state lacks sigma too: still a gap of a model CoolProp has,
+    # flagged, not "no model"
+    with pytest.warns(wetboil.WetboilWarning, match="CoolProp gave no sigma at 1 of 1 saturated state"):
+        df = wetboil.screen(SURFACES[:1], "Ammonia", heat_flux=1e5, p=[p_hi])
+    assert "fluid_state" in df.iloc[0]["flags"] and "fluid_fields_missing" not in df.attrs
+
+
+def test_cole_rohsenow_on_an_unnamed_state_warns_once_per_sweep_also_in_blocks():
+    # Wiring of the warning policy (no outside value): one warning at the call, not one per dask block.
+    unnamed = water(p=[1e5, 2e5, 3e5]).replace(name=None)
+    for chunks in (None, {"p": 1}):
+        with warnings.catch_warnings(record=True) as rec:
+            warnings.simplefilter("always")
+            ds = wetboil.sweep(SURFACES[:1], unnamed, heat_flux=1e5, methods={"departure": "cole_rohsenow"},
+                               chunks=chunks)
+        texts = [str(w.message) for w in rec if "Cole-Rohsenow" in str(w.message) or "cole_rohsenow" in str(w.message)]
+        assert len(texts) == 1 and texts[0].startswith("sweep: the fluid state has no name"), texts
+        assert rec[0].filename == __file__
+    # the general constant, as for any fluid not named water
+    assert float(ds["departure_diameter"].isel(p=0).squeeze()) == pytest.approx(
+        wetboil.departure.cole_rohsenow(water(p=1e5).replace(name="R113")), rel=1e-13)
 
 
 def test_bad_input_is_named():

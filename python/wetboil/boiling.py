@@ -141,7 +141,7 @@ def _default_constant(fluid: Saturation, function: str) -> float:
     if not _is_water(fluid.name):
         warnings.warn(
             f"{function}: no C_sf given, so 0.013 (water on polished copper) was used for "
-            f"{fluid.name or 'an unnamed fluid'!r}; Rohsenow's C_sf belongs to the surface-liquid pair and the "
+            f"{repr(fluid.name) if fluid.name is not None else 'an unnamed fluid'}; Rohsenow's C_sf belongs to the surface-liquid pair and the "
             "superheat is proportional to it: give the constant of your pair (see boiling.SURFACE_CONSTANTS)",
             WetboilWarning, stacklevel=_stacklevel(),
         )
@@ -154,8 +154,9 @@ def _rohsenow_fill(function: str) -> Callable[[Tuple[Any, ...]], Tuple[Any, ...]
 
     def fill(args: Tuple[Any, ...]) -> Tuple[Any, ...]:
         x, fluid, C_sf, n, g = args
-        if (C_sf is not None and n is not None) or not isinstance(fluid, Saturation):
-            return args  # nothing to fill (a wrong fluid type is reported by the call itself)
+        if C_sf is not None and n is not None:
+            return args  # nothing to fill: the very tuple, so the caller evaluates it (not a copy: see `kernel`)
+        need_saturation(function, fluid)  # the defaults come from the fluid: name a wrong one first
         return (x, fluid, _default_constant(fluid, function) if C_sf is None else C_sf,
                 _default_exponent(fluid, function) if n is None else n, g)
 

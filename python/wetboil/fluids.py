@@ -8,6 +8,7 @@ other and against the other arguments of the kernels.
 
 from __future__ import annotations
 
+import functools
 import math
 import warnings
 from typing import Any, Optional
@@ -484,6 +485,30 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     return water_at_temperature(T) if p is None else water_at_pressure(p)
 
 
+@functools.lru_cache(maxsize=None)
+def _coolprop_no_model(name: str) -> frozenset:
+    """The fields CoolProp has no model for in fluid `name`: those it cannot
+    give at a reference state halfway from the triple to the critical
+    temperature (as opposed to a model that fails at some states only, such
+    as a surface tension close to the critical point)."""
+    import CoolProp.CoolProp as CP
+
+    state = CP.AbstractState("HEOS", name)
+    t_ref = state.Ttriple() + 0.5 * (state.T_critical() - state.Ttriple())
+    missing = set()
+    for q, fields in ((0.0, (("cp_l", state.cpmass), ("k_l", state.conductivity), ("mu_l", state.viscosity),
+                             ("sigma", state.surface_tension))),
+                      (1.0, (("cp_v", state.cpmass), ("k_v", state.conductivity), ("mu_v", state.viscosity)))):
+        state.update(CP.QT_INPUTS, q, t_ref)
+        for field, call in fields:
+            try:
+                if math.isnan(float(call())):
+                    missing.add(field)
+            except ValueError:
+                missing.add(field)
+    return frozenset(missing)
+
+
 def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     """Saturated state of any fluid CoolProp knows, at `T` [K] or `p` [Pa].
 
@@ -603,13 +628,14 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     absent: list = []
     if have_state.any():
         absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
-        if absent:
-            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(absent)} for {name!r}: NaN in "
+        no_model = [f for f in absent if f in _coolprop_no_model(name)]
+        if no_model:
+            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(no_model)} for {name!r}: NaN in "
                           f"those fields, and in every result that needs them (set them with .replace(), and pass that "
                           f"Saturation where a fluid name was given, e.g. to sweep)",
                           WetboilWarning, stacklevel=_stacklevel())
         # a model that fails at some states only (surface tension close to the critical point, say)
-        gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12] if f not in absent}
+        gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12] if f not in no_model}
         gaps = {f: k for f, k in gaps.items() if k}
         if gaps:
             n_state = int(have_state.sum())

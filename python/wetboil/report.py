@@ -321,7 +321,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             rec, sta = float(np.asarray(a.receding_deg)), float(np.asarray(a.static_deg))
             try:
                 c = boiling.curve(state, superheat, receding_angle_deg=rec, contact_angle_deg=sta,
-                                  orientation_deg=phi0, nucleate="rohsenow" if s.C_sf else "cooper",
+                                  orientation_deg=phi0, nucleate=_nucleate_method(study, s),
                                   C_sf=s.C_sf, n=s.n if s.C_sf else None, roughness_Rp=s.Rp or 1e-6,
                                   natural_convection_coefficient=1000.0, design_heat_flux=design)
             except WetboilValueError as exc:  # a fluid without some property (CoolProp has no model for it)
@@ -370,8 +370,9 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
             r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
             q = float(chf.kandlikar(r, state, phi0)) / 1e6 if np.isfinite(r) else math.nan
         if not np.isfinite(q):
-            why = (f"the fluid lacks {ds.attrs['fluid_fields_missing']}" if ds.attrs.get("fluid_fields_missing")
-                   else _no_chf_reason(r, phi0))
+            lacks = [f for f in ds.attrs.get("fluid_fields_missing", "").split(", ")
+                     if f in ("sigma", "rho_l", "rho_v", "h_lv")]  # what Kandlikar's CHF needs
+            why = f"the fluid lacks {', '.join(lacks)}" if lacks else _no_chf_reason(r, phi0)
             no_point.append(f"{s.name} ({why})")
             continue
         ax.plot(r, q, "o", ms=6)
@@ -479,7 +480,7 @@ def margin_ranking(summary: Any) -> Any:
     table = pd.DataFrame({
         "lowest_margin": g["chf_margin [-]"].min(),
         "no_chf": g["chf_margin [-]"].apply(lambda s: int(s.isna().sum())),
-        "flagged": g["flags"].apply(lambda s: int(s.fillna("").astype(str).map(_design_flagged).sum())),
+        "flagged": g["flags"].apply(lambda s: int(s.astype(object).fillna("").astype(str).map(_design_flagged).sum())),
         "points": g.size(),
     })
     order = table.assign(gap=table["no_chf"] > 0, name=table.index.astype(str)).sort_values(
@@ -523,13 +524,18 @@ def _references(study: Study) -> List[str]:
     return refs
 
 
+def _nucleate_method(study: Study, s: Surface) -> str:
+    """The nucleate correlation the sweep uses for surface `s` (as `wetboil.sweep` decides it)."""
+    method = study.methods["nucleate"]
+    return method if method != "auto" else ("rohsenow" if s.C_sf is not None else "cooper")
+
+
 def _nucleate_cell(study: Study, s: Surface) -> str:
     """Which nucleate-boiling correlation the sweep used for surface `s`, with its constants."""
     from .boiling import ROHSENOW_C_SF_DEFAULT, ROHSENOW_N_OTHER, ROHSENOW_N_WATER
     from .fluids import _is_water
 
-    method = study.methods["nucleate"]
-    if method == "cooper" or (method == "auto" and s.C_sf is None):
+    if _nucleate_method(study, s) == "cooper":
         return f"Cooper, R_p {(s.Rp if s.Rp is not None else 1e-6) * 1e6:g} um"
     c_sf = f"C_sf {s.C_sf:g}" if s.C_sf is not None else f"C_sf {ROHSENOW_C_SF_DEFAULT:g} (water on polished copper)"
     if s.C_sf is not None and s.n is not None:

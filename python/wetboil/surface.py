@@ -155,12 +155,12 @@ class Surface:
         self.probe_receding_deg = self._probe("probe_receding_deg", probe_receding_deg)
         if not isinstance(notes, str):
             raise WetboilTypeError(f"surface {self.name!r}: notes must be a string")
+        self.notes = notes
+        self._validate()
         if self.n is not None and self.C_sf is None:
             warnings.warn(f"surface {self.name!r}: n = {self.n:g} is given without C_sf; Rohsenow's constants are a "
                           "fitted pair, so n is used only with the surface's own C_sf (without one, the fluid's "
                           "exponent: 1.0 water, 1.7 other liquids)", WetboilWarning, stacklevel=_stacklevel())
-        self.notes = notes
-        self._validate()
 
     def _probe(self, key: str, value: Optional[Mapping[str, float]]) -> Optional[Dict[str, float]]:
         if value is None:

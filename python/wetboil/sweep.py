@@ -227,10 +227,11 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     # a state with a field the property library could not give there (but gives elsewhere: a model that
     # fails near the critical point) is flagged with the state, or its NaN results would go unexplained
     gaps = np.zeros(given.shape, bool)
+    lacks = _no_model(states)
     for f in FIELDS[:12]:
         nan = np.isnan(np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)),
                                                   dtype=float), given.shape)) & ~no_state
-        if nan.any() and not nan[~no_state].all():
+        if f not in lacks:
             gaps |= nan
     out_of_range = np.logical_or(np.broadcast_to(cap.out_of_range, given.shape), gaps)
     if invalid.any():  # a unit slip (kPa, bar, MPa given as Pa; degC as K) is the usual cause: say so
@@ -259,7 +260,7 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
                 if "dispersive_fraction" not in str(exc):
                     raise
                 raise WetboilValueError(f"sweep: surface {s.name!r} is described by probe-liquid angles, and "
-                                        f"{exc}: pass sweep(..., dispersive_fraction=...)") from None
+                                        f"{exc}: pass dispersive_fraction=... to this call") from None
         invalid.append(bool(np.any(cap.invalid)))
         out_of_range.append(bool(np.any(cap.out_of_range)))
 
@@ -380,7 +381,11 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     del delta
     res.add("cavity_radius_min", radii.r_min, cap.invalid, cap.out_of_range)
     res.add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range)
-    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"]))
+    # Cole-Rohsenow's constant settled once per sweep (and its warning for an unnamed state given there,
+    # not once per block)
+    extra = {"C": departure.COLE_ROHSENOW_WATER if nucleation._is_water(fluid.name) else departure.COLE_ROHSENOW_OTHER} \
+        if methods["departure"] == "cole_rohsenow" else {}
+    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra))
     # A zero diameter (Fritz at 0 deg: a perfectly wetting wall, a measurable surface) has no departure
     # cycle for the frequency correlations: no answer there (NaN, flagged out of range), not an impossible
     # input.
@@ -596,6 +601,9 @@ def sweep(
     problem = _method_fluid_problem(meth, states.name)
     if problem:
         raise WetboilValueError(f"sweep: {problem}")
+    if meth["departure"] == "cole_rohsenow" and states.name is None:
+        _warn("sweep: the fluid state has no name, so Cole-Rohsenow's C = 4.65e-4 (the constant for liquids other "
+              "than water) is used; name the state (Saturation(..., name=...)) for water's 1.5e-4", WetboilWarning)
     table = _surface_table(surfaces, states, meth["nucleate"], dispersive_fraction, xr)
     table["fluid_invalid"], table["fluid_out_of_range"] = state_invalid, state_out_of_range
     axes = {
@@ -637,7 +645,7 @@ def sweep(
     if any(s.probe_static_deg is not None for s in surfaces):  # the split behind the predicted angles
         result.attrs["dispersive_fraction"] = float(
             dispersive_fraction if dispersive_fraction is not None else wetting.dispersive_fraction(states))
-    missing = _missing_fields(states)
+    missing = _missing_fields(states, named=isinstance(fluid, str))
     if missing:
         result.attrs["fluid_fields_missing"] = ", ".join(missing)
     if chunks is None or compute:
@@ -645,10 +653,20 @@ def sweep(
     return result
 
 
-def _missing_fields(states: Saturation) -> List[str]:
-    """Fluid fields that are NaN at every state that has one (CoolProp has no
-    model for them, or a Saturation was built without them): the quantities
-    that need them are NaN everywhere, which no flag records."""
+def _no_model(states: Saturation) -> frozenset:
+    """The fields CoolProp has no model for in the fluid of `states` (none for water, which is computed here)."""
+    from .fluids import _coolprop_no_model, _is_water
+
+    return frozenset() if states.name is None or _is_water(states.name) else _coolprop_no_model(states.name)
+
+
+def _missing_fields(states: Saturation, named: bool) -> List[str]:
+    """Fluid fields missing everywhere, so that the quantities that need them
+    are NaN everywhere, which no flag records: for a named fluid those
+    CoolProp has no model for; for a given Saturation those NaN at every state
+    that has one (never given)."""
+    if named:
+        return [f for f in FIELDS if f in _no_model(states)]
     have = ~np.isnan(np.asarray(getattr(states.rho_l, "values", states.rho_l), dtype=float))
     if not have.any():
         return []
@@ -833,7 +851,7 @@ def ranked_table(ds: Any) -> Any:
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
     df.attrs["units"] = units
-    for key in ("fluid", "fluid_fields_missing", "methods", "caution"):
+    for key in ("fluid", "fluid_fields_missing", "dispersive_fraction", "methods", "caution"):
         if key in ds.attrs:
             df.attrs[key] = ds.attrs[key]
     return df
