@@ -8,7 +8,6 @@ other and against the other arguments of the kernels.
 
 from __future__ import annotations
 
-import functools
 import math
 import warnings
 from typing import Any, Optional
@@ -485,12 +484,21 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     return water_at_temperature(T) if p is None else water_at_pressure(p)
 
 
-@functools.lru_cache(maxsize=None)
+_NO_MODEL: dict = {}  # fluid name -> _coolprop_no_model's answer (idempotent, so a race only recomputes)
+
+
 def _coolprop_no_model(name: str) -> frozenset:
     """The fields CoolProp has no model for in fluid `name`: those it cannot
     give at a reference state halfway from the triple to the critical
     temperature (as opposed to a model that fails at some states only, such
     as a surface tension close to the critical point)."""
+    hit = _NO_MODEL.get(name)
+    if hit is None:
+        hit = _NO_MODEL[name] = _probe_no_model(name)
+    return hit
+
+
+def _probe_no_model(name: str) -> frozenset:
     import CoolProp.CoolProp as CP
 
     state = CP.AbstractState("HEOS", name)
