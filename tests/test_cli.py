@@ -427,7 +427,7 @@ def test_report_names_the_incipience_overshoot(tmp_path, monkeypatch):
             'Rp = 4e-6\n'
             '[[surface]]\nname = "e (invented)"\nstatic_deg = 60.0\nC_sf = 0.013\n')
     text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec)
-    assert f"largest overshoot per surface: d (invented) {over:.1f} K." in text
+    assert f"Largest overshoot per surface: d (invented) {over:.1f} K." in text
 
 
 def test_command_line_prints_each_warning_once_on_one_line(tmp_path, capsys):
@@ -448,3 +448,25 @@ def test_command_line_prints_each_warning_once_on_one_line(tmp_path, capsys):
     assert cli.main(["run", str(spec), "--out", str(tmp_path / "out")]) == 0
     err = capsys.readouterr().err.strip().splitlines()
     assert len(err) == 1 and err[0].startswith("wetboil: WetboilWarning: fluids.from_coolprop: CoolProp has no sigma"), err
+
+
+def test_report_curves_follow_the_studys_nucleate_method(tmp_path, monkeypatch):
+    """Behavioural contract: the boiling-curve figure draws each surface with the nucleate
+    correlation the sweep used (here "cooper" for a surface that also has a C_sf): its nucleate
+    branch is boiling.curve's Cooper (1984) branch."""
+    import numpy as np
+
+    from wetboil import boiling
+    from wetboil.fluids import water
+
+    spec = ('[study]\nfluid = "water"\npressures_Pa = [101325.0]\nheat_fluxes_W_m2 = [3e5]\n'
+            '[methods]\nnucleate = "cooper"\n'
+            '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\nadvancing_deg = 70.0\nreceding_deg = 40.0\n'
+            'C_sf = 0.0068\n')
+    _, figures = _run_keeping_figures(tmp_path, monkeypatch, spec)
+    line = next(l for l in figures[0].axes[0].get_lines() if l.get_label() == "a (invented)")
+    dts = np.asarray(line.get_xdata(), dtype=float)
+    for nucleate, same in (("cooper", True), ("rohsenow", False)):
+        c = boiling.curve(water(p=101325.0), dts, receding_angle_deg=40.0, contact_angle_deg=60.0, nucleate=nucleate,
+                          C_sf=0.0068, natural_convection_coefficient=1000.0, design_heat_flux=3e5)
+        assert np.allclose(np.asarray(line.get_ydata(), dtype=float), c["heat_flux"].values, equal_nan=True) == same

@@ -488,10 +488,11 @@ _NO_MODEL: dict = {}  # fluid name -> _coolprop_no_model's answer (idempotent, s
 
 
 def _coolprop_no_model(name: str) -> frozenset:
-    """The fields CoolProp has no model for in fluid `name`: those it cannot
-    give at a reference state halfway from the triple to the critical
-    temperature (as opposed to a model that fails at some states only, such
-    as a surface tension close to the critical point)."""
+    """The fields CoolProp has no model for in fluid `name`, as CoolProp itself
+    says when asked at a reference state ("... model is not available for
+    this fluid", "surface tension curve not provided"): unlike a model that
+    fails at some states only (a surface tension close to the critical point,
+    a transport model whose solver does not converge there)."""
     hit = _NO_MODEL.get(name)
     if hit is None:
         hit = _NO_MODEL[name] = _probe_no_model(name)
@@ -501,19 +502,22 @@ def _coolprop_no_model(name: str) -> frozenset:
 def _probe_no_model(name: str) -> frozenset:
     import CoolProp.CoolProp as CP
 
-    state = CP.AbstractState("HEOS", name)
-    t_ref = state.Ttriple() + 0.5 * (state.T_critical() - state.Ttriple())
-    missing = set()
-    for q, fields in ((0.0, (("cp_l", state.cpmass), ("k_l", state.conductivity), ("mu_l", state.viscosity),
-                             ("sigma", state.surface_tension))),
-                      (1.0, (("cp_v", state.cpmass), ("k_v", state.conductivity), ("mu_v", state.viscosity)))):
-        state.update(CP.QT_INPUTS, q, t_ref)
-        for field, call in fields:
-            try:
-                if math.isnan(float(call())):
-                    missing.add(field)
-            except ValueError:
-                missing.add(field)
+    missing: set = set()
+    try:
+        state = CP.AbstractState("HEOS", name)
+        t_ref = state.Ttriple() + 0.5 * (state.T_critical() - state.Ttriple())
+        for q, fields in ((0.0, (("cp_l", state.cpmass), ("k_l", state.conductivity), ("mu_l", state.viscosity),
+                                 ("sigma", state.surface_tension))),
+                          (1.0, (("cp_v", state.cpmass), ("k_v", state.conductivity), ("mu_v", state.viscosity)))):
+            state.update(CP.QT_INPUTS, q, t_ref)
+            for field, call in fields:
+                try:
+                    call()
+                except ValueError as exc:
+                    if "not available" in str(exc) or "not provided" in str(exc):
+                        missing.add(field)
+    except ValueError:
+        pass  # no reference state: nothing is known to be missing, the data decide
     return frozenset(missing)
 
 

@@ -650,9 +650,10 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         [d for d in ds["onset_superheat"].dims if d != "surface"])
     over = {s: float(v) for s, v in zip(over["surface"].values, over.values) if v > 0}
     if over:
-        lines += ["", "Incipience overshoot: the onset superheat exceeds the nucleate superheat at the same design "
-                  "heat flux, so the wall overshoots to the onset superheat before boiling starts and then falls to "
-                  "the nucleate curve (boiling hysteresis); largest overshoot per surface: "
+        lines += ["", "Incipience overshoot: by these correlations the onset superheat exceeds the nucleate "
+                  "superheat at the same design heat flux, so the wall would overshoot to the onset superheat "
+                  "before boiling starts and then fall to the nucleate curve (boiling hysteresis); Hsu's active "
+                  "cavity range is empty (NaN) at those points. Largest overshoot per surface: "
                   + "; ".join(f"{s} {v:.1f} K" for s, v in over.items()) + "."]
     lines += ["", "## Plots", ""]
     for f, caption in plots:

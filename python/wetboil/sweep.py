@@ -65,8 +65,10 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset (NaN with the onset method "
                             "'bergles_rohsenow', which gives no radius)"),
     "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux"),
-    "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu)"),
-    "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu)"),
+    "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu; NaN where no "
+                          "cavity is active, as where nucleate_superheat is below onset_superheat)"),
+    "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu; NaN where no "
+                          "cavity is active)"),
     "departure_diameter": ("m", "bubble departure diameter"),
     "departure_frequency": ("Hz", "bubble departure frequency"),
     "chf": ("W/m2", "critical heat flux by the first (design) CHF method"),
@@ -224,15 +226,14 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
     no_state = np.isnan(np.broadcast_to(np.asarray(getattr(states.rho_l, "values", states.rho_l)), given.shape))
     invalid = np.logical_or(np.broadcast_to(cap.invalid, given.shape), no_state & given)
-    # a state with a field the property library could not give there (but gives elsewhere: a model that
-    # fails near the critical point) is flagged with the state, or its NaN results would go unexplained
+    # a state without a field the chain uses, where the property library has a model for it (one that
+    # fails near the critical point, say), is flagged with the state, or its NaN results would go unexplained
     gaps = np.zeros(given.shape, bool)
     lacks = _no_model(states)
-    for f in FIELDS[:12]:
-        nan = np.isnan(np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)),
-                                                  dtype=float), given.shape)) & ~no_state
+    for f in _CHAIN_FIELDS:
         if f not in lacks:
-            gaps |= nan
+            gaps |= np.isnan(np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)),
+                                                        dtype=float), given.shape)) & ~no_state
     out_of_range = np.logical_or(np.broadcast_to(cap.out_of_range, given.shape), gaps)
     if invalid.any():  # a unit slip (kPa, bar, MPa given as Pa; degC as K) is the usual cause: say so
         problem = _states_outside_range(fluid, dim, axis.values)
@@ -555,17 +556,17 @@ def sweep(
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
         water above 0.997 T_crit; also a state where CoolProp gives no value
-        of a property it gives at the other states, as surface tension near
-        the critical point). Flagged points give no warnings (the masks
+        of a property the chain uses although it has a model for it, as
+        surface tension near the critical point). Flagged points give no warnings (the masks
         record them), except the fluid layer's one warning per call for
         states that are impossible or outside its range; under ``wetboil.errstate(invalid="raise")`` or
         ``(out_of_range="raise")`` a computed sweep with points of that kind
         raises instead; a lazy one (``compute=False``) keeps that policy and
         raises when a block with such points is computed. ``attrs`` name the
         ``fluid``, the ``methods``, the ``caution``, and, when some fluid
-        field is NaN at every state (CoolProp has no model for it, or the
-        Saturation lacks it), ``fluid_fields_missing``: every quantity that
-        needs one is NaN, unflagged (give them with
+        field is NaN at every state because CoolProp has no model for it (or
+        the given Saturation lacks it), ``fluid_fields_missing``: every
+        quantity that needs one is NaN, unflagged (give them with
         ``from_coolprop(...).replace(...)`` and sweep that Saturation).
 
     Examples
@@ -660,21 +661,25 @@ def _no_model(states: Saturation) -> frozenset:
     return frozenset() if states.name is None or _is_water(states.name) else _coolprop_no_model(states.name)
 
 
+#: The fluid fields the sweep's chain reads (the vapour's transport properties only enter film boiling).
+_CHAIN_FIELDS = ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l")
+
+
 def _missing_fields(states: Saturation, named: bool) -> List[str]:
-    """Fluid fields missing everywhere, so that the quantities that need them
-    are NaN everywhere, which no flag records: for a named fluid those
-    CoolProp has no model for; for a given Saturation those NaN at every state
-    that has one (never given)."""
-    if named:
-        return [f for f in FIELDS if f in _no_model(states)]
+    """Fluid fields NaN at every state that has one, so that the quantities
+    that need them are NaN everywhere, which no flag records: for a named
+    fluid those CoolProp has no model for (a field missing at the requested
+    states only is flagged ``fluid_state`` instead); for a given Saturation,
+    any (never given)."""
     have = ~np.isnan(np.asarray(getattr(states.rho_l, "values", states.rho_l), dtype=float))
     if not have.any():
         return []
+    lacks = _no_model(states) if named else None
     out = []
     for f in FIELDS:
         v = np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)), dtype=float),
                             have.shape)
-        if np.isnan(v[have]).all():
+        if np.isnan(v[have]).all() and (lacks is None or f in lacks):
             out.append(f)
     return out
 
