@@ -150,6 +150,11 @@ _cole_rohsenow_kernel.__name__ = "cole_rohsenow"
 _cole_rohsenow_kernel = kernel("cole_rohsenow_departure")(_cole_rohsenow_kernel)
 
 
+def _cole_rohsenow_constant(fluid: Saturation) -> float:
+    """Cole-Rohsenow's default constant for a state: water's, or the general one (unnamed states too)."""
+    return COLE_ROHSENOW_WATER if _is_water(fluid.name) else COLE_ROHSENOW_OTHER
+
+
 def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
     r"""Cole & Rohsenow (1969) bubble departure diameter [m].
 
@@ -208,7 +213,7 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
             raise WetboilTypeError(
                 f"departure.cole_rohsenow: fluid must be a wetboil.fluids.Saturation, got {type(fluid).__name__}"
             )
-        C = COLE_ROHSENOW_WATER if _is_water(fluid.name) else COLE_ROHSENOW_OTHER
+        C = _cole_rohsenow_constant(fluid)
         if fluid.name is None:
             warnings.warn("departure.cole_rohsenow: the fluid state has no name, so C = 4.65e-4 (the constant for "
                           "liquids other than water) was used; pass C=1.5e-4 for water, or name the state "

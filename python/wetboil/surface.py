@@ -323,8 +323,7 @@ def _tabulated_split(fluid: Saturation) -> "tuple[float, float]":
 
     fd = wetting.dispersive_fraction(fluid)  # raises for a fluid without a tabulated split
     if _is_water(fluid.name):
-        w = wetting.PROBE_LIQUIDS["default"]["water"]
-        return w.dispersive / w.total, w.polar / w.total
+        return wetting.split_surface_tension(1.0)  # water's proportions: the fractions themselves
     return fd, 1.0 - fd
 
 

@@ -224,7 +224,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
             states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
     given = ~np.isnan(axis.values)
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
-    no_state = np.isnan(np.broadcast_to(np.asarray(getattr(states.rho_l, "values", states.rho_l)), given.shape))
+    no_state = np.isnan(np.broadcast_to(_field(states, "rho_l"), given.shape))
     invalid = np.logical_or(np.broadcast_to(cap.invalid, given.shape), no_state & given)
     # a state without a field the chain uses, where the property library has a model for it (one that
     # fails near the critical point, say), is flagged with the state, or its NaN results would go unexplained
@@ -232,8 +232,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     lacks = _no_model(states)
     for f in _CHAIN_FIELDS:
         if f not in lacks:
-            gaps |= np.isnan(np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)),
-                                                        dtype=float), given.shape)) & ~no_state
+            gaps |= np.isnan(np.broadcast_to(_field(states, f), given.shape)) & ~no_state
     out_of_range = np.logical_or(np.broadcast_to(cap.out_of_range, given.shape), gaps)
     if invalid.any():  # a unit slip (kPa, bar, MPa given as Pa; degC as K) is the usual cause: say so
         problem = _states_outside_range(fluid, dim, axis.values)
@@ -384,8 +383,7 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     res.add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range)
     # Cole-Rohsenow's constant settled once per sweep (and its warning for an unnamed state given there,
     # not once per block)
-    extra = {"C": departure.COLE_ROHSENOW_WATER if nucleation._is_water(fluid.name) else departure.COLE_ROHSENOW_OTHER} \
-        if methods["departure"] == "cole_rohsenow" else {}
+    extra = {"C": departure._cole_rohsenow_constant(fluid)} if methods["departure"] == "cole_rohsenow" else {}
     d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra))
     # A zero diameter (Fritz at 0 deg: a perfectly wetting wall, a measurable surface) has no departure
     # cycle for the frequency correlations: no answer there (NaN, flagged out of range), not an impossible
@@ -665,20 +663,25 @@ def _no_model(states: Saturation) -> frozenset:
 _CHAIN_FIELDS = ("T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l")
 
 
+def _field(states: Saturation, name: str) -> np.ndarray:
+    """A field of `states` as a float ndarray (a DataArray's values)."""
+    v = getattr(states, name)
+    return np.asarray(getattr(v, "values", v), dtype=float)
+
+
 def _missing_fields(states: Saturation, named: bool) -> List[str]:
     """Fluid fields NaN at every state that has one, so that the quantities
     that need them are NaN everywhere, which no flag records: for a named
     fluid those CoolProp has no model for (a field missing at the requested
     states only is flagged ``fluid_state`` instead); for a given Saturation,
     any (never given)."""
-    have = ~np.isnan(np.asarray(getattr(states.rho_l, "values", states.rho_l), dtype=float))
+    have = ~np.isnan(_field(states, "rho_l"))
     if not have.any():
         return []
     lacks = _no_model(states) if named else None
     out = []
     for f in FIELDS:
-        v = np.broadcast_to(np.asarray(getattr(getattr(states, f), "values", getattr(states, f)), dtype=float),
-                            have.shape)
+        v = np.broadcast_to(_field(states, f), have.shape)
         if np.isnan(v[have]).all() and (lacks is None or f in lacks):
             out.append(f)
     return out
