@@ -531,12 +531,17 @@ def owens_wendt_by_hand(theta_water, theta_diiodomethane):
 LABELLED_THETA = {"a": (108.0, 88.0), "b": (80.0, 41.0)}
 
 
-def test_labelled_dataarray_is_matched_by_liquid_name():
-    xr = pytest.importorskip("xarray")
+def _labelled_case():
+    """The surfaces' names, water and diiodomethane angles, and their components by hand."""
     surfaces = list(LABELLED_THETA)
     water = np.array([LABELLED_THETA[s][0] for s in surfaces])
     mi = np.array([LABELLED_THETA[s][1] for s in surfaces])
-    hand_d, hand_p = owens_wendt_by_hand(water, mi)
+    return surfaces, water, mi, owens_wendt_by_hand(water, mi)
+
+
+def test_labelled_dataarray_is_matched_by_liquid_name():
+    xr = pytest.importorskip("xarray")
+    surfaces, water, mi, (hand_d, hand_p) = _labelled_case()
     ordered = surface_energy(np.stack([water, mi], axis=-1), ["water", "diiodomethane"])
     np.testing.assert_allclose(ordered.dispersive, hand_d, rtol=1e-12)
     np.testing.assert_allclose(ordered.polar, hand_p, rtol=1e-12)
@@ -560,10 +565,7 @@ def test_labelled_dataarray_is_matched_by_liquid_name():
 
 def test_labelled_pandas_is_matched_by_liquid_name():
     pd = pytest.importorskip("pandas")
-    surfaces = list(LABELLED_THETA)
-    water = np.array([LABELLED_THETA[s][0] for s in surfaces])
-    mi = np.array([LABELLED_THETA[s][1] for s in surfaces])
-    hand_d, hand_p = owens_wendt_by_hand(water, mi)
+    surfaces, water, mi, (hand_d, hand_p) = _labelled_case()
     df = pd.DataFrame({"diiodomethane": mi, "water": water}, index=surfaces)  # columns not in liquids' order
     for frame in (df, df.T):  # liquids as columns (rows are surfaces), or as the index
         s = surface_energy(frame, ["water", "diiodomethane"])
