@@ -132,6 +132,8 @@ def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
      r"study.toml:8: \[study\] subcoolings_K must be zero or positive"),
     (("advancing_deg = 70.0", "advancing_deg = 30.0"), r"advancing angle 30 deg is below the receding angle 40"),
     (('onset = "kandlikar"', 'onset = "guess"'), r"study.toml:\d+: \[methods\] onset: unknown method 'guess'"),
+    # a sub-table of [study] is pointed at by its header's line (wiring; the TOML is this test's own)
+    (("[methods]", "[study.methods]"), r"study.toml:11: unknown key 'methods' in \[study\]"),
     # kPa written as Pa: below the triple point (611.657 Pa, IAPWS R14-08(2011))
     (("pressures_Pa = [101325.0, 300000.0]", "pressures_Pa = [101.325, 300]"),
      r"study.toml:5: \[study\] pressures_Pa: 101.325, 300 Pa outside the saturation range of water: 611.657\d* Pa "

@@ -97,8 +97,10 @@ def _line(text: str, key: str, section: Optional[str] = None) -> int:
     for i in range(start, len(lines)):
         if pat.match(lines[i]):
             return i + 1
+    # a table header: [key], [[key]] or, inside a section, [section.key]
+    head = re.escape(key) if section is None else rf"(?:{re.escape(section)}\s*\.\s*)?{re.escape(key)}"
     for i, line in enumerate(lines):
-        if re.match(rf"^\s*\[+{re.escape(key)}\]+\s*$", line):
+        if re.match(rf"^\s*\[+\s*{head}\s*\]+\s*$", line):
             return i + 1
     return 0
 
@@ -117,7 +119,8 @@ def load_spec(path: Any) -> Study:
         raise SpecError(f"{path}: not valid TOML: {exc}") from None
 
     def fail(key: str, msg: str, section: Optional[str] = None) -> SpecError:
-        return SpecError(f"{path}:{_line(text, key, section)}: {msg}")
+        line = _line(text, key, section)
+        return SpecError(f"{path}:{line}: {msg}" if line else f"{path}: {msg}")
 
     for key in data:
         if key not in _TOP_KEYS:
