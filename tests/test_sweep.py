@@ -219,6 +219,10 @@ def test_a_pressure_in_kpa_gets_the_unit_hint_in_python_too():
     with warnings.catch_warnings():
         warnings.simplefilter("error")  # a correct pressure: no hint
         wetboil.sweep(SURFACES[:1], "water", p=[101325.0], heat_flux=3e5)
+    # strict mode raises with the same hint, not just "physically impossible"
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError,
+                                                          match=r"101.325 Pa outside .* they look like kPa"):
+        wetboil.sweep(SURFACES[:1], "water", p=[101.325], heat_flux=3e5)
 
 
 def test_surface_angles_give_one_warning_per_category():

@@ -29,7 +29,7 @@ import numpy as np
 
 from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
-from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
+from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
 from .fluids import FIELDS, Saturation, from_coolprop, water
 from .surface import Surface
 
@@ -217,11 +217,18 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
     axis = _axis(dim, p if p is not None else T, xr)
     # The fluid layer warns once (or raises, in strict mode) for impossible
     # states; the capture keeps which ones, for the flags of every point.
-    with capture_validity() as cap:
-        if fluid.lower() == "water":
-            states = water(p=axis) if dim == "p" else water(T=axis)
-        else:
-            states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
+    try:
+        with capture_validity() as cap:
+            if fluid.lower() == "water":
+                states = water(p=axis) if dim == "p" else water(T=axis)
+            else:
+                states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
+    except InvalidValueError as exc:  # strict mode: the error says what the warning below would
+        problem = _states_outside_range(fluid, dim, axis.values)
+        if problem:
+            raise InvalidValueError(f"sweep: {problem}; physically impossible (errstate invalid='raise'; by "
+                                    "default they give NaN)") from exc
+        raise
     given = ~np.isnan(axis.values)
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
     no_state = np.isnan(np.broadcast_to(_field(states, "rho_l"), given.shape))
