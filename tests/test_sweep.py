@@ -546,6 +546,10 @@ name = "three"
      r"surface 'three': probe_receding_deg.diiodomethane = 200 is outside"),
     ("C_sf = 0.013", "probe_static_deg.water = 80.0\nprobe_static_deg.diodomethane = 45.0", 20,
      r"surface 'three': probe_static_deg: unknown probe liquid 'diodomethane'; known liquids: diiodomethane, "),
+    ("C_sf = 0.013", 'notes = "no static angle"\nreceding_deg = 20.0', 20,
+     r"surface 'three': advancing_deg / receding_deg need static_deg too"),
+    ("C_sf = 0.013", "static_deg = 50.0\nprobe_static_deg = { water = 80.0, diiodomethane = 45.0 }", 19,
+     r"surface 'three': give either the working fluid's angles"),
 ])
 def test_toml_errors_point_at_the_key_in_its_own_surface(tmp_path, two, three, line, message):
     path = tmp_path / "three.toml"

@@ -42,17 +42,26 @@ class WorkingAngles(NamedTuple):
     receding_deg: Any
 
 
+def _error(cls: type, owner: str, message: str, key: str = "name", liquid: Optional[str] = None) -> Exception:
+    """A `Surface` error ``surface 'owner': message`` that carries the
+    offending `key` (and probe `liquid`), for its line in a surface file."""
+    exc = cls(f"surface {owner!r}: {message}")
+    exc.key, exc.liquid = key, liquid
+    return exc
+
+
 def _number(owner: str, key: str, value: Any, lo: float = -math.inf, hi: float = math.inf,
-            lo_open: bool = False) -> Optional[float]:
+            lo_open: bool = False, liquid: Optional[str] = None) -> Optional[float]:
     if value is None:
         return None
+    label = key if liquid is None else f"{key}.{liquid}"
     if isinstance(value, bool) or not isinstance(value, (int, float, np.integer, np.floating)):
-        raise WetboilTypeError(f"surface {owner!r}: {key} must be a number, got {type(value).__name__}")
+        raise _error(WetboilTypeError, owner, f"{label} must be a number, got {type(value).__name__}", key, liquid)
     v = float(value)
     bad = not math.isfinite(v) or v > hi or (v <= lo if lo_open else v < lo)
     if bad:
         rng = f"{'(' if lo_open else '['}{lo:g}, {hi:g}]"
-        raise WetboilValueError(f"surface {owner!r}: {key} = {v:g} is outside {rng}")
+        raise _error(WetboilValueError, owner, f"{label} = {v:g} is outside {rng}", key, liquid)
     return v
 
 
@@ -141,7 +150,8 @@ class Surface:
         angles = [_number(self.name, k, v, 0.0, 180.0) for k, v in zip(_ANGLE_KEYS, (static_deg, advancing_deg, receding_deg))]
         self.static_deg, self.advancing_deg, self.receding_deg = angles
         if angles_are not in ("apparent", "intrinsic"):
-            raise WetboilValueError(f"surface {self.name!r}: angles_are must be 'apparent' or 'intrinsic', got {angles_are!r}")
+            raise _error(WetboilValueError, self.name, f"angles_are must be 'apparent' or 'intrinsic', got "
+                         f"{angles_are!r}", "angles_are")
         self.angles_are = angles_are
         self.roughness_ratio = _number(self.name, "roughness_ratio", roughness_ratio, 1.0)
         self.solid_fraction = _number(self.name, "solid_fraction", solid_fraction, 0.0, 1.0, lo_open=True)
@@ -154,7 +164,7 @@ class Surface:
         self.probe_advancing_deg = self._probe("probe_advancing_deg", probe_advancing_deg)
         self.probe_receding_deg = self._probe("probe_receding_deg", probe_receding_deg)
         if not isinstance(notes, str):
-            raise WetboilTypeError(f"surface {self.name!r}: notes must be a string")
+            raise _error(WetboilTypeError, self.name, "notes must be a string", "notes")
         self.notes = notes
         self._validate()
         if self.n is not None and self.C_sf is None:
@@ -166,7 +176,7 @@ class Surface:
         if value is None:
             return None
         if not isinstance(value, Mapping):
-            raise WetboilTypeError(f"surface {self.name!r}: {key} must map probe-liquid names to angles")
+            raise _error(WetboilTypeError, self.name, f"{key} must map probe-liquid names to angles", key)
         from . import wetting
 
         def known(liquid: str) -> bool:
@@ -183,16 +193,17 @@ class Surface:
         for liquid in map(str, value):
             if not known(liquid):
                 names = sorted({name for rows in wetting.PROBE_LIQUIDS.values() for name in rows})
-                raise WetboilValueError(
-                    f"surface {self.name!r}: {key}: unknown probe liquid {liquid!r}; known liquids: "
+                raise _error(
+                    WetboilValueError, self.name,
+                    f"{key}: unknown probe liquid {liquid!r}; known liquids: "
                     f"{', '.join(names)} (case, spaces, hyphens and underscores do not matter; 'methylene iodide' "
                     "and 'glycerin' are understood). For a liquid of your own, fit wetboil.wetting.surface_energy "
                     "with liquids={name: (dispersive, polar)} in N/m and give the working fluid's angles directly "
-                    "(static_deg, ...), e.g. from wetboil.wetting.predict_angle"
+                    "(static_deg, ...), e.g. from wetboil.wetting.predict_angle", key, liquid
                 )
-        out = {str(k): _number(self.name, f"{key}.{k}", v, 0.0, 180.0) for k, v in value.items()}
+        out = {str(k): _number(self.name, key, v, 0.0, 180.0, liquid=str(k)) for k, v in value.items()}
         if len(out) < 2:
-            raise WetboilValueError(f"surface {self.name!r}: {key} needs at least two probe liquids, got {len(out)}")
+            raise _error(WetboilValueError, self.name, f"{key} needs at least two probe liquids, got {len(out)}", key)
         return out  # type: ignore[return-value]
 
     def _validate(self) -> None:
@@ -201,26 +212,27 @@ class Surface:
         for kind, given, static in (("", (self.advancing_deg, self.receding_deg), "static_deg"),
                                     ("probe_", (self.probe_advancing_deg, self.probe_receding_deg), "probe_static_deg")):
             if getattr(self, static) is None and any(v is not None for v in given):
-                raise WetboilValueError(
-                    f"surface {self.name!r}: {kind}advancing_deg / {kind}receding_deg need {static} too (the "
-                    "static angle drives the onset and departure models)"
-                )
+                raise _error(WetboilValueError, self.name,
+                             f"{kind}advancing_deg / {kind}receding_deg need {static} too (the static angle drives "
+                             "the onset and departure models)",
+                             f"{kind}advancing_deg" if given[0] is not None else f"{kind}receding_deg")
         if direct == probes:
-            raise WetboilValueError(
-                f"surface {self.name!r}: give either the working fluid's angles (static_deg, ...) "
-                "or probe-liquid angles (probe_static_deg), not both or neither"
-            )
+            raise _error(WetboilValueError, self.name,
+                         "give either the working fluid's angles (static_deg, ...) or probe-liquid angles "
+                         "(probe_static_deg), not both or neither", "static_deg" if direct else "name")
         a, s, r = self.advancing_deg, self.static_deg, self.receding_deg
         if a is not None and r is not None and a < r:
-            raise WetboilValueError(f"surface {self.name!r}: advancing angle {a:g} deg is below the receding angle {r:g} deg")
+            raise _error(WetboilValueError, self.name,
+                         f"advancing angle {a:g} deg is below the receding angle {r:g} deg", "advancing_deg")
         if s is not None and a is not None and a < s:
-            raise WetboilValueError(f"surface {self.name!r}: advancing angle {a:g} deg is below the static angle {s:g} deg")
+            raise _error(WetboilValueError, self.name,
+                         f"advancing angle {a:g} deg is below the static angle {s:g} deg", "advancing_deg")
         if s is not None and r is not None and r > s:
-            raise WetboilValueError(f"surface {self.name!r}: receding angle {r:g} deg is above the static angle {s:g} deg")
+            raise _error(WetboilValueError, self.name,
+                         f"receding angle {r:g} deg is above the static angle {s:g} deg", "receding_deg")
         if self.solid_fraction is not None and self.angles_are != "intrinsic":
-            raise WetboilValueError(
-                f"surface {self.name!r}: solid_fraction converts intrinsic angles; set angles_are = 'intrinsic'"
-            )
+            raise _error(WetboilValueError, self.name,
+                         "solid_fraction converts intrinsic angles; set angles_are = 'intrinsic'", "solid_fraction")
 
     # -- the working fluid's angles -------------------------------------------------
     @one_warning_per_category("Surface.angles")
@@ -430,25 +442,6 @@ def _key_line(lines: List[str], span: Tuple[int, int], key: str, liquid: Optiona
     return first + 1
 
 
-def _culprit(rec: Mapping[str, Any], message: str) -> Tuple[str, Optional[str]]:
-    """The key (and probe liquid) a `Surface` error message is about, for its
-    line in the file: messages read ``surface 'name': key ...``."""
-    name = rec.get("name")
-    prefix = f"surface {name.strip()!r}: " if isinstance(name, str) else ""
-    body = message[len(prefix):] if prefix and message.startswith(prefix) else message
-    for key in sorted(rec, key=len, reverse=True):  # "notes" before "n"
-        if re.match(rf"{re.escape(key)}(?![\w])", body):
-            probes = rec[key] if key in _PROBE_KEYS and isinstance(rec[key], Mapping) else {}
-            liquid = next((str(k) for k in sorted(probes, key=lambda k: -len(str(k)))
-                           if body.startswith(f"{key}.{k} ") or f"probe liquid {str(k)!r}" in body), None)
-            return key, liquid
-    for phrase, keys in (("advancing angle", ("advancing_deg",)), ("receding angle", ("receding_deg",)),
-                         ("give either", ("static_deg", "probe_static_deg"))):
-        if body.startswith(phrase):
-            return next((k for k in keys if k in rec), "name"), None
-    return "name", None
-
-
 def _from_toml(path: pathlib.Path) -> List[Surface]:
     text = path.read_text(encoding="utf-8")
     try:
@@ -472,7 +465,9 @@ def _from_toml(path: pathlib.Path) -> List[Surface]:
         try:
             out.append(Surface.from_dict(rec))
         except (WetboilValueError, WetboilTypeError) as exc:
-            raise SurfaceFileError(f"{path}:{_key_line(lines, span, *_culprit(rec, str(exc)))}: {exc}") from None
+            key = getattr(exc, "key", "name")  # set by the Surface checks (`_error`)
+            line = _key_line(lines, span, key if key in rec else "name", getattr(exc, "liquid", None))
+            raise SurfaceFileError(f"{path}:{line}: {exc}") from None
     return out
 
 
