@@ -26,6 +26,7 @@ from wetboil.boiling import (
     cooper_superheat,
     curve,
     film_boiling,
+    natural_convection,
     partition,
     rohsenow,
     rohsenow_superheat,
@@ -558,3 +559,34 @@ def test_curve_without_xarray(water, monkeypatch):
     c = curve(water, np.geomspace(1.0, 1000.0, 20), **curve_kw())
     assert isinstance(c, boiling.BoilingCurve)
     assert c.heat_flux.shape == (20,) and c.chf_margin > 1
+
+
+def test_curve_natural_convection_by_expansion_coefficient_is_for_plates_only(water):
+    """Lloyd & Moran (J. Heat Transfer 96 (1974) 443-447) correlate natural convection from the
+    upper face of a heated horizontal plate (L = area / perimeter). A cylinder's radius is no such
+    length and the correlation says nothing about cylinders or spheres: the curve used to apply it
+    with L = radius and its range warning silenced. It must ask for a coefficient instead."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    kw = curve_kw(receding_angle_deg=None, natural_convection_coefficient=None, expansion_coefficient=7.5e-4)
+    for geometry in ("cylinder", "sphere"):
+        with pytest.raises(wetboil.WetboilError, match="horizontal-plate"):
+            curve(water, dts, **dict(kw, geometry=geometry, size=1e-3))
+    # a square plate of side s: L = s^2 / (4 s) = s / 4 (Lloyd & Moran's length), still accepted
+    c = curve(water, dts, **dict(kw, geometry="flat_plate", size=0.1))
+    np.testing.assert_allclose(c["natural_convection"].values,
+                               natural_convection(dts, water, 0.1 / 4.0, 7.5e-4), rtol=1e-14)
+
+
+def test_curve_chf_margin_is_a_ratio_and_a_missing_design_flux_is_no_infinite_margin(water):
+    """chf_margin = q_max / q_design (dimensionless ratio, as documented). A NaN design flux
+    (missing data) must propagate as NaN (README: NaN inputs propagate), not read as an infinite
+    margin; a negative design flux is impossible and raises, as sweep() does. Behavioural contract,
+    no published value."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    c = curve(water, dts, **curve_kw(design_heat_flux=2.5e5))
+    assert float(c["chf_margin"]) == pytest.approx(float(c["critical_heat_flux"]) / 2.5e5, rel=1e-14)
+    assert c["chf_margin"].attrs["units"] == "-"
+    c = curve(water, dts, **curve_kw(design_heat_flux=float("nan")))
+    assert math.isnan(float(c["chf_margin"]))
+    with pytest.raises(ValueError, match="design_heat_flux"):
+        curve(water, dts, **curve_kw(design_heat_flux=-1e5))

@@ -1006,7 +1006,8 @@ def curve(
     1. **natural convection** up to the onset of nucleate boiling:
        :math:`q = h_{nc}\Delta T` with ``natural_convection_coefficient``, or
        Lloyd & Moran's `natural_convection` with ``expansion_coefficient``
-       (L = size/4, a square plate; 1e4 <= Ra <= 1e11);
+       (flat plates only: L = size/4, a square plate; 1e4 <= Ra <= 1e11;
+       a cylinder or sphere needs ``natural_convection_coefficient``);
     2. **onset** :math:`\Delta T_{ONB}`: where the natural-convection line
        meets ``wetboil.nucleation.onset_superheat(q, fluid, method=onset)``
        (default Davis & Anderson), or ``onset_superheat`` if given;
@@ -1079,8 +1080,9 @@ def curve(
     latent_factor, emissivity : float, optional
         Film branch, as in `film_boiling`.
     design_heat_flux : float, optional
-        Design heat flux [W/m2]: gives ``design_superheat`` on the nucleate
-        branch and ``chf_margin`` = :math:`q_{max}/q_{design}`.
+        Design heat flux [W/m2], >= 0: gives ``design_superheat`` on the
+        nucleate branch and ``chf_margin`` = :math:`q_{max}/q_{design}` (a
+        ratio [-], not a difference; NaN for a NaN design flux).
     g : float, optional
         Acceleration [m/s2].
 
@@ -1201,6 +1203,14 @@ def curve(
                 return h_nc * np.asarray(x, dtype=float) if np.ndim(x) else h_nc * float(x)
 
     elif expansion_coefficient is not None:
+        if geometry in ("cylinder", "sphere"):
+            # Lloyd & Moran (1974) correlate the upper face of a heated horizontal plate: it says
+            # nothing of a cylinder or a sphere (whose radius is no plate's area / perimeter)
+            raise WetboilValueError(
+                f"{fn}: natural convection by expansion_coefficient uses Lloyd & Moran's horizontal-plate "
+                f"correlation, which does not hold for geometry {geometry!r}; give natural_convection_coefficient=... "
+                "[W/(m2 K)] (e.g. from Churchill & Chu's correlation for a horizontal cylinder)"
+            )
         if size is None:
             raise WetboilValueError(f"{fn}: natural convection by expansion_coefficient needs size=... [m]")
         _require(fluid, ("cp_l", "k_l", "mu_l"), "natural convection")
@@ -1298,8 +1308,11 @@ def curve(
 
     if design_heat_flux is not None:
         q_d = float(design_heat_flux)
+        if q_d < 0.0:
+            raise WetboilValueError(f"{fn}: design_heat_flux must be zero or positive [W/m2], got {q_d:g}")
         dt_d = float(dt_nb(q_d)) if q_d < q_max else math.nan
-        margin = q_max / q_d if q_d > 0 else math.inf
+        # a NaN design flux (missing data) gives a NaN margin, not an infinite one
+        margin = q_max / q_d if q_d != 0.0 else math.inf
     else:
         q_d, dt_d, margin = math.nan, math.nan, math.nan
 
