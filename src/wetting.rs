@@ -767,8 +767,11 @@ impl Kernel<5, 1> for VdwFilmThickness {
 ///   materials' refractive indices or dielectric constants differ strongly)
 ///   [M].
 ///
-/// Reference: J.N. Israelachvili, Intermolecular and Surface Forces, 3rd ed.
-/// (Academic Press, 2011), ch. 13, combining relations [M].
+/// References: H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum
+/// A_SLV = A_SV + A_LL - A_SL - A_LV, solid and vapour across the liquid)
+/// [M]; the geometric-mean (Berthelot)
+/// rule A_ij = sqrt(A_ii A_jj) as in P. Walstra, Physical Chemistry of Foods
+/// (2003), Table 12.1, Eq. (12.5) [seen].
 #[inline(always)]
 pub fn effective_hamaker(hamaker_solid: f64, hamaker_liquid: f64) -> f64 {
     let ok = non_negative(hamaker_solid) & non_negative(hamaker_liquid);
@@ -786,7 +789,7 @@ impl Kernel<2, 1> for EffectiveHamaker {
         outputs: &[arg("hamaker", "J")],
         domain: "hamaker_solid >= 0, hamaker_liquid >= 0, finite",
         validity: "none published: an approximate combining relation",
-        reference: "J.N. Israelachvili, Intermolecular and Surface Forces, 3rd ed. (Academic Press, 2011), ch. 13",
+        reference: "H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum); Berthelot geometric-mean rule",
         doi: "",
         verification: "combining relation [M]",
     };

@@ -1556,14 +1556,17 @@ def effective_hamaker(hamaker_solid: Any, hamaker_liquid: Any) -> Any:
 
     Notes
     -----
-    An approximation (from memory: Israelachvili's combining relations);
-    expect tens of percent, more when the materials' optical properties
-    differ strongly.
+    An approximation: Hamaker's three-media sum with the geometric-mean
+    (Berthelot) rule for the cross constants; expect tens of percent, more
+    when the materials' optical properties differ strongly.
 
     References
     ----------
-    .. [1] J.N. Israelachvili, Intermolecular and Surface Forces, 3rd ed.
-       (Academic Press, 2011), ch. 13 (from memory).
+    .. [1] H.C. Hamaker, "The London-van der Waals attraction between
+       spherical particles", Physica 4 (1937) 1058-1072 (the three-media
+       sum; from memory).
+    .. [2] P. Walstra, Physical Chemistry of Foods (Marcel Dekker, 2003),
+       Table 12.1 and Eq. (12.5), the Berthelot rule (seen).
 
     Examples
     --------
@@ -1586,7 +1589,9 @@ class HamakerConstant(NamedTuple):
 
 
 _WALSTRA = "P. Walstra, Physical Chemistry of Foods (Marcel Dekker, 2003), Table 12.2 [seen]"
-_ISRAELACHVILI = "J.N. Israelachvili, Intermolecular and Surface Forces, 3rd ed. (Academic Press, 2011), Table 13.2 [from memory]"
+_HOUGH_WHITE = ("D.B. Hough and L.R. White, Adv. Colloid Interface Sci. 14 (1980) 3-41, Lifshitz-theory "
+                "values [from memory]")
+_PARSEGIAN_WEISS = "V.A. Parsegian and G.H. Weiss, J. Colloid Interface Sci. 81 (1981) 285-289 [from memory]"
 
 #: Hamaker constants of materials across vacuum, ``name -> HamakerConstant``
 #: (value in J). Walstra's values were seen in the book's table; the PTFE
@@ -1603,8 +1608,8 @@ HAMAKER_CONSTANTS: Dict[str, HamakerConstant] = {
         ("solid paraffin", 7.1e-20, _WALSTRA),
         ("polystyrene", 6.5e-20, _WALSTRA),
         ("glass", 9.0e-20, _WALSTRA + " (quoted as approximate)"),
-        ("ptfe", 3.8e-20, _ISRAELACHVILI),
-        ("metal", 3.25e-19, _ISRAELACHVILI + "; middle of 25-40e-20 J for Au, Ag, Cu"),
+        ("ptfe", 3.8e-20, _HOUGH_WHITE),
+        ("metal", 3.25e-19, _PARSEGIAN_WEISS + "; middle of 25-40e-20 J for Au, Ag, Cu"),
     ]
 }
 
