@@ -32,7 +32,7 @@ from wetboil.boiling import (
     rohsenow_superheat,
     surface_constant,
 )
-from wetboil.chf import kandlikar, minimum_heat_flux
+from wetboil.chf import kandlikar, lienhard_dhir, minimum_heat_flux, zuber
 from wetboil.fluids import Saturation
 
 # Incropera, DeWitt, Bergman & Lavine, Fundamentals of Heat and Mass Transfer,
@@ -590,3 +590,25 @@ def test_curve_chf_margin_is_a_ratio_and_a_missing_design_flux_is_no_infinite_ma
     assert math.isnan(float(c["chf_margin"]))
     with pytest.raises(ValueError, match="design_heat_flux"):
         curve(water, dts, **curve_kw(design_heat_flux=-1e5))
+
+
+def test_curve_flat_heater_chf_on_a_cylinder_or_sphere_warns(water):
+    """Kandlikar (J. Heat Transfer 123 (2001) 1071-1079) and Zuber (AECU-4439, 1959) model a flat
+    heater; they have no heater size. On a thin wire the peak heat flux depends on R' (Sun &
+    Lienhard, Int. J. Heat Mass Transfer 13 (1970) 1425-1439: q/q_Z = 0.89 + 2.27 exp(-3.44 sqrt R'),
+    evaluated here by hand from that equation): a 0.5 mm radius wire (R' = 0.2) in water at 1 atm is
+    about 1.38x Zuber's value, Kandlikar's flat-plate value at 45 deg 1.15x whatever the size. The
+    curve used to apply the flat-heater value to a cylinder or sphere silently; it must say so."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    r = 5e-4
+    l_c = math.sqrt(water.sigma / (9.80665 * (water.rho_l - water.rho_v)))
+    sun_lienhard = (0.89 + 2.27 * math.exp(-3.44 * math.sqrt(r / l_c))) * zuber(water)
+    assert float(lienhard_dhir(water, "cylinder", r)) == pytest.approx(sun_lienhard, rel=1e-12)
+    for geometry in ("cylinder", "sphere"):
+        for method in ("kandlikar", "zuber"):
+            with pytest.warns(wetboil.RangeWarning, match=f"chf='{method}' \\(a flat heater"):
+                curve(water, dts, **curve_kw(chf=method, geometry=geometry, size=r))
+    with warnings.catch_warnings():  # the finite-body model on a wire: no such warning
+        warnings.simplefilter("error")
+        c = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=r))
+    assert float(c["critical_heat_flux"]) == pytest.approx(sun_lienhard, rel=1e-12)

@@ -1045,6 +1045,9 @@ def curve(
         depends on it (beyond 90 deg a `RangeWarning`); the flat-plate forms
         of Zuber and Lienhard-Dhir hold facing up only and do not: any other
         orientation gives a `RangeWarning` and the facing-up value.
+        ``chf="kandlikar"`` or ``"zuber"`` on a ``"cylinder"`` or ``"sphere"``
+        is a flat-heater value that ignores ``size``: a `RangeWarning` (use
+        ``chf="lienhard_dhir"`` for those bodies).
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
@@ -1240,6 +1243,10 @@ def curve(
     if chf != "kandlikar" and geometry in (None, "flat_plate", "small_flat_plate") and not orientation_deg == 0.0:
         # the flat-plate forms hold for a heater facing up: elsewhere the value is that of one facing up
         report(f"{fn}: chf='{chf}' (a horizontal heater facing up) at orientation_deg={orientation_deg:g}", 1, 0, 1)
+    if chf in ("kandlikar", "zuber") and geometry in ("cylinder", "sphere"):
+        # Kandlikar (2001) and Zuber (1959) model a flat heater: on a cylinder or a sphere they ignore
+        # its size, which sets the peak heat flux of small bodies (Sun & Lienhard 1970; Lienhard & Dhir 1973)
+        report(f"{fn}: chf='{chf}' (a flat heater; the size is not used) on geometry {geometry!r}", 1, 0, 1)
     dt_chf = float(dt_nb(q_max))
 
     # -- onset
