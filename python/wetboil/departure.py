@@ -106,7 +106,7 @@ def fritz(contact_angle_deg: Any, fluid: Saturation, g: Any = G) -> Any:
 
     Three forms of the constant circulate: 0.0208 per degree with
     :math:`\sqrt{\sigma/g\Delta\rho}` (used here, the most cited), and
-    0.0148 per degree (= 0.851 per radian) with :math:`\sqrt{2\sigma/g\Delta\rho}`;
+    0.0148 per degree (= 0.848 per radian) with :math:`\sqrt{2\sigma/g\Delta\rho}`;
     they differ by 0.6 %. Fritz's original paper was not available to us; the
     choice follows the common restatement and is marked unverified in
     `wetboil.models()` [M, high]. The 0.0148 form is available as
