@@ -188,8 +188,14 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
     -----
     The contact angle does not enter: this correlation has the pressure
     effect Fritz lacks and no wettability effect. No published validity range
-    was available to us; nothing is flagged. Verification: the form and both
-    constants are [M, high]; the paper was not available to us.
+    was available to us; nothing is flagged. Its modified Jakob number grows
+    without bound at both ends of the saturation line, and so does the
+    diameter: water gives 2.4 mm at 1 atm but 31 mm at 10 kPa and 0.40 m at
+    1 kPa, and turns upward near the critical point (18 um at 20 MPa, 1.1 mm
+    at 22 MPa, where c_p of the liquid diverges) [D, this function with
+    IAPWS properties]. Treat results far from the pressures of its data as
+    extrapolation. Verification: the form and both constants are [M, high];
+    the paper was not available to us.
 
     References
     ----------
