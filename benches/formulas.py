@@ -375,7 +375,7 @@ def _(wall_superheat, sigma, T, rho_l, rho_v, h_lv, contact_angle_deg, thermal_l
     t = np.radians(contact_angle_deg)
     c1 = (1 + np.cos(t)) / np.sin(t)
     c3 = 1 + np.cos(t)
-    zeta = 2 * sigma * T * (1 / rho_v - 1 / rho_l) / h_lv
+    zeta = 2 * sigma * T / (rho_v * h_lv)  # Hsu's 1/rho_v form
     theta_w = wall_superheat + subcooling
     a = wall_superheat / theta_w
     root = np.sqrt(a**2 - 4 * zeta * c3 / (thermal_layer * theta_w))  # NaN: no active cavity
@@ -389,7 +389,7 @@ def _(wall_superheat, sigma, T, rho_l, rho_v, h_lv, contact_angle_deg, thermal_l
     t = math.radians(contact_angle_deg)
     c1 = (1 + math.cos(t)) / math.sin(t)
     c3 = 1 + math.cos(t)
-    zeta = 2 * sigma * T * (1 / rho_v - 1 / rho_l) / h_lv
+    zeta = 2 * sigma * T / (rho_v * h_lv)  # Hsu's 1/rho_v form
     theta_w = wall_superheat + subcooling
     a = wall_superheat / theta_w
     d = a**2 - 4 * zeta * c3 / (thermal_layer * theta_w)
@@ -403,14 +403,14 @@ def _(wall_superheat, sigma, T, rho_l, rho_v, h_lv, contact_angle_deg, thermal_l
 @numpy_form("hsu_onset")
 def _(heat_flux, sigma, T, rho_l, rho_v, h_lv, k_l, contact_angle_deg):
     t = np.radians(contact_angle_deg)
-    zeta = 2 * sigma * T * (1 / rho_v - 1 / rho_l) / h_lv
+    zeta = 2 * sigma * T / (rho_v * h_lv)  # Hsu's 1/rho_v form
     return np.sqrt(4 * (1 + np.cos(t)) * zeta * heat_flux / k_l), np.sin(t / 2) * np.sqrt(2 * zeta * k_l / heat_flux)
 
 
 @python_form("hsu_onset")
 def _(heat_flux, sigma, T, rho_l, rho_v, h_lv, k_l, contact_angle_deg):
     t = math.radians(contact_angle_deg)
-    zeta = 2 * sigma * T * (1 / rho_v - 1 / rho_l) / h_lv
+    zeta = 2 * sigma * T / (rho_v * h_lv)  # Hsu's 1/rho_v form
     return math.sqrt(4 * (1 + math.cos(t)) * zeta * heat_flux / k_l), math.sin(t / 2) * math.sqrt(2 * zeta * k_l / heat_flux)
 
 
@@ -428,13 +428,13 @@ def _(heat_flux, sigma, T, rho_l, rho_v, h_lv, k_l):
 
 @numpy_form("kandlikar_onset")
 def _(heat_flux, sigma, T, rho_l, rho_v, h_lv, k_l, contact_angle_deg):
-    dT = np.sqrt(8.8 * sigma * T * (1 / rho_v - 1 / rho_l) * heat_flux / (h_lv * k_l))
+    dT = np.sqrt(8.8 * sigma * T * heat_flux / (rho_v * h_lv * k_l))
     return dT, np.sin(np.radians(contact_angle_deg)) * k_l * dT / (2.2 * heat_flux)
 
 
 @python_form("kandlikar_onset")
 def _(heat_flux, sigma, T, rho_l, rho_v, h_lv, k_l, contact_angle_deg):
-    dT = math.sqrt(8.8 * sigma * T * (1 / rho_v - 1 / rho_l) * heat_flux / (h_lv * k_l))
+    dT = math.sqrt(8.8 * sigma * T * heat_flux / (rho_v * h_lv * k_l))
     return dT, math.sin(math.radians(contact_angle_deg)) * k_l * dT / (2.2 * heat_flux)
 
 

@@ -26,6 +26,17 @@ fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f6
     2.0 * sigma * t_sat * (rho_l - rho_v) / (rho_l * rho_v * h_lv)
 }
 
+/// The group `2 σ T_sat / (ρ_v h_lv)` [K m] of Hsu's and Kandlikar's nucleus
+/// (their published form): the first-order embryo superheat with the liquid at
+/// the lower pressure (Poynting), which the exact embryo tends to for large
+/// radii (see `wetboil.nucleation.embryo_superheat`); larger than
+/// [`embryo_group`] by `1/(1 − ρ_v/ρ_l)` (0.06 % for water at 1 atm, 2x near
+/// 20 MPa).
+#[inline(always)]
+fn vapour_group(sigma: f64, t_sat: f64, rho_v: f64, h_lv: f64) -> f64 {
+    2.0 * sigma * t_sat / (rho_v * h_lv)
+}
+
 #[inline(always)]
 fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> bool {
     all_positive!(sigma, t_sat, rho_v, h_lv, rho_l - rho_v)
@@ -551,7 +562,9 @@ impl Kernel<2, 1> for Bankoff {
 /// A nucleus on a cavity of mouth radius r_c is a spherical cap of radius
 /// `r_b = C₂ r_c` and height `y_b = C₁ r_c`; it grows when the liquid at its top,
 /// in a linear thermal layer of thickness δ, is at least at the embryo
-/// superheat `ζ/r_b` (ζ = 2σT_sat v_lv/h_lv, as in [`embryo_superheat`]):
+/// superheat `ζ/r_b`, ζ = 2σT_sat/(ρ_v h_lv) as Hsu wrote it (the first-order
+/// embryo with the liquid at the lower pressure; [`embryo_superheat`]'s v_lv
+/// form is smaller by 1 − ρ_v/ρ_l):
 ///
 /// `r = (δ / 2C₁) [a ± √(a² − 4ζC₃/(δ θ_w))]`, `a = ΔT_w/θ_w`, `θ_w = ΔT_w + ΔT_sub`,
 ///
@@ -582,7 +595,7 @@ pub fn hsu_active_radii(
         & fluid_possible(sigma, t_sat, rho_l, rho_v, h_lv)
         & angle_deg(contact_angle_deg)
         & all_positive!(thermal_layer; subcooling);
-    let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
+    let zeta = vapour_group(sigma, t_sat, rho_v, h_lv);
     let s = sin_deg(0.5 * contact_angle_deg);
     let c = cos_deg(0.5 * contact_angle_deg);
     let theta_w = wall_superheat + subcooling;
@@ -605,7 +618,7 @@ impl Kernel<9, 2> for HsuActiveRadii {
         name: "hsu_active_radii",
         summary: "Hsu (1962) range of active cavity radii with the general contact-angle constants",
         equation: "r = delta/(2 C1) * (a +- sqrt(a**2 - 4 zeta C3/(delta theta_w))), a = dTw/theta_w, theta_w = dTw + dTsub, \
-                   C1 = (1+cos t)/sin t, C3 = 1 + cos t, zeta = 2 sigma T_sat (1/rho_v - 1/rho_l)/h_lv",
+                   C1 = (1+cos t)/sin t, C3 = 1 + cos t, zeta = 2 sigma T_sat/(rho_v h_lv)",
         inputs: &[
             arg("wall_superheat", "K"),
             arg("fluid.sigma", "N/m"),
@@ -654,9 +667,11 @@ fn onset_possible(q: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: 
 /// of contact angle θ (Hsu's constants, C₃ = 1 + cos θ, nucleus height y = C₁ r_c):
 ///
 /// `ΔT_ONB = √(4 C₃ ζ q''/k_l) = 2 cos(θ/2) √(2ζ q''/k_l)`,
-/// `r_c = k_l ΔT_ONB/(2 q'' C₁) = sin(θ/2) √(2 ζ k_l/q'')`, ζ = 2σT_sat v_lv/h_lv.
+/// `r_c = k_l ΔT_ONB/(2 q'' C₁) = sin(θ/2) √(2 ζ k_l/q'')`, ζ = 2σT_sat/(ρ_v h_lv)
+/// (Hsu's 1/ρ_v form; see [`vapour_group`]).
 ///
-/// θ = 90° (C₃ = 1) is Davis & Anderson's hemispherical nucleus; Hsu's C₃ = 1.6
+/// θ = 90° (C₃ = 1) is the hemispherical nucleus of Sato & Matsumura (1/ρ_v)
+/// and of Davis & Anderson (v_lv, [`davis_anderson`]); Hsu's C₃ = 1.6
 /// (53°) gives the coefficient 12.8 of `σ T_sat q''/(ρ_v h_lv k_l)`. Subcooling does
 /// not enter at given heat flux. q'' = 0 gives (0, ∞).
 ///
@@ -689,18 +704,29 @@ fn hsu_angle_factors(contact_angle_deg: f64) -> [f64; 2] {
 /// The fluid factors `[√(2ζ q''/k_l), √(2ζ k_l/q'')]` of [`hsu_onset`]; NaN for impossible input.
 #[inline(always)]
 fn hsu_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    tangency(2.0, 2.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
+    tangency::<false>(2.0, 2.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
 }
 
 /// The fluid part shared by the tangency onset models (Hsu, Davis-Anderson,
-/// Kandlikar): `[√(c_t ζ q''/k_l), √(c_r ζ k_l/q'')]` with ζ = 2σT_sat v_lv/h_lv,
-/// NaN for impossible input. q'' = 0 gives (0, ∞).
+/// Kandlikar): `[√(c_t ζ q''/k_l), √(c_r ζ k_l/q'')]` with ζ = 2σT_sat v_lv/h_lv
+/// when `V_LV` (Davis & Anderson's form), else 2σT_sat/(ρ_v h_lv) (Hsu's and
+/// Kandlikar's), NaN for impossible input. q'' = 0 gives (0, ∞).
 #[allow(clippy::too_many_arguments)]
 #[inline(always)]
-fn tangency(c_t: f64, c_r: f64, heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
+fn tangency<const V_LV: bool>(
+    c_t: f64,
+    c_r: f64,
+    heat_flux: f64,
+    sigma: f64,
+    t_sat: f64,
+    rho_l: f64,
+    rho_v: f64,
+    h_lv: f64,
+    k_l: f64,
+) -> [f64; 2] {
     let ok = onset_possible(heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l);
     let heat_flux = heat_flux.abs(); // -0.0 is zero flux: radius +inf, not NaN
-    let zeta = embryo_group(sigma, t_sat, rho_l, rho_v, h_lv);
+    let zeta = if V_LV { embryo_group(sigma, t_sat, rho_l, rho_v, h_lv) } else { vapour_group(sigma, t_sat, rho_v, h_lv) };
     nans_unless(ok, [(c_t * zeta * heat_flux / k_l).sqrt(), (c_r * zeta * k_l / heat_flux).sqrt()])
 }
 
@@ -719,7 +745,7 @@ impl Kernel<8, 2> for HsuOnset {
     const MODEL: Model = Model {
         name: "hsu_onset",
         summary: "Onset-of-boiling superheat and critical cavity radius from the tangency criterion with Hsu's contact-angle constants",
-        equation: "dT = sqrt(4 (1 + cos t) zeta q/k_l), r_c = sin(t/2) sqrt(2 zeta k_l/q), zeta = 2 sigma T_sat (1/rho_v - 1/rho_l)/h_lv",
+        equation: "dT = sqrt(4 (1 + cos t) zeta q/k_l), r_c = sin(t/2) sqrt(2 zeta k_l/q), zeta = 2 sigma T_sat/(rho_v h_lv)",
         inputs: &[
             arg("heat_flux", "W/m2"),
             ONSET_FLUID[0],
@@ -735,7 +761,8 @@ impl Kernel<8, 2> for HsuOnset {
         validity: "linear liquid temperature profile near the wall; no published numeric range",
         reference: "Y.Y. Hsu, J. Heat Transfer 84 (1962) 207-213",
         doi: "10.1115/1.3684339",
-        verification: "general-C3 tangency derived [D]; equals Davis-Anderson at 90 deg (tests)",
+        verification: "general-C3 tangency derived [D]; Hsu's 1/rho_v embryo [M, med-high]; at 90 deg Davis-Anderson with \
+                       1/rho_v for v_lv (tests)",
     };
     #[inline(always)]
     fn eval(x: &[f64; 8]) -> [f64; 2] {
@@ -778,7 +805,7 @@ impl Factored<8, 2> for HsuOnset {
 /// Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398 (same criterion).
 #[inline(always)]
 pub fn davis_anderson(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    tangency(4.0, 1.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
+    tangency::<true>(4.0, 1.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
 }
 
 /// Kernel of [`davis_anderson`].
@@ -818,8 +845,9 @@ impl Kernel<7, 2> for DavisAnderson {
 /// cavity radius [m] with the receding contact angle θ_r: the liquid temperature
 /// is taken at the stagnation point `y_s = 1.1 r_b`, `r_b = r_c / sin θ_r`:
 ///
-/// `ΔT_ONB = √(8.8 σ T_sat v_lv q''/(h_lv k_l))`,
-/// `r_c = sin θ_r k_l ΔT_ONB/(2.2 q'') = sin θ_r √(2σ T_sat v_lv k_l/(1.1 h_lv q''))`.
+/// `ΔT_ONB = √(8.8 σ T_sat q''/(ρ_v h_lv k_l))`,
+/// `r_c = sin θ_r k_l ΔT_ONB/(2.2 q'') = sin θ_r √(2σ T_sat k_l/(1.1 ρ_v h_lv q''))`
+/// (the 1/ρ_v form as Kandlikar writes it [M, med-high]).
 ///
 /// The receding angle moves the critical radius, not the superheat.
 ///
@@ -853,7 +881,7 @@ fn kandlikar_onset_angle_factors(receding_angle_deg: f64) -> [f64; 2] {
 /// The fluid factors `[√(4.4 ζ q''/k_l), √(ζ k_l/(1.1 q''))]` of [`kandlikar_onset`].
 #[inline(always)]
 fn kandlikar_onset_fluid_factors(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
-    tangency(4.4, 1.0 / 1.1, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
+    tangency::<false>(4.4, 1.0 / 1.1, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
 }
 
 /// Kernel of [`kandlikar_onset`].
@@ -862,7 +890,7 @@ impl Kernel<8, 2> for KandlikarOnset {
     const MODEL: Model = Model {
         name: "kandlikar_onset",
         summary: "Kandlikar et al. (1997) onset-of-boiling superheat and critical cavity radius (receding angle, stagnation at 1.1 r_b)",
-        equation: "dT = sqrt(8.8 sigma T_sat v_lv q/(h_lv k_l)), r_c = sin(theta_r) k_l dT/(2.2 q)",
+        equation: "dT = sqrt(8.8 sigma T_sat q/(rho_v h_lv k_l)), r_c = sin(theta_r) k_l dT/(2.2 q)",
         inputs: &[
             arg("heat_flux", "W/m2"),
             ONSET_FLUID[0],
@@ -1552,19 +1580,22 @@ mod tests {
     const K_L: f64 = 0.6791;
 
     #[test]
-    fn hsu_tangency_at_ninety_degrees_is_davis_anderson() {
+    fn hsu_tangency_at_ninety_degrees_is_davis_anderson_with_one_over_rho_v() {
+        // Davis & Anderson write v_lv, Hsu (and Sato & Matsumura) 1/rho_v: at 90 deg the two
+        // differ by that factor alone, sqrt(1 - rho_v/rho_l) in the superheat.
+        let f = (1.0 - W.3 / W.2).sqrt();
         for q in [1e3, 1e5, 3e6] {
             let h = hsu_onset(q, W.0, W.1, W.2, W.3, W.4, K_L, 90.0);
             let d = davis_anderson(q, W.0, W.1, W.2, W.3, W.4, K_L);
-            assert_relative_eq!(h[0], d[0], max_relative = 1e-14);
-            assert_relative_eq!(h[1], d[1], max_relative = 1e-14);
-            // Hsu's own constants (53.13 deg) give the coefficient 12.8 (MODELS B5).
+            assert_relative_eq!(h[0] * f, d[0], max_relative = 1e-14);
+            assert_relative_eq!(h[1] * f, d[1], max_relative = 1e-14);
+            // Hsu's own constants (53.13 deg) give the coefficient 12.8 of sigma T q/(rho_v h k).
             let hsu53 = hsu_onset(q, W.0, W.1, W.2, W.3, W.4, K_L, 0.6f64.acos().to_degrees());
-            let zeta = embryo_group(W.0, W.1, W.2, W.3, W.4);
-            assert_relative_eq!(hsu53[0], (6.4 * zeta * q / K_L).sqrt(), max_relative = 1e-13);
-            // Kandlikar et al.: coefficient 8.8, i.e. sqrt(1.1) times Davis-Anderson.
+            assert_relative_eq!(hsu53[0], (12.8 * W.0 * W.1 * q / (W.3 * W.4 * K_L)).sqrt(), max_relative = 1e-13);
+            // Kandlikar et al.: coefficient 8.8 of sigma T q/(rho_v h k), sqrt(1.1) times Hsu at 90 deg.
             let k = kandlikar_onset(q, W.0, W.1, W.2, W.3, W.4, K_L, 40.0);
-            assert_relative_eq!(k[0], 1.1f64.sqrt() * d[0], max_relative = 1e-14);
+            assert_relative_eq!(k[0], (8.8 * W.0 * W.1 * q / (W.3 * W.4 * K_L)).sqrt(), max_relative = 1e-14);
+            assert_relative_eq!(k[0], 1.1f64.sqrt() * h[0], max_relative = 1e-14);
             assert_relative_eq!(k[1], 40f64.to_radians().sin() * K_L * k[0] / (2.2 * q), max_relative = 1e-13);
         }
     }
@@ -1574,7 +1605,7 @@ mod tests {
         let (delta, theta) = (2e-4, 60.0);
         for sub in [0.0, 10.0, 40.0] {
             // Closure: dTw^2 = 4 zeta C3 (dTw + sub)/delta.
-            let zeta = embryo_group(W.0, W.1, W.2, W.3, W.4);
+            let zeta = vapour_group(W.0, W.1, W.3, W.4);
             let b = 4.0 * zeta * (1.0 + cos_deg(theta)) / delta;
             let dt = 0.5 * (b + (b * b + 4.0 * b * sub).sqrt());
             let q = K_L * (dt + sub) / delta;
