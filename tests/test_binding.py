@@ -7,6 +7,7 @@ here are the same formula evaluated by NumPy, an independent implementation.
 
 import inspect
 import math
+import os
 import pickle
 import subprocess
 import sys
@@ -738,3 +739,33 @@ def test_shape_shortcuts_agree_with_numpy():
                 _broadcast_shape(shapes)
         else:
             assert _broadcast_shape(shapes) == want, shapes
+
+
+def test_set_num_threads_rejects_counts_far_above_the_cores():
+    # Common practice, no published source: a thread pool larger than a few
+    # threads per core only adds start-up and switching. wetboil's pool starts
+    # every thread before a call runs: set_num_threads(100000) made the next
+    # large call spend minutes starting threads (1750 started after 35 s on a
+    # 2-core machine) instead of computing.
+    old = wetboil.get_num_threads()
+    try:
+        for bad in (4 * (os.cpu_count() or 1) + 1, 100_000, 2**40):
+            with pytest.raises(wetboil.WetboilValueError, match="per logical core"):
+                wetboil.set_num_threads(bad)
+            assert wetboil.get_num_threads() == old
+        wetboil.set_num_threads(4 * (os.cpu_count() or 1))  # the largest count allowed
+    finally:
+        wetboil.set_num_threads(old)
+
+
+def test_environment_thread_count_far_above_the_cores_is_capped():
+    import subprocess
+    code = ("import warnings, os\n"
+            "with warnings.catch_warnings(record=True) as w:\n"
+            "    warnings.simplefilter('always')\n"
+            "    import wetboil\n"
+            "print(wetboil.get_num_threads() == 4 * (os.cpu_count() or 1), "
+            "any('WETBOIL_NUM_THREADS' in str(x.message) for x in w))\n")
+    env = dict(os.environ, WETBOIL_NUM_THREADS="100000")
+    out = subprocess.run([sys.executable, "-c", code], env=env, capture_output=True, text=True, timeout=120)
+    assert out.stdout.split() == ["True", "True"], out.stdout + out.stderr

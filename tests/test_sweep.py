@@ -211,6 +211,17 @@ def test_sweep_names_its_fluid_and_the_fields_it_lacks():
     assert df.attrs["fluid_fields_missing"] == "sigma, k_v" and df.attrs["fluid"] == "water"
 
 
+def test_sweep_and_screen_record_the_wetboil_version():
+    # Wiring (no outside value): a stored sweep.nc or summary must say which
+    # version computed it, since correlations and constants change between versions.
+    s = SURFACES[:1]
+    ds = wetboil.sweep(s, "water", p=[1e5, 2e5], heat_flux=3e5)
+    assert ds.attrs["wetboil_version"] == wetboil.__version__
+    lazy = wetboil.sweep(s, "water", p=[1e5, 2e5], heat_flux=3e5, chunks=1, compute=False)
+    assert lazy.attrs["wetboil_version"] == wetboil.__version__
+    assert wetboil.screen(s, "water", heat_flux=3e5, p=1e5).attrs["wetboil_version"] == wetboil.__version__
+
+
 def test_a_pressure_in_kpa_gets_the_unit_hint_in_python_too():
     # 101.325 "Pa" is below water's triple point, 611.657 Pa (IAPWS R14-08(2011)); as kPa it is 1 atm.
     with pytest.warns(wetboil.WetboilWarning, match=r"101.325 Pa outside .* they look like kPa \(x 1e3\)"):

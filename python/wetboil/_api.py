@@ -84,12 +84,42 @@ def get_num_threads() -> int:
     return _core.get_num_threads()
 
 
+def _max_num_threads() -> int:
+    """Most threads `set_num_threads` accepts: four per logical core of the
+    machine (``os.cpu_count()``). The pool starts every thread it is given
+    before a call runs, so a mistyped count (say 100000) would keep the first
+    large call starting threads for minutes instead of computing."""
+    return 4 * (os.cpu_count() or 1)
+
+
 def set_num_threads(n: int) -> None:
     """Set the number of threads large array calls use (default: the
-    ``WETBOIL_NUM_THREADS`` environment variable, else all cores)."""
+    ``WETBOIL_NUM_THREADS`` environment variable, else all cores), from 1 to
+    four per logical core (``os.cpu_count()``); a larger count raises
+    `WetboilValueError` (the environment variable is capped there, with a
+    warning)."""
     if isinstance(n, bool) or not isinstance(n, (int, np.integer)) or n < 1:
         raise WetboilValueError(f"set_num_threads: n must be a positive integer, got {n!r}")
+    if n > _max_num_threads():
+        raise WetboilValueError(f"set_num_threads: n = {n} is more than four threads per logical core of this machine "
+                                f"({os.cpu_count() or 1} cores: at most {_max_num_threads()}); every thread is started "
+                                f"before a call runs")
     _core.set_num_threads(int(n))
+
+
+def _cap_env_threads() -> None:
+    # WETBOIL_NUM_THREADS is read by the Rust pool; a count far above the
+    # machine's cores would make the first large call start that many threads.
+    n = _core.get_num_threads()
+    if n > _max_num_threads():
+        import warnings
+        from ._errors import WetboilWarning
+        warnings.warn(f"WETBOIL_NUM_THREADS={n} is more than four threads per logical core of this machine; using "
+                      f"{_max_num_threads()}", WetboilWarning, stacklevel=2)
+        _core.set_num_threads(_max_num_threads())
+
+
+_cap_env_threads()
 
 
 def set_buffer_cache(max_bytes: int) -> int:

@@ -800,8 +800,14 @@ def _decorate(ds: Any, meth: Dict[str, Any], state_dim: str) -> Any:
         caution="CHF predictions carry correlation uncertainty of tens of percent and hold only inside their "
         "validity ranges; apply safety margins and defer to local codes and licensed engineering practice.",
         created_by="wetboil",
+        wetboil_version=_version(),
     )
     return ds
+
+
+def _version() -> str:
+    from . import __version__
+    return __version__
 
 
 def _flag_text(mask: int, bits: List[str]) -> str:
@@ -866,7 +872,7 @@ def ranked_table(ds: Any) -> Any:
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
     df.attrs["units"] = units
-    for key in ("fluid", "fluid_fields_missing", "dispersive_fraction", "methods", "caution"):
+    for key in ("fluid", "fluid_fields_missing", "dispersive_fraction", "methods", "caution", "wetboil_version"):
         if key in ds.attrs:
             df.attrs[key] = ds.attrs[key]
     return df
