@@ -174,6 +174,19 @@ def test_spec_errors_are_one_line_and_leave_no_output(tmp_path, change, message)
         load_spec(spec)  # SpecError, or SurfaceFileError for a surface
 
 
+def test_spec_not_in_utf8_is_a_one_line_error(tmp_path):
+    """Behavioural contract (no outside source): TOML is UTF-8 (toml.io/en/v1.0.0, "A TOML file must
+    be a valid UTF-8 encoded Unicode document"); a spec saved in Windows-1252 was a traceback."""
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    spec.write_bytes(SPEC.replace("Two-coating", "Caf\u00e9 two-coating").encode("cp1252"))
+    r = run("run", str(spec), "--out", str(tmp_path / "out"))
+    err = r.stderr.strip()
+    assert r.returncode == 1 and len(err.splitlines()) == 1, err
+    assert "study.toml:3: not UTF-8 text" in err, err
+    assert not (tmp_path / "out").exists()
+
+
 def test_spec_method_that_does_not_fit_the_fluid_is_a_spec_error(tmp_path):
     """Bergles-Rohsenow is a correlation for water (Bergles and Rohsenow, J.
     Heat Transfer 86 (1964) 365-372); with another fluid the spec is refused

@@ -457,6 +457,30 @@ def test_surface_file_errors_name_key_and_line(tmp_path):
         load_surfaces(badcsv)
 
 
+def test_surface_files_not_in_utf8_name_file_and_line(tmp_path):
+    """Behavioural contract (no outside source): the docstring's promise that errors name the file
+    and line holds for a file in another encoding too. A spreadsheet's plain "CSV" export is often
+    Windows-1252 (common practice, from memory): 0xe9 is its e-acute, not valid UTF-8."""
+    bad = tmp_path / "sheet.csv"
+    bad.write_bytes("name,static_deg\nplain (invented),40\nt\u00e9flon (invented),110\n".encode("cp1252"))
+    with pytest.raises(SurfaceFileError, match=r"sheet.csv:3: not UTF-8 text \(byte 0xe9\).*CSV UTF-8"):
+        load_surfaces(bad)
+    bad = tmp_path / "s.toml"
+    bad.write_bytes('[[surface]]\nname = "t\u00e9flon (invented)"\nstatic_deg = 110.0\n'.encode("cp1252"))
+    with pytest.raises(SurfaceFileError, match=r"s.toml:2: not UTF-8 text"):
+        load_surfaces(bad)
+
+
+def test_duplicate_surface_names_are_named_not_every_name_listed():
+    """Behavioural contract (no outside source): with thousands of candidates the error names the
+    duplicated names only."""
+    surfaces = [Surface(f"T{i:04d} (invented)", 50) for i in range(2000)] + [Surface("T0005 (invented)", 40)]
+    with pytest.raises(wetboil.WetboilValueError) as info:
+        wetboil.sweep(surfaces, "water", p=1e5, heat_flux=1e5)
+    msg = str(info.value)
+    assert "'T0005 (invented)'" in msg and "T0006" not in msg and len(msg) < 200, msg
+
+
 # Awkward text for the file writers (invented): every character TOML 1.0 makes a basic string escape
 # (quote, backslash, U+0000-U+001F, U+007F; toml.io/en/v1.0.0#string), tab, CR and CRLF, non-ASCII
 # letters, an astral-plane character and U+2028 (a line separator to str.splitlines, not to TOML).

@@ -94,7 +94,8 @@ def _cmd_run(args: argparse.Namespace) -> int:
     existed = args.out is not None and pathlib.Path(args.out).exists()
     out = _new_out_dir(args.out, "wetboil-run")
     try:
-        report = run_study(study, out, progress=args.progress, spec_text=pathlib.Path(args.spec).read_text())
+        spec_text = pathlib.Path(args.spec).read_text(encoding="utf-8")
+        report = run_study(study, out, progress=args.progress, spec_text=spec_text)
     except BaseException:
         if not existed and out.is_dir() and not any(out.iterdir()):
             out.rmdir()  # no empty folder that looks like a run

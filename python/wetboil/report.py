@@ -45,7 +45,7 @@ from typing import Any, Dict, List, Optional, Tuple
 import numpy as np
 
 from ._errors import RangeWarning, WetboilError, WetboilValueError
-from .surface import Surface, _from_toml, load_surfaces
+from .surface import Surface, _check_utf8, _from_toml, load_surfaces
 
 try:  # Python >= 3.11
     import tomllib as _toml
@@ -112,7 +112,8 @@ def load_spec(path: Any) -> Study:
     path = pathlib.Path(path)
     if not path.exists():
         raise SpecError(f"{path}: no such file")
-    text = path.read_text()
+    _check_utf8(path, SpecError)  # TOML is UTF-8, whatever the locale's encoding
+    text = path.read_text(encoding="utf-8")
     try:
         data = _toml.loads(text)
     except _toml.TOMLDecodeError as exc:

@@ -520,6 +520,19 @@ def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
         raise SurfaceFileError(f"{path}:{line}: {key} = {value!r} is not a number") from None
 
 
+def _check_utf8(path: pathlib.Path, error: type) -> None:
+    """Raise `error` naming the file and line when `path` is not UTF-8 text (a
+    spreadsheet's plain "CSV" is often Windows-1252, not UTF-8)."""
+    data = path.read_bytes()
+    try:
+        data.decode("utf-8")
+    except UnicodeDecodeError as exc:
+        line = data[: exc.start].count(b"\n") + 1
+        hint = ' (in a spreadsheet: "CSV UTF-8")' if path.suffix.lower() == ".csv" else ""
+        raise error(f"{path}:{line}: not UTF-8 text (byte 0x{data[exc.start]:02x}); "
+                    f"save the file as UTF-8{hint}") from None
+
+
 def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
     """Read surfaces from a TOML file (``[[surface]]`` tables with the keys of
     `Surface`) or a CSV file (one row per surface; probe angles as columns
@@ -532,6 +545,7 @@ def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
     path = pathlib.Path(path)
     if not path.exists():
         raise SurfaceFileError(f"{path}: no such file")
+    _check_utf8(path, SurfaceFileError)
     if path.suffix.lower() == ".toml":
         return _from_toml(path)
     if path.suffix.lower() == ".csv":

@@ -255,7 +255,11 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
     with the fluid state when they are predicted from probe liquids)."""
     names = [s.name for s in surfaces]
     if len(set(names)) != len(names):
-        raise WetboilValueError(f"sweep: surface names must be unique, got {names}")
+        import collections
+
+        dup = sorted(n for n, k in collections.Counter(names).items() if k > 1)
+        raise WetboilValueError(f"sweep: surface names must be unique; {len(dup)} name(s) given more than once: "
+                                f"{', '.join(repr(n) for n in dup[:20])}{', ...' if len(dup) > 20 else ''}")
     coord = {"surface": names}
     angles, invalid, out_of_range = [], [], []
     for s in surfaces:
