@@ -964,3 +964,17 @@ def test_lazy_sweep_keeps_the_strict_policy_of_the_call_that_built_it():
                          chunks=1, compute=False)
     with wetboil.errstate(out_of_range="raise"):
         assert int(lazy.compute()["range_flags"].max()) > 0
+
+
+@pytest.mark.parametrize("kw, message", [
+    (dict(heat_flux=[1e5, 0.0]), "heat_flux must be positive"),
+    (dict(heat_flux=1e5, orientation_deg=[-10.0]), "orientation_deg must lie in 0-180"),
+    (dict(heat_flux=1e5, orientation_deg=[0.0, 200.0]), "orientation_deg must lie in 0-180"),
+    (dict(heat_flux=1e5, subcooling=[0.0, -5.0]), "subcooling must be zero or positive"),
+])
+def test_sweep_refuses_axis_values_the_study_spec_refuses(kw, message):
+    """Behavioural contract (no outside value): a mistyped axis raises, as `wetboil run` refuses it in a
+    spec, instead of sweeping silently to NaN (an orientation of -10 deg) or to numbers for a
+    superheated pool (a negative subcooling)."""
+    with pytest.raises(wetboil.WetboilValueError, match=message):
+        wetboil.sweep(SURFACES[:1], "water", p=1e5, **kw)

@@ -623,6 +623,13 @@ def sweep(
     }
     if (axes["heat_flux"] <= 0).any():
         raise WetboilValueError("sweep: heat_flux must be positive")
+    # the axes' own values, refused as the study spec refuses them (a mistyped axis, not a point to flag):
+    # a heater faces 0 (up) to 180 deg (down); a negative subcooling is a superheated pool
+    if not ((axes["orientation"] >= 0) & (axes["orientation"] <= 180)).all():
+        raise WetboilValueError(f"sweep: orientation_deg must lie in 0-180 (0 facing up, 90 vertical, 180 facing "
+                                f"down), got {axes['orientation'].values.tolist()}")
+    if (axes["subcooling"] < 0).any():
+        raise WetboilValueError(f"sweep: subcooling must be zero or positive [K], got {axes['subcooling'].values.tolist()}")
     parts = dict(table)
     parts.update({f"in_{k}": v for k, v in axes.items()})
     for f in FIELDS:
