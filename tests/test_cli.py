@@ -489,3 +489,25 @@ def test_report_curves_follow_the_studys_nucleate_method(tmp_path, monkeypatch):
         c = boiling.curve(water(p=101325.0), dts, receding_angle_deg=40.0, contact_angle_deg=60.0, nucleate=nucleate,
                           C_sf=0.0068, natural_convection_coefficient=1000.0, design_heat_flux=3e5)
         assert np.allclose(np.asarray(line.get_ydata(), dtype=float), c["heat_flux"].values, equal_nan=True) == same
+
+
+def test_report_tables_keep_their_columns_with_pipes_and_line_breaks_in_names_and_notes(tmp_path):
+    """Behavioural contract: a name or note with '|' or a line break stays in its own cell of the
+    report's Markdown tables (GitHub Flavored Markdown: a cell ends at an unescaped '|', a row at
+    the line's end; '\\|' is a literal pipe)."""
+    import re
+
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC.replace('name = "inline (invented)"',
+                                 'name = "coat A | B (invented)"\nnotes = """two\nlines | and a pipe"""'))
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 0, r.stderr
+    text = (out / "report.md").read_text()
+    rows = [line for line in text.splitlines() if "coat A" in line and line.startswith("|")]
+    assert len(rows) == 2, rows  # the surfaces table and the ranking, one line each
+    header = {"surface": 6, "lowest": 3}
+    for row, cells in zip(rows, header.values()):
+        assert len(re.findall(r"(?<!\\)\|", row)) == cells + 1, row
+    assert "coat A \\| B (invented)" in rows[0] and "two lines \\| and a pipe" in rows[0]

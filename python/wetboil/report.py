@@ -534,6 +534,12 @@ def _nucleate_method(study: Study, s: Surface) -> str:
     return method if method != "auto" else ("rohsenow" if s.C_sf is not None else "cooper")
 
 
+def _cell(text: str) -> str:
+    """`text` as one Markdown table cell: line breaks become spaces and pipes are escaped (GitHub
+    Flavored Markdown, tables: ``\\|`` is a literal pipe inside a cell)."""
+    return " ".join(str(text).split()).replace("|", "\\|")
+
+
 def _nucleate_cell(study: Study, s: Surface) -> str:
     """Which nucleate-boiling correlation the sweep used for surface `s`, with its constants."""
     from .boiling import ROHSENOW_C_SF_DEFAULT, ROHSENOW_N_OTHER, ROHSENOW_N_WATER
@@ -629,13 +635,13 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
                    for name in ("static_angle", "advancing_angle", "receding_angle"))
         src = "from probe liquids" if s.probe_static_deg else ("intrinsic, roughened" if s.angles_are == "intrinsic"
                                                               else "as measured")
-        lines.append(f"| {s.name} | {a} | {b} | {c} | {_nucleate_cell(study, s)} | "
-                     f"{src}{'; ' + s.notes if s.notes else ''} |")
+        lines.append(f"| {_cell(s.name)} | {a} | {b} | {c} | {_nucleate_cell(study, s)} | "
+                     f"{_cell(src + ('; ' + s.notes if s.notes else ''))} |")
     lines += ["", "## Methods and references", ""] + _references(study)
     lines += ["", "## Ranking (best worst-case CHF margin first)", "", RANKING_RULE, ""]
     ranking = margin_ranking(summary)
     lines += ["| surface | lowest CHF margin over the operating points | rows with a design quantity flagged |", "|---|---|---|"]
-    lines += [f"| {name} | {margin_text(r)} | {int(r['flagged'])} of {int(r['points'])} |"
+    lines += [f"| {_cell(name)} | {margin_text(r)} | {int(r['flagged'])} of {int(r['points'])} |"
               for name, r in ranking.iterrows()]
     lines += ["", "Full table: `summary.csv` (one row per surface and operating point); all quantities: `sweep.nc`.",
               "", "## Validity flags", ""]
