@@ -978,3 +978,24 @@ def test_sweep_refuses_axis_values_the_study_spec_refuses(kw, message):
     superheated pool (a negative subcooling)."""
     with pytest.raises(wetboil.WetboilValueError, match=message):
         wetboil.sweep(SURFACES[:1], "water", p=1e5, **kw)
+
+
+def test_surface_files_refuse_repeated_names_and_other_separators_with_file_and_line(tmp_path):
+    """Behavioural contract (no outside value): a repeated name is refused where it is written, not
+    later by `sweep`; a semicolon-separated sheet (a spreadsheet's list separator in many locales,
+    common practice) gets a hint instead of "unknown column 'name;static_deg'"; a header cell with
+    a trailing space is read."""
+    csv_path = tmp_path / "s.csv"
+    csv_path.write_text("name ,static_deg\nA (invented),30\nB (invented),40\nA (invented),50\n")
+    with pytest.raises(SurfaceFileError, match=r"s.csv:4: surface name 'A \(invented\)' already given on line 2"):
+        load_surfaces(csv_path)
+    csv_path.write_text("name ,static_deg\nA (invented),30\n")
+    assert load_surfaces(csv_path)[0].static_deg == 30.0
+    csv_path.write_text("name;static_deg\nA (invented);30\n")
+    with pytest.raises(SurfaceFileError, match=r"s.csv:1: the values are separated by ';'"):
+        load_surfaces(csv_path)
+    toml_path = tmp_path / "s.toml"
+    toml_path.write_text('[[surface]]\nname = "A (invented)"\nstatic_deg = 30.0\n\n'
+                         '[[surface]]\nstatic_deg = 40.0\nname = "A (invented)"\n')
+    with pytest.raises(SurfaceFileError, match=r"s.toml:7: surface name 'A \(invented\)' already given on line 2"):
+        load_surfaces(toml_path)

@@ -455,6 +455,7 @@ def _from_toml(path: pathlib.Path) -> List[Surface]:
         raise SurfaceFileError(f"{path}: 'surface' must be [[surface]] tables")
     lines = _toml_lines(text)
     out = []
+    seen: Dict[str, int] = {}
     for rec, span in zip(records, _surface_spans(lines, len(records))):
         for key in rec:
             if key not in _KEYS:
@@ -468,6 +469,11 @@ def _from_toml(path: pathlib.Path) -> List[Surface]:
             key = getattr(exc, "key", "name")  # set by the Surface checks (`_error`)
             line = _key_line(lines, span, key if key in rec else "name", getattr(exc, "liquid", None))
             raise SurfaceFileError(f"{path}:{line}: {exc}") from None
+        line = _key_line(lines, span, "name")
+        if out[-1].name in seen:
+            raise SurfaceFileError(f"{path}:{line}: surface name {out[-1].name!r} already given on line "
+                                   f"{seen[out[-1].name]}; names must be unique")
+        seen[out[-1].name] = line
     return out
 
 
@@ -479,6 +485,12 @@ def _from_csv(path: pathlib.Path) -> List[Surface]:
         columns = next(reader, None)
         if columns is None:
             raise SurfaceFileError(f"{path}: empty CSV file")
+        columns = [key.strip() for key in columns]  # "name " as a spreadsheet may write it
+        if len(columns) == 1 and (";" in columns[0] or "\t" in columns[0]):
+            sep = "';'" if ";" in columns[0] else "tabs"
+            raise SurfaceFileError(f"{path}:1: the values are separated by {sep}; wetboil reads comma-separated "
+                                   "values with '.' as the decimal mark (in a spreadsheet: save as \"CSV UTF-8\" with "
+                                   "comma as the list separator)")
         for key in columns:
             group = key.split(":", 1)[0] if ":" in key else None
             if group is not None and group not in _PROBE_KEYS:
@@ -486,6 +498,7 @@ def _from_csv(path: pathlib.Path) -> List[Surface]:
             if group is None and key not in _KEYS:
                 raise SurfaceFileError(f"{path}:1: unknown column {key!r}; known columns are {', '.join(_KEYS)}")
         out = []
+        seen: Dict[str, int] = {}
         end = reader.line_num
         for row in reader:
             line_no, end = end + 1, reader.line_num  # a quoted cell may span lines: its row's first line
@@ -508,6 +521,10 @@ def _from_csv(path: pathlib.Path) -> List[Surface]:
                 out.append(Surface.from_dict(rec))
             except (WetboilValueError, WetboilTypeError) as exc:
                 raise SurfaceFileError(f"{path}:{line_no}: {exc}") from None
+            if out[-1].name in seen:
+                raise SurfaceFileError(f"{path}:{line_no}: surface name {out[-1].name!r} already given on line "
+                                       f"{seen[out[-1].name]}; names must be unique")
+            seen[out[-1].name] = line_no
     if not out:
         raise SurfaceFileError(f"{path}: no surfaces")
     return out
