@@ -302,7 +302,7 @@ def section_chain(table, n, repeat):
 
     def numpy_math(s, k=None):
         t_, r_, f_, q_ = (th, rec, phi, q) if k is None else (th[:k], rec[:k], phi[:k], q[:k])
-        z = 2 * s.sigma * s.T * (1 / s.rho_v - 1 / s.rho_l) / s.h_lv
+        z = 2 * s.sigma * s.T / (s.rho_v * s.h_lv)  # Hsu's 1/rho_v embryo group
         c, cr = np.cos(np.radians(t_)), 1 + np.cos(np.radians(r_))
         onset = np.sqrt(4 * (1 + c) * z * q_ / s.k_l)
         d = 0.0208 * t_ * np.sqrt(s.sigma / (G * (s.rho_l - s.rho_v)))
@@ -352,7 +352,7 @@ def section_chain(table, n, repeat):
 
     def grid_numpy():
         s = wg
-        z = 2 * s.sigma * s.T * (1 / s.rho_v - 1 / s.rho_l) / s.h_lv
+        z = 2 * s.sigma * s.T / (s.rho_v * s.h_lv)  # Hsu's 1/rho_v embryo group
         c = np.cos(np.radians(ang))
         onset = np.sqrt(4 * (1 + c)) * np.sqrt(z * qg / s.k_l)
         d = (0.0208 * ang) * np.sqrt(s.sigma / (G * (s.rho_l - s.rho_v)))
