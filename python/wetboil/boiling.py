@@ -1024,7 +1024,13 @@ def curve(
     6. **film branch** (`film_boiling`, Bromley form for ``"cylinder"`` and
        ``"sphere"`` with D = 2 size, Berenson's plate form otherwise) above
        :math:`\Delta T_{min}`, where it equals the minimum heat flux
-       (`wetboil.chf.minimum_heat_flux`, ``minimum="berenson"``).
+       (`wetboil.chf.minimum_heat_flux`, ``minimum="berenson"``). It uses
+       the vapour properties of the one saturated state given, where
+       `film_boiling` recommends them at the film temperature; at large
+       superheat the branch runs low (water at 1 atm, flat plate: 5 % at
+       100 K, 14 % at 300 K, 24 % at 600 K against CoolProp steam at
+       :math:`(T_w + T_{sat})/2` [D]). For the film regime
+       itself call `film_boiling` with a state at the film temperature.
 
     Parameters
     ----------
