@@ -863,7 +863,7 @@ def test_strict_mode_raises_for_flagged_points_instead_of_returning_them():
 
 def test_subcooling_cancels_from_hsu_range_with_the_flux_carrying_layer():
     """Hsu (1962): r_c = delta sin(theta) / (2 (1 + cos theta)) * dTw / (dTw + dTsub)
-    * [1 -+ sqrt(1 - 8 (1 + cos theta) sigma T_sat v_lv (dTw + dTsub) / (h_lv delta dTw^2))]
+    * [1 -+ sqrt(1 - 8 (1 + cos theta) sigma T_sat (dTw + dTsub) / (rho_v h_lv delta dTw^2))]
     (the form of the cavity-radius criterion with a contact angle). With delta = k_l (dTw + dTsub)/q
     both delta dTw/(dTw + dTsub) and (dTw + dTsub)/delta lose dTsub: the range depends on dTw and
     q/k_l only, so the sweep's subcooling axis changes no quantity."""
@@ -999,3 +999,12 @@ def test_surface_files_refuse_repeated_names_and_other_separators_with_file_and_
                          '[[surface]]\nstatic_deg = 40.0\nname = "A (invented)"\n')
     with pytest.raises(SurfaceFileError, match=r"s.toml:7: surface name 'A \(invented\)' already given on line 2"):
         load_surfaces(toml_path)
+
+
+def test_sweep_axis_errors_name_the_bad_values_only():
+    """Behavioural contract (no outside value): a long axis with one bad value gives a short error
+    that names that value, as the duplicate-name error names the duplicates only."""
+    with pytest.raises(wetboil.WetboilValueError) as info:
+        wetboil.sweep(SURFACES[:1], "water", p=1e5, heat_flux=1e5, orientation_deg=np.append(np.linspace(0, 90, 500), -10.0))
+    msg = str(info.value)
+    assert msg.endswith("got -10") and len(msg) < 200, msg

@@ -110,7 +110,13 @@ def set_num_threads(n: int) -> None:
 def _cap_env_threads() -> None:
     # WETBOIL_NUM_THREADS is read by the Rust pool; a count far above the
     # machine's cores would make the first large call start that many threads.
-    n = _core.get_num_threads()
+    # Read the variable here rather than asking the pool: get_num_threads()
+    # would fix the count at import, and a variable set after the import but
+    # before the first call (honoured before the cap) would be ignored.
+    raw = os.environ.get("WETBOIL_NUM_THREADS", "").strip()
+    if not raw.isdigit():
+        return  # unset or not a count: the pool's own default
+    n = int(raw)
     if n > _max_num_threads():
         import warnings
         from ._errors import WetboilWarning

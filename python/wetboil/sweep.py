@@ -493,12 +493,15 @@ def sweep(
         zero or negative design flux is an error (`WetboilValueError`), not
         a NaN point, since every margin would divide by it.
     orientation_deg : array_like
-        Heater orientations [deg], 0 facing up, 90 vertical (``orientation``).
+        Heater orientations [deg], 0 facing up, 90 vertical, 180 facing down
+        (``orientation``); a value outside 0-180 (or NaN) raises
+        `WetboilValueError`.
         Kandlikar's CHF depends on it; the Zuber and Lienhard-Dhir flat-plate
         CHF hold facing up only: at any other orientation they keep the
         facing-up value and are flagged in ``range_flags``.
     subcooling : array_like
-        Bulk liquid subcooling [K] (``subcooling``). No quantity of the
+        Bulk liquid subcooling [K] (``subcooling``), >= 0 (a negative value
+        raises `WetboilValueError`). No quantity of the
         present chain changes with it. For Hsu's active cavity range that is
         physics: it takes the subcooling with a thermal layer
         ``delta = k_l (dT_w + dT_sub) / q`` carrying the design flux, and then
@@ -625,11 +628,17 @@ def sweep(
         raise WetboilValueError("sweep: heat_flux must be positive")
     # the axes' own values, refused as the study spec refuses them (a mistyped axis, not a point to flag):
     # a heater faces 0 (up) to 180 deg (down); a negative subcooling is a superheated pool
-    if not ((axes["orientation"] >= 0) & (axes["orientation"] <= 180)).all():
+    def offending(values: Any) -> str:  # the bad values only, at most 10 (an axis may hold thousands)
+        bad = [f"{v:g}" for v in values]
+        return ", ".join(bad[:10]) + (f", ... ({len(bad)} values)" if len(bad) > 10 else "")
+
+    o = axes["orientation"].values
+    if not ((o >= 0) & (o <= 180)).all():
         raise WetboilValueError(f"sweep: orientation_deg must lie in 0-180 (0 facing up, 90 vertical, 180 facing "
-                                f"down), got {axes['orientation'].values.tolist()}")
+                                f"down), got {offending(o[~((o >= 0) & (o <= 180))])}")
     if (axes["subcooling"] < 0).any():
-        raise WetboilValueError(f"sweep: subcooling must be zero or positive [K], got {axes['subcooling'].values.tolist()}")
+        s = axes["subcooling"].values
+        raise WetboilValueError(f"sweep: subcooling must be zero or positive [K], got {offending(s[s < 0])}")
     parts = dict(table)
     parts.update({f"in_{k}": v for k, v in axes.items()})
     for f in FIELDS:
