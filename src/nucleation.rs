@@ -30,8 +30,8 @@ fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f6
 /// (their published form): the first-order embryo superheat with the liquid at
 /// the lower pressure (Poynting), which the exact embryo tends to for large
 /// radii (see `wetboil.nucleation.embryo_superheat`); larger than
-/// [`embryo_group`] by `1/(1 − ρ_v/ρ_l)` (0.06 % for water at 1 atm, 2x near
-/// 20 MPa).
+/// [`embryo_group`] by `1/(1 − ρ_v/ρ_l)` (0.06 % for water at 1 atm, 1.53x at
+/// 20 MPa, 2x near 21.4 MPa).
 #[inline(always)]
 fn vapour_group(sigma: f64, t_sat: f64, rho_v: f64, h_lv: f64) -> f64 {
     2.0 * sigma * t_sat / (rho_v * h_lv)
@@ -759,7 +759,7 @@ impl Kernel<8, 2> for HsuOnset {
         outputs: &[arg("superheat", "K"), arg("cavity_radius", "m")],
         domain: "heat_flux >= 0, 0 <= contact_angle_deg <= 180, sigma > 0, T > 0, rho_l > rho_v > 0, h_lv > 0, k_l > 0",
         validity: "linear liquid temperature profile near the wall; no published numeric range",
-        reference: "Y.Y. Hsu, J. Heat Transfer 84 (1962) 207-213",
+        reference: "Y.Y. Hsu, J. Heat Transfer 84 (1962) 207-213; at 90 deg Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398",
         doi: "10.1115/1.3684339",
         verification: "general-C3 tangency derived [D]; Hsu's 1/rho_v embryo [M, med-high]; at 90 deg Davis-Anderson with \
                        1/rho_v for v_lv (tests)",
@@ -802,7 +802,8 @@ impl Factored<8, 2> for HsuOnset {
 ///
 /// References: E.J. Davis, G.H. Anderson, "The incipience of nucleate boiling in
 /// forced convection flow", AIChE J. 12 (1966) 774-780, doi:10.1002/aic.690120426 (DOI from memory);
-/// Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398 (same criterion).
+/// Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398 (the same criterion written with 1/ρ_v, which
+/// is `hsu_onset` at 90°).
 #[inline(always)]
 pub fn davis_anderson(heat_flux: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64, k_l: f64) -> [f64; 2] {
     tangency::<true>(4.0, 1.0, heat_flux, sigma, t_sat, rho_l, rho_v, h_lv, k_l)
@@ -813,7 +814,7 @@ pub struct DavisAnderson;
 impl Kernel<7, 2> for DavisAnderson {
     const MODEL: Model = Model {
         name: "davis_anderson_onset",
-        summary: "Davis-Anderson / Sato-Matsumura onset-of-boiling superheat and critical cavity radius (hemispherical nucleus)",
+        summary: "Davis-Anderson onset-of-boiling superheat and critical cavity radius (hemispherical nucleus, v_lv form)",
         equation: "dT = sqrt(8 sigma T_sat v_lv q/(h_lv k_l)), r_c = sqrt(2 sigma T_sat v_lv k_l/(h_lv q)), v_lv = 1/rho_v - 1/rho_l",
         inputs: &[
             arg("heat_flux", "W/m2"),
@@ -827,7 +828,7 @@ impl Kernel<7, 2> for DavisAnderson {
         outputs: &[arg("superheat", "K"), arg("cavity_radius", "m")],
         domain: "heat_flux >= 0, sigma > 0, T > 0, rho_l > rho_v > 0, h_lv > 0, k_l > 0",
         validity: "linear liquid temperature profile near the wall; no published numeric range",
-        reference: "E.J. Davis, G.H. Anderson, AIChE J. 12 (1966) 774-780; Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398",
+        reference: "E.J. Davis, G.H. Anderson, AIChE J. 12 (1966) 774-780",
         doi: "10.1002/aic.690120426",
         verification: "coefficient 8 [M, high]; v_lv form [V2]; originals not available to us",
     };
