@@ -483,6 +483,14 @@ def test_curve_wettability_and_methods(water):
     assert coop.attrs["nucleate"] == "cooper" and coop.attrs["chf"] == "zuber"
     ld = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=1e-3))
     assert ld.attrs["chf"] == "lienhard_dhir"
+    # On a cylinder or sphere the default stays Lienhard-Dhir even with a receding angle: Kandlikar
+    # (2001) models a flat heater, and a small body's size sets its peak flux (Sun & Lienhard 1970)
+    for body in ("cylinder", "sphere"):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            c = curve(water, dts, **curve_kw(geometry=body, size=1e-3))
+        assert c.attrs["chf"] == "lienhard_dhir"
+        assert float(c["critical_heat_flux"]) == pytest.approx(lienhard_dhir(water, body, 1e-3), rel=1e-14)
     with pytest.warns(wetboil.RangeWarning, match="chf.kandlikar"):
         curve(water, dts, **curve_kw(orientation_deg=120.0))
     # Zuber's and Lienhard-Dhir's flat-plate forms hold facing up only (Zuber 1959; Lienhard & Dhir

@@ -1015,9 +1015,9 @@ def curve(
        critical heat flux, taking the larger of it and natural convection;
     4. **CHF cap** at :math:`\Delta T_{CHF}` where the nucleate branch reaches
        :math:`q_{max}`: ``chf="kandlikar"`` (receding angle and orientation;
-       the default when ``receding_angle_deg`` is given),
+       the default on a plate when ``receding_angle_deg`` is given),
        ``"lienhard_dhir"`` (``geometry`` and ``size``; the default
-       otherwise) or ``"zuber"`` (pi/24);
+       otherwise, and always on a cylinder or sphere) or ``"zuber"`` (pi/24);
     5. **transition** between :math:`(\Delta T_{CHF}, q_{max})` and the
        Leidenfrost point :math:`(\Delta T_{min}, q_{min})`: a straight line in
        log-log coordinates -- an engineering construction, not a correlation;
@@ -1155,7 +1155,9 @@ def curve(
     _scalar_state(fluid)
     check_choice(fn, "nucleate method", nucleate, NUCLEATE_METHODS)
     if chf is None:
-        chf = "kandlikar" if receding_angle_deg is not None else "lienhard_dhir"
+        # Kandlikar (2001) models a flat heater; a cylinder's or a sphere's size sets its peak flux
+        flat = geometry not in ("cylinder", "sphere")
+        chf = "kandlikar" if receding_angle_deg is not None and flat else "lienhard_dhir"
     check_choice(fn, "chf method", chf, CHF_METHODS)
     check_choice(fn, "geometry", geometry, _chf.GEOMETRIES)
     check_choice(fn, "minimum method", minimum, _chf.MINIMUM_METHODS)
