@@ -153,6 +153,8 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
     assert len(ranges) == 1, (kernel, [str(w.message) for w in rec])
     msg = str(ranges[0].message)
     assert msg.startswith(spec.function + ":") and "3 of 7" in msg, msg
+    # and quotes the range it left, as the model's facts state it
+    assert msg.endswith(f"outside the published validity range ({spec.model.validity})"), msg
     assert not [w for w in rec if w.category is wetboil.InvalidValueWarning], kernel
     # the elements are computed, not blanked
     for k, o in enumerate(kc.outputs(out)):
@@ -170,7 +172,7 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
         warnings.simplefilter("always")
         kc.call(f, spec, scalar_args)
     msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
-    assert len(msgs) == 1 and "1 of 1" in msgs[0], (kernel, msgs)
+    assert len(msgs) == 1 and "1 of 1" in msgs[0] and spec.model.validity in msgs[0], (kernel, msgs)
 
     # errstate: ignore silences, raise raises OutOfRangeError (a ValueError and a WetboilError)
     with warnings.catch_warnings(record=True) as rec, wetboil.errstate(out_of_range="ignore"):

@@ -59,7 +59,8 @@ class InvalidValueWarning(WetboilWarning, RuntimeWarning):
 
 class RangeWarning(WetboilWarning):
     """Some elements lie outside the published validity range of the correlation
-    (they were computed; treat them as extrapolation)."""
+    (they were computed; treat them as extrapolation). The message counts them
+    and quotes the range (the model's ``validity`` in `wetboil.models`)."""
 
 
 class _State(NamedTuple):
@@ -135,8 +136,9 @@ def _stacklevel() -> int:
     return outermost + 1
 
 
-def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
-    """Apply the current policy to the counts of one call."""
+def report(function: str, size: int, invalid: int, out_of_range: int, validity: str = "") -> None:
+    """Apply the current policy to the counts of one call; `validity`, the
+    model's range as its facts state it, is quoted in the range message."""
     if not (invalid or out_of_range):
         return
     state = _STATE.get()
@@ -148,6 +150,8 @@ def report(function: str, size: int, invalid: int, out_of_range: int) -> None:
         _warn(msg, InvalidValueWarning)
     if out_of_range and state.out_of_range != "ignore":
         msg = f"{function}: {out_of_range} of {size} element(s) outside the published validity range"
+        if validity:
+            msg += f" ({validity})"
         if state.out_of_range == "raise":
             raise OutOfRangeError(msg)
         _warn(msg, RangeWarning)
