@@ -569,20 +569,55 @@ def test_curve_without_xarray(water, monkeypatch):
     assert c.heat_flux.shape == (20,) and c.chf_margin > 1
 
 
-def test_curve_natural_convection_by_expansion_coefficient_is_for_plates_only(water):
+def test_curve_natural_convection_by_expansion_coefficient_follows_the_geometry(water):
     """Lloyd & Moran (J. Heat Transfer 96 (1974) 443-447) correlate natural convection from the
-    upper face of a heated horizontal plate (L = area / perimeter). A cylinder's radius is no such
-    length and the correlation says nothing about cylinders or spheres: the curve used to apply it
-    with L = radius and its range warning silenced. It must ask for a coefficient instead."""
+    upper face of a heated horizontal plate (L = area / perimeter); Churchill & Chu (Int. J. Heat
+    Mass Transfer 18 (1975) 1049-1053) a horizontal cylinder (L = diameter). A sphere has neither:
+    the curve asks for a coefficient there."""
     dts = np.geomspace(1.0, 1000.0, 20)
     kw = curve_kw(receding_angle_deg=None, natural_convection_coefficient=None, expansion_coefficient=7.5e-4)
-    for geometry in ("cylinder", "sphere"):
-        with pytest.raises(wetboil.WetboilError, match="horizontal-plate"):
-            curve(water, dts, **dict(kw, geometry=geometry, size=1e-3))
-    # a square plate of side s: L = s^2 / (4 s) = s / 4 (Lloyd & Moran's length), still accepted
+    with pytest.raises(wetboil.WetboilError, match="not for geometry 'sphere'"):
+        curve(water, dts, **dict(kw, geometry="sphere", size=1e-3))
+    # a cylinder of radius r: Churchill & Chu with D = 2 r
+    c = curve(water, dts, **dict(kw, geometry="cylinder", size=0.5e-3))
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.RangeWarning)
+        np.testing.assert_allclose(c["natural_convection"].values,
+                                   natural_convection(dts, water, 1e-3, 7.5e-4, geometry="cylinder"), rtol=1e-14)
+    # a square plate of side s: L = s^2 / (4 s) = s / 4 (Lloyd & Moran's length)
     c = curve(water, dts, **dict(kw, geometry="flat_plate", size=0.1))
     np.testing.assert_allclose(c["natural_convection"].values,
                                natural_convection(dts, water, 0.1 / 4.0, 7.5e-4), rtol=1e-14)
+
+
+G = 9.80665  # standard gravity [m/s2], CGPM 1901
+
+
+def test_natural_convection_from_a_horizontal_cylinder(water):
+    """Churchill & Chu (1975), Nu_D = {0.60 + 0.387 Ra^(1/6) / [1 + (0.559/Pr)^(9/16)]^(8/27)}^2
+    (equation from memory, high confidence) worked by hand here; and against Morgan's power laws
+    (Adv. Heat Transfer 11 (1975) 199-264, from memory: 0.48 Ra^(1/4) on 1e4-1e7, 0.125 Ra^(1/3) on
+    1e7-1e12), fitted largely to air, within 15 % at Pr = 0.71."""
+    beta, d = 7.5e-4, np.array([0.2e-3, 1e-3, 5e-3, 20e-3])
+    dt = 4.0
+    ra = G * beta * dt * d ** 3 * water.rho_l ** 2 * water.cp_l / (water.mu_l * water.k_l)
+    pr = water.mu_l * water.cp_l / water.k_l
+    nu = (0.60 + 0.387 * ra ** (1 / 6) / (1 + (0.559 / pr) ** (9 / 16)) ** (8 / 27)) ** 2
+    q = natural_convection(dt, water, d, beta, geometry="cylinder")
+    np.testing.assert_allclose(q, nu * water.k_l / d * dt, rtol=1e-12)
+    # Morgan's power laws at Pr = 0.71 (an air-like Prandtl number: k_l chosen so)
+    air_like = water.replace(k_l=water.mu_l * water.cp_l / 0.71)
+    for target in (1e4, 1e6, 1e7, 1e9, 1e12):
+        b = target / (G * dt * 1e-2 ** 3 * air_like.rho_l ** 2 * air_like.cp_l / (air_like.mu_l * air_like.k_l))
+        nu_cc = natural_convection(dt, air_like, 1e-2, b, geometry="cylinder") * 1e-2 / (air_like.k_l * dt)
+        morgan = 0.48 * target ** 0.25 if target <= 1e7 else 0.125 * target ** (1 / 3)
+        assert nu_cc == pytest.approx(morgan, rel=0.15), target
+    # range: Ra_D up to 1e12 (flagged above), and no plate length is mistaken for a diameter
+    with pytest.warns(wetboil.RangeWarning, match="1e-5 <= Ra_D <= 1e12"):
+        natural_convection(50.0, water, 1.0, 1e-2, geometry="cylinder")
+    with pytest.raises(ValueError, match="flat_plate, cylinder"):
+        natural_convection(dt, water, 1e-3, beta, geometry="sphere")
+    assert natural_convection(0.0, water, 1e-3, beta, geometry="cylinder") == 0.0
 
 
 def test_curve_chf_margin_is_a_ratio_and_a_missing_design_flux_is_no_infinite_margin(water):

@@ -106,6 +106,9 @@ def dispatcher_cases() -> List[Tuple[str, Callable[..., Any], Dict[str, Any]]]:
         cases.append((f"chf.lienhard_dhir[{geo}]", chf.lienhard_dhir, dict(fluid=W, geometry=geo, size=0.01)))
     for m in chf.MINIMUM_METHODS:
         cases.append((f"chf.minimum_heat_flux[{m}]", chf.minimum_heat_flux, dict(fluid=W, method=m)))
+    for geo in boiling.NATURAL_CONVECTION_GEOMETRIES:
+        cases.append((f"boiling.natural_convection[{geo}]", boiling.natural_convection,
+                      dict(superheat=5.0, fluid=W, length=0.01, expansion_coefficient=7.5e-4, geometry=geo)))
     for geo in boiling.FILM_GEOMETRIES:
         kw = dict(wall_superheat=300.0, fluid=W, geometry=geo)
         if geo != "flat_plate":

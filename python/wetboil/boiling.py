@@ -45,6 +45,7 @@ __all__ = [
     "SurfaceConstant",
     "surface_constant",
     "natural_convection",
+    "NATURAL_CONVECTION_GEOMETRIES",
     "film_boiling",
     "FILM_GEOMETRIES",
     "partition",
@@ -459,17 +460,42 @@ def surface_constant(liquid: str, surface: str, book: Optional[str] = None) -> S
 # --------------------------------------------------------------------------- natural convection, film boiling
 
 
-@kernel("lloyd_moran_natural_convection")
+def _lloyd_moran(superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any) -> Any:
+    """Kernel-backed helper of `natural_convection` (a plate)."""
+
+
+def _churchill_chu(superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any) -> Any:
+    """Kernel-backed helper of `natural_convection` (a horizontal cylinder)."""
+
+
+_lloyd_moran.__name__ = _churchill_chu.__name__ = "natural_convection"
+_lloyd_moran = kernel("lloyd_moran_natural_convection")(_lloyd_moran)
+_churchill_chu = kernel("churchill_chu_natural_convection")(_churchill_chu)
+
+#: Natural-convection geometries: what `length` is, and the correlation.
+NATURAL_CONVECTION_GEOMETRIES: Dict[str, str] = {
+    "flat_plate": "area / perimeter of the upper face of a heated horizontal plate (Lloyd & Moran 1974)",
+    "cylinder": "diameter of a horizontal cylinder (Churchill & Chu 1975)",
+}
+
+
 def natural_convection(
-    superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any = G
+    superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any = G,
+    geometry: str = "flat_plate",
 ) -> Any:
-    r"""Natural convection from the upper face of a heated horizontal plate,
-    Lloyd & Moran (1974) [W/m2].
+    r"""Natural convection before boiling [W/m2]: from the upper face of a
+    heated horizontal plate, Lloyd & Moran (1974), or from a horizontal
+    cylinder, Churchill & Chu (1975).
 
     .. math::
-        Nu_L = 0.54\,Ra_L^{1/4}\ (10^4 \le Ra_L \le 10^7),\qquad
-        Nu_L = 0.15\,Ra_L^{1/3}\ (10^7 < Ra_L \le 10^{11}),\qquad
-        Ra_L = \frac{g\beta\,\Delta T\,L^3}{\nu_l\,\alpha_l}
+        \text{plate:}\quad Nu_L = 0.54\,Ra_L^{1/4}\ (10^4 \le Ra_L \le 10^7),\qquad
+        Nu_L = 0.15\,Ra_L^{1/3}\ (10^7 < Ra_L \le 10^{11})
+
+        \text{cylinder:}\quad Nu_D = \left\{0.60 + \frac{0.387\,Ra_D^{1/6}}
+        {[1 + (0.559/Pr)^{9/16}]^{8/27}}\right\}^2\ (10^{-5} \le Ra_D \le 10^{12})
+
+        Ra_L = \frac{g\beta\,\Delta T\,L^3}{\nu_l\,\alpha_l},\qquad
+        Pr = \frac{\mu_l c_{pl}}{k_l},\qquad q'' = Nu_L\,\frac{k_l}{L}\,\Delta T
 
     Parameters
     ----------
@@ -479,26 +505,41 @@ def natural_convection(
         Uses ``k_l``, ``rho_l``, ``cp_l``, ``mu_l`` (liquid properties; for
         the film temperature use a state at that temperature).
     length : array_like
-        L = area / perimeter of the plate [m].
+        L [m]: area / perimeter of the plate, or the cylinder's diameter
+        (see `NATURAL_CONVECTION_GEOMETRIES`).
     expansion_coefficient : array_like
         Thermal expansion coefficient :math:`\beta` of the liquid [1/K].
     g : array_like, optional
         Acceleration [m/s2].
+    geometry : str, optional
+        ``"flat_plate"`` (default) or ``"cylinder"`` (horizontal).
 
     Returns
     -------
     float or ndarray or DataArray
-        Heat flux [W/m2]; Ra_L outside 1e4-1e11 is flagged (`RangeWarning`).
+        Heat flux [W/m2]; a Rayleigh number outside the correlation's range
+        (1e4-1e11 for the plate, 1e-5-1e12 for the cylinder) is flagged
+        (`RangeWarning`).
 
     Notes
     -----
-    Constants and ranges [M, high]; the original was not read.
+    Constants and ranges [M, high; the cylinder's lower bound medium]; the
+    originals were not read. The cylinder form is checked against Morgan's
+    (1975) power laws (within 15 % at Pr = 0.71). Neither holds for a
+    vertical plate or a sphere.
 
     References
     ----------
     .. [1] J.R. Lloyd, W.R. Moran, "Natural convection adjacent to horizontal
        surface of various planforms", J. Heat Transfer 96 (1974) 443-447,
        doi:10.1115/1.3450224 (DOI from memory).
+    .. [2] S.W. Churchill, H.H.S. Chu, "Correlating equations for laminar and
+       turbulent free convection from a horizontal cylinder", Int. J. Heat
+       Mass Transfer 18 (1975) 1049-1053, doi:10.1016/0017-9310(75)90222-7
+       (DOI from memory).
+    .. [3] V.T. Morgan, "The overall convective heat transfer from smooth
+       circular cylinders", Adv. Heat Transfer 11 (1975) 199-264 (from
+       memory).
 
     Examples
     --------
@@ -508,7 +549,12 @@ def natural_convection(
     ...                cp_l=4217.0, mu_l=279e-6, k_l=0.680)
     >>> round(natural_convection(3.0, w, 0.075, 7.5e-4) / 3.0)   # h [W/(m2 K)]
     782
+    >>> round(natural_convection(3.0, w, 1e-3, 7.5e-4, geometry="cylinder") / 3.0)   # a 1 mm wire
+    1622
     """
+    check_choice("boiling.natural_convection", "geometry", geometry, NATURAL_CONVECTION_GEOMETRIES)
+    kern = _churchill_chu if geometry == "cylinder" else _lloyd_moran
+    return kern(superheat, fluid, length, expansion_coefficient, g)
 
 
 #: Film-boiling geometries: (constant C, what the length L is).
@@ -1005,9 +1051,10 @@ def curve(
 
     1. **natural convection** up to the onset of nucleate boiling:
        :math:`q = h_{nc}\Delta T` with ``natural_convection_coefficient``, or
-       Lloyd & Moran's `natural_convection` with ``expansion_coefficient``
-       (flat plates only: L = size/4, a square plate; 1e4 <= Ra <= 1e11;
-       a cylinder or sphere needs ``natural_convection_coefficient``);
+       `natural_convection` with ``expansion_coefficient``: Lloyd & Moran on
+       a plate (L = size/4, a square plate; 1e4 <= Ra <= 1e11), Churchill &
+       Chu on a cylinder (D = 2 size); a sphere needs
+       ``natural_convection_coefficient``;
     2. **onset** :math:`\Delta T_{ONB}`: where the natural-convection line
        meets ``wetboil.nucleation.onset_superheat(q, fluid, method=onset)``
        (default Davis & Anderson), or ``onset_superheat`` if given;
@@ -1073,7 +1120,8 @@ def curve(
     natural_convection_coefficient : float, optional
         :math:`h_{nc}` [W/(m2 K)]; or give ``expansion_coefficient`` [1/K].
     expansion_coefficient : float, optional
-        Liquid thermal expansion coefficient [1/K] for Lloyd & Moran.
+        Liquid thermal expansion coefficient [1/K] for Lloyd & Moran (plates)
+        or Churchill & Chu (cylinders).
     onset : str, optional
         Method name for ``wetboil.nucleation.onset_superheat``.
     onset_superheat : float, optional
@@ -1214,22 +1262,23 @@ def curve(
                 return h_nc * np.asarray(x, dtype=float) if np.ndim(x) else h_nc * float(x)
 
     elif expansion_coefficient is not None:
-        if geometry in ("cylinder", "sphere"):
-            # Lloyd & Moran (1974) correlate the upper face of a heated horizontal plate: it says
-            # nothing of a cylinder or a sphere (whose radius is no plate's area / perimeter)
+        if geometry == "sphere":
+            # Lloyd & Moran (1974) correlate the upper face of a heated horizontal plate and Churchill &
+            # Chu (1975) a horizontal cylinder: neither says anything of a sphere
             raise WetboilValueError(
-                f"{fn}: natural convection by expansion_coefficient uses Lloyd & Moran's horizontal-plate "
-                f"correlation, which does not hold for geometry {geometry!r}; give natural_convection_coefficient=... "
-                "[W/(m2 K)] (e.g. from Churchill & Chu's correlation for a horizontal cylinder)"
+                f"{fn}: natural convection by expansion_coefficient has correlations for a horizontal plate "
+                f"(Lloyd & Moran) and a horizontal cylinder (Churchill & Chu), not for geometry 'sphere'; give "
+                "natural_convection_coefficient=... [W/(m2 K)]"
             )
         if size is None:
             raise WetboilValueError(f"{fn}: natural convection by expansion_coefficient needs size=... [m]")
         _require(fluid, ("cp_l", "k_l", "mu_l"), "natural convection")
-        length = size / 4.0 if geometry in ("flat_plate", "small_flat_plate") else size
+        # a square plate of width `size` (area / perimeter = size / 4); a cylinder of radius `size`
+        nc_geometry, length = ("cylinder", 2.0 * size) if geometry == "cylinder" else ("flat_plate", size / 4.0)
 
         def q_nc(x: Any) -> Any:
             with errstate(out_of_range="ignore"):
-                return natural_convection(x, fluid, length, expansion_coefficient, g)
+                return natural_convection(x, fluid, length, expansion_coefficient, g, nc_geometry)
 
     else:
         raise WetboilValueError(
