@@ -769,9 +769,9 @@ impl Kernel<5, 1> for VdwFilmThickness {
 ///
 /// References: H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum
 /// A_SLV = A_SV + A_LL - A_SL - A_LV, solid and vapour across the liquid)
-/// [M]; the geometric-mean (Berthelot)
-/// rule A_ij = sqrt(A_ii A_jj) as in P. Walstra, Physical Chemistry of Foods
-/// (2003), Table 12.1, Eq. (12.5) [seen].
+/// [M]; the geometric-mean rule A_ij = sqrt(A_ii A_jj) for unlike
+/// attraction constants, D. Berthelot, C. R. Acad. Sci. Paris 126 (1898)
+/// 1703-1706 [M].
 #[inline(always)]
 pub fn effective_hamaker(hamaker_solid: f64, hamaker_liquid: f64) -> f64 {
     let ok = non_negative(hamaker_solid) & non_negative(hamaker_liquid);
@@ -789,7 +789,8 @@ impl Kernel<2, 1> for EffectiveHamaker {
         outputs: &[arg("hamaker", "J")],
         domain: "hamaker_solid >= 0, hamaker_liquid >= 0, finite",
         validity: "none published: an approximate combining relation",
-        reference: "H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum); Berthelot geometric-mean rule",
+        reference: "H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum); D. Berthelot, C. R. Acad. Sci. \
+                    Paris 126 (1898) 1703-1706 (geometric-mean rule)",
         doi: "",
         verification: "combining relation [M]",
     };
@@ -1019,8 +1020,8 @@ mod tests {
     #[test]
     fn effective_hamaker_signs() {
         // Water (3.7e-20 J) on glass (about 9e-20 J) across its vapour: wetting
-        // film, A < 0. Material values: Walstra, Physical Chemistry of Foods
-        // (2003), Table 12.2.
+        // film, A < 0. Material values: Hough & White (1980) for water [M]; the glass
+        // value is common practice (see HAMAKER_CONSTANTS in wetboil.wetting).
         let a = effective_hamaker(9e-20, 3.7e-20);
         assert!(a < 0.0);
         assert_relative_eq!(a, (9e-20f64.sqrt() - 3.7e-20f64.sqrt()) * (0.0 - 3.7e-20f64.sqrt()), max_relative = 1e-12);

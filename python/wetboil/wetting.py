@@ -1565,8 +1565,9 @@ def effective_hamaker(hamaker_solid: Any, hamaker_liquid: Any) -> Any:
     .. [1] H.C. Hamaker, "The London-van der Waals attraction between
        spherical particles", Physica 4 (1937) 1058-1072 (the three-media
        sum; from memory).
-    .. [2] P. Walstra, Physical Chemistry of Foods (Marcel Dekker, 2003),
-       Table 12.1 and Eq. (12.5), the Berthelot rule (seen).
+    .. [2] D. Berthelot, "Sur le mélange des gaz", C. R. Acad. Sci. Paris
+       126 (1898) 1703-1706 (the geometric-mean rule for the attraction
+       constant of unlike molecules; from memory).
 
     Examples
     --------
@@ -1588,26 +1589,31 @@ class HamakerConstant(NamedTuple):
         return f"HamakerConstant({self.name!r}, {self.value:.3g} J)"
 
 
-_WALSTRA = "P. Walstra, Physical Chemistry of Foods (Marcel Dekker, 2003), Table 12.2 [seen]"
 _HOUGH_WHITE = ("D.B. Hough and L.R. White, Adv. Colloid Interface Sci. 14 (1980) 3-41, Lifshitz-theory "
                 "values [from memory]")
+_HOUGH_WHITE_MED = _HOUGH_WHITE[:-len(" [from memory]")] + " [from memory, medium confidence]"
 _PARSEGIAN_WEISS = "V.A. Parsegian and G.H. Weiss, J. Colloid Interface Sci. 81 (1981) 285-289 [from memory]"
+_COMMON = "common practice value of colloid-science tables; no original source located"
 
 #: Hamaker constants of materials across vacuum, ``name -> HamakerConstant``
-#: (value in J). Walstra's values were seen in the book's table; the PTFE
-#: and metal values are from memory. "metal" is the middle of the range
-#: 25-40e-20 J quoted for gold, silver and copper.
+#: (value in J), with their sources: Hough & White's (1980) Lifshitz-theory
+#: values for the liquids, polystyrene and PTFE (from memory, rounded to two
+#: figures); Parsegian & Weiss (1981) for metals ("metal" is the middle of the
+#: range 25-40e-20 J for gold, silver and copper); the paraffin and glass
+#: values are common practice with no original located (for fused silica
+#: Hough & White give about 6.5e-20 J, from memory; soda-lime glasses are
+#: quoted higher).
 HAMAKER_CONSTANTS: Dict[str, HamakerConstant] = {
     name: HamakerConstant(name, value, src)
     for name, value, src in [
-        ("water", 3.7e-20, _WALSTRA),
-        ("ethanol", 4.2e-20, _WALSTRA),
-        ("n-pentane", 3.8e-20, _WALSTRA),
-        ("n-decane", 4.8e-20, _WALSTRA),
-        ("n-hexadecane", 5.2e-20, _WALSTRA),
-        ("solid paraffin", 7.1e-20, _WALSTRA),
-        ("polystyrene", 6.5e-20, _WALSTRA),
-        ("glass", 9.0e-20, _WALSTRA + " (quoted as approximate)"),
+        ("water", 3.7e-20, _HOUGH_WHITE),
+        ("ethanol", 4.2e-20, _HOUGH_WHITE_MED),
+        ("n-pentane", 3.8e-20, _HOUGH_WHITE + " (3.75e-20 J)"),
+        ("n-decane", 4.8e-20, _HOUGH_WHITE),
+        ("n-hexadecane", 5.2e-20, _HOUGH_WHITE),
+        ("solid paraffin", 7.1e-20, _COMMON),
+        ("polystyrene", 6.5e-20, _HOUGH_WHITE_MED),
+        ("glass", 9.0e-20, _COMMON + " (approximate)"),
         ("ptfe", 3.8e-20, _HOUGH_WHITE),
         ("metal", 3.25e-19, _PARSEGIAN_WEISS + "; middle of 25-40e-20 J for Au, Ag, Cu"),
     ]
