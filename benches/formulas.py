@@ -802,6 +802,20 @@ def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
     return Nu * k_l / D * dT
 
 
+@numpy_form("churchill_sphere_natural_convection")
+def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
+    Ra = g * beta * dT * D ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
+    Pr = mu_l * cp_l / k_l
+    return (2 + 0.589 * Ra ** 0.25 / (1 + (0.469 / Pr) ** (9 / 16)) ** (4 / 9)) * k_l / D * dT
+
+
+@python_form("churchill_sphere_natural_convection")
+def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
+    Ra = g * beta * dT * D ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
+    Pr = mu_l * cp_l / k_l
+    return (2 + 0.589 * Ra ** 0.25 / (1 + (0.469 / Pr) ** (9 / 16)) ** (4 / 9)) * k_l / D * dT
+
+
 # =============================================================================
 # film boiling
 

@@ -710,6 +710,76 @@ impl Kernel<8, 1> for NaturalConvectionCylinder {
     }
 }
 
+/// Natural convection from a sphere, Churchill (1983) [W/m2]:
+///
+/// `Nu_D = 2 + 0.589 Ra_D^(1/4) / [1 + (0.469/Pr)^(9/16)]^(4/9)`, with
+/// `Ra_D`, `Pr` and `q = Nu_D k_l ΔT / D` as for the cylinder
+/// ([`churchill_chu_cylinder`]).
+///
+/// * `superheat` ΔT [K], `diameter` D [m], `beta` [1/K], `k_l`, `rho_l`,
+///   `cp_l`, `mu_l`, `g`.
+/// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0 (the conduction
+///   limit Nu = 2 carries no heat without a temperature difference).
+/// * Flagged: Ra_D > 1e11 or Pr < 0.7 \[M, high\].
+/// * Verification: form, constants and range \[M, high\]; the original was
+///   not read. Tests check the equation worked by hand and Yuge's (1960)
+///   `Nu = 2 + 0.43 Ra^(1/4)` within 10 % over 1 ≤ Ra_D ≤ 1e5 at Pr = 0.71.
+///
+/// Reference: S.W. Churchill, "Free convection around immersed bodies", in
+/// Heat Exchanger Design Handbook, Section 2.5.7 (Hemisphere, 1983) (from
+/// memory).
+#[inline(always)]
+#[allow(clippy::too_many_arguments)]
+pub fn churchill_sphere(superheat: f64, diameter: f64, beta: f64, k_l: f64, rho_l: f64, cp_l: f64, mu_l: f64, g: f64) -> f64 {
+    let ok = natural_possible(&[superheat, diameter, beta, k_l, rho_l, cp_l, mu_l, g]);
+    let ra = rayleigh(superheat, diameter, beta, k_l, rho_l, cp_l, mu_l, g);
+    let pr = mu_l * cp_l / k_l;
+    let shape = fastmath::pow(1.0 + fastmath::pow(0.469 / pr, 9.0 / 16.0), 4.0 / 9.0);
+    let nu = 2.0 + 0.589 * ra.sqrt().sqrt() / shape;
+    nan_unless(ok, nu * k_l / diameter * superheat)
+}
+
+/// Kernel of [`churchill_sphere`].
+pub struct NaturalConvectionSphere;
+impl Kernel<8, 1> for NaturalConvectionSphere {
+    const MODEL: Model = Model {
+        name: "churchill_sphere_natural_convection",
+        summary: "Churchill (1983) natural convection from a sphere",
+        equation: "q = Nu*k_l/D*dT, Nu = 2 + 0.589 Ra_D**(1/4) / (1 + (0.469/Pr)**(9/16))**(4/9)",
+        inputs: &[
+            arg("superheat", "K"),
+            arg("length", "m"),
+            arg("expansion_coefficient", "1/K"),
+            arg("fluid.k_l", "W/(m K)"),
+            arg("fluid.rho_l", "kg/m3"),
+            arg("fluid.cp_l", "J/(kg K)"),
+            arg("fluid.mu_l", "Pa s"),
+            arg("g", "m/s2"),
+        ],
+        outputs: &[arg("heat_flux", "W/m2")],
+        domain: "superheat >= 0, every other input > 0",
+        validity: "Ra_D <= 1e11 and Pr >= 0.7, length = sphere diameter D",
+        reference: "S.W. Churchill, Free convection around immersed bodies, in Heat Exchanger Design Handbook, \
+                    Section 2.5.7, Hemisphere (1983)",
+        doi: "",
+        verification: "form, constants and range from memory (high confidence); original not read; within 10 % of \
+                       Yuge's (1960) 2 + 0.43 Ra**(1/4) at Pr = 0.71 over 1 <= Ra_D <= 1e5 (tests)",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 8]) -> [f64; 1] {
+        [churchill_sphere(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7])]
+    }
+    #[inline(always)]
+    fn possible(x: &[f64; 8]) -> bool {
+        natural_possible(x)
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 8]) -> bool {
+        let ra = rayleigh(x[0], x[1], x[2], x[3], x[4], x[5], x[6], x[7]);
+        x[0] == 0.0 || (ra <= 1e11 && x[6] * x[5] / x[3] >= 0.7)
+    }
+}
+
 // ---------------------------------------------------------------------------
 // Film boiling
 
@@ -948,6 +1018,28 @@ mod tests {
         }
         assert_eq!(churchill_chu_cylinder(0.0, d, 2e-4, kl(), RL, CPL, MUL, G), 0.0);
         assert!(churchill_chu_cylinder(-1.0, d, 2e-4, kl(), RL, CPL, MUL, G).is_nan());
+    }
+
+    #[test]
+    fn churchill_sphere_by_hand_and_against_yuge() {
+        // The equation worked by hand (Churchill 1983, from memory).
+        let (d, dt) = (10e-3, 5.0);
+        let pr = MUL * CPL / kl();
+        for ra in [1e-2, 1.0, 1e4, 1e8] {
+            let beta = ra / (G * dt * d * d * d * RL * RL * CPL / (MUL * kl()));
+            let nu = 2.0 + 0.589 * ra.powf(0.25) / (1.0 + (0.469 / pr).powf(9.0 / 16.0)).powf(4.0 / 9.0);
+            let q = churchill_sphere(dt, d, beta, kl(), RL, CPL, MUL, G);
+            assert_relative_eq!(q, nu * kl() / d * dt, max_relative = 1e-12);
+        }
+        // Yuge (J. Heat Transfer 82 (1960) 214-220) [M, medium]: Nu = 2 + 0.43 Ra^(1/4) on 1-1e5, air.
+        let k_air_like = MUL * CPL / 0.71;
+        for ra in [1.0, 1e2, 1e3, 1e4, 1e5] {
+            let beta = ra / (G * dt * d * d * d * RL * RL * CPL / (MUL * k_air_like));
+            let nu = churchill_sphere(dt, d, beta, k_air_like, RL, CPL, MUL, G) * d / (k_air_like * dt);
+            let yuge = 2.0 + 0.43 * ra.powf(0.25);
+            assert!((nu / yuge - 1.0).abs() < 0.10, "Ra {ra}: {nu} vs Yuge {yuge}");
+        }
+        assert_eq!(churchill_sphere(0.0, d, 2e-4, kl(), RL, CPL, MUL, G), 0.0);
     }
 
     #[test]

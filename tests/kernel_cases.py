@@ -130,6 +130,7 @@ _KERNEL_RANGES: Dict[Tuple[str, str], Tuple[str, Any, Any]] = {
     ("vdw_film_thickness", "hamaker"): ("lin", -1e-19, -1e-21),
     ("lloyd_moran_natural_convection", "length"): ("log", 1e-3, 0.2),
     ("churchill_chu_natural_convection", "length"): ("log", 1e-4, 0.05),  # wires to pipes
+    ("churchill_sphere_natural_convection", "length"): ("log", 1e-3, 0.05),
 }
 
 

@@ -572,18 +572,17 @@ def test_curve_without_xarray(water, monkeypatch):
 def test_curve_natural_convection_by_expansion_coefficient_follows_the_geometry(water):
     """Lloyd & Moran (J. Heat Transfer 96 (1974) 443-447) correlate natural convection from the
     upper face of a heated horizontal plate (L = area / perimeter); Churchill & Chu (Int. J. Heat
-    Mass Transfer 18 (1975) 1049-1053) a horizontal cylinder (L = diameter). A sphere has neither:
-    the curve asks for a coefficient there."""
+    Mass Transfer 18 (1975) 1049-1053) a horizontal cylinder and Churchill (1983) a sphere
+    (L = diameter). The curve used to apply the plate form with L = radius."""
     dts = np.geomspace(1.0, 1000.0, 20)
     kw = curve_kw(receding_angle_deg=None, natural_convection_coefficient=None, expansion_coefficient=7.5e-4)
-    with pytest.raises(wetboil.WetboilError, match="not for geometry 'sphere'"):
-        curve(water, dts, **dict(kw, geometry="sphere", size=1e-3))
-    # a cylinder of radius r: Churchill & Chu with D = 2 r
-    c = curve(water, dts, **dict(kw, geometry="cylinder", size=0.5e-3))
-    with warnings.catch_warnings():
-        warnings.simplefilter("ignore", wetboil.RangeWarning)
-        np.testing.assert_allclose(c["natural_convection"].values,
-                                   natural_convection(dts, water, 1e-3, 7.5e-4, geometry="cylinder"), rtol=1e-14)
+    # a cylinder or sphere of radius r: its own correlation with D = 2 r
+    for body in ("cylinder", "sphere"):
+        c = curve(water, dts, **dict(kw, geometry=body, size=0.5e-3))
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", wetboil.RangeWarning)
+            np.testing.assert_allclose(c["natural_convection"].values,
+                                       natural_convection(dts, water, 1e-3, 7.5e-4, geometry=body), rtol=1e-14)
     # a square plate of side s: L = s^2 / (4 s) = s / 4 (Lloyd & Moran's length)
     c = curve(water, dts, **dict(kw, geometry="flat_plate", size=0.1))
     np.testing.assert_allclose(c["natural_convection"].values,
@@ -615,9 +614,32 @@ def test_natural_convection_from_a_horizontal_cylinder(water):
     # range: Ra_D up to 1e12 (flagged above), and no plate length is mistaken for a diameter
     with pytest.warns(wetboil.RangeWarning, match="1e-5 <= Ra_D <= 1e12"):
         natural_convection(50.0, water, 1.0, 1e-2, geometry="cylinder")
-    with pytest.raises(ValueError, match="flat_plate, cylinder"):
-        natural_convection(dt, water, 1e-3, beta, geometry="sphere")
+    with pytest.raises(ValueError, match="flat_plate, cylinder, sphere"):
+        natural_convection(dt, water, 1e-3, beta, geometry="cone")
     assert natural_convection(0.0, water, 1e-3, beta, geometry="cylinder") == 0.0
+
+
+def test_natural_convection_from_a_sphere(water):
+    """Churchill (1983), Nu_D = 2 + 0.589 Ra^(1/4) / [1 + (0.469/Pr)^(9/16)]^(4/9) (equation from
+    memory, high confidence) worked by hand here; and against Yuge's air data fit (J. Heat Transfer
+    82 (1960) 214-220, from memory, medium confidence: Nu = 2 + 0.43 Ra^(1/4) on 1-1e5) within 10 %
+    at Pr = 0.71."""
+    beta, d, dt = 7.5e-4, np.array([1e-3, 5e-3, 20e-3]), 4.0
+    ra = G * beta * dt * d ** 3 * water.rho_l ** 2 * water.cp_l / (water.mu_l * water.k_l)
+    pr = water.mu_l * water.cp_l / water.k_l
+    nu = 2 + 0.589 * ra ** 0.25 / (1 + (0.469 / pr) ** (9 / 16)) ** (4 / 9)
+    np.testing.assert_allclose(natural_convection(dt, water, d, beta, geometry="sphere"),
+                               nu * water.k_l / d * dt, rtol=1e-12)
+    air_like = water.replace(k_l=water.mu_l * water.cp_l / 0.71)
+    for target in (1.0, 1e2, 1e4, 1e5):
+        b = target / (G * dt * 1e-2 ** 3 * air_like.rho_l ** 2 * air_like.cp_l / (air_like.mu_l * air_like.k_l))
+        nu_c = natural_convection(dt, air_like, 1e-2, b, geometry="sphere") * 1e-2 / (air_like.k_l * dt)
+        assert nu_c == pytest.approx(2 + 0.43 * target ** 0.25, rel=0.10), target
+    # the conduction limit: Nu -> 2 as Ra -> 0
+    tiny = natural_convection(dt, water, 1e-3, 1e-20, geometry="sphere") * 1e-3 / (water.k_l * dt)
+    assert tiny == pytest.approx(2.0, rel=1e-3)
+    with pytest.warns(wetboil.RangeWarning, match="Ra_D <= 1e11"):
+        natural_convection(50.0, water, 1.0, 1e-2, geometry="sphere")
 
 
 def test_curve_chf_margin_is_a_ratio_and_a_missing_design_flux_is_no_infinite_margin(water):

@@ -468,14 +468,20 @@ def _churchill_chu(superheat: Any, fluid: Saturation, length: Any, expansion_coe
     """Kernel-backed helper of `natural_convection` (a horizontal cylinder)."""
 
 
-_lloyd_moran.__name__ = _churchill_chu.__name__ = "natural_convection"
+def _churchill_sphere(superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any) -> Any:
+    """Kernel-backed helper of `natural_convection` (a sphere)."""
+
+
+_lloyd_moran.__name__ = _churchill_chu.__name__ = _churchill_sphere.__name__ = "natural_convection"
 _lloyd_moran = kernel("lloyd_moran_natural_convection")(_lloyd_moran)
 _churchill_chu = kernel("churchill_chu_natural_convection")(_churchill_chu)
+_churchill_sphere = kernel("churchill_sphere_natural_convection")(_churchill_sphere)
 
 #: Natural-convection geometries: what `length` is, and the correlation.
 NATURAL_CONVECTION_GEOMETRIES: Dict[str, str] = {
     "flat_plate": "area / perimeter of the upper face of a heated horizontal plate (Lloyd & Moran 1974)",
     "cylinder": "diameter of a horizontal cylinder (Churchill & Chu 1975)",
+    "sphere": "diameter of a sphere (Churchill 1983)",
 }
 
 
@@ -484,8 +490,8 @@ def natural_convection(
     geometry: str = "flat_plate",
 ) -> Any:
     r"""Natural convection before boiling [W/m2]: from the upper face of a
-    heated horizontal plate, Lloyd & Moran (1974), or from a horizontal
-    cylinder, Churchill & Chu (1975).
+    heated horizontal plate, Lloyd & Moran (1974), from a horizontal
+    cylinder, Churchill & Chu (1975), or from a sphere, Churchill (1983).
 
     .. math::
         \text{plate:}\quad Nu_L = 0.54\,Ra_L^{1/4}\ (10^4 \le Ra_L \le 10^7),\qquad
@@ -493,6 +499,9 @@ def natural_convection(
 
         \text{cylinder:}\quad Nu_D = \left\{0.60 + \frac{0.387\,Ra_D^{1/6}}
         {[1 + (0.559/Pr)^{9/16}]^{8/27}}\right\}^2\ (10^{-5} \le Ra_D \le 10^{12})
+
+        \text{sphere:}\quad Nu_D = 2 + \frac{0.589\,Ra_D^{1/4}}
+        {[1 + (0.469/Pr)^{9/16}]^{4/9}}\ (Ra_D \le 10^{11},\ Pr \ge 0.7)
 
         Ra_L = \frac{g\beta\,\Delta T\,L^3}{\nu_l\,\alpha_l},\qquad
         Pr = \frac{\mu_l c_{pl}}{k_l},\qquad q'' = Nu_L\,\frac{k_l}{L}\,\Delta T
@@ -505,28 +514,30 @@ def natural_convection(
         Uses ``k_l``, ``rho_l``, ``cp_l``, ``mu_l`` (liquid properties; for
         the film temperature use a state at that temperature).
     length : array_like
-        L [m]: area / perimeter of the plate, or the cylinder's diameter
-        (see `NATURAL_CONVECTION_GEOMETRIES`).
+        L [m]: area / perimeter of the plate, or the cylinder's or sphere's
+        diameter (see `NATURAL_CONVECTION_GEOMETRIES`).
     expansion_coefficient : array_like
         Thermal expansion coefficient :math:`\beta` of the liquid [1/K].
     g : array_like, optional
         Acceleration [m/s2].
     geometry : str, optional
-        ``"flat_plate"`` (default) or ``"cylinder"`` (horizontal).
+        ``"flat_plate"`` (default), ``"cylinder"`` (horizontal) or
+        ``"sphere"``.
 
     Returns
     -------
     float or ndarray or DataArray
         Heat flux [W/m2]; a Rayleigh number outside the correlation's range
-        (1e4-1e11 for the plate, 1e-5-1e12 for the cylinder) is flagged
-        (`RangeWarning`).
+        (1e4-1e11 for the plate, 1e-5-1e12 for the cylinder, up to 1e11 with
+        Pr >= 0.7 for the sphere) is flagged (`RangeWarning`).
 
     Notes
     -----
     Constants and ranges [M, high; the cylinder's lower bound medium]; the
     originals were not read. The cylinder form is checked against Morgan's
-    (1975) power laws (within 15 % at Pr = 0.71). Neither holds for a
-    vertical plate or a sphere.
+    (1975) power laws (within 15 % at Pr = 0.71), the sphere's against
+    Yuge's (1960) 2 + 0.43 Ra^(1/4) (within 10 % at Pr = 0.71). None holds
+    for a vertical plate.
 
     References
     ----------
@@ -537,7 +548,13 @@ def natural_convection(
        turbulent free convection from a horizontal cylinder", Int. J. Heat
        Mass Transfer 18 (1975) 1049-1053, doi:10.1016/0017-9310(75)90222-7
        (DOI from memory).
-    .. [3] V.T. Morgan, "The overall convective heat transfer from smooth
+    .. [3] S.W. Churchill, "Free convection around immersed bodies", in Heat
+       Exchanger Design Handbook, Section 2.5.7 (Hemisphere, 1983) (from
+       memory).
+    .. [4] T. Yuge, "Experiments on heat transfer from spheres including
+       combined natural and forced convection", J. Heat Transfer 82 (1960)
+       214-220 (from memory).
+    .. [5] V.T. Morgan, "The overall convective heat transfer from smooth
        circular cylinders", Adv. Heat Transfer 11 (1975) 199-264 (from
        memory).
 
@@ -553,7 +570,7 @@ def natural_convection(
     1622
     """
     check_choice("boiling.natural_convection", "geometry", geometry, NATURAL_CONVECTION_GEOMETRIES)
-    kern = _churchill_chu if geometry == "cylinder" else _lloyd_moran
+    kern = {"cylinder": _churchill_chu, "sphere": _churchill_sphere}.get(geometry, _lloyd_moran)
     return kern(superheat, fluid, length, expansion_coefficient, g)
 
 
@@ -1053,8 +1070,7 @@ def curve(
        :math:`q = h_{nc}\Delta T` with ``natural_convection_coefficient``, or
        `natural_convection` with ``expansion_coefficient``: Lloyd & Moran on
        a plate (L = size/4, a square plate; 1e4 <= Ra <= 1e11), Churchill &
-       Chu on a cylinder (D = 2 size); a sphere needs
-       ``natural_convection_coefficient``;
+       Chu on a cylinder and Churchill on a sphere (D = 2 size);
     2. **onset** :math:`\Delta T_{ONB}`: where the natural-convection line
        meets ``wetboil.nucleation.onset_superheat(q, fluid, method=onset)``
        (default Davis & Anderson), or ``onset_superheat`` if given;
@@ -1120,8 +1136,8 @@ def curve(
     natural_convection_coefficient : float, optional
         :math:`h_{nc}` [W/(m2 K)]; or give ``expansion_coefficient`` [1/K].
     expansion_coefficient : float, optional
-        Liquid thermal expansion coefficient [1/K] for Lloyd & Moran (plates)
-        or Churchill & Chu (cylinders).
+        Liquid thermal expansion coefficient [1/K] for Lloyd & Moran (plates),
+        Churchill & Chu (cylinders) or Churchill (spheres).
     onset : str, optional
         Method name for ``wetboil.nucleation.onset_superheat``.
     onset_superheat : float, optional
@@ -1262,19 +1278,11 @@ def curve(
                 return h_nc * np.asarray(x, dtype=float) if np.ndim(x) else h_nc * float(x)
 
     elif expansion_coefficient is not None:
-        if geometry == "sphere":
-            # Lloyd & Moran (1974) correlate the upper face of a heated horizontal plate and Churchill &
-            # Chu (1975) a horizontal cylinder: neither says anything of a sphere
-            raise WetboilValueError(
-                f"{fn}: natural convection by expansion_coefficient has correlations for a horizontal plate "
-                f"(Lloyd & Moran) and a horizontal cylinder (Churchill & Chu), not for geometry 'sphere'; give "
-                "natural_convection_coefficient=... [W/(m2 K)]"
-            )
         if size is None:
             raise WetboilValueError(f"{fn}: natural convection by expansion_coefficient needs size=... [m]")
         _require(fluid, ("cp_l", "k_l", "mu_l"), "natural convection")
-        # a square plate of width `size` (area / perimeter = size / 4); a cylinder of radius `size`
-        nc_geometry, length = ("cylinder", 2.0 * size) if geometry == "cylinder" else ("flat_plate", size / 4.0)
+        # a square plate of width `size` (area / perimeter = size / 4); a cylinder or sphere of radius `size`
+        nc_geometry, length = (geometry, 2.0 * size) if geometry in ("cylinder", "sphere") else ("flat_plate", size / 4.0)
 
         def q_nc(x: Any) -> Any:
             with errstate(out_of_range="ignore"):
