@@ -289,6 +289,21 @@ def test_from_coolprop_errors_and_range():
     assert np.isnan(s.T[1]) and np.isfinite(s.T[0])
 
 
+def test_from_coolprop_takes_coolprop_fluid_strings():
+    """CoolProp's own fluid strings (CoolProp documentation, "HEOS::R134a" selects the backend): the
+    HEOS prefix gives the same state as the bare name, checked against CoolProp's PropsSI; other
+    backends and mixtures (a glide, no single saturated state) are refused with the reason."""
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    s = from_coolprop("HEOS::R134a", T=273.15)
+    assert s.name == "R134a" and s.p == pytest.approx(CP.PropsSI("P", "T", 273.15, "Q", 0, "R134a"), rel=1e-12)
+    assert s.rho_v == from_coolprop("R134a", T=273.15).rho_v
+    with pytest.raises(ValueError, match="only CoolProp's HEOS backend"):
+        from_coolprop("REFPROP::Water", T=300.0)
+    for mix in ("R32&R125", "HEOS::R32[0.5]&R125[0.5]"):
+        with pytest.raises(ValueError, match="mixture"):
+            from_coolprop(mix, T=300.0)
+
+
 def test_from_coolprop_without_coolprop_says_how_to_install(monkeypatch):
     import builtins
 

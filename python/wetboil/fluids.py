@@ -521,13 +521,33 @@ def _probe_no_model(name: str) -> frozenset:
     return frozenset(missing)
 
 
+def _coolprop_fluid(name: str) -> str:
+    """The pure-fluid name in a CoolProp fluid string: ``"HEOS::Water"`` is
+    ``"Water"`` (HEOS is the backend used); other backends and mixtures are
+    refused with the reason."""
+    from ._errors import WetboilValueError
+
+    backend, sep, fluid = name.rpartition("::")
+    if sep and backend.strip().upper() != "HEOS":
+        raise WetboilValueError(f"from_coolprop: {name!r}: only CoolProp's HEOS backend (its reference equations of "
+                                f"state) is used; give the fluid name alone, e.g. {fluid.strip()!r}")
+    fluid = fluid.strip()
+    if "&" in fluid or "[" in fluid:
+        raise WetboilValueError(f"from_coolprop: {name!r} is a mixture: its boiling has a temperature glide and no "
+                                "single saturated state; give a pure fluid (or build a Saturation from your own "
+                                "bubble-point properties)")
+    return fluid
+
+
 def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     """Saturated state of any fluid CoolProp knows, at `T` [K] or `p` [Pa].
 
     Parameters
     ----------
     name : str
-        CoolProp fluid name ("Water", "R134a", "Novec649", "n-Pentane", ...).
+        CoolProp fluid name ("Water", "R134a", "Novec649", "n-Pentane", ...),
+        also with CoolProp's ``"HEOS::"`` backend prefix (the backend used);
+        other backends and mixtures raise `WetboilValueError`.
     T, p : array_like, optional
         Exactly one of saturation temperature [K] or pressure [Pa]. Numbers,
         arrays and DataArrays (labels kept).
@@ -567,6 +587,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         ) from None
     if not isinstance(name, str):
         raise WetboilTypeError(f"from_coolprop: name must be a string, got {type(name).__name__}")
+    name = _coolprop_fluid(name)
     if (T is None) == (p is None):
         raise WetboilValueError("from_coolprop: give exactly one of T [K] or p [Pa]")
     given = T if p is None else p
