@@ -589,6 +589,19 @@ fn natural_possible(x: &[f64; 8]) -> bool {
     all_positive!(x[1], x[2], x[3], x[4], x[5], x[6], x[7]; x[0])
 }
 
+/// Inputs of the natural-convection kernels (plate, cylinder, sphere): `length` is the plate's
+/// area / perimeter or the body's diameter.
+const NATURAL_CONVECTION_INPUTS: &[crate::model::Arg] = &[
+    arg("superheat", "K"),
+    arg("length", "m"),
+    arg("expansion_coefficient", "1/K"),
+    arg("fluid.k_l", "W/(m K)"),
+    arg("fluid.rho_l", "kg/m3"),
+    arg("fluid.cp_l", "J/(kg K)"),
+    arg("fluid.mu_l", "Pa s"),
+    arg("g", "m/s2"),
+];
+
 /// Kernel of [`natural_convection`].
 pub struct NaturalConvection;
 impl Kernel<8, 1> for NaturalConvection {
@@ -596,16 +609,7 @@ impl Kernel<8, 1> for NaturalConvection {
         name: "lloyd_moran_natural_convection",
         summary: "Lloyd & Moran (1974) natural convection from the upper face of a heated horizontal plate",
         equation: "q = Nu*k_l/L*dT, Nu = 0.54 Ra**0.25 (1e4-1e7), 0.15 Ra**(1/3) (1e7-1e11)",
-        inputs: &[
-            arg("superheat", "K"),
-            arg("length", "m"),
-            arg("expansion_coefficient", "1/K"),
-            arg("fluid.k_l", "W/(m K)"),
-            arg("fluid.rho_l", "kg/m3"),
-            arg("fluid.cp_l", "J/(kg K)"),
-            arg("fluid.mu_l", "Pa s"),
-            arg("g", "m/s2"),
-        ],
+        inputs: NATURAL_CONVECTION_INPUTS,
         outputs: &[arg("heat_flux", "W/m2")],
         domain: "superheat >= 0, every other input > 0",
         validity: "1e4 <= Ra_L <= 1e11, L = area/perimeter",
@@ -676,16 +680,7 @@ impl Kernel<8, 1> for NaturalConvectionCylinder {
         name: "churchill_chu_natural_convection",
         summary: "Churchill & Chu (1975) natural convection from a horizontal cylinder",
         equation: "q = Nu*k_l/D*dT, Nu = (0.60 + 0.387 Ra_D**(1/6) / (1 + (0.559/Pr)**(9/16))**(8/27))**2",
-        inputs: &[
-            arg("superheat", "K"),
-            arg("length", "m"),
-            arg("expansion_coefficient", "1/K"),
-            arg("fluid.k_l", "W/(m K)"),
-            arg("fluid.rho_l", "kg/m3"),
-            arg("fluid.cp_l", "J/(kg K)"),
-            arg("fluid.mu_l", "Pa s"),
-            arg("g", "m/s2"),
-        ],
+        inputs: NATURAL_CONVECTION_INPUTS,
         outputs: &[arg("heat_flux", "W/m2")],
         domain: "superheat >= 0, every other input > 0",
         validity: "1e-5 <= Ra_D <= 1e12, length = cylinder diameter D (horizontal cylinder)",
@@ -746,16 +741,7 @@ impl Kernel<8, 1> for NaturalConvectionSphere {
         name: "churchill_sphere_natural_convection",
         summary: "Churchill (1983) natural convection from a sphere",
         equation: "q = Nu*k_l/D*dT, Nu = 2 + 0.589 Ra_D**(1/4) / (1 + (0.469/Pr)**(9/16))**(4/9)",
-        inputs: &[
-            arg("superheat", "K"),
-            arg("length", "m"),
-            arg("expansion_coefficient", "1/K"),
-            arg("fluid.k_l", "W/(m K)"),
-            arg("fluid.rho_l", "kg/m3"),
-            arg("fluid.cp_l", "J/(kg K)"),
-            arg("fluid.mu_l", "Pa s"),
-            arg("g", "m/s2"),
-        ],
+        inputs: NATURAL_CONVECTION_INPUTS,
         outputs: &[arg("heat_flux", "W/m2")],
         domain: "superheat >= 0, every other input > 0",
         validity: "Ra_D <= 1e11 and Pr >= 0.7, length = sphere diameter D",
