@@ -644,10 +644,13 @@ impl Kernel<8, 1> for NaturalConvection {
 ///   expansion coefficient of the liquid [1/K], `k_l`, `rho_l`, `cp_l`,
 ///   `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
-/// * Flagged: Ra_D outside 1e-5-1e12 \[M: the upper bound high, the lower medium\].
-/// * Verification: constants and range \[M, high\]; the original was not
-///   read. Tests check the equation worked by hand and, at Pr = 0.71,
-///   Morgan's (1975) power laws within 15 % over 1e4-1e12.
+/// * Flagged: Ra_D outside 1e-5-1e12: the lower bound is Churchill & Chu's
+///   own, the upper one a textbook's (no upper bound in the original), both
+///   as CalebBell/ht's notes restate them \[V2\].
+/// * Verification: the form \[M, high\] and \[V2\] (CalebBell/ht's doctest
+///   reproduced to 1e-12 in the Python tests); the original was not read.
+///   Tests also check, at Pr = 0.71, Morgan's (1975) power laws within 15 %
+///   over 1e4-1e12.
 ///
 /// Reference: S.W. Churchill, H.H.S. Chu, "Correlating equations for laminar
 /// and turbulent free convection from a horizontal cylinder", Int. J. Heat
@@ -687,8 +690,9 @@ impl Kernel<8, 1> for NaturalConvectionCylinder {
         reference: "S.W. Churchill, H.H.S. Chu, Correlating equations for laminar and turbulent free convection from \
                     a horizontal cylinder, Int. J. Heat Mass Transfer 18 (1975) 1049-1053",
         doi: "10.1016/0017-9310(75)90222-7",
-        verification: "equation, constants and range from memory (high confidence); original not read; within 15 % of \
-                       Morgan's (1975) power laws at Pr = 0.71 over 1e4 <= Ra_D <= 1e12 (tests)",
+        verification: "form from memory (high confidence) and as in CalebBell/ht (its doctest reproduced, tests); \
+                       original not read; within 15 % of Morgan's (1975) power laws at Pr = 0.71 over \
+                       1e4 <= Ra_D <= 1e12 (tests)",
     };
     #[inline(always)]
     fn eval(x: &[f64; 8]) -> [f64; 1] {
@@ -716,8 +720,10 @@ impl Kernel<8, 1> for NaturalConvectionCylinder {
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0 (the conduction
 ///   limit Nu = 2 carries no heat without a temperature difference).
 /// * Flagged: Ra_D > 1e11 or Pr < 0.7 \[M, high\].
-/// * Verification: form, constants and range \[M, high\]; the original was
-///   not read. Tests check the equation worked by hand and Yuge's (1960)
+/// * Verification: form, constants and range \[M, high\]; the laminar form
+///   matches CalebBell/ht's (whose turbulent factor is 1 + 4e-9 at its
+///   doctest's Ra = 7, reproduced to 1e-8 in the Python tests) \[V2\]; the
+///   original was not read. Tests also check Yuge's (1960)
 ///   `Nu = 2 + 0.43 Ra^(1/4)` within 10 % over 1 ≤ Ra_D ≤ 1e5 at Pr = 0.71.
 ///
 /// Reference: S.W. Churchill, "Free convection around immersed bodies", in
@@ -748,8 +754,9 @@ impl Kernel<8, 1> for NaturalConvectionSphere {
         reference: "S.W. Churchill, Free convection around immersed bodies, in Heat Exchanger Design Handbook, \
                     Section 2.5.7, Hemisphere (1983)",
         doi: "",
-        verification: "form, constants and range from memory (high confidence); original not read; within 10 % of \
-                       Yuge's (1960) 2 + 0.43 Ra**(1/4) at Pr = 0.71 over 1 <= Ra_D <= 1e5 (tests)",
+        verification: "form, constants and range from memory (high confidence); laminar form as in CalebBell/ht (its \
+                       doctest reproduced, tests); original not read; within 10 % of Yuge's (1960) \
+                       2 + 0.43 Ra**(1/4) at Pr = 0.71 over 1 <= Ra_D <= 1e5 (tests)",
     };
     #[inline(always)]
     fn eval(x: &[f64; 8]) -> [f64; 1] {

@@ -619,6 +619,24 @@ def test_natural_convection_from_a_horizontal_cylinder(water):
     assert natural_convection(0.0, water, 1e-3, beta, geometry="cylinder") == 0.0
 
 
+def _nusselt(pr, ra, geometry):
+    """Nu_D of `natural_convection` at a Prandtl and Rayleigh number, through a made-up liquid."""
+    mu, cp, rho, d, dt = 1e-3, 4000.0, 1000.0, 1e-2, 2.0
+    k = mu * cp / pr
+    beta = ra / (G * dt * d ** 3 * rho ** 2 * cp / (mu * k))
+    s = Saturation(T=373.15, p=101325.0, rho_l=rho, rho_v=0.6, h_lv=2.2e6, sigma=0.059, cp_l=cp, mu_l=mu, k_l=k)
+    return natural_convection(dt, s, d, beta, geometry=geometry) * d / (k * dt)
+
+
+def test_natural_convection_against_a_reference_library():
+    """CalebBell/ht (a general-purpose open heat-transfer library), doctests of
+    Nu_horizontal_cylinder_Churchill_Chu(Pr=0.69, Gr=2.63e9) = 139.13493970073597 (its docs say it
+    matches a textbook worked example) and Nu_sphere_Churchill(Pr=0.7, Gr=10) = 2.738104002574638
+    (ht adds Churchill's turbulent factor {1 + 7.44e-8 Ra/[...]^(16/9)}^(1/12), 1 + 4e-9 at Ra = 7)."""
+    assert _nusselt(0.69, 0.69 * 2.63e9, "cylinder") == pytest.approx(139.13493970073597, rel=1e-12)
+    assert _nusselt(0.7, 7.0, "sphere") == pytest.approx(2.738104002574638, rel=1e-8)
+
+
 def test_natural_convection_from_a_sphere(water):
     """Churchill (1983), Nu_D = 2 + 0.589 Ra^(1/4) / [1 + (0.469/Pr)^(9/16)]^(4/9) (equation from
     memory, high confidence) worked by hand here; and against Yuge's air data fit (J. Heat Transfer

@@ -533,9 +533,10 @@ def natural_convection(
 
     Notes
     -----
-    Constants and ranges [M, high; the cylinder's lower bound medium]; the
-    originals were not read. The cylinder form is checked against Morgan's
-    (1975) power laws (within 15 % at Pr = 0.71), the sphere's against
+    Constants and ranges [M, high]; the originals were not read. The
+    cylinder and sphere forms reproduce CalebBell/ht's doctests (a
+    general-purpose heat-transfer library); the cylinder is checked against
+    Morgan's (1975) power laws (within 15 % at Pr = 0.71), the sphere against
     Yuge's (1960) 2 + 0.43 Ra^(1/4) (within 10 % at Pr = 0.71). None holds
     for a vertical plate.
 
