@@ -132,6 +132,38 @@ def test_zisman_fit_statistics_identities():
     assert math.isnan(critical_surface_tension([0.02, 0.03], [50.0, 40.0]).value)
 
 
+def test_zisman_tensions_given_in_mn_per_m_are_refused():
+    # The Fox & Zisman (1950) alkane table above [memory] typed in mN/m, as
+    # printed there, instead of N/m: the fit would report gamma_c = 18 N/m
+    # (18 000 mN/m), far above any liquid's surface tension at room
+    # temperature (mercury, the highest, about 0.49 N/m [common practice,
+    # from memory]). It must be refused, as surface_energy refuses mN/m
+    # probe-liquid components.
+    sigma_mn = [v[0] for v in FOX_ZISMAN_ALKANES.values()]
+    theta = [v[1] for v in FOX_ZISMAN_ALKANES.values()]
+    with pytest.raises(wetboil.WetboilValueError, match="mN/m"):
+        critical_surface_tension(sigma_mn, theta)
+
+
+def test_zisman_line_reaching_one_below_zero_tension_is_nan():
+    # Fox & Zisman (1950) define gamma_c as the surface tension at which the
+    # cos(theta) line reaches 1, i.e. of a liquid that would just spread: a
+    # liquid surface tension, so positive [definition]. Points hand-built
+    # exactly on cos(theta) = 1 - b (sigma - gamma_c) with gamma_c = -10 mN/m
+    # (large angles, as water-like liquids give on a fluoropolymer) have no
+    # critical surface tension: NaN, as when the line never reaches 1.
+    gc, b = -0.010, 20.0  # N/m, 1/(N/m)
+    s = np.array([0.048, 0.058, 0.064, 0.0728])
+    theta = np.degrees(np.arccos(1 - b * (s - gc)))
+    assert np.all((theta > 90) & (theta < 180))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        r = critical_surface_tension(s, theta)
+    assert math.isnan(r.value) and math.isnan(r.standard_error)
+    assert r.slope == pytest.approx(-b, rel=1e-12) and r.r_squared == pytest.approx(1.0, abs=1e-12)
+    assert r.n_points == 4
+
+
 # =============================================================================
 # OWRK: Owens & Wendt's polymers
 

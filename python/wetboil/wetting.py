@@ -1105,14 +1105,17 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
     Raises
     ------
     WetboilValueError
-        Shapes that differ, or fewer than two liquids with a non-zero angle.
+        Shapes that differ, fewer than two liquids with a non-zero angle, or a
+        tension above 1 N/m (surface tensions given in mN/m).
 
     Notes
     -----
     Liquids that spread (angle 0) only say that :math:`\sigma_c \ge
     \sigma_{lv}`; they are left out of the fit (``n_points`` counts the ones
     used). Where :math:`\cos\theta` does not fall with :math:`\sigma_{lv}` the
-    line never reaches 1 from below and ``value`` is NaN. Impossible elements
+    line never reaches 1 from below and ``value`` is NaN; so is it where the
+    line reaches 1 only at a tension <= 0, which no liquid has (``slope``,
+    ``intercept`` and ``r_squared`` are still given). Impossible elements
     (angle outside 0-180, tension <= 0) make the result NaN with one
     `InvalidValueWarning`. The critical surface tension depends on the
     liquid series; polar liquids give curved plots (Dann 1970, from an
@@ -1148,6 +1151,11 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
         return nan_result
     if np.isnan(s).any() or np.isnan(t).any():
         return nan_result
+    if (s > 1.0).any():
+        raise WetboilValueError(
+            f"{function}: sigma_lv has values above 1 N/m (largest {float(s.max()):g}); were they given in mN/m? "
+            "Surface tensions are in N/m."
+        )
     use = t > 0.0
     n = int(use.sum())
     if n < 2:
@@ -1168,6 +1176,9 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
     if slope >= 0.0:
         return CriticalSurfaceTension(math.nan, math.nan, r2, slope, intercept, n)
     value = (1.0 - intercept) / slope
+    if value <= 0.0:
+        # the line reaches cos = 1 only at a tension no liquid has: no critical surface tension
+        return CriticalSurfaceTension(math.nan, math.nan, r2, slope, intercept, n)
     if n > 2:
         s2 = rss / (n - 2)
         se = math.sqrt(s2 / slope**2 * (1.0 / n + (value - xm) ** 2 / sxx))
