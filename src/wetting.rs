@@ -378,7 +378,8 @@ impl Kernel<2, 1> for Wenzel {
 /// * Validity: the drop sits on the texture tops (no penetration); the
 ///   fractions are those under the contact line, not averages under the drop
 ///   (the area form is the one written here). An intrinsic angle below 90 deg
-///   is flagged: on a hydrophilic texture the trapped-gas state is not the
+///   with `f < 1` is flagged (at `f = 1` no gas is trapped and the formula
+///   is Wenzel's): on a hydrophilic texture the trapped-gas state is not the
 ///   stable one (the liquid fills the texture, Wenzel, or wicks into it), so
 ///   the formula's hydrophobic answer must not be trusted there (J. Bico,
 ///   C. Thiele, D. Quere, Colloids Surf. A 206 (2002) 41-46 [M]).
@@ -414,8 +415,8 @@ impl Kernel<3, 1> for CassieBaxter {
         inputs: &[arg("contact_angle_deg", "deg"), arg("solid_fraction", "-"), arg("roughness_ratio", "-")],
         outputs: &[arg("apparent_angle_deg", "deg")],
         domain: "0 <= contact_angle_deg <= 180, 0 <= solid_fraction <= 1, roughness_ratio >= 1",
-        validity: "|cos(theta*)| <= 1 before saturation; contact_angle_deg >= 90 (a hydrophilic texture does not \
-                   hold gas under the drop); drop resting on the texture tops",
+        validity: "|cos(theta*)| <= 1 before saturation; contact_angle_deg >= 90 where solid_fraction < 1 (a \
+                   hydrophilic texture does not hold gas under the drop); drop resting on the texture tops",
         reference: "A.B.D. Cassie, S. Baxter, Wettability of porous surfaces, Trans. Faraday Soc. 40 (1944) 546-551",
         doi: "10.1039/tf9444000546",
         verification: "equation form [V2] (Milne & Amirfazli 2012 abstract); bibliographic data and DOI [M, high]",
@@ -430,7 +431,9 @@ impl Kernel<3, 1> for CassieBaxter {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 3]) -> bool {
-        (cassie_cos(x[0], x[1], x[2]).abs() <= 1.0) & (x[0] >= 90.0)
+        // With f = 1 no gas is trapped (the formula is Wenzel's), so the
+        // hydrophilic-texture flag applies only where f < 1.
+        (cassie_cos(x[0], x[1], x[2]).abs() <= 1.0) & ((x[0] >= 90.0) | (x[1] >= 1.0))
     }
 }
 
@@ -960,6 +963,9 @@ mod tests {
         // Saturation flagged.
         assert_eq!(cassie_baxter(20.0, 1.0, 2.0), 0.0);
         assert_eq!(evaluate::<CassieBaxter, 3, 1>(&[20.0, 1.0, 2.0]).1, Status::OutOfRange);
+        // The hydrophilic flag needs trapped gas (f < 1); f = 1 is Wenzel's state.
+        assert_eq!(evaluate::<CassieBaxter, 3, 1>(&[60.0, 1.0, 1.4]).1, Status::Ok);
+        assert_eq!(evaluate::<CassieBaxter, 3, 1>(&[60.0, 0.9, 1.4]).1, Status::OutOfRange);
     }
 
     #[test]

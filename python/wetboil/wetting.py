@@ -1260,8 +1260,8 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
     -------
     float or ndarray or DataArray
         Apparent angle [deg]; saturates at 0 / 180 deg, flagged with
-        `RangeWarning` as in `wenzel`. An intrinsic angle below 90 deg is
-        flagged too (see Notes).
+        `RangeWarning` as in `wenzel`. An intrinsic angle below 90 deg with
+        ``f < 1`` is flagged too (see Notes).
 
     Notes
     -----
@@ -1273,7 +1273,8 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
     state is not the stable one: the liquid fills the texture or wicks into
     it and the surface wets better, not worse (Bico, Thiele & Quere, Colloids
     Surf. A 206 (2002) 41-46, from memory), so the formula's answer there is
-    flagged `RangeWarning` (use `wenzel`).
+    flagged `RangeWarning` (use `wenzel`). At ``f = 1`` no gas is trapped
+    and the answer is Wenzel's, so it is not flagged for the angle.
     Milne and Amirfazli (2012) point out that the fractions under the
     contact line, not area averages, are what matter.
 
