@@ -458,6 +458,25 @@ mod tests {
     }
 
     #[test]
+    fn a_surface_tension_in_mn_per_m_is_flagged() {
+        use crate::model::{classify, classify_side, evaluate, Status};
+        // Water at 1 atm (Incropera Ex. 10.1 inputs, as above) with sigma typed
+        // as 58.9 (mN/m): Zuber's group grows by 1000^(1/4) = 5.62 [identity]
+        // and the element is flagged, through the bound shared by every kernel.
+        let ok = [2257e3, 957.9, 0.5955, 58.9e-3, 0.149, 9.8];
+        let slip = [2257e3, 957.9, 0.5955, 58.9, 0.149, 9.8];
+        let (a, sa) = evaluate::<Zuber, 6, 1>(&ok);
+        let (b, sb) = evaluate::<Zuber, 6, 1>(&slip);
+        assert_eq!((sa, sb), (Status::Ok, Status::OutOfRange));
+        assert_relative_eq!(b[0] / a[0], 1000f64.powf(0.25), max_relative = 1e-12);
+        assert_eq!(classify::<Zuber, 6, 1>(&slip), 2);
+        // The factored form flags the fluid side, not the angle side.
+        let k = [10.0, 0.0, 2257e3, 957.9, 0.5955, 58.9, 9.80665];
+        assert_eq!(evaluate::<Kandlikar, 7, 1>(&k).1, Status::OutOfRange);
+        assert_eq!((classify_side::<Kandlikar, 7, 1>(0, &k), classify_side::<Kandlikar, 7, 1>(1, &k)), (0, 2));
+    }
+
+    #[test]
     fn kandlikar_limits_and_identities() {
         let (h, rl, rv, s, g): (f64, f64, f64, f64, f64) = (2257e3, 957.9, 0.5955, 58.9e-3, 9.80665);
         let group = h * rv.sqrt() * (s * g * (rl - rv)).powf(0.25);

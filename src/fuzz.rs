@@ -498,7 +498,7 @@ fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(
             report.fail(name, x, format!("eval_block and eval differ: {got:?} vs {v:?}"));
         }
         want.any_nan |= v.iter().any(|o| o.is_nan());
-        want.out_of_range += (j < len && !K::in_range_with(x, v)) as u64;
+        want.out_of_range += (j < len && !crate::model::within::<K, N, M>(x, v)) as u64;
     }
     if sum != want {
         report.fail(name, &samples[0].0, format!("eval_block's summary {sum:?}, the elements give {want:?}"));
@@ -517,6 +517,8 @@ macro_rules! kernels {
             <$k as Kernel<$n, $m>>::MODEL.name,
             run::<$k, $n, $m> as Runner,
         )),*];
+        /// Their models' facts, in the same order.
+        const FUZZED_MODELS: &[crate::model::Model] = &[$(<$k as Kernel<$n, $m>>::MODEL),*];
     };
 }
 
@@ -664,6 +666,26 @@ fn fuzz_list_matches_the_registry() {
     fuzzed.sort();
     registered.sort();
     assert_eq!(fuzzed, registered, "src/fuzz.rs must list exactly the kernels of src/python/registry.rs");
+}
+
+#[test]
+fn every_tension_input_is_a_liquids_or_a_solids() {
+    // The bound on liquid surface tensions (model::TENSION_MAX) finds its
+    // inputs by name: a new "N/m" input must be put in one list or the other.
+    use crate::model::{named, LIQUID_TENSIONS, OTHER_TENSIONS};
+    for m in FUZZED_MODELS {
+        for a in m.inputs.iter().filter(|a| a.unit == "N/m") {
+            assert!(
+                named(a.name, &LIQUID_TENSIONS) ^ named(a.name, &OTHER_TENSIONS),
+                "{}: input {} [N/m] must be in exactly one of model::LIQUID_TENSIONS and model::OTHER_TENSIONS",
+                m.name,
+                a.name
+            );
+        }
+        for a in m.inputs.iter().filter(|a| named(a.name, &LIQUID_TENSIONS)) {
+            assert_eq!(a.unit, "N/m", "{}: {}", m.name, a.name);
+        }
+    }
 }
 
 #[test]

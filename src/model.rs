@@ -64,6 +64,10 @@ pub struct Model {
 pub trait Kernel<const N: usize, const M: usize> {
     /// The model's facts.
     const MODEL: Model;
+    /// Which inputs are a liquid's surface tension ([`LIQUID_TENSIONS`]),
+    /// for the bound [`TENSION_MAX`] that [`within`] adds to every kernel's
+    /// own range.
+    const TENSIONS: [bool; N] = tension_inputs::<N>(Self::MODEL.inputs);
     /// The outputs for one element.
     fn eval(x: &[f64; N]) -> [f64; M];
     /// The outputs for one element evaluated on its own (the scalar entry
@@ -119,6 +123,112 @@ pub trait Kernel<const N: usize, const M: usize> {
     }
 }
 
+/// Largest liquid surface tension [N/m] an element takes without a range
+/// flag, in every kernel with such an input (one mechanism, [`within`]).
+/// No liquid that boils in service comes near it: mercury, the highest of the
+/// common liquids, is about 0.49 N/m at room temperature and liquid sodium
+/// about 0.2 N/m at its boiling point [from memory, common practice]. A
+/// larger value was almost always given in mN/m, and the models would take
+/// it silently: Zuber's CHF goes as sigma^(1/4), 5.6 times too high for
+/// water at 58.9 "N/m". Such elements are still computed (a molten metal may
+/// mean it) but counted as outside the range, so the call warns. Solid
+/// surface energies are not bounded: a clean metal's is 1-2 J/m2.
+pub const TENSION_MAX: f64 = 1.0;
+
+/// The input names that hold a liquid's surface tension or a component of
+/// it [N/m]. Every other `"N/m"` input belongs to a solid or an interface
+/// (`sigma_sv`, `sigma_sl`, `sigma_s`, `solid_*`); the fuzz tests check that
+/// every registered `"N/m"` input is one or the other.
+pub const LIQUID_TENSIONS: [&str; 5] = ["sigma_lv", "sigma_l", "fluid.sigma", "liquid_dispersive", "liquid_polar"];
+
+/// The `"N/m"` input names that are not a liquid's ([`LIQUID_TENSIONS`]).
+pub const OTHER_TENSIONS: [&str; 5] = ["sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_polar"];
+
+const fn same(a: &str, b: &str) -> bool {
+    let (a, b) = (a.as_bytes(), b.as_bytes());
+    if a.len() != b.len() {
+        return false;
+    }
+    let mut i = 0;
+    while i < a.len() {
+        if a[i] != b[i] {
+            return false;
+        }
+        i += 1;
+    }
+    true
+}
+
+/// Whether an input name is in a list (compile time).
+pub const fn named(name: &str, list: &[&str]) -> bool {
+    let mut i = 0;
+    while i < list.len() {
+        if same(name, list[i]) {
+            return true;
+        }
+        i += 1;
+    }
+    false
+}
+
+/// Why [`TENSION_MAX`] flags: appended to the validity text of every model
+/// with a surface-tension input where that text is shown.
+pub const TENSION_CLAUSE: &str =
+    "liquid surface tension <= 1 N/m (mercury is 0.49 N/m; a larger value was usually given in mN/m)";
+
+/// Which of `N` inputs are a liquid's surface tension (compile time, from a model's table).
+pub const fn tension_inputs<const N: usize>(inputs: &[Arg]) -> [bool; N] {
+    let mut out = [false; N];
+    let mut i = 0;
+    while i < N && i < inputs.len() {
+        out[i] = named(inputs[i].name, &LIQUID_TENSIONS);
+        i += 1;
+    }
+    out
+}
+
+impl Model {
+    /// The validity range as shown to users: [`Model::validity`], plus
+    /// [`TENSION_CLAUSE`] where some input is a liquid's surface tension.
+    pub fn validity_text(&self) -> std::borrow::Cow<'static, str> {
+        if !self.inputs.iter().any(|a| named(a.name, &LIQUID_TENSIONS)) {
+            self.validity.into()
+        } else if self.validity.is_empty() {
+            TENSION_CLAUSE.into()
+        } else {
+            format!("{}; {TENSION_CLAUSE}", self.validity).into()
+        }
+    }
+}
+
+/// Whether the inputs marked in `mask` (and, for a factored side, belonging
+/// to it) are plausible liquid surface tensions: not above [`TENSION_MAX`]. A NaN is
+/// not flagged here (the loops report it as missing).
+#[inline(always)]
+fn tensions_plausible<const N: usize>(mask: &[bool; N], x: &[f64; N]) -> bool {
+    let mut ok = true;
+    for k in 0..N {
+        ok &= !(mask[k] & (x[k] > TENSION_MAX));
+    }
+    ok
+}
+
+/// Whether a possible element lies inside its kernel's range, given its
+/// outputs `y = eval(x)`: the kernel's own [`Kernel::in_range_with`] and the
+/// bound on liquid surface tensions common to all kernels ([`TENSION_MAX`]). Every
+/// loop, the scalar entry point and [`classify`] decide "out of range"
+/// through this or [`within_x`], never through `in_range` alone.
+#[inline(always)]
+pub fn within<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], y: &[f64; M]) -> bool {
+    K::in_range_with(x, y) & tensions_plausible(&K::TENSIONS, x)
+}
+
+/// [`within`] without the outputs at hand.
+#[inline(always)]
+pub fn within_x<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> bool {
+    K::in_range(x) & tensions_plausible(&K::TENSIONS, x)
+}
+
 /// What the binding's loops learn while evaluating a block: whether any
 /// output is NaN (the block then needs the full settling of each element)
 /// and how many live elements lie outside the published range (all there is
@@ -145,7 +255,7 @@ impl BlockSummary {
             y[m][j] = v[m];
             self.any_nan |= v[m].is_nan();
         }
-        self.out_of_range += (!K::in_range_with(x, &v) & (j < len)) as u64;
+        self.out_of_range += (!within::<K, N, M>(x, &v) & (j < len)) as u64;
     }
 }
 
@@ -286,11 +396,19 @@ pub fn classify_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x
         3
     } else if !K::side_possible(s, x) {
         1
-    } else if !K::side_in_range(s, x) {
+    } else if !within_side::<K, N, M>(s, x) {
         2
     } else {
         0
     }
+}
+
+/// [`within_x`] for side `s` of a factored kernel: its own
+/// [`Factored::side_in_range`] and the tension bound on the side's inputs.
+#[inline(always)]
+pub fn within_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x: &[f64; N]) -> bool {
+    let mask: [bool; N] = std::array::from_fn(|k| K::TENSIONS[k] & (K::SIDES[k] == s));
+    K::side_in_range(s, x) & tensions_plausible(&mask, x)
 }
 
 /// Outcome of one element, as the generic loops count it.
@@ -323,14 +441,14 @@ pub fn evaluate<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
 #[inline(always)]
 pub fn settle<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], y: [f64; M]) -> ([f64; M], Status) {
     if !y.iter().any(|v| v.is_nan()) {
-        let status = if K::in_range_with(x, &y) { Status::Ok } else { Status::OutOfRange };
+        let status = if within::<K, N, M>(x, &y) { Status::Ok } else { Status::OutOfRange };
         return (y, status);
     }
     if x.iter().any(|v| v.is_nan()) {
         (y, Status::Ok)
     } else if !K::possible(x) {
         ([f64::NAN; M], Status::Invalid)
-    } else if !K::in_range_with(x, &y) {
+    } else if !within::<K, N, M>(x, &y) {
         (y, Status::OutOfRange)
     } else {
         (y, Status::Ok)
@@ -367,7 +485,7 @@ pub fn classify<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
         3
     } else if !K::possible(x) {
         1
-    } else if !K::in_range(x) {
+    } else if !within_x::<K, N, M>(x) {
         2
     } else {
         0
@@ -470,6 +588,11 @@ pub fn check_factored<K: Factored<N, M>, const N: usize, const M: usize>(x: &[f6
     assert_eq!(K::possible(x), K::side_possible(0, x) && K::side_possible(1, x), "{name}: possible at {x:?}");
     if K::possible(x) {
         assert_eq!(K::in_range(x), K::side_in_range(0, x) && K::side_in_range(1, x), "{name}: in_range at {x:?}");
+        assert_eq!(
+            within_x::<K, N, M>(x),
+            within_side::<K, N, M>(0, x) && within_side::<K, N, M>(1, x),
+            "{name}: within at {x:?}"
+        );
     }
     for s in 0..2u8 {
         let f = K::factor(s, x);

@@ -946,6 +946,18 @@ mod tests {
     }
 
     #[test]
+    fn only_a_liquids_tension_is_bounded() {
+        // A clean metal's surface energy is 1-2 J/m2 [common practice, from
+        // memory]: not flagged. The liquid's tension in mN/m is.
+        assert_eq!(evaluate::<YoungAngle, 3, 1>(&[2.0, 1.95, 0.0728]).1, Status::Ok);
+        assert_eq!(evaluate::<YoungAngle, 3, 1>(&[2.0, 1.95, 72.8]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<OwrkAngle, 4, 1>(&[0.03, 0.01, 0.0218, 0.051]).1, Status::Ok);
+        assert_eq!(evaluate::<OwrkAngle, 4, 1>(&[0.03, 0.01, 21.8, 51.0]).1, Status::OutOfRange);
+        assert!(YoungAngle::MODEL.validity_text().contains("mN/m"));
+        assert!(!Wenzel::MODEL.validity_text().contains("mN/m"));
+    }
+
+    #[test]
     fn cassie_baxter_identities() {
         for theta in [0.0, 30.0, 90.0, 150.0, 180.0] {
             // f = 1, r_f = 1 gives the intrinsic angle.

@@ -188,6 +188,40 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
     assert issubclass(wetboil.OutOfRangeError, ValueError) and issubclass(wetboil.OutOfRangeError, wetboil.WetboilError)
 
 
+LIQUID_TENSIONS = {"sigma_lv", "sigma_l", "fluid.sigma", "liquid_dispersive", "liquid_polar"}
+
+
+@pytest.mark.parametrize("kernel", sorted(k for k, (f, spec) in kc.BY_KERNEL.items()
+                                          if {a.name for a in spec.model.inputs} & LIQUID_TENSIONS))
+def test_a_liquid_tension_in_mn_per_m_is_flagged(kernel):
+    # Every kernel that takes a liquid's surface tension flags one above 1 N/m:
+    # no liquid that boils in service comes near it (mercury, the highest of the
+    # common liquids, is about 0.49 N/m at room temperature [common practice,
+    # from memory]), and the usual cause is a value in mN/m, which the models
+    # would otherwise take silently (Zuber's CHF 5.6 times too high).
+    f, spec, base = _in_range_base(kernel)
+    names = [a.name for a in spec.model.inputs]
+    x_in = kc.kernel_inputs(spec, base)
+    x_out = [v * 1e3 if n in LIQUID_TENSIONS else v for n, v in zip(names, x_in)]
+    assert "mN/m" in spec.model.validity, spec.model.validity
+    with np.errstate(all="ignore"):
+        assert int(getattr(_core, f"{kernel}_status")(*x_out)) == 2, kernel
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        kc.call(f, spec, kc.args_from_inputs(spec, x_out, base))
+    msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
+    assert len(msgs) == 1 and "mN/m" in msgs[0], (kernel, [str(w.message) for w in rec])
+
+
+def test_a_solid_surface_energy_above_1_j_per_m2_is_not_flagged():
+    # A clean metal's surface energy is 1-2 J/m2 [common practice, from memory]:
+    # only the liquid's tension is bounded.
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", wetboil.WetboilWarning)
+        theta = wetboil.wetting.young_angle(2.0, 1.95, 0.0728)
+    assert theta == pytest.approx(math.degrees(math.acos(0.05 / 0.0728)), rel=1e-12)  # Young [identity]
+
+
 def test_in_range_calls_do_not_warn():
     for kernel in sorted(set(OUT_OF_RANGE) & set(kc.BY_KERNEL)):
         f, spec, base = _in_range_base(kernel)

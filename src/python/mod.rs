@@ -46,7 +46,14 @@ fn take_counts() -> (u64, u64) {
 /// JSON list of every registered model's facts.
 #[pyfunction]
 fn models_json() -> String {
-    let models: Vec<_> = entries().iter().map(|e| &e.model).collect();
+    let models: Vec<_> = entries()
+        .iter()
+        .map(|e| {
+            let mut m = serde_json::to_value(e.model).unwrap_or_default();
+            m["validity"] = e.model.validity_text().into();
+            m
+        })
+        .collect();
     serde_json::to_string(&models).unwrap_or_else(|_| "[]".to_owned())
 }
 

@@ -468,7 +468,7 @@ fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize>(
             x_nan |= v.is_nan();
         }
         let possible = K::possible(&x);
-        let in_range = K::in_range_with(&x, &y);
+        let in_range = crate::model::within::<K, N, M>(&x, &y);
         let live = j < len;
         let blank = y_nan & !x_nan & !possible;
         for column in yb.iter_mut() {
@@ -825,7 +825,7 @@ pub fn make_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py, PyAny>
         m.inputs.iter().map(|a| format!("{} [{}]", a.name, a.unit)).collect::<Vec<_>>().join(", "),
         m.outputs.iter().map(|a| format!("{} [{}]", a.name, a.unit)).collect::<Vec<_>>().join(", "),
         m.domain,
-        m.validity,
+        m.validity_text(),
         m.reference,
         if m.doi.is_empty() { String::new() } else { format!(", doi:{}", m.doi) },
     );
@@ -843,7 +843,9 @@ pub fn make_status_ufunc<'py>(py: Python<'py>, e: &Entry) -> PyResult<Bound<'py,
     let doc = format!(
         "Validity code of each element of {}: 0 inside the published range ({}), 1 physically impossible \
          ({}), 2 outside the published range, 3 missing (NaN input).",
-        e.model.name, e.model.validity, e.model.domain
+        e.model.name,
+        e.model.validity_text(),
+        e.model.domain
     );
     build_ufunc(py, &status_name(e.model.name), &doc, e.status_fn, e.nin, 1, NPY_TYPES::NPY_BYTE)
 }
