@@ -185,6 +185,16 @@ def _(theta, f, r):
     return math.degrees(math.acos(max(-1.0, min(1.0, c))))
 
 
+@numpy_form("hemiwicking_angle")
+def _(f, r):
+    return np.degrees(np.arccos(np.clip((1 - f) / (r - f), -1, 1)))
+
+
+@python_form("hemiwicking_angle")
+def _(f, r):
+    return math.degrees(math.acos(max(-1.0, min(1.0, (1 - f) / (r - f)))))
+
+
 # =============================================================================
 # contact-angle hysteresis (Furmidge)
 

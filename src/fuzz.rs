@@ -572,6 +572,7 @@ kernels! {
     wetting::OwrkAngle, 4, 1;
     wetting::Wenzel, 2, 1;
     wetting::CassieBaxter, 3, 1;
+    wetting::HemiwickingAngle, 2, 1;
     wetting::RetentionForce, 5, 1;
     wetting::SlidingAngle, 7, 1;
     wetting::VdwDisjoiningPressure, 2, 1;

@@ -437,6 +437,71 @@ impl Kernel<3, 1> for CassieBaxter {
     }
 }
 
+/// Hemi-wicking critical angle [deg] of a textured surface: a liquid whose
+/// Young angle lies below it wicks into the texture ahead of a drop (a film
+/// spreads through the texture while the tops stay dry), one whose angle lies
+/// above it does not.
+///
+/// `cos θ_c = (1 − φ_s) / (r − φ_s)`: a film front that advances by `dx`
+/// wets `(r − φ_s) dx` of solid (the texture less its dry tops) and leaves
+/// `(1 − φ_s) dx` of liquid surface between the tops, and it advances when
+/// that lowers the energy, `(σ_sl − σ_sv)(r − φ_s) + σ_lv (1 − φ_s) < 0`,
+/// that is with Young's equation `cos θ > (1 − φ_s)/(r − φ_s)` [D].
+///
+/// * `solid_fraction` φ_s [-] in [0, 1): the fraction of the projected area
+///   taken by the dry tops; `roughness_ratio` r [-] ≥ 1, finite; otherwise
+///   NaN (φ_s = 1 leaves no gap for a film).
+/// * Limits: r = 1 (flat) gives 0 deg, only a spreading liquid wicks;
+///   φ_s = 0 gives `cos θ_c = 1/r`, where Wenzel's angle reaches 0 deg
+///   [identity]; r → ∞ gives 90 deg, so no texture makes a hydrophobic
+///   solid wick. θ_c always lies in [0, 90] deg.
+/// * Validity: texture much smaller than the drop and the capillary
+///   length, tops flat and left dry, the film filling the texture to its
+///   height; a static criterion (it says whether the film spreads, not how
+///   fast). No numeric range is published.
+///
+/// Reference: J. Bico, C. Thiele, D. Quere, Wetting of textured surfaces,
+/// Colloids Surf. A 206 (2002) 41-46, doi:10.1016/S0927-7757(02)00061-4
+/// [M, high: the criterion and bibliographic data; the paper was not seen
+/// in this work]; the energy balance above [D] gives the same form.
+#[inline(always)]
+pub fn hemiwicking_angle(solid_fraction: f64, roughness_ratio: f64) -> f64 {
+    let ok = hemiwicking_possible(solid_fraction, roughness_ratio);
+    nan_unless(ok, angle_from_cos((1.0 - solid_fraction) / (roughness_ratio - solid_fraction)))
+}
+
+#[inline(always)]
+fn hemiwicking_possible(f: f64, r: f64) -> bool {
+    (f >= 0.0) & (f < 1.0) & (r >= 1.0) & finite(r)
+}
+
+/// Kernel of [`hemiwicking_angle`].
+pub struct HemiwickingAngle;
+impl Kernel<2, 1> for HemiwickingAngle {
+    const MODEL: Model = Model {
+        name: "hemiwicking_angle",
+        summary: "Hemi-wicking critical angle of a textured surface (a liquid below it wicks into the texture)",
+        equation: "cos(theta_c) = (1 - phi_s) / (r - phi_s)",
+        inputs: &[arg("solid_fraction", "-"), arg("roughness_ratio", "-")],
+        outputs: &[arg("critical_angle_deg", "deg")],
+        domain: "0 <= solid_fraction < 1, roughness_ratio >= 1",
+        validity: "no numeric range published: texture much smaller than the drop and the capillary length, \
+                   dry flat tops, film filling the texture; a static criterion",
+        reference: "J. Bico, C. Thiele, D. Quere, Wetting of textured surfaces, Colloids Surf. A 206 (2002) 41-46",
+        doi: "10.1016/S0927-7757(02)00061-4",
+        verification: "form [M, high] and re-derived from the surface-energy balance [D]; limits (flat, phi_s = 0 \
+                       meets Wenzel's 0 deg, r -> infinity 90 deg) [identity]",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 2]) -> [f64; 1] {
+        [hemiwicking_angle(x[0], x[1])]
+    }
+    #[inline(always)]
+    fn possible(x: &[f64; 2]) -> bool {
+        hemiwicking_possible(x[0], x[1])
+    }
+}
+
 // ---------------------------------------------------------------------------
 // A7 Furmidge retention force and sliding angle
 
@@ -943,6 +1008,31 @@ mod tests {
         assert!(wenzel(30.0, 0.9).is_nan());
         assert!(wenzel(-1.0, 1.5).is_nan());
         assert_eq!(evaluate::<Wenzel, 2, 1>(&[30.0, 0.9]).1, Status::Invalid);
+    }
+
+    #[test]
+    fn hemiwicking_limits_and_energy_balance() {
+        // Flat: only a spreading liquid wicks.
+        assert_eq!(hemiwicking_angle(0.3, 1.0), 0.0);
+        // No tops: the threshold is where Wenzel's angle reaches 0 [identity].
+        for r in [1.2, 1.5, 2.0, 4.0] {
+            let t = hemiwicking_angle(0.0, r);
+            assert_relative_eq!(cos_deg(t), 1.0 / r, max_relative = 1e-12);
+            assert_relative_eq!(wenzel(t, r), 0.0, epsilon = 1e-5);
+        }
+        // Very rough: approaches 90 deg from below, never beyond.
+        let t = hemiwicking_angle(0.5, 1e9);
+        assert!(t < 90.0 && t > 89.99);
+        // The energy balance [D]: at theta_c a film front costs nothing, per unit
+        // advance and with Young's equation, (r - phi_s)(-cos theta_c) + (1 - phi_s) = 0.
+        for (f, r) in [(0.1, 1.5), (0.3, 2.0), (0.6, 3.0)] {
+            let c = cos_deg(hemiwicking_angle(f, r));
+            assert_relative_eq!((r - f) * (-c) + (1.0 - f), 0.0, epsilon = 1e-12);
+        }
+        assert!(hemiwicking_angle(1.0, 2.0).is_nan());
+        assert!(hemiwicking_angle(-0.1, 2.0).is_nan());
+        assert!(hemiwicking_angle(0.3, 0.9).is_nan());
+        assert!(hemiwicking_angle(0.3, f64::INFINITY).is_nan());
     }
 
     #[test]

@@ -28,6 +28,7 @@ from wetboil.wetting import (
     effective_hamaker,
     film_thickness,
     hamaker_constant,
+    hemiwicking_angle,
     interfacial_tension,
     owrk_angle,
     power_law_disjoining_pressure,
@@ -353,6 +354,36 @@ def test_wenzel_and_cassie_identities():
     assert math.cos(math.radians(wenzel(70.0, 1.8))) == pytest.approx(1.8 * math.cos(math.radians(70.0)), rel=1e-12)
     c = 0.3 * 1.2 * math.cos(math.radians(115.0)) + 0.3 - 1
     assert cassie_baxter(115.0, 0.3, 1.2) == pytest.approx(math.degrees(math.acos(c)), rel=1e-12)
+
+
+def test_hemiwicking_threshold():
+    # Bico, Thiele & Quere (2002) [memory]: cos theta_c = (1 - phi_s)/(r - phi_s).
+    # Worked by hand from that equation: pillars with phi_s = 0.25, r = 2:
+    # cos theta_c = 0.75/1.75 = 0.428571..., theta_c = 64.623 deg.
+    assert hemiwicking_angle(0.25, 2.0) == pytest.approx(64.6230664748477, abs=1e-9)
+    f = np.array([0.0, 0.1, 0.3, 0.6, 0.9])
+    r = np.array([1.0, 1.2, 2.0, 3.0, 10.0])
+    t = hemiwicking_angle(f[:, None], r[None, :])
+    # [identity] the energy balance of an advancing film is zero at theta_c:
+    # (r - phi_s)(sigma_sl - sigma_sv) + sigma_lv (1 - phi_s) = 0 with Young's cos.
+    np.testing.assert_allclose((r - f[:, None]) * np.cos(np.radians(t)), np.broadcast_to(1 - f[:, None], t.shape), rtol=1e-12)
+    # [identity] flat (r = 1): 0 deg; no tops: Wenzel's angle reaches 0 exactly there.
+    np.testing.assert_array_equal(t[:, 0], 0.0)
+    np.testing.assert_allclose(np.cos(np.radians(t[0, 1:])), 1 / r[1:], rtol=1e-12)
+    # rougher textures wick more liquids, and so do more dry tops (less free liquid surface
+    # for the film to make: d cos/d phi_s = (1 - r)/(r - phi_s)^2 < 0); never a hydrophobic one
+    assert (np.diff(t, axis=1) > 0).all() and (np.diff(t[:, 1:], axis=0) > 0).all()
+    assert (t < 90).all()
+    # a Young angle just below the threshold makes Wenzel saturate (the texture wicks)
+    tc = hemiwicking_angle(0.0, 1.5)
+    with pytest.warns(wetboil.RangeWarning):
+        assert wenzel(tc - 1.0, 1.5) == 0.0
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert wenzel(tc + 1.0, 1.5) > 0.0
+    # impossible: no gap for a film (phi_s = 1), r < 1
+    with pytest.warns(wetboil.InvalidValueWarning, match="2 of 2"):
+        assert np.isnan(hemiwicking_angle([1.0, 0.3], [2.0, 0.9])).all()
 
 
 def test_wenzel_saturates_and_says_so():

@@ -10,7 +10,8 @@ The usual chain:
 2. -> the angle of any other liquid, such as the working fluid at its
    saturation temperature (`predict_angle`);
 3. -> the apparent angle on the real rough or textured surface (`wenzel`,
-   `cassie_baxter`);
+   `cassie_baxter`), and whether the texture wicks the liquid
+   (`hemiwicking_angle`);
 4. -> hysteresis forces on drops (`retention_force`, `sliding_angle`) and
    thin wetting films (`disjoining_pressure`, `film_thickness`).
 
@@ -50,6 +51,7 @@ __all__ = [
     "owrk_angle",
     "wenzel",
     "cassie_baxter",
+    "hemiwicking_angle",
     "retention_force",
     "sliding_angle",
     "disjoining_pressure",
@@ -198,7 +200,10 @@ def adhesion_work(sigma_lv: Any, contact_angle_deg: Any) -> Any:
     -------
     float or ndarray or DataArray
         Work of adhesion per unit area [J/m2]; :math:`2\sigma_{lv}` (the
-        work of cohesion) at 0 deg, 0 at 180 deg.
+        work of cohesion) at 0 deg, 0 at 180 deg. At 0 deg this is a lower
+        bound: a liquid that spreads has :math:`W_a \ge 2\sigma_{lv}` (the
+        spreading coefficient :math:`W_a - 2\sigma_{lv} \ge 0`), which the
+        angle cannot resolve.
 
     Notes
     -----
@@ -1208,7 +1213,8 @@ def wenzel(contact_angle_deg: Any, roughness_ratio: Any) -> Any:
     -------
     float or ndarray or DataArray
         Apparent angle [deg]. Where :math:`|r\cos\theta| > 1` it
-        **saturates** at 0 deg (the texture wicks the liquid: hemi-wicking) or
+        **saturates** at 0 deg (the texture wicks the liquid: hemi-wicking,
+        see `hemiwicking_angle` for the texture's own threshold) or
         180 deg, and those elements are reported with one `RangeWarning` per
         call: the equation has no solution there and the real surface is in
         another state (a wicked film, or gas trapped under the drop, see
@@ -1294,6 +1300,67 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
     159.1
     >>> cassie_baxter(110.0, 1.0)                   # f = 1: the intrinsic angle
     110.0
+    """
+
+
+@kernel("hemiwicking_angle")
+def hemiwicking_angle(solid_fraction: Any, roughness_ratio: Any) -> Any:
+    r"""Hemi-wicking critical angle of a textured surface [deg] (Bico, Thiele
+    & Quere 2002).
+
+    .. math:: \cos\theta_c = \frac{1 - \phi_s}{r - \phi_s}
+
+    A liquid whose Young (intrinsic) angle on the material lies **below**
+    :math:`\theta_c` wicks into the texture: a film runs ahead of a drop
+    through the texture while the tops stay dry, and the drop's apparent
+    angle falls towards 0. Above :math:`\theta_c` the texture does not wick
+    and `wenzel` (or `cassie_baxter`) gives the apparent angle.
+
+    Parameters
+    ----------
+    solid_fraction : array_like
+        :math:`\phi_s`, fraction of the projected area taken by the texture
+        tops, which stay dry [-], 0 <= phi_s < 1.
+    roughness_ratio : array_like
+        :math:`r` = true area / projected area of the texture [-], >= 1.
+
+    Returns
+    -------
+    float or ndarray or DataArray
+        Critical angle [deg], between 0 (flat, ``r = 1``: only a spreading
+        liquid wicks) and 90 (reached only as ``r`` grows without bound: no
+        texture makes a hydrophobic material wick).
+
+    Notes
+    -----
+    A film front that advances by :math:`dx` wets :math:`(r - \phi_s)\,dx`
+    of solid and leaves :math:`(1 - \phi_s)\,dx` of free liquid surface
+    between the tops; it advances where that lowers the energy, which with
+    Young's equation is :math:`\cos\theta > \cos\theta_c`. With no tops
+    (:math:`\phi_s = 0`) the threshold is :math:`\cos\theta = 1/r`, where
+    Wenzel's angle reaches 0. Wicking textures raise the critical heat flux
+    by feeding liquid to the dry spots; this function says whether a texture
+    wicks, not how fast (the wicking rate needs the texture's permeability).
+    Valid for textures much smaller than the drop and the capillary length,
+    with flat tops. ``solid_fraction`` outside [0, 1) or ``roughness_ratio``
+    below 1 gives NaN and an `InvalidValueWarning`.
+
+    References
+    ----------
+    .. [1] J. Bico, C. Thiele, D. Quere, "Wetting of textured surfaces",
+       Colloids Surf. A 206 (2002) 41-46, doi:10.1016/S0927-7757(02)00061-4
+       (the paper was not seen; criterion and bibliographic data from
+       memory, and re-derived from the energy balance in the Notes).
+
+    Examples
+    --------
+    >>> from wetboil.wetting import hemiwicking_angle, wenzel
+    >>> round(hemiwicking_angle(0.25, 2.0), 2)        # pillars: cos = 0.75/1.75
+    64.62
+    >>> hemiwicking_angle(0.3, 1.0)                   # flat: nothing short of spreading wicks
+    0.0
+    >>> round(wenzel(hemiwicking_angle(0.0, 1.6), 1.6), 4)   # no tops: Wenzel's 0 deg (acos near 1: ~1e-6)
+    0.0
     """
 
 

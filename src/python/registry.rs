@@ -56,6 +56,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<wetting::OwrkAngle, 4, 1>(),
         entry::<wetting::Wenzel, 2, 1>(),
         entry::<wetting::CassieBaxter, 3, 1>(),
+        entry::<wetting::HemiwickingAngle, 2, 1>(),
         entry::<wetting::RetentionForce, 5, 1>(),
         entry::<wetting::SlidingAngle, 7, 1>(),
         entry::<wetting::VdwDisjoiningPressure, 2, 1>(),
