@@ -498,7 +498,7 @@ fn check_block<K: Kernel<N, M>, const N: usize, const M: usize>(
             report.fail(name, x, format!("eval_block and eval differ: {got:?} vs {v:?}"));
         }
         want.any_nan |= v.iter().any(|o| o.is_nan());
-        want.out_of_range += (j < len && !crate::model::within::<K, N, M>(x, v)) as u64;
+        want.out_of_range += (j < len && !K::in_range_with(x, v)) as u64;
     }
     if sum != want {
         report.fail(name, &samples[0].0, format!("eval_block's summary {sum:?}, the elements give {want:?}"));

@@ -213,6 +213,30 @@ fn tensions_plausible<const N: usize>(mask: &[bool; N], x: &[f64; N]) -> bool {
     ok
 }
 
+/// Whether some live element of a block (the first `len` of `B`) has a
+/// liquid surface tension above [`TENSION_MAX`]. The binding's block loops
+/// ask this beside [`Kernel::eval_block`] and settle such a block element by
+/// element through [`within`], as they do a block with a NaN output: the
+/// bound is then one compare per element of the tension columns, read from
+/// the block just loaded, and no work at all for kernels without such an
+/// input (a compare inside every kernel's vectorised loop cost up to 45 %,
+/// the Furmidge sliding angle's).
+#[inline(always)]
+pub fn tension_outlier<K: Kernel<N, M>, const N: usize, const M: usize, const B: usize>(
+    at: impl Fn(usize) -> [f64; N],
+    len: usize,
+) -> bool {
+    if !K::TENSIONS.iter().any(|&t| t) {
+        return false;
+    }
+    let mut any = false;
+    for j in 0..B {
+        let x = at(j);
+        any |= !tensions_plausible(&K::TENSIONS, &x) & (j < len);
+    }
+    any
+}
+
 /// Whether a possible element lies inside its kernel's range, given its
 /// outputs `y = eval(x)`: the kernel's own [`Kernel::in_range_with`] and the
 /// bound on liquid surface tensions common to all kernels ([`TENSION_MAX`]). Every
@@ -231,8 +255,10 @@ pub fn within_x<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -
 
 /// What the binding's loops learn while evaluating a block: whether any
 /// output is NaN (the block then needs the full settling of each element)
-/// and how many live elements lie outside the published range (all there is
-/// to count when no output is NaN).
+/// and how many live elements lie outside the kernel's own range
+/// ([`Kernel::in_range_with`]; all there is to count when no output is NaN
+/// and no liquid surface tension exceeds [`TENSION_MAX`], which the loops
+/// check apart, see [`tension_outlier`]).
 #[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
 pub struct BlockSummary {
     pub any_nan: bool,
@@ -255,7 +281,7 @@ impl BlockSummary {
             y[m][j] = v[m];
             self.any_nan |= v[m].is_nan();
         }
-        self.out_of_range += (!within::<K, N, M>(x, &v) & (j < len)) as u64;
+        self.out_of_range += (!K::in_range_with(x, &v) & (j < len)) as u64;
     }
 }
 

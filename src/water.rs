@@ -2296,7 +2296,7 @@ mod tests {
             for m in 0..12 {
                 assert_eq!(y[m][j].to_bits(), v[m].to_bits(), "chunk {c} x = {:e} field {m}", x[0]);
             }
-            out_of_range += (j < len && !crate::model::within::<K, 1, 12>(&x, &v)) as u64;
+            out_of_range += (j < len && !K::in_range_with(&x, &v)) as u64;
         }
         assert_eq!(sum.out_of_range, out_of_range);
         assert_eq!(sum.any_nan, (0..64).any(|j| y.iter().any(|f| f[j].is_nan())));

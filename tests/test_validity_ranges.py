@@ -213,6 +213,27 @@ def test_a_liquid_tension_in_mn_per_m_is_flagged(kernel):
     assert len(msgs) == 1 and "mN/m" in msgs[0], (kernel, [str(w.message) for w in rec])
 
 
+def test_tension_outliers_are_counted_in_large_arrays():
+    # The block loops check the tension bound apart from the kernel (rare path):
+    # scattered outliers among 200 001 elements (several blocks, both threads),
+    # some next to NaN and to out-of-range elements, are each counted once, and
+    # match the per-element codes. Counting [identity: 1 in 997, 1 in 13].
+    n = 200_001
+    w = wetboil.fluids.water(p=101325.0)
+    sigma = np.full(n, w.sigma)
+    sigma[::997] *= 1e3          # mN/m slips
+    K = np.full(n, 0.149)
+    K[5::13] = 0.3               # out of Zuber's own range (0.10-0.20)
+    sigma[7::101] = np.nan       # missing data
+    f = w.replace(sigma=sigma)
+    codes = wetboil.validity(wetboil.chf.zuber, f, K)
+    want = int(((sigma > 1) | (K > 0.2))[~np.isnan(sigma)].sum())
+    assert int((codes == 2).sum()) == want
+    with pytest.warns(wetboil.RangeWarning, match=f"{want} of {n}"):
+        q = wetboil.chf.zuber(f, K)
+    assert np.isnan(q[7::101]).all() and np.isfinite(q[::997][~np.isnan(sigma[::997])]).all()
+
+
 def test_a_solid_surface_energy_above_1_j_per_m2_is_not_flagged():
     # A clean metal's surface energy is 1-2 J/m2 [common practice, from memory]:
     # only the liquid's tension is bounded.
