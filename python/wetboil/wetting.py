@@ -1466,12 +1466,13 @@ def sliding_angle(
 
     Examples
     --------
-    A 20 mg water drop, 2 mm wide, angles 110/90 deg:
+    A 20 uL (20 mg) water drop at about 100 deg sits on a base about 3.9 mm
+    wide (a spherical cap, worked by hand); with angles 110/90 deg:
 
     >>> from wetboil.wetting import sliding_angle
-    >>> round(sliding_angle(20e-6, 0.0728, 110.0, 90.0, 2e-3), 2)
-    14.71
-    >>> sliding_angle(0.1e-6, 0.0728, 110.0, 60.0, 2e-3)   # too light: never slides
+    >>> round(sliding_angle(20e-6, 0.0728, 110.0, 90.0, 3.9e-3), 2)
+    29.68
+    >>> sliding_angle(1e-6, 0.0728, 110.0, 60.0, 1.4e-3)   # a 1 uL drop, 110/60 deg: never slides
     nan
     """
 
