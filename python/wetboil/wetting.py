@@ -749,7 +749,12 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
               \qquad x = \sqrt{\sigma_s^d},\; y = \sqrt{\sigma_s^p}
 
     Two liquids give a 2x2 system solved exactly; more liquids are solved by
-    linear least squares in *(x, y)*.
+    linear least squares in *(x, y)*, with unweighted residuals in this form
+    (half the work of adhesion, N/m). Kaelble's plot, which divides each row
+    by :math:`\sqrt{\sigma_{l,i}^d}` and fits a line in
+    :math:`\sqrt{\sigma_{l,i}^p/\sigma_{l,i}^d}`, weights the liquids
+    differently: with three or more liquids its components differ somewhat
+    from these (with two, both are exact and agree).
 
     Parameters
     ----------
