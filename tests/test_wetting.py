@@ -207,6 +207,18 @@ def test_probe_liquid_choice_moves_the_answer():
     assert 0.3 * MN < abs(default.total - ow.total) < 2 * MN
 
 
+def test_angles_in_radians_are_questioned():
+    # PTFE's water and diiodomethane angles, 108 and 88 deg (the test above, Owens &
+    # Wendt 1969 [memory]), typed in radians: a one-warning hint, and the fit goes on.
+    with pytest.warns(wetboil.WetboilWarning, match="radians"):
+        surface_energy(np.radians([108.0, 88.0]), ["water", "diiodomethane"])
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        surface_energy([108.0, 88.0], ["water", "diiodomethane"])
+        # a batch with one real surface in degrees is not questioned
+        surface_energy([[108.0, 88.0], [1.9, 1.5]], ["water", "diiodomethane"])
+
+
 def test_water_total_matches_iapws():
     # IAPWS R1-76(2014) surface tension of water at 20 C is 72.74 mN/m
     # (reference library: iapws); the table's 72.8 is the customary rounding.

@@ -39,7 +39,7 @@ from typing import Any, Dict, List, Mapping, NamedTuple, Tuple
 import numpy as np
 
 from ._api import kernel
-from ._errors import WetboilTypeError, WetboilValueError, report
+from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, report
 from .fluids import Saturation, _is_water
 
 __all__ = [
@@ -869,6 +869,11 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
             "separate the dispersive from the polar part; use at least one polar and one apolar liquid"
         )
 
+    given = theta[~np.isnan(theta)]
+    if given.size and (given > 0.0).any() and (given <= math.pi).all():
+        # every angle within [0, pi] and not all zero: the usual sign of radians
+        _warn(f"{function}: every contact angle is at most {math.pi:.4f} deg; were they given in radians? "
+              "Angles are in degrees (the fit goes on with them as degrees)", WetboilWarning)
     bad = ~((theta >= 0.0) & (theta <= 180.0)) & ~np.isnan(theta)
     if bad.any():
         report(function, int(theta.size), int(bad.sum()), 0)
