@@ -77,6 +77,10 @@ __all__ = [
 
 G = 9.80665
 _MN = 1e-3  # mN/m -> N/m
+#: Largest liquid surface tension [N/m] taken as given; above it a value was almost surely typed in
+#: mN/m. The same bound as the kernels' range check (TENSION_MAX in src/model.rs), which warns;
+#: the fits below raise, since one such value spoils the whole fit.
+_TENSION_MAX = 1.0
 
 
 # =============================================================================
@@ -526,7 +530,7 @@ def _custom_liquid(name: Any, spec: Any) -> ProbeLiquid:
         ) from None
     if not (math.isfinite(d) and math.isfinite(p) and d >= 0.0 and p >= 0.0 and d + p > 0.0):
         raise WetboilValueError(f"surface_energy: liquid {name!r} needs finite components >= 0, not both zero; got {spec!r}")
-    if d + p > 1.0:
+    if d + p > _TENSION_MAX:
         raise WetboilValueError(
             f"surface_energy: liquid {name!r} has components {spec!r}: above 1 N/m; were they given in mN/m? "
             "Components are in N/m."
@@ -1166,7 +1170,7 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
         return nan_result
     if np.isnan(s).any() or np.isnan(t).any():
         return nan_result
-    if (s > 1.0).any():
+    if (s > _TENSION_MAX).any():
         raise WetboilValueError(
             f"{function}: sigma_lv has values above 1 N/m (largest {float(s.max()):g}); were they given in mN/m? "
             "Surface tensions are in N/m."
