@@ -30,7 +30,7 @@ from typing import Any, Callable, Dict, NamedTuple, Optional, Tuple
 import numpy as np
 
 from . import chf as _chf
-from ._api import check_choice, kernel, need_saturation
+from ._api import check_choice, dispatch, kernel, need_saturation
 from ._errors import (WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, errstate,
                       one_warning_per_category, report)
 from .fluids import Saturation, _is_water
@@ -485,6 +485,9 @@ NATURAL_CONVECTION_GEOMETRIES: Dict[str, str] = {
 }
 
 
+# scalar calls take the Rust fast path (as the one-kernel function did before the geometries)
+@dispatch("geometry", {"flat_plate": (_lloyd_moran, None), "cylinder": (_churchill_chu, None),
+                       "sphere": (_churchill_sphere, None)})
 def natural_convection(
     superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any = G,
     geometry: str = "flat_plate",
