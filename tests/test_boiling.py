@@ -708,3 +708,28 @@ def test_curve_flat_heater_chf_on_a_cylinder_or_sphere_warns(water):
         warnings.simplefilter("error")
         c = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=r))
     assert float(c["critical_heat_flux"]) == pytest.approx(sun_lienhard, rel=1e-12)
+
+
+def test_curve_flags_facing_up_branches_on_a_tilted_plate(water):
+    """Berenson, "Film-boiling heat transfer from a horizontal surface", J. Heat Transfer 83 (1961)
+    351-358, and Lloyd & Moran, "Natural convection adjacent to horizontal surface of various
+    planforms", J. Heat Transfer 96 (1974) 443-447: by their own titles, forms for a horizontal
+    surface (the upper face of a heated plate). On a vertical or downward-facing plate `curve`
+    keeps their facing-up values, and must say so as it does for Zuber's and Lienhard-Dhir's CHF.
+    Kandlikar's CHF at 90 deg is inside its range, so the warning can only come from those branches."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    kw = dict(receding_angle_deg=45.0, C_sf=0.013, largest_cavity_radius=10e-6)
+    with pytest.warns(wetboil.RangeWarning, match="film branch and minimum='berenson'") as rec:
+        vertical = curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, **kw)
+    assert not any("Lloyd" in str(w.message) for w in rec)  # a coefficient given: no correlation used
+    with pytest.warns(wetboil.RangeWarning, match="natural convection \\(Lloyd & Moran\\)"):
+        curve(water, dts, orientation_deg=90.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
+    # the values stay those facing up; facing up, no such warning; a cylinder has no plate orientation
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        up = curve(water, dts, orientation_deg=0.0, natural_convection_coefficient=800.0, **kw)
+        curve(water, dts, orientation_deg=0.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
+        curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, geometry="cylinder",
+              size=1e-3, **kw)
+    assert float(vertical["minimum_heat_flux"]) == float(up["minimum_heat_flux"])
+    np.testing.assert_array_equal(vertical["film"].values, up["film"].values)

@@ -1120,7 +1120,12 @@ def curve(
         orientation gives a `RangeWarning` and the facing-up value.
         ``chf="kandlikar"`` or ``"zuber"`` on a ``"cylinder"`` or ``"sphere"``
         is a flat-heater value that ignores ``size``: a `RangeWarning` (use
-        ``chf="lienhard_dhir"`` for those bodies).
+        ``chf="lienhard_dhir"`` for those bodies). On a plate the other
+        branches do not depend on it either: Berenson's film branch and
+        minimum heat flux (and Lloyd & Moran's natural convection, with
+        ``expansion_coefficient``) are forms for a horizontal surface facing
+        up, so any other orientation also gives a `RangeWarning` for them and
+        their facing-up values.
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
@@ -1312,6 +1317,15 @@ def curve(
     if chf != "kandlikar" and geometry in (None, "flat_plate", "small_flat_plate") and not orientation_deg == 0.0:
         # the flat-plate forms hold for a heater facing up: elsewhere the value is that of one facing up
         report(f"{fn}: chf='{chf}' (a horizontal heater facing up) at orientation_deg={orientation_deg:g}", 1, 0, 1)
+    if geometry not in ("cylinder", "sphere") and not orientation_deg == 0.0:
+        # Berenson's film-boiling and minimum-heat-flux forms are for a horizontal surface facing up
+        # (Berenson 1961), as is Lloyd & Moran's natural convection from the upper face of a heated
+        # plate (1974): at any other orientation the branches keep their facing-up values
+        facing_up = [f"the film branch and minimum='{minimum}'"]
+        if natural_convection_coefficient is None:
+            facing_up.append("natural convection (Lloyd & Moran)")
+        report(f"{fn}: {' and '.join(facing_up)} (a horizontal surface facing up) at "
+               f"orientation_deg={orientation_deg:g}", 1, 0, 1)
     if chf in ("kandlikar", "zuber") and geometry in ("cylinder", "sphere"):
         # Kandlikar (2001) and Zuber (1959) model a flat heater: on a cylinder or a sphere they ignore
         # its size, which sets the peak heat flux of small bodies (Sun & Lienhard 1970; Lienhard & Dhir 1973)
