@@ -816,14 +816,16 @@ def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
 def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
     Ra = g * beta * dT * D ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
     Pr = mu_l * cp_l / k_l
-    return (2 + 0.589 * Ra ** 0.25 / (1 + (0.469 / Pr) ** (9 / 16)) ** (4 / 9)) * k_l / D * dT
+    psi = (1 + (0.469 / Pr) ** (9 / 16)) ** (16 / 9)
+    return (2 + 0.589 * (Ra / psi) ** 0.25 * (1 + 7.44e-8 * Ra / psi) ** (1 / 12)) * k_l / D * dT
 
 
 @python_form("churchill_sphere_natural_convection")
 def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
     Ra = g * beta * dT * D ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
     Pr = mu_l * cp_l / k_l
-    return (2 + 0.589 * Ra ** 0.25 / (1 + (0.469 / Pr) ** (9 / 16)) ** (4 / 9)) * k_l / D * dT
+    psi = (1 + (0.469 / Pr) ** (9 / 16)) ** (16 / 9)
+    return (2 + 0.589 * (Ra / psi) ** 0.25 * (1 + 7.44e-8 * Ra / psi) ** (1 / 12)) * k_l / D * dT
 
 
 # =============================================================================
