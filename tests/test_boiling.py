@@ -479,16 +479,22 @@ def test_curve_wettability_and_methods(water):
     dry = curve(water, dts, **curve_kw(receding_angle_deg=80.0))
     assert float(wet["critical_heat_flux"]) > float(dry["critical_heat_flux"])
     assert float(wet["chf_margin"]) > float(dry["chf_margin"])
-    coop = curve(water, dts, **curve_kw(nucleate="cooper", chf="zuber"))
+    with pytest.warns(wetboil.WetboilWarning, match="receding_angle_deg is not used: chf='zuber'"):
+        coop = curve(water, dts, **curve_kw(nucleate="cooper", chf="zuber"))
     assert coop.attrs["nucleate"] == "cooper" and coop.attrs["chf"] == "zuber"
     ld = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=1e-3))
     assert ld.attrs["chf"] == "lienhard_dhir"
     # On a cylinder or sphere the default stays Lienhard-Dhir even with a receding angle: Kandlikar
-    # (2001) models a flat heater, and a small body's size sets its peak flux (Sun & Lienhard 1970)
+    # (2001) models a flat heater, and a small body's size sets its peak flux (Sun & Lienhard 1970).
+    # Lienhard-Dhir has no wettability term, so the angle is not used: a warning says so, and the
+    # value is the same as without the angle (Lienhard & Dhir 1973 [identity])
     for body in ("cylinder", "sphere"):
+        with pytest.warns(wetboil.WetboilWarning, match="receding_angle_deg is not used.*flat heater"):
+            c = curve(water, dts, **curve_kw(geometry=body, size=1e-3))
         with warnings.catch_warnings():
             warnings.simplefilter("error")
-            c = curve(water, dts, **curve_kw(geometry=body, size=1e-3))
+            plain = curve(water, dts, **curve_kw(geometry=body, size=1e-3, receding_angle_deg=None))
+        assert float(c["critical_heat_flux"]) == float(plain["critical_heat_flux"])
         assert c.attrs["chf"] == "lienhard_dhir"
         assert float(c["critical_heat_flux"]) == pytest.approx(lienhard_dhir(water, body, 1e-3), rel=1e-14)
     with pytest.warns(wetboil.RangeWarning, match="chf.kandlikar"):
@@ -497,10 +503,10 @@ def test_curve_wettability_and_methods(water):
     # 1973): elsewhere the facing-up value, with a warning; facing up, none
     for method in ("zuber", "lienhard_dhir"):
         with pytest.warns(wetboil.RangeWarning, match=f"chf='{method}'"):
-            tilted = curve(water, dts, **curve_kw(chf=method, orientation_deg=180.0))
+            tilted = curve(water, dts, **curve_kw(chf=method, orientation_deg=180.0, receding_angle_deg=None))
         with warnings.catch_warnings():
             warnings.simplefilter("error")
-            up = curve(water, dts, **curve_kw(chf=method, orientation_deg=0.0))
+            up = curve(water, dts, **curve_kw(chf=method, orientation_deg=0.0, receding_angle_deg=None))
         assert float(tilted["critical_heat_flux"]) == float(up["critical_heat_flux"])
     # contract: one warning per category and call, naming each correlation and its count
     with warnings.catch_warnings(record=True) as rec:
@@ -706,9 +712,9 @@ def test_curve_flat_heater_chf_on_a_cylinder_or_sphere_warns(water):
     sun_lienhard = (0.89 + 2.27 * math.exp(-3.44 * math.sqrt(r / l_c))) * zuber(water)
     assert float(lienhard_dhir(water, "cylinder", r)) == pytest.approx(sun_lienhard, rel=1e-12)
     for geometry in ("cylinder", "sphere"):
-        for method in ("kandlikar", "zuber"):
+        for method, angle in (("kandlikar", 45.0), ("zuber", None)):
             with pytest.warns(wetboil.RangeWarning, match=f"chf='{method}' \\(a flat heater"):
-                curve(water, dts, **curve_kw(chf=method, geometry=geometry, size=r))
+                curve(water, dts, **curve_kw(chf=method, geometry=geometry, size=r, receding_angle_deg=angle))
     with warnings.catch_warnings():  # the finite-body model on a wire: no such warning
         warnings.simplefilter("error")
         c = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=r))
@@ -735,6 +741,6 @@ def test_curve_flags_facing_up_branches_on_a_tilted_plate(water):
         up = curve(water, dts, orientation_deg=0.0, natural_convection_coefficient=800.0, **kw)
         curve(water, dts, orientation_deg=0.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
         curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, geometry="cylinder",
-              size=1e-3, **kw)
+              size=1e-3, **dict(kw, receding_angle_deg=None))
     assert float(vertical["minimum_heat_flux"]) == float(up["minimum_heat_flux"])
     np.testing.assert_array_equal(vertical["film"].values, up["film"].values)

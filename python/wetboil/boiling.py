@@ -1112,7 +1112,8 @@ def curve(
     superheat : array_like
         Wall superheats [K] (> 0) at which to evaluate the curve.
     receding_angle_deg : float, optional
-        Receding contact angle [deg] (for ``chf="kandlikar"``).
+        Receding contact angle [deg] (for ``chf="kandlikar"``). With another
+        CHF method it is not used, and a `WetboilWarning` says so.
     contact_angle_deg : float, optional
         Static contact angle [deg] for an onset criterion that uses it
         (``onset="hsu"``); the default ``"davis_anderson"`` does not.
@@ -1230,6 +1231,7 @@ def curve(
     need_saturation(fn, fluid)
     _scalar_state(fluid)
     check_choice(fn, "nucleate method", nucleate, NUCLEATE_METHODS)
+    chf_chosen = chf is None
     if chf is None:
         # Kandlikar (2001) models a flat heater; a cylinder's or a sphere's size sets its peak flux
         flat = geometry not in ("cylinder", "sphere")
@@ -1307,6 +1309,11 @@ def curve(
         )
 
     # -- critical heat flux
+    if receding_angle_deg is not None and chf != "kandlikar":
+        # the surface's wettability would drop out of the CHF without a word
+        why = " (Kandlikar's, which has one, models a flat heater)" if chf_chosen else ""
+        warnings.warn(f"{fn}: receding_angle_deg is not used: chf='{chf}' has no wettability term{why}",
+                      WetboilWarning, stacklevel=_stacklevel())
     if chf == "kandlikar":
         if receding_angle_deg is None:
             raise WetboilValueError(f"{fn}: chf='kandlikar' needs receding_angle_deg=...")
