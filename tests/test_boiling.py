@@ -9,6 +9,7 @@ second reduced pressure computed by the same library, named as a reference
 library, not as a publication.
 """
 
+import contextlib
 import math
 import pickle
 import sys
@@ -441,6 +442,19 @@ def test_film_boiling_radiation_number_and_array_agree(dt):
     assert isinstance(one, float)
     assert one == float(arr[0])
 
+@contextlib.contextmanager
+def only_the_flat_minimum_warning():
+    """Warnings as errors, except the one RangeWarning every cylinder or sphere curve gives for its
+    flat-plate minimum heat flux (asserted in test_curve_flags_the_flat_plate_minimum_on_a_body)."""
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        yield
+    for w in rec:
+        parts = str(w.message).removeprefix("boiling.curve: ").split("; ")
+        if w.category is not wetboil.RangeWarning or not all("a flat plate's minimum heat flux" in p for p in parts):
+            raise AssertionError(f"unexpected warning: {w.category.__name__}: {w.message}")
+
+
 def curve_kw(**extra):
     kw = dict(receding_angle_deg=45.0, C_sf=0.013, natural_convection_coefficient=800.0,
               largest_cavity_radius=10e-6, design_heat_flux=5e5)
@@ -491,8 +505,7 @@ def test_curve_wettability_and_methods(water):
     for body in ("cylinder", "sphere"):
         with pytest.warns(wetboil.WetboilWarning, match="receding_angle_deg is not used.*flat heater"):
             c = curve(water, dts, **curve_kw(geometry=body, size=1e-3))
-        with warnings.catch_warnings():
-            warnings.simplefilter("error")
+        with only_the_flat_minimum_warning():
             plain = curve(water, dts, **curve_kw(geometry=body, size=1e-3, receding_angle_deg=None))
         assert float(c["critical_heat_flux"]) == float(plain["critical_heat_flux"])
         assert c.attrs["chf"] == "lienhard_dhir"
@@ -715,8 +728,7 @@ def test_curve_flat_heater_chf_on_a_cylinder_or_sphere_warns(water):
         for method, angle in (("kandlikar", 45.0), ("zuber", None)):
             with pytest.warns(wetboil.RangeWarning, match=f"chf='{method}' \\(a flat heater"):
                 curve(water, dts, **curve_kw(chf=method, geometry=geometry, size=r, receding_angle_deg=angle))
-    with warnings.catch_warnings():  # the finite-body model on a wire: no such warning
-        warnings.simplefilter("error")
+    with only_the_flat_minimum_warning():  # the finite-body model on a wire: no such warning
         c = curve(water, dts, **curve_kw(receding_angle_deg=None, geometry="cylinder", size=r))
     assert float(c["critical_heat_flux"]) == pytest.approx(sun_lienhard, rel=1e-12)
 
@@ -736,11 +748,30 @@ def test_curve_flags_facing_up_branches_on_a_tilted_plate(water):
     with pytest.warns(wetboil.RangeWarning, match="natural convection \\(Lloyd & Moran\\)"):
         curve(water, dts, orientation_deg=90.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
     # the values stay those facing up; facing up, no such warning; a cylinder has no plate orientation
-    with warnings.catch_warnings():
-        warnings.simplefilter("error")
+    with only_the_flat_minimum_warning():
         up = curve(water, dts, orientation_deg=0.0, natural_convection_coefficient=800.0, **kw)
         curve(water, dts, orientation_deg=0.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
         curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, geometry="cylinder",
               size=1e-3, **dict(kw, receding_angle_deg=None))
     assert float(vertical["minimum_heat_flux"]) == float(up["minimum_heat_flux"])
     np.testing.assert_array_equal(vertical["film"].values, up["film"].values)
+
+
+def test_curve_flags_the_flat_plate_minimum_on_a_body(water):
+    """Lienhard & Wong, "The dominant unstable wavelength and minimum heat flux during film boiling
+    on a horizontal cylinder", J. Heat Transfer 86 (1964) 220-226 (abstract): flat-plate predictions
+    of the minimum heat flux "are found to be inapplicable in the case of boiling on small wires".
+    Both of `curve`'s minimum forms (Berenson 1961, Zuber 1959) are a flat plate's: on a cylinder or
+    a sphere the curve must say so; on a plate it must not. The value is the flat plate's either way."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    kw = curve_kw(receding_angle_deg=None)
+    for body in ("cylinder", "sphere"):
+        for minimum in ("berenson", "zuber"):
+            with pytest.warns(wetboil.RangeWarning, match=f"minimum='{minimum}' \\(a flat plate's minimum"):
+                c = curve(water, dts, **dict(kw, geometry=body, size=1e-3, minimum=minimum))
+            assert float(c["minimum_heat_flux"]) == pytest.approx(float(minimum_heat_flux(water, minimum)),
+                                                                   rel=1e-14)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        curve(water, dts, **kw)
+        curve(water, dts, **dict(kw, geometry="small_flat_plate", size=0.035))

@@ -1094,7 +1094,10 @@ def curve(
     6. **film branch** (`film_boiling`, Bromley form for ``"cylinder"`` and
        ``"sphere"`` with D = 2 size, Berenson's plate form otherwise) above
        :math:`\Delta T_{min}`, where it equals the minimum heat flux
-       (`wetboil.chf.minimum_heat_flux`, ``minimum="berenson"``). It uses
+       (`wetboil.chf.minimum_heat_flux`, ``minimum="berenson"``). Both
+       minimum forms are a flat plate's: on a ``"cylinder"`` or ``"sphere"``
+       a `RangeWarning` says so (Lienhard & Wong, J. Heat Transfer 86 (1964)
+       220-226, found flat-plate predictions inapplicable to small wires). It uses
        the vapour properties of the one saturated state given, where
        `film_boiling` recommends them at the film temperature; at large
        superheat the branch runs low (water at 1 atm, flat plate: 5 % at
@@ -1336,6 +1339,10 @@ def curve(
             facing_up.append("natural convection (Lloyd & Moran)")
         report(f"{fn}: {' and '.join(facing_up)} (a horizontal surface facing up) at "
                f"orientation_deg={orientation_deg:g}", 1, 0, 1)
+    if geometry in ("cylinder", "sphere"):
+        # both minimum-heat-flux forms are a flat plate's; Lienhard & Wong (1964) found them inapplicable
+        # to small wires (their cylinder form is not in this library): the Leidenfrost point moves with it
+        report(f"{fn}: minimum='{minimum}' (a flat plate's minimum heat flux) on geometry {geometry!r}", 1, 0, 1)
     if chf in ("kandlikar", "zuber") and geometry in ("cylinder", "sphere"):
         # Kandlikar (2001) and Zuber (1959) model a flat heater: on a cylinder or a sphere they ignore
         # its size, which sets the peak heat flux of small bodies (Sun & Lienhard 1970; Lienhard & Dhir 1973)
