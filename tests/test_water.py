@@ -302,6 +302,27 @@ def test_from_coolprop_takes_coolprop_fluid_strings():
     for mix in ("R32&R125", "HEOS::R32[0.5]&R125[0.5]"):
         with pytest.raises(ValueError, match="mixture"):
             from_coolprop(mix, T=300.0)
+    with pytest.raises(ValueError, match="names no fluid"):
+        from_coolprop("HEOS::", T=300.0)
+
+
+def test_from_coolprop_refuses_predefined_blends():
+    """CoolProp ships blends as pseudo-pure fluids with separate bubble and dew lines
+    (get_fluid_param_string(name, "pure") is "false"; CoolProp documentation). Their liquid at the
+    bubble point and vapour at the dew point of one temperature are at two pressures: R407C's
+    glide at 1 atm is about 7 K by CoolProp's PropsSI (the designation's ~7 K glide is common
+    practice, from memory). A Saturation built from them paired states that do not coexist, with
+    no word; they are refused like the '&' mixtures, naming the glide."""
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    glide = CP.PropsSI("T", "P", 101325.0, "Q", 1, "R407C") - CP.PropsSI("T", "P", 101325.0, "Q", 0, "R407C")
+    assert 5.0 < glide < 9.0
+    for blend in ("R407C", "R410A", "HEOS::R404A", "Air"):
+        assert CP.get_fluid_param_string(blend.removeprefix("HEOS::"), "pure") == "false"
+        with pytest.raises(ValueError, match="is a blend: its boiling has a temperature glide"):
+            from_coolprop(blend, p=1e6)
+    with pytest.raises(ValueError, match=f"glide \\({glide:.2g} K at 1 atm\\)"):
+        from_coolprop("R407C", T=280.0)
+    assert from_coolprop("R32", p=1e6).name == "R32"  # a pure refrigerant still works
 
 
 def test_from_coolprop_without_coolprop_says_how_to_install(monkeypatch):

@@ -532,6 +532,8 @@ def _coolprop_fluid(name: str) -> str:
         raise WetboilValueError(f"from_coolprop: {name!r}: only CoolProp's HEOS backend (its reference equations of "
                                 f"state) is used; give the fluid name alone, e.g. {fluid.strip()!r}")
     fluid = fluid.strip()
+    if not fluid:
+        raise WetboilValueError(f"from_coolprop: {name!r} names no fluid; give one, e.g. 'Water' or 'HEOS::Water'")
     if "&" in fluid or "[" in fluid:
         raise WetboilValueError(f"from_coolprop: {name!r} is a mixture: its boiling has a temperature glide and no "
                                 "single saturated state; give a pure fluid (or build a Saturation from your own "
@@ -547,7 +549,8 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     name : str
         CoolProp fluid name ("Water", "R134a", "Novec649", "n-Pentane", ...),
         also with CoolProp's ``"HEOS::"`` backend prefix (the backend used);
-        other backends and mixtures raise `WetboilValueError`.
+        other backends, mixtures and CoolProp's predefined blends (R407C,
+        R410A, Air...) raise `WetboilValueError`.
     T, p : array_like, optional
         Exactly one of saturation temperature [K] or pressure [Pa]. Numbers,
         arrays and DataArrays (labels kept).
@@ -593,8 +596,21 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     given = T if p is None else p
     try:
         state = CP.AbstractState("HEOS", name)
+        pure = CP.get_fluid_param_string(name, "pure")
     except ValueError as exc:
         raise WetboilValueError(f"from_coolprop: CoolProp does not know the fluid {name!r} ({exc})") from None
+    if pure != "true":
+        # a predefined blend (R407C, R410A, Air...), which CoolProp models as pseudo-pure with a bubble and
+        # a dew line: the liquid at the bubble point and the vapour at the dew point of the same
+        # temperature are at two pressures, so h_lv and rho_v would belong to no state
+        try:
+            glide = (f" ({CP.PropsSI('T', 'P', 101325.0, 'Q', 1, name) - CP.PropsSI('T', 'P', 101325.0, 'Q', 0, name):.2g} K "
+                     "at 1 atm)")
+        except ValueError:
+            glide = ""
+        raise WetboilValueError(f"from_coolprop: {name!r} is a blend: its boiling has a temperature glide{glide} and no "
+                                "single saturated state; give a pure fluid (or build a Saturation from your own "
+                                "bubble-point properties)")
     template = given if hasattr(given, "dims") else None
     if isinstance(given, (str, bytes)) or given is None or isinstance(given, bool):
         raise WetboilTypeError(f"from_coolprop: {'T' if p is None else 'p'} must be a number or an array of numbers")
