@@ -235,6 +235,9 @@ fn geometry_code(x: f64) -> Option<u8> {
 ///   `rho_l`, `rho_v` [kg/m3], `sigma` [N/m], `g` [m/s2].
 /// * Possible: a known geometry code, positive size, area, c and properties,
 ///   ρ_l > ρ_v; otherwise NaN. Outside the published L' range: computed, flagged.
+/// * The small-plate form with A = L² is F = 135/L'² \[D\]: above the large
+///   plate's 1.14 only below L' = 10.9 (one Taylor cell), 0.34 at L' = 20; kept
+///   as stated (the conservative side), not flagged.
 /// * Verification: the cylinder form is \[V2\] (two transcribed textbook
 ///   examples using R' = r [gΔρ/σ]^(1/2)); the flat-plate 0.149 (= 1.14 π/24)
 ///   is \[V\] in textbook worked examples; the small-plate and sphere forms and

@@ -275,7 +275,13 @@ def lienhard_dhir(
     Saturated pool boiling of clean, well-wetted heaters; no wettability
     effect (compare `kandlikar`). The large-cylinder (0.90) and small-cylinder
     (0.94 R'^(-1/4)) forms in circulation approximate the Sun-Lienhard
-    expression used here. Verification: the cylinder form is [V2] (two
+    expression used here. With :math:`A = L^2` the small-plate form is
+    :math:`F = 1.14 \cdot 12\pi^2/L'^2 = 135/L'^2` [D]: above the large
+    plate's 1.14 only for :math:`L' < 10.9` (one Taylor cell,
+    :math:`A < \lambda_d^2`), 0.34 at the published end :math:`L' = 20`. That
+    low end is the form as stated, kept and not flagged (it is the
+    conservative side); a heater that holds several cells is nearer the
+    large-plate value. Verification: the cylinder form is [V2] (two
     transcribed textbook examples); 0.149 is [V] in textbook worked examples;
     the small-plate and sphere forms and all ranges are [M, high]; the
     original paper was not read.
