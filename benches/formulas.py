@@ -812,6 +812,22 @@ def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
     return Nu * k_l / D * dT
 
 
+@numpy_form("churchill_chu_vertical_plate_natural_convection")
+def _(dT, L, beta, k_l, rho_l, cp_l, mu_l, g):
+    Ra = g * beta * dT * L ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
+    Pr = mu_l * cp_l / k_l
+    Nu = (0.825 + 0.387 * Ra ** (1 / 6) / (1 + (0.492 / Pr) ** (9 / 16)) ** (8 / 27)) ** 2
+    return Nu * k_l / L * dT
+
+
+@python_form("churchill_chu_vertical_plate_natural_convection")
+def _(dT, L, beta, k_l, rho_l, cp_l, mu_l, g):
+    Ra = g * beta * dT * L ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)
+    Pr = mu_l * cp_l / k_l
+    Nu = (0.825 + 0.387 * Ra ** (1 / 6) / (1 + (0.492 / Pr) ** (9 / 16)) ** (8 / 27)) ** 2
+    return Nu * k_l / L * dT
+
+
 @numpy_form("churchill_sphere_natural_convection")
 def _(dT, D, beta, k_l, rho_l, cp_l, mu_l, g):
     Ra = g * beta * dT * D ** 3 * rho_l ** 2 * cp_l / (mu_l * k_l)

@@ -563,6 +563,7 @@ kernels! {
     boiling::TolubinskyKostanchuk, 1, 1;
     boiling::NaturalConvection, 8, 1;
     boiling::NaturalConvectionCylinder, 8, 1;
+    boiling::NaturalConvectionVerticalPlate, 8, 1;
     boiling::NaturalConvectionSphere, 8, 1;
     boiling::FilmBoiling, 13, 1;
     wetting::YoungAngle, 3, 1;

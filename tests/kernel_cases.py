@@ -131,6 +131,7 @@ _KERNEL_RANGES: Dict[Tuple[str, str], Tuple[str, Any, Any]] = {
     ("lloyd_moran_natural_convection", "length"): ("log", 1e-3, 0.2),
     ("churchill_chu_natural_convection", "length"): ("log", 1e-4, 0.05),  # wires to pipes
     ("churchill_sphere_natural_convection", "length"): ("log", 1e-3, 0.05),
+    ("churchill_chu_vertical_plate_natural_convection", "length"): ("log", 1e-3, 0.3),  # chips to boards
     ("hemiwicking_angle", "solid_fraction"): ("lin", 0.0, 0.95),  # dry tops < 1: a film needs a gap
 }
 

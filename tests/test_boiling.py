@@ -633,7 +633,7 @@ def test_natural_convection_from_a_horizontal_cylinder(water):
     # range: Ra_D up to 1e12 (flagged above), and no plate length is mistaken for a diameter
     with pytest.warns(wetboil.RangeWarning, match="1e-5 <= Ra_D <= 1e12"):
         natural_convection(50.0, water, 1.0, 1e-2, geometry="cylinder")
-    with pytest.raises(ValueError, match="flat_plate, cylinder, sphere"):
+    with pytest.raises(ValueError, match="flat_plate, vertical_plate, cylinder, sphere"):
         natural_convection(dt, water, 1e-3, beta, geometry="cone")
     assert natural_convection(0.0, water, 1e-3, beta, geometry="cylinder") == 0.0
 
@@ -643,11 +643,11 @@ def test_natural_convection_scalars_take_the_fast_path_for_every_geometry(water)
     Python wrapper cost 2-3x per scalar call) and agrees bit for bit with the array path
     [identity: the same kernel on both paths]."""
     assert type(natural_convection).__name__ == "builtin_function_or_method"
-    for geometry, length in (("flat_plate", 0.05), ("cylinder", 1e-3), ("sphere", 5e-3)):
+    for geometry, length in (("flat_plate", 0.05), ("vertical_plate", 0.05), ("cylinder", 1e-3), ("sphere", 5e-3)):
         s = natural_convection(4.0, water, length, 7.5e-4, geometry=geometry)
         a = natural_convection(np.array([4.0]), water, length, 7.5e-4, geometry=geometry)
         assert type(s) is float and s == a[0], geometry
-    with pytest.raises(ValueError, match="flat_plate, cylinder, sphere"):
+    with pytest.raises(ValueError, match="flat_plate, vertical_plate, cylinder, sphere"):
         natural_convection(4.0, water, 1e-3, 7.5e-4, geometry="cone")
 
 
@@ -668,6 +668,10 @@ def test_natural_convection_against_a_reference_library():
     turbulent factor {1 + 7.44e-8 Ra/[...]^(16/9)}^(1/12), was checked against the original). The
     second sphere value is where that factor shows (1.014); the laminar form alone gives 25.32."""
     assert _nusselt(0.69, 0.69 * 2.63e9, "cylinder") == pytest.approx(139.13493970073597, rel=1e-12)
+    # Nu_vertical_plate_Churchill(Pr=0.69, Gr=2.63e9) = 147.16185223770603 (Churchill & Chu 1975,
+    # vertical plate; ht's docs say it matches a textbook worked example and was checked against
+    # the original)
+    assert _nusselt(0.69, 0.69 * 2.63e9, "vertical_plate") == pytest.approx(147.16185223770603, rel=1e-12)
     assert _nusselt(0.7, 7.0, "sphere") == pytest.approx(2.738104002574638, rel=1e-12)
     assert _nusselt(0.7, 7e6, "sphere") == pytest.approx(25.670869440317578, rel=1e-12)
 
@@ -746,7 +750,16 @@ def test_curve_flags_facing_up_branches_on_a_tilted_plate(water):
         vertical = curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, **kw)
     assert not any("Lloyd" in str(w.message) for w in rec)  # a coefficient given: no correlation used
     with pytest.warns(wetboil.RangeWarning, match="natural convection \\(Lloyd & Moran\\)"):
-        curve(water, dts, orientation_deg=90.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
+        curve(water, dts, orientation_deg=45.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
+    # standing vertical, natural convection is Churchill & Chu's vertical plate (Int. J. Heat Mass
+    # Transfer 18 (1975) 1323-1329) with the plate's height: no Lloyd & Moran warning
+    with pytest.warns(wetboil.RangeWarning) as rec:
+        standing = curve(water, dts, orientation_deg=90.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
+    assert not any("Lloyd" in str(w.message) for w in rec)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.RangeWarning)
+        np.testing.assert_allclose(standing["natural_convection"].values,
+                                   natural_convection(dts, water, 0.05, 7.5e-4, geometry="vertical_plate"), rtol=1e-14)
     # the values stay those facing up; facing up, no such warning; a cylinder has no plate orientation
     with only_the_flat_minimum_warning():
         up = curve(water, dts, orientation_deg=0.0, natural_convection_coefficient=800.0, **kw)

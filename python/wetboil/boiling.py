@@ -472,33 +472,45 @@ def _churchill_sphere(superheat: Any, fluid: Saturation, length: Any, expansion_
     """Kernel-backed helper of `natural_convection` (a sphere)."""
 
 
+def _churchill_vertical(superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any) -> Any:
+    """Kernel-backed helper of `natural_convection` (a vertical plate)."""
+
+
 _lloyd_moran.__name__ = _churchill_chu.__name__ = _churchill_sphere.__name__ = "natural_convection"
+_churchill_vertical.__name__ = "natural_convection"
 _lloyd_moran = kernel("lloyd_moran_natural_convection")(_lloyd_moran)
 _churchill_chu = kernel("churchill_chu_natural_convection")(_churchill_chu)
 _churchill_sphere = kernel("churchill_sphere_natural_convection")(_churchill_sphere)
+_churchill_vertical = kernel("churchill_chu_vertical_plate_natural_convection")(_churchill_vertical)
 
 #: Natural-convection geometries: what `length` is, and the correlation.
 NATURAL_CONVECTION_GEOMETRIES: Dict[str, str] = {
     "flat_plate": "area / perimeter of the upper face of a heated horizontal plate (Lloyd & Moran 1974)",
+    "vertical_plate": "height of a vertical plate (Churchill & Chu 1975)",
     "cylinder": "diameter of a horizontal cylinder (Churchill & Chu 1975)",
     "sphere": "diameter of a sphere (Churchill 1983)",
 }
+_NATURAL_CONVECTION_KERNELS = {"flat_plate": _lloyd_moran, "vertical_plate": _churchill_vertical,
+                               "cylinder": _churchill_chu, "sphere": _churchill_sphere}
 
 
 # scalar calls take the Rust fast path (as the one-kernel function did before the geometries)
-@dispatch("geometry", {"flat_plate": (_lloyd_moran, None), "cylinder": (_churchill_chu, None),
-                       "sphere": (_churchill_sphere, None)})
+@dispatch("geometry", {k: (f, None) for k, f in _NATURAL_CONVECTION_KERNELS.items()})
 def natural_convection(
     superheat: Any, fluid: Saturation, length: Any, expansion_coefficient: Any, g: Any = G,
     geometry: str = "flat_plate",
 ) -> Any:
     r"""Natural convection before boiling [W/m2]: from the upper face of a
-    heated horizontal plate, Lloyd & Moran (1974), from a horizontal
-    cylinder, Churchill & Chu (1975), or from a sphere, Churchill (1983).
+    heated horizontal plate, Lloyd & Moran (1974), from a vertical plate or
+    a horizontal cylinder, Churchill & Chu (1975), or from a sphere,
+    Churchill (1983).
 
     .. math::
         \text{plate:}\quad Nu_L = 0.54\,Ra_L^{1/4}\ (10^4 \le Ra_L \le 10^7),\qquad
         Nu_L = 0.15\,Ra_L^{1/3}\ (10^7 < Ra_L \le 10^{11})
+
+        \text{vertical plate:}\quad Nu_L = \left\{0.825 + \frac{0.387\,Ra_L^{1/6}}
+        {[1 + (0.492/Pr)^{9/16}]^{8/27}}\right\}^2\ (10^{-1} \le Ra_L \le 10^{12})
 
         \text{cylinder:}\quad Nu_D = \left\{0.60 + \frac{0.387\,Ra_D^{1/6}}
         {[1 + (0.559/Pr)^{9/16}]^{8/27}}\right\}^2\ (10^{-5} \le Ra_D \le 10^{12})
@@ -518,33 +530,36 @@ def natural_convection(
         Uses ``k_l``, ``rho_l``, ``cp_l``, ``mu_l`` (liquid properties; for
         the film temperature use a state at that temperature).
     length : array_like
-        L [m]: area / perimeter of the plate, or the cylinder's or sphere's
-        diameter (see `NATURAL_CONVECTION_GEOMETRIES`).
+        L [m]: area / perimeter of the horizontal plate, height of the
+        vertical plate, or the cylinder's or sphere's diameter (see
+        `NATURAL_CONVECTION_GEOMETRIES`).
     expansion_coefficient : array_like
         Thermal expansion coefficient :math:`\beta` of the liquid [1/K].
     g : array_like, optional
         Acceleration [m/s2].
     geometry : str, optional
-        ``"flat_plate"`` (default), ``"cylinder"`` (horizontal) or
-        ``"sphere"``.
+        ``"flat_plate"`` (default; horizontal, facing up),
+        ``"vertical_plate"``, ``"cylinder"`` (horizontal) or ``"sphere"``.
 
     Returns
     -------
     float or ndarray or DataArray
         Heat flux [W/m2]; a Rayleigh number outside the correlation's range
-        (1e4-1e11 for the plate, 1e-5-1e12 for the cylinder, up to 1e11 with
-        Pr >= 0.7 for the sphere) is flagged (`RangeWarning`).
+        (1e4-1e11 for the horizontal plate, 1e-1-1e12 for the vertical one,
+        1e-5-1e12 for the cylinder, up to 1e11 with Pr >= 0.7 for the sphere)
+        is flagged (`RangeWarning`).
 
     Notes
     -----
     Constants and ranges [M, high]; the originals were not read. The
-    cylinder and sphere forms reproduce CalebBell/ht's doctests (a
-    general-purpose heat-transfer library). The sphere's last factor is
-    Churchill's turbulent transition (1.014 at Ra_D = 7e6, 1.32 at 1e9 for
-    Pr = 0.7), left out of the laminar form often quoted. The cylinder is checked against
-    Morgan's (1975) power laws (within 15 % at Pr = 0.71), the sphere against
-    Yuge's (1960) 2 + 0.43 Ra^(1/4) (within 10 % at Pr = 0.71). None holds
-    for a vertical plate.
+    vertical-plate, cylinder and sphere forms reproduce CalebBell/ht's
+    doctests (a general-purpose heat-transfer library). The vertical plate
+    is an isothermal one: a board or cold plate standing in an immersion
+    bath, L its height. The sphere's last factor is Churchill's turbulent
+    transition (1.014 at Ra_D = 7e6, 1.32 at 1e9 for Pr = 0.7), left out of
+    the laminar form often quoted. The cylinder is checked against Morgan's
+    (1975) power laws (within 15 % at Pr = 0.71), the sphere against Yuge's
+    (1960) 2 + 0.43 Ra^(1/4) (within 10 % at Pr = 0.71).
 
     References
     ----------
@@ -555,13 +570,17 @@ def natural_convection(
        turbulent free convection from a horizontal cylinder", Int. J. Heat
        Mass Transfer 18 (1975) 1049-1053, doi:10.1016/0017-9310(75)90222-7
        (DOI from memory).
-    .. [3] S.W. Churchill, "Free convection around immersed bodies", in Heat
+    .. [3] S.W. Churchill, H.H.S. Chu, "Correlating equations for laminar and
+       turbulent free convection from a vertical plate", Int. J. Heat Mass
+       Transfer 18 (1975) 1323-1329, doi:10.1016/0017-9310(75)90243-4 (as
+       ht's references give it).
+    .. [4] S.W. Churchill, "Free convection around immersed bodies", in Heat
        Exchanger Design Handbook, Section 2.5.7 (Hemisphere, 1983) (from
        memory).
-    .. [4] T. Yuge, "Experiments on heat transfer from spheres including
+    .. [5] T. Yuge, "Experiments on heat transfer from spheres including
        combined natural and forced convection", J. Heat Transfer 82 (1960)
        214-220 (from memory).
-    .. [5] V.T. Morgan, "The overall convective heat transfer from smooth
+    .. [6] V.T. Morgan, "The overall convective heat transfer from smooth
        circular cylinders", Adv. Heat Transfer 11 (1975) 199-264 (from
        memory).
 
@@ -577,8 +596,7 @@ def natural_convection(
     1622
     """
     check_choice("boiling.natural_convection", "geometry", geometry, NATURAL_CONVECTION_GEOMETRIES)
-    kern = {"cylinder": _churchill_chu, "sphere": _churchill_sphere}.get(geometry, _lloyd_moran)
-    return kern(superheat, fluid, length, expansion_coefficient, g)
+    return _NATURAL_CONVECTION_KERNELS[geometry](superheat, fluid, length, expansion_coefficient, g)
 
 
 #: Film-boiling geometries: (constant C, what the length L is).
@@ -1076,8 +1094,9 @@ def curve(
     1. **natural convection** up to the onset of nucleate boiling:
        :math:`q = h_{nc}\Delta T` with ``natural_convection_coefficient``, or
        `natural_convection` with ``expansion_coefficient``: Lloyd & Moran on
-       a plate (L = size/4, a square plate; 1e4 <= Ra <= 1e11), Churchill &
-       Chu on a cylinder and Churchill on a sphere (D = 2 size);
+       a plate facing up (L = size/4, a square plate; 1e4 <= Ra <= 1e11),
+       Churchill & Chu on a vertical plate (``orientation_deg=90``, height
+       L = size) and on a cylinder, Churchill on a sphere (D = 2 size);
     2. **onset** :math:`\Delta T_{ONB}`: where the natural-convection line
        meets ``wetboil.nucleation.onset_superheat(q, fluid, method=onset)``
        (default Davis & Anderson), or ``onset_superheat`` if given;
@@ -1132,7 +1151,8 @@ def curve(
         minimum heat flux (and Lloyd & Moran's natural convection, with
         ``expansion_coefficient``) are forms for a horizontal surface facing
         up, so any other orientation also gives a `RangeWarning` for them and
-        their facing-up values.
+        their facing-up values; at exactly 90 deg natural convection is
+        Churchill & Chu's vertical plate instead.
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
@@ -1298,8 +1318,14 @@ def curve(
         if size is None:
             raise WetboilValueError(f"{fn}: natural convection by expansion_coefficient needs size=... [m]")
         _require(fluid, ("cp_l", "k_l", "mu_l"), "natural convection")
-        # a square plate of width `size` (area / perimeter = size / 4); a cylinder or sphere of radius `size`
-        nc_geometry, length = (geometry, 2.0 * size) if geometry in ("cylinder", "sphere") else ("flat_plate", size / 4.0)
+        # a square plate of width `size` (area / perimeter = size / 4; standing vertical, height = size);
+        # a cylinder or sphere of radius `size`
+        if geometry in ("cylinder", "sphere"):
+            nc_geometry, length = geometry, 2.0 * size
+        elif orientation_deg == 90.0:
+            nc_geometry, length = "vertical_plate", size
+        else:
+            nc_geometry, length = "flat_plate", size / 4.0
 
         def q_nc(x: Any) -> Any:
             with errstate(out_of_range="ignore"):
@@ -1335,7 +1361,7 @@ def curve(
         # (Berenson 1961), as is Lloyd & Moran's natural convection from the upper face of a heated
         # plate (1974): at any other orientation the branches keep their facing-up values
         facing_up = [f"the film branch and minimum='{minimum}'"]
-        if natural_convection_coefficient is None:
+        if natural_convection_coefficient is None and not orientation_deg == 90.0:
             facing_up.append("natural convection (Lloyd & Moran)")
         report(f"{fn}: {' and '.join(facing_up)} (a horizontal surface facing up) at "
                f"orientation_deg={orientation_deg:g}", 1, 0, 1)

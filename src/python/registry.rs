@@ -47,6 +47,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<boiling::TolubinskyKostanchuk, 1, 1>(),
         entry::<boiling::NaturalConvection, 8, 1>(),
         entry::<boiling::NaturalConvectionCylinder, 8, 1>(),
+        entry::<boiling::NaturalConvectionVerticalPlate, 8, 1>(),
         entry::<boiling::NaturalConvectionSphere, 8, 1>(),
         entry::<boiling::FilmBoiling, 13, 1>(),
         entry::<wetting::YoungAngle, 3, 1>(),
