@@ -64,10 +64,12 @@ pub struct Model {
 pub trait Kernel<const N: usize, const M: usize> {
     /// The model's facts.
     const MODEL: Model;
-    /// Which inputs are a liquid's surface tension ([`LIQUID_TENSIONS`]),
-    /// for the bound [`TENSION_MAX`] that [`within`] adds to every kernel's
-    /// own range.
-    const TENSIONS: [bool; N] = tension_inputs::<N>(Self::MODEL.inputs);
+    /// The upper bound [N/m] of each input that [`within`] adds to every
+    /// kernel's own range: [`TENSION_MAX`] for a liquid's surface tension
+    /// ([`LIQUID_TENSIONS`]), [`SOLID_ENERGY_MAX`] for a solid's surface
+    /// energy or an interfacial tension ([`OTHER_TENSIONS`]), infinite for
+    /// every other input.
+    const TENSIONS: [f64; N] = tension_bounds::<N>(Self::MODEL.inputs);
     /// The outputs for one element.
     fn eval(x: &[f64; N]) -> [f64; M];
     /// The outputs for one element evaluated on its own (the scalar entry
@@ -132,8 +134,17 @@ pub trait Kernel<const N: usize, const M: usize> {
 /// it silently: Zuber's CHF goes as sigma^(1/4), 5.6 times too high for
 /// water at 58.9 "N/m". Such elements are still computed (a molten metal may
 /// mean it) but counted as outside the range, so the call warns. Solid
-/// surface energies are not bounded: a clean metal's is 1-2 J/m2.
+/// surface energies have their own, larger bound ([`SOLID_ENERGY_MAX`]).
 pub const TENSION_MAX: f64 = 1.0;
+
+/// Upper bound [N/m] of a plausible solid surface energy or interfacial
+/// tension (or a component of one). A clean metal's is 1-2 J/m2, the
+/// highest (refractory metals, diamond faces) about 3-6 J/m2 [from memory,
+/// common practice], while a polymer's or an oxide's components typed in
+/// mN/m, as tables print them, read 10-70: above the bound, a Young or OWRK
+/// angle silently became 0 deg (every liquid spreads), the unsafe side for a
+/// wettability-dependent CHF. Flagged like [`TENSION_MAX`], still computed.
+pub const SOLID_ENERGY_MAX: f64 = 10.0;
 
 /// The input names that hold a liquid's surface tension or a component of
 /// it [N/m]. Every other `"N/m"` input belongs to a solid or an interface
@@ -172,43 +183,65 @@ pub const fn named(name: &str, list: &[&str]) -> bool {
 }
 
 /// Why [`TENSION_MAX`] flags: appended to the validity text of every model
-/// with a surface-tension input where that text is shown.
+/// with a liquid surface-tension input where that text is shown.
 pub const TENSION_CLAUSE: &str =
     "liquid surface tension <= 1 N/m (mercury is 0.49 N/m; a larger value was usually given in mN/m)";
 
-/// Which of `N` inputs are a liquid's surface tension (compile time, from a model's table).
-pub const fn tension_inputs<const N: usize>(inputs: &[Arg]) -> [bool; N] {
-    let mut out = [false; N];
+/// Why [`SOLID_ENERGY_MAX`] flags: appended like [`TENSION_CLAUSE`] where a
+/// solid's surface energy or an interfacial tension is an input.
+pub const SOLID_ENERGY_CLAUSE: &str =
+    "solid surface energy and interfacial tension <= 10 N/m (a clean metal is 1-2 J/m2; a larger value was usually \
+     given in mN/m)";
+
+/// The bound of each of `N` inputs (compile time, from a model's table): see [`Kernel::TENSIONS`].
+pub const fn tension_bounds<const N: usize>(inputs: &[Arg]) -> [f64; N] {
+    let mut out = [f64::INFINITY; N];
     let mut i = 0;
     while i < N && i < inputs.len() {
-        out[i] = named(inputs[i].name, &LIQUID_TENSIONS);
+        if named(inputs[i].name, &LIQUID_TENSIONS) {
+            out[i] = TENSION_MAX;
+        } else if named(inputs[i].name, &OTHER_TENSIONS) {
+            out[i] = SOLID_ENERGY_MAX;
+        }
         i += 1;
     }
     out
 }
 
+/// Whether some bound of [`tension_bounds`] is finite.
+pub fn any_bound(bounds: &[f64]) -> bool {
+    bounds.iter().any(|b| b.is_finite())
+}
+
 impl Model {
     /// The validity range as shown to users: [`Model::validity`], plus
-    /// [`TENSION_CLAUSE`] where some input is a liquid's surface tension.
+    /// [`TENSION_CLAUSE`] where some input is a liquid's surface tension and
+    /// [`SOLID_ENERGY_CLAUSE`] where some is a solid's or an interface's.
     pub fn validity_text(&self) -> std::borrow::Cow<'static, str> {
-        if !self.inputs.iter().any(|a| named(a.name, &LIQUID_TENSIONS)) {
+        let liquid = self.inputs.iter().any(|a| named(a.name, &LIQUID_TENSIONS));
+        let solid = self.inputs.iter().any(|a| named(a.name, &OTHER_TENSIONS));
+        let clauses: Vec<&str> = [(!self.validity.is_empty(), self.validity), (liquid, TENSION_CLAUSE),
+                                  (solid, SOLID_ENERGY_CLAUSE)]
+            .iter()
+            .filter(|(on, _)| *on)
+            .map(|(_, t)| *t)
+            .collect();
+        if !liquid && !solid {
             self.validity.into()
-        } else if self.validity.is_empty() {
-            TENSION_CLAUSE.into()
         } else {
-            format!("{}; {TENSION_CLAUSE}", self.validity).into()
+            clauses.join("; ").into()
         }
     }
 }
 
-/// Whether the inputs marked in `mask` (and, for a factored side, belonging
-/// to it) are plausible liquid surface tensions: not above [`TENSION_MAX`]. A NaN is
+/// Whether the inputs are within their bounds (`bounds`, from
+/// [`tension_bounds`]; for a factored side, infinite off the side). A NaN is
 /// not flagged here (the loops report it as missing).
 #[inline(always)]
-fn tensions_plausible<const N: usize>(mask: &[bool; N], x: &[f64; N]) -> bool {
+fn tensions_plausible<const N: usize>(bounds: &[f64; N], x: &[f64; N]) -> bool {
     let mut ok = true;
     for k in 0..N {
-        ok &= !(mask[k] & (x[k] > TENSION_MAX));
+        ok &= !(x[k] > bounds[k]);
     }
     ok
 }
@@ -226,7 +259,7 @@ pub fn tension_outlier<K: Kernel<N, M>, const N: usize, const M: usize, const B:
     at: impl Fn(usize) -> [f64; N],
     len: usize,
 ) -> bool {
-    if !K::TENSIONS.iter().any(|&t| t) {
+    if !any_bound(&K::TENSIONS) {
         return false;
     }
     let mut any = false;
@@ -433,8 +466,8 @@ pub fn classify_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x
 /// [`Factored::side_in_range`] and the tension bound on the side's inputs.
 #[inline(always)]
 pub fn within_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x: &[f64; N]) -> bool {
-    let mask: [bool; N] = std::array::from_fn(|k| K::TENSIONS[k] & (K::SIDES[k] == s));
-    K::side_in_range(s, x) & tensions_plausible(&mask, x)
+    let bounds: [f64; N] = std::array::from_fn(|k| if K::SIDES[k] == s { K::TENSIONS[k] } else { f64::INFINITY });
+    K::side_in_range(s, x) & tensions_plausible(&bounds, x)
 }
 
 /// Outcome of one element, as the generic loops count it.

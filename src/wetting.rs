@@ -1036,14 +1036,22 @@ mod tests {
     }
 
     #[test]
-    fn only_a_liquids_tension_is_bounded() {
+    fn tensions_and_solid_energies_have_their_bounds() {
         // A clean metal's surface energy is 1-2 J/m2 [common practice, from
-        // memory]: not flagged. The liquid's tension in mN/m is.
+        // memory]: not flagged. The liquid's tension in mN/m is, and so are a
+        // solid's energies in mN/m (PTFE's 12.5 + 1.5 mN/m dispersive and
+        // polar, Owens & Wendt 1969, from memory), which made every liquid
+        // spread in silence.
         assert_eq!(evaluate::<YoungAngle, 3, 1>(&[2.0, 1.95, 0.0728]).1, Status::Ok);
         assert_eq!(evaluate::<YoungAngle, 3, 1>(&[2.0, 1.95, 72.8]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<YoungAngle, 3, 1>(&[40.0, 10.0, 0.0728]).1, Status::OutOfRange);
         assert_eq!(evaluate::<OwrkAngle, 4, 1>(&[0.03, 0.01, 0.0218, 0.051]).1, Status::Ok);
         assert_eq!(evaluate::<OwrkAngle, 4, 1>(&[0.03, 0.01, 21.8, 51.0]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<OwrkAngle, 4, 1>(&[12.5, 1.5, 0.0218, 0.051]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<GirifalcoGood, 3, 1>(&[20.0, 0.0728, 1.0]).1, Status::OutOfRange);
+        assert_eq!(evaluate::<GirifalcoGood, 3, 1>(&[2.0, 0.0728, 1.0]).1, Status::Ok);
         assert!(YoungAngle::MODEL.validity_text().contains("mN/m"));
+        assert!(YoungAngle::MODEL.validity_text().contains("solid surface energy"));
         assert!(!Wenzel::MODEL.validity_text().contains("mN/m"));
     }
 

@@ -215,6 +215,30 @@ def test_a_liquid_tension_in_mn_per_m_is_flagged(kernel):
     assert len(msgs) == 1 and "mN/m" in msgs[0], (kernel, [str(w.message) for w in rec])
 
 
+SOLID_ENERGIES = {"sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_polar"}
+
+
+@pytest.mark.parametrize("kernel", sorted(k for k, (f, spec) in kc.BY_KERNEL.items()
+                                          if {a.name for a in spec.model.inputs} & SOLID_ENERGIES))
+def test_a_solid_surface_energy_in_mn_per_m_is_flagged(kernel):
+    # Every kernel that takes a solid's surface energy or an interfacial tension
+    # flags one above 10 N/m: a clean metal's is 1-2 J/m2, the highest solids'
+    # about 3-6 [common practice, from memory], while a polymer's components in
+    # mN/m, as tables print them, read 10-70 and made every liquid spread (0 deg)
+    # without a word. The liquid's own tension stays in N/m here.
+    f, spec, base = _in_range_base(kernel)
+    names = [a.name for a in spec.model.inputs]
+    x_in = kc.kernel_inputs(spec, base)
+    x_out = [max(v * 1e3, 10.5) if n in SOLID_ENERGIES else v for n, v in zip(names, x_in)]
+    with np.errstate(all="ignore"):
+        assert int(getattr(_core, f"{kernel}_status")(*x_out)) == 2, kernel
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        kc.call(f, spec, kc.args_from_inputs(spec, x_out, base))
+    msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
+    assert len(msgs) == 1 and "solid surface energy and interfacial tension <= 10 N/m" in msgs[0], (kernel, msgs)
+
+
 def test_tension_outliers_are_counted_in_large_arrays():
     # The block loops check the tension bound apart from the kernel (rare path):
     # scattered outliers among 200 001 elements (several blocks, both threads),
@@ -238,7 +262,7 @@ def test_tension_outliers_are_counted_in_large_arrays():
 
 def test_a_solid_surface_energy_above_1_j_per_m2_is_not_flagged():
     # A clean metal's surface energy is 1-2 J/m2 [common practice, from memory]:
-    # only the liquid's tension is bounded.
+    # below the solids' bound of 10 N/m, not flagged.
     with warnings.catch_warnings():
         warnings.simplefilter("error", wetboil.WetboilWarning)
         theta = wetboil.wetting.young_angle(2.0, 1.95, 0.0728)

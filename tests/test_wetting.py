@@ -760,3 +760,29 @@ def test_dispersive_fraction_knows_every_coolprop_alias_of_its_fluids():
     assert dispersive_fraction("R718") == pytest.approx(21.8 / 72.8, rel=1e-15)  # Fowkes 1964
     with pytest.raises(ValueError, match="R134a"):
         dispersive_fraction("R134a")
+
+
+def test_solid_components_typed_in_mn_per_m_are_flagged():
+    # PTFE's components from Owens & Wendt (1969), 12.5 dispersive + 1.5 polar
+    # mN/m [memory, as in OWENS_WENDT_POLYMERS above], with water 21.8 + 51.0
+    # mN/m (Fowkes 1964 split): in N/m they give back Owens & Wendt's measured
+    # 108 deg for water on PTFE (107.8 to the table's rounding).
+    water_d, water_p = 21.8 * MN, 51.0 * MN
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert predict_angle((12.5 * MN, 1.5 * MN), water_d, water_p) == pytest.approx(108.0, abs=0.5)
+    # The same pair typed as the table prints it, in mN/m: every liquid spreads (0 deg), which
+    # would pass as a perfectly wetting wall; it is flagged, one warning counting the surfaces.
+    with pytest.warns(wetboil.RangeWarning, match=r"owrk_angle: 1 of 2 .*solid surface energy.*mN/m"):
+        out = predict_angle((np.array([12.5 * MN, 12.5]), 1.5 * MN), water_d, water_p)
+    assert out[0] == pytest.approx(108.0, abs=0.5) and out[1] == 0.0
+    with wetboil.errstate(out_of_range="raise"), pytest.raises(wetboil.OutOfRangeError):
+        predict_angle((12.5, 1.5), water_d, water_p)
+    # Young's equation with PTFE-like energies in mN/m as well [helper trial finding]
+    with pytest.warns(wetboil.RangeWarning, match="young_angle: 1 of 1"):
+        assert wetboil.wetting.young_angle(40.0, 10.0, 0.0728) == 0.0
+    # A SurfaceEnergy from a fit is in N/m by construction: not questioned.
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        ptfe = surface_energy([108.0, 88.0], ["water", "diiodomethane"], table="owens_wendt_1969")
+        assert predict_angle(ptfe, water_d, water_p) == pytest.approx(108.0, abs=1e-9)

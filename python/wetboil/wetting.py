@@ -342,7 +342,9 @@ def predict_angle(surface: Any, liquid_sigma_dispersive: Any, liquid_sigma_polar
     ----------
     surface : SurfaceEnergy or tuple
         The solid's surface energy: a `SurfaceEnergy` (from `surface_energy`),
-        or a pair ``(dispersive, polar)`` in N/m.
+        or a pair ``(dispersive, polar)`` in **N/m**. A component above
+        10 N/m (almost surely typed in mN/m, as tables print them; it makes
+        every liquid spread at 0 deg) is flagged with a `RangeWarning`.
     liquid_sigma_dispersive, liquid_sigma_polar : array_like
         The liquid's dispersive and polar surface-tension components [N/m],
         >= 0. For a working fluid at saturation, split its surface tension
