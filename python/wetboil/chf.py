@@ -252,7 +252,8 @@ def lienhard_dhir(
         One of `GEOMETRIES`; an unknown name raises `WetboilValueError`
         listing them.
     size : array_like
-        Heater width [m] (flat plates) or radius [m] (cylinder, sphere).
+        Heater width [m] (flat plates) or radius [m] (cylinder, sphere). The
+        cylinder is a horizontal one, as Sun & Lienhard's.
     area : array_like, optional
         Heater area A [m2], small flat plate only; default ``size**2``.
     small_plate : str, optional
