@@ -668,12 +668,21 @@ pub fn churchill_chu_cylinder(
     mu_l: f64,
     g: f64,
 ) -> f64 {
-    let ok = natural_possible(&[superheat, diameter, beta, k_l, rho_l, cp_l, mu_l, g]);
-    let ra = rayleigh(superheat, diameter, beta, k_l, rho_l, cp_l, mu_l, g);
+    churchill_chu_form(0.60, 0.559, [superheat, diameter, beta, k_l, rho_l, cp_l, mu_l, g])
+}
+
+/// Churchill & Chu's (1975) common form, `Nu = {c0 + 0.387 Ra^(1/6) / [1 + (p/Pr)^(9/16)]^(8/27)}²`,
+/// of the horizontal cylinder (c0 = 0.60, p = 0.559) and the vertical plate (0.825, 0.492), as
+/// the heat flux `q = Nu k_l ΔT / L` of the natural-convection inputs `x`.
+#[inline(always)]
+fn churchill_chu_form(c0: f64, p: f64, x: [f64; 8]) -> f64 {
+    let [superheat, length, beta, k_l, rho_l, cp_l, mu_l, g] = x;
+    let ok = natural_possible(&x);
+    let ra = rayleigh(superheat, length, beta, k_l, rho_l, cp_l, mu_l, g);
     let pr = mu_l * cp_l / k_l;
-    let shape = fastmath::pow(1.0 + fastmath::pow(0.559 / pr, 9.0 / 16.0), 8.0 / 27.0);
-    let root = 0.60 + 0.387 * fastmath::cbrt(ra).sqrt() / shape;
-    nan_unless(ok, root * root * k_l / diameter * superheat)
+    let shape = fastmath::pow(1.0 + fastmath::pow(p / pr, 9.0 / 16.0), 8.0 / 27.0);
+    let root = c0 + 0.387 * fastmath::cbrt(ra).sqrt() / shape;
+    nan_unless(ok, root * root * k_l / length * superheat)
 }
 
 /// Kernel of [`churchill_chu_cylinder`].
@@ -741,12 +750,7 @@ pub fn churchill_chu_vertical_plate(
     mu_l: f64,
     g: f64,
 ) -> f64 {
-    let ok = natural_possible(&[superheat, height, beta, k_l, rho_l, cp_l, mu_l, g]);
-    let ra = rayleigh(superheat, height, beta, k_l, rho_l, cp_l, mu_l, g);
-    let pr = mu_l * cp_l / k_l;
-    let shape = fastmath::pow(1.0 + fastmath::pow(0.492 / pr, 9.0 / 16.0), 8.0 / 27.0);
-    let root = 0.825 + 0.387 * fastmath::cbrt(ra).sqrt() / shape;
-    nan_unless(ok, root * root * k_l / height * superheat)
+    churchill_chu_form(0.825, 0.492, [superheat, height, beta, k_l, rho_l, cp_l, mu_l, g])
 }
 
 /// Kernel of [`churchill_chu_vertical_plate`].
