@@ -191,52 +191,38 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
 
 
 LIQUID_TENSIONS = {"sigma_lv", "sigma_l", "fluid.sigma", "liquid_dispersive", "liquid_polar"}
-
-
-@pytest.mark.parametrize("kernel", sorted(k for k, (f, spec) in kc.BY_KERNEL.items()
-                                          if {a.name for a in spec.model.inputs} & LIQUID_TENSIONS))
-def test_a_liquid_tension_in_mn_per_m_is_flagged(kernel):
-    # Every kernel that takes a liquid's surface tension flags one above 1 N/m:
-    # no liquid that boils in service comes near it (mercury, the highest of the
-    # common liquids, is about 0.49 N/m at room temperature [common practice,
-    # from memory]), and the usual cause is a value in mN/m, which the models
-    # would otherwise take silently (Zuber's CHF 5.6 times too high).
-    f, spec, base = _in_range_base(kernel)
-    names = [a.name for a in spec.model.inputs]
-    x_in = kc.kernel_inputs(spec, base)
-    x_out = [v * 1e3 if n in LIQUID_TENSIONS else v for n, v in zip(names, x_in)]
-    assert "mN/m" in spec.model.validity, spec.model.validity
-    with np.errstate(all="ignore"):
-        assert int(getattr(_core, f"{kernel}_status")(*x_out)) == 2, kernel
-    with warnings.catch_warnings(record=True) as rec:
-        warnings.simplefilter("always")
-        kc.call(f, spec, kc.args_from_inputs(spec, x_out, base))
-    msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
-    assert len(msgs) == 1 and "mN/m" in msgs[0], (kernel, [str(w.message) for w in rec])
-
-
 SOLID_ENERGIES = {"sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_polar"}
+# The two bounds every model adds to its own range, by the inputs they apply to, a value in mN/m
+# of such an input, and the words of the range clause. A liquid's surface tension above 1 N/m: no
+# liquid that boils in service comes near it (mercury, the highest of the common liquids, is about
+# 0.49 N/m at room temperature [common practice, from memory]), and the usual cause is a value in
+# mN/m, which the models would otherwise take silently (Zuber's CHF 5.6 times too high). A solid's
+# surface energy or an interfacial tension above 10 N/m: a clean metal's is 1-2 J/m2, the highest
+# solids' about 3-6 [common practice, from memory], while a polymer's components in mN/m, as tables
+# print them, read 10-70 and made every liquid spread (0 deg) without a word.
+TENSION_BOUNDS = {
+    "liquid": (LIQUID_TENSIONS, lambda v: v * 1e3, "liquid surface tension <= 1 N/m"),
+    "solid": (SOLID_ENERGIES, lambda v: max(v * 1e3, 10.5), "solid surface energy and interfacial tension <= 10 N/m"),
+}
 
 
-@pytest.mark.parametrize("kernel", sorted(k for k, (f, spec) in kc.BY_KERNEL.items()
-                                          if {a.name for a in spec.model.inputs} & SOLID_ENERGIES))
-def test_a_solid_surface_energy_in_mn_per_m_is_flagged(kernel):
-    # Every kernel that takes a solid's surface energy or an interfacial tension
-    # flags one above 10 N/m: a clean metal's is 1-2 J/m2, the highest solids'
-    # about 3-6 [common practice, from memory], while a polymer's components in
-    # mN/m, as tables print them, read 10-70 and made every liquid spread (0 deg)
-    # without a word. The liquid's own tension stays in N/m here.
+@pytest.mark.parametrize("bound,kernel", sorted((b, k) for b, (names, _, _) in TENSION_BOUNDS.items()
+                                                for k, (f, spec) in kc.BY_KERNEL.items()
+                                                if {a.name for a in spec.model.inputs} & names))
+def test_a_tension_in_mn_per_m_is_flagged(bound, kernel):
+    # Every kernel that takes such an input flags it in mN/m (the other inputs stay in range).
+    names, slip, clause = TENSION_BOUNDS[bound]
     f, spec, base = _in_range_base(kernel)
-    names = [a.name for a in spec.model.inputs]
-    x_in = kc.kernel_inputs(spec, base)
-    x_out = [max(v * 1e3, 10.5) if n in SOLID_ENERGIES else v for n, v in zip(names, x_in)]
+    inputs = [a.name for a in spec.model.inputs]
+    x_out = [slip(v) if n in names else v for n, v in zip(inputs, kc.kernel_inputs(spec, base))]
+    assert clause in spec.model.validity, spec.model.validity
     with np.errstate(all="ignore"):
         assert int(getattr(_core, f"{kernel}_status")(*x_out)) == 2, kernel
     with warnings.catch_warnings(record=True) as rec:
         warnings.simplefilter("always")
         kc.call(f, spec, kc.args_from_inputs(spec, x_out, base))
     msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
-    assert len(msgs) == 1 and "solid surface energy and interfacial tension <= 10 N/m" in msgs[0], (kernel, msgs)
+    assert len(msgs) == 1 and clause in msgs[0], (kernel, [str(w.message) for w in rec])
 
 
 def test_tension_outliers_are_counted_in_large_arrays():
