@@ -47,7 +47,7 @@ fn rohsenow_possible(
 ///
 /// `q = μ_l h_lv [g (ρ_l − ρ_v)/σ]^(1/2) [c_pl ΔT / (C_sf h_lv Pr_l^n)]³`
 ///
-/// * `superheat` ΔT = T_w − T_sat [K], `c_sf` [-], `n` [-] (1 for water, 1.7
+/// * `superheat` ΔT = T_w − T_sat \[K\], `c_sf` [-], `n` [-] (1 for water, 1.7
 ///   for other liquids), `h_lv` [J/kg], `rho_l`, `rho_v` [kg/m3], `sigma`
 ///   [N/m], `cp_l` [J/(kg K)], `k_l` [W/(m K)], `mu_l` [Pa s], `g` [m/s2];
 ///   properties of the saturated liquid.
@@ -79,7 +79,7 @@ pub fn rohsenow(
     nan_unless(ok, rohsenow_group(c_sf, n, h_lv, rho_l, rho_v, sigma, cp_l, k_l, mu_l, g) * superheat * superheat * superheat)
 }
 
-/// Inverse of [`rohsenow`]: the wall superheat [K] at a nucleate-boiling heat flux [W/m2].
+/// Inverse of [`rohsenow`]: the wall superheat \[K\] at a nucleate-boiling heat flux [W/m2].
 ///
 /// `ΔT = (C_sf h_lv Pr_l^n / c_pl) [q / (μ_l h_lv [g Δρ/σ]^(1/2))]^(1/3)`
 #[inline(always)]
@@ -244,9 +244,9 @@ pub const COOPER_EXPONENT: f64 = 0.67;
 ///
 /// `A = 55 p_r^(0.12 − 0.2 log10 R_p) (−log10 p_r)^(−0.55) M^(−0.5)`,
 /// **R_p in µm and M in kg/kmol** in the published form; this function takes
-/// `roughness` R_p [m] and `molar_mass` [kg/mol] and converts them.
+/// `roughness` R_p \[m\] and `molar_mass` [kg/mol] and converts them.
 ///
-/// * `superheat` [K], `p` saturation pressure [Pa], `p_crit` [Pa].
+/// * `superheat` \[K\], `p` saturation pressure \[Pa\], `p_crit` \[Pa\].
 /// * Possible: ΔT ≥ 0, 0 < p < p_crit, M > 0, R_p > 0; otherwise NaN.
 /// * Validity flagged: `0.001 ≤ p_r ≤ 0.9` \[M, med\], R_p outside
 ///   [`COOPER_RP_BAND`] (0.01-20 µm) and M outside [`COOPER_M_BAND`]
@@ -265,7 +265,7 @@ pub fn cooper(superheat: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f
     nan_unless(ok, fastmath::exp((ln_a + fastmath::ln(superheat)) * (1.0 / (1.0 - COOPER_EXPONENT))))
 }
 
-/// Inverse of [`cooper`]: wall superheat [K] at a heat flux [W/m2],
+/// Inverse of [`cooper`]: wall superheat \[K\] at a heat flux [W/m2],
 /// `ΔT = q / h = q^0.33 / A`.
 #[inline(always)]
 pub fn cooper_superheat(heat_flux: f64, p: f64, p_crit: f64, molar_mass: f64, roughness: f64) -> f64 {
@@ -290,7 +290,7 @@ const COOPER_VALIDITY: &str = "0.001 <= p/p_crit <= 0.9 (from memory, medium con
 const COOPER_VERIFICATION: &str = "form: secondary source (CalebBell/ht, a handbook example reproduced in the tests); \
                                    original not read";
 
-/// Roughness band flagged by the Cooper kernels [m]: not a published limit but ours, wide
+/// Roughness band flagged by the Cooper kernels \[m\]: not a published limit but ours, wide
 /// around the polished-to-rough surfaces of pool-boiling data, so that an R_p entered in
 /// µm (1.0 read as 1 m) or in nm is reported rather than extrapolated silently.
 pub const COOPER_RP_BAND: (f64, f64) = (1e-8, 2e-5);
@@ -397,8 +397,8 @@ pub const RPI_WAITING_FRACTION: f64 = 0.8;
 ///   the waiting time);
 /// * convection `q_c = h_c (1 − A_q)(ΔT_w + ΔT_sub)`.
 ///
-/// Inputs: `site_density` N_a [1/m2], `diameter` D_d [m], `frequency` f [Hz],
-/// `superheat` ΔT_w [K], `subcooling` ΔT_sub [K], `h_c` single-phase
+/// Inputs: `site_density` N_a [1/m2], `diameter` D_d \[m\], `frequency` f \[Hz\],
+/// `superheat` ΔT_w \[K\], `subcooling` ΔT_sub \[K\], `h_c` single-phase
 /// coefficient [W/(m2 K)], `area_factor` K [-], `rho_l`, `rho_v` [kg/m3],
 /// `h_lv` [J/kg], `k_l` [W/(m K)], `cp_l` [J/(kg K)].
 ///
@@ -502,9 +502,9 @@ impl Kernel<12, 5> for RpiPartition {
 }
 
 /// Tolubinsky & Kostanchuk (1970) departure diameter used by the original RPI
-/// closure set [m]: `D_d = min(0.6 mm · exp(−ΔT_sub / 45 K), 1.4 mm)`.
+/// closure set \[m\]: `D_d = min(0.6 mm · exp(−ΔT_sub / 45 K), 1.4 mm)`.
 ///
-/// * `subcooling` ΔT_sub [K]; possible: finite. Negative subcooling
+/// * `subcooling` ΔT_sub \[K\]; possible: finite. Negative subcooling
 ///   (superheated bulk) is allowed by the formula and capped at 1.4 mm.
 /// * Validity flagged: 0 ≤ ΔT_sub ≤ 60 K \[M, low: subcooled flow boiling of
 ///   water at high pressure\]. It knows nothing of the contact angle.
@@ -560,7 +560,7 @@ impl Kernel<1, 1> for TolubinskyKostanchuk {
 /// `Nu_L = 0.15 Ra_L^(1/3)` for 1e7 < Ra_L ≤ 1e11, with `L = A/P` and
 /// `Ra_L = g β ΔT L³ ρ_l² c_pl / (μ_l k_l)`.
 ///
-/// * `superheat` ΔT = T_w − T_l [K], `length` L [m], `beta` thermal
+/// * `superheat` ΔT = T_w − T_l \[K\], `length` L \[m\], `beta` thermal
 ///   expansion coefficient of the liquid [1/K], `k_l`, `rho_l`, `cp_l`, `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
 /// * Flagged: Ra_L outside 1e4-1e11.
@@ -640,7 +640,7 @@ impl Kernel<8, 1> for NaturalConvection {
 /// `Ra_D = g β ΔT D³ ρ_l² c_pl / (μ_l k_l)`, `Pr = μ_l c_pl / k_l`,
 /// `q = Nu_D k_l ΔT / D`.
 ///
-/// * `superheat` ΔT = T_w − T_l [K], `diameter` D [m], `beta` thermal
+/// * `superheat` ΔT = T_w − T_l \[K\], `diameter` D \[m\], `beta` thermal
 ///   expansion coefficient of the liquid [1/K], `k_l`, `rho_l`, `cp_l`,
 ///   `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
@@ -726,7 +726,7 @@ impl Kernel<8, 1> for NaturalConvectionCylinder {
 /// for the laminar and the turbulent range, for an isothermal plate; a
 /// vertical board or cold plate in an immersion bath.
 ///
-/// * `superheat` ΔT [K], `height` L [m], `beta` [1/K], `k_l`, `rho_l`,
+/// * `superheat` ΔT \[K\], `height` L \[m\], `beta` [1/K], `k_l`, `rho_l`,
 ///   `cp_l`, `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
 /// * Flagged: Ra_L outside 1e-1-1e12 \[M, high\].
@@ -794,7 +794,7 @@ impl Kernel<8, 1> for NaturalConvectionVerticalPlate {
 /// at Ra_D = 7e6 and 1.32 at Ra_D = 1e9 (Pr = 0.7); without it the form is
 /// the laminar one that handbooks often quote.
 ///
-/// * `superheat` ΔT [K], `diameter` D [m], `beta` [1/K], `k_l`, `rho_l`,
+/// * `superheat` ΔT \[K\], `diameter` D \[m\], `beta` [1/K], `k_l`, `rho_l`,
 ///   `cp_l`, `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0 (the conduction
 ///   limit Nu = 2 carries no heat without a temperature difference).
@@ -875,7 +875,7 @@ pub const BERENSON_PLATE: f64 = 0.425;
 ///
 /// `q = C [g k_v³ ρ_v (ρ_l − ρ_v) (h_lv + a c_pv ΔT) / (μ_v L ΔT)]^(1/4) ΔT`
 ///
-/// * `superheat` ΔT [K] (> 0), `constant` C [-], `length` L [m], `latent_factor`
+/// * `superheat` ΔT \[K\] (> 0), `constant` C [-], `length` L \[m\], `latent_factor`
 ///   a [-] (0.4 in Bromley's restatement, 0.8 in others), `h_lv`, `cp_v`,
 ///   `rho_l`, `rho_v`, `k_v`, `mu_v` (vapour at the film temperature), `g`.
 /// * C = 0.62 with L = D for a horizontal cylinder (Bromley 1950), 0.67 with
@@ -919,7 +919,7 @@ pub const STEFAN_BOLTZMANN: f64 = 5.670374419e-8;
 /// `T_w = T_sat + ΔT` and the difference factored as `ΔT (T_w + T_sat)(T_w² + T_sat²)`
 /// (no cancellation at small superheats).
 ///
-/// * `superheat` ΔT [K], `emissivity` ε of the wall [-], `t_sat` [K].
+/// * `superheat` ΔT \[K\], `emissivity` ε of the wall [-], `t_sat` \[K\].
 /// * The 3/4 weighting of the radiation term is the common explicit simplification of
 ///   Bromley's implicit combination \[V2\].
 /// * Possible: 0 ≤ ε ≤ 1 and T_sat > 0; ε = 0 adds exactly 0 (also where the superheat is so

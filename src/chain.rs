@@ -11,9 +11,9 @@
 use crate::model::{angle_deg, arg, nan_unless, positive, BlockSummary, Kernel, Model};
 use crate::{chf, departure, nucleation, water};
 
-/// Onset superheat [K] (Hsu, general contact angle), departure diameter [m]
-/// (Fritz), CHF [W/m2] (Kandlikar 2001) and the saturation temperature [K] of
-/// water at pressure `p` [Pa].
+/// Onset superheat \[K\] (Hsu, general contact angle), departure diameter \[m\]
+/// (Fritz), CHF [W/m2] (Kandlikar 2001) and the saturation temperature \[K\] of
+/// water at pressure `p` \[Pa\].
 #[inline]
 pub fn water_screening(
     p: f64,

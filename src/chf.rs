@@ -74,8 +74,8 @@ impl Kernel<6, 1> for Zuber {
 ///
 /// `q_CHF = h_lv ρ_v^(1/2) [(1 + cos β)/16] [2/π + (π/4)(1 + cos β) cos φ]^(1/2) [σ g (ρ_l − ρ_v)]^(1/4)`
 ///
-/// * β receding contact angle [deg] (through the liquid), φ heater orientation
-///   [deg] from horizontal facing up (0) through vertical (90) to facing down (180).
+/// * β receding contact angle \[deg\] (through the liquid), φ heater orientation
+///   \[deg\] from horizontal facing up (0) through vertical (90) to facing down (180).
 /// * Published validity: 0 ≤ φ ≤ 90°. Beyond 90° the result is still computed
 ///   (and flagged out of range) while the bracket stays positive; where
 ///   `2/π + (π/4)(1 + cos β) cos φ ≤ 0` the model has no answer and gives NaN.
@@ -228,7 +228,7 @@ fn geometry_code(x: f64) -> Option<u8> {
 /// | cylinder (2) | radius | `0.89 + 2.27 exp(−3.44 √L')` (Sun & Lienhard) | L' ≥ 0.15 |
 /// | sphere (3) | radius | `0.84` for L' ≥ 4.26, else `1.734 L'^(−1/2)` | L' ≥ 0.15 |
 ///
-/// * `geometry` code, `size` L [m], `area` heater area A [m2] (small flat
+/// * `geometry` code, `size` L \[m\], `area` heater area A \[m2\] (small flat
 ///   plate only; other geometries ignore it but it must be positive),
 ///   `small_plate` the small-plate coefficient c [-] (17.67 from the ratio
 ///   form, 18.9 as tabulated; MODELS Q-8 unresolved), `h_lv` [J/kg],

@@ -22,13 +22,13 @@ use std::f64::consts::PI;
 // ---------------------------------------------------------------------------
 // Fritz
 
-/// Fritz (1935) departure diameter [m].
+/// Fritz (1935) departure diameter \[m\].
 ///
 /// `D_d = 0.0208 θ [σ / (g (ρ_l − ρ_v))]^(1/2)` with θ the static contact angle in
 /// **degrees**, measured through the liquid; equivalently `1.1918 θ_rad l_c` with
 /// `l_c` the capillary length.
 ///
-/// * `contact_angle_deg` θ [deg], `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `g` [m/s2].
+/// * `contact_angle_deg` θ \[deg\], `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `g` [m/s2].
 /// * Physically possible: 0 ≤ θ ≤ 180, σ > 0, ρ_l > ρ_v ≥ 0, g > 0; otherwise NaN.
 /// * Fritz fitted the maximum volume of a *static* bubble on a horizontal,
 ///   upward-facing wall (numerical solutions of the Young-Laplace equation,
@@ -50,7 +50,7 @@ fn fritz_angle_factor(contact_angle_deg: f64) -> f64 {
     nan_unless(angle_deg(contact_angle_deg), FRITZ_CONSTANT_PER_DEG * contact_angle_deg)
 }
 
-/// Capillary length `[σ / (g (ρ_l − ρ_v))]^(1/2)` [m]; NaN for impossible properties.
+/// Capillary length `[σ / (g (ρ_l − ρ_v))]^(1/2)` \[m\]; NaN for impossible properties.
 #[inline(always)]
 fn capillary_length(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
     nan_unless(capillary_possible(sigma, rho_l, rho_v, g), (sigma / (g * (rho_l - rho_v))).sqrt())
@@ -126,13 +126,13 @@ pub const COLE_ROHSENOW_WATER: f64 = 1.5e-4;
 /// Cole & Rohsenow's constant for fluids other than water [-].
 pub const COLE_ROHSENOW_OTHER: f64 = 4.65e-4;
 
-/// Cole & Rohsenow (1969) departure diameter [m].
+/// Cole & Rohsenow (1969) departure diameter \[m\].
 ///
 /// `D_d = C [σ / (g (ρ_l − ρ_v))]^(1/2) (Ja*)^(5/4)`, with the modified Jakob
 /// number `Ja* = ρ_l c_pl T_sat / (ρ_v h_lv)` built on the **absolute**
 /// saturation temperature (not on a superheat).
 ///
-/// * `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `cp_l` [J/(kg K)], `t_sat` [K],
+/// * `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `cp_l` [J/(kg K)], `t_sat` \[K\],
 ///   `h_lv` [J/kg], `c` [-], `g` [m/s2].
 /// * `C = 1.5e-4` for water, `4.65e-4` for other fluids ([`COLE_ROHSENOW_WATER`],
 ///   [`COLE_ROHSENOW_OTHER`]); the Python wrapper picks it from the fluid's name.
@@ -206,7 +206,7 @@ impl Kernel<8, 1> for ColeRohsenow {
 /// i.e. 0.0012 × 0.0208 (= 2.496e-5, 0.16 % lower) written as one number.
 pub const KOCAMUSTAFAOGULLARI_ISHII_CONSTANT: f64 = 2.5e-5;
 
-/// Kocamustafaogullari & Ishii (1983) departure diameter [m].
+/// Kocamustafaogullari & Ishii (1983) departure diameter \[m\].
 ///
 /// `D_d = 2.5e-5 ((ρ_l − ρ_v)/ρ_v)^0.9 θ [σ / (g (ρ_l − ρ_v))]^(1/2)`, θ in
 /// **degrees**; equivalently `D_d ≈ 0.0012 ((ρ_l − ρ_v)/ρ_v)^0.9 D_Fritz`.
@@ -218,7 +218,7 @@ pub const KOCAMUSTAFAOGULLARI_ISHII_CONSTANT: f64 = 2.5e-5;
 /// water at 1 atm and 45° the right value is about 2.2 mm, the mis-transcribed
 /// one about 0.045 mm.
 ///
-/// * `contact_angle_deg` θ [deg], `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `g` [m/s2].
+/// * `contact_angle_deg` θ \[deg\], `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `g` [m/s2].
 /// * Possible: 0 ≤ θ ≤ 180, σ > 0, ρ_l > ρ_v > 0, g > 0; otherwise NaN.
 /// * Validity: no published range available to us ([M, low]: water data from
 ///   about 0.1 to 14 MPa). We flag θ > 90° as Fritz does (our choice).
@@ -240,7 +240,7 @@ fn ki_angle_factor(contact_angle_deg: f64) -> f64 {
     nan_unless(angle_deg(contact_angle_deg), KOCAMUSTAFAOGULLARI_ISHII_CONSTANT * contact_angle_deg)
 }
 
-/// The fluid factor `(Δρ/ρ_v)^0.9 [σ/(g Δρ)]^(1/2)` of [`kocamustafaogullari_ishii`] [m].
+/// The fluid factor `(Δρ/ρ_v)^0.9 [σ/(g Δρ)]^(1/2)` of [`kocamustafaogullari_ishii`] \[m\].
 #[inline(always)]
 fn ki_fluid_factor(sigma: f64, rho_l: f64, rho_v: f64, g: f64) -> f64 {
     let drho = rho_l - rho_v;
@@ -322,7 +322,7 @@ pub const PLESSET_ZWICK_GROWTH_CONSTANT: f64 = 1.732_050_807_568_877_2;
 /// Default contact (foot) diameter over bubble diameter, `d_w / D` [-]: our
 /// own choice (see [`force_balance`]).
 pub const DEFAULT_CONTACT_RATIO: f64 = 0.2;
-/// Default bubble inclination from the wall normal [deg]: 10° [M, med].
+/// Default bubble inclination from the wall normal \[deg\]: 10° [M, med].
 pub const DEFAULT_INCLINATION_DEG: f64 = 10.0;
 /// Default friction velocity over bulk velocity, `u_τ / U = 0.04` [-] [M, med].
 pub const DEFAULT_FRICTION_RATIO: f64 = 0.04;
@@ -347,7 +347,7 @@ pub const DRIVER_HYDRODYNAMIC_PRESSURE: f64 = 4.0;
 /// Driver code: contact pressure force (capillary pressure on the foot).
 pub const DRIVER_CONTACT_PRESSURE: f64 = 5.0;
 
-/// Smallest and largest diameters the balance is searched over [m].
+/// Smallest and largest diameters the balance is searched over \[m\].
 const D_MIN: f64 = 1e-8;
 const D_MAX: f64 = 10.0;
 /// Grid ratio of the scan: twelve points per decade (10^(1/12)).
@@ -357,7 +357,7 @@ const SCAN_STEPS: usize = 108;
 /// Bisection steps at most (the bracket shrinks below 1e-12 relative in ~40).
 const BISECTION_STEPS: usize = 100;
 
-/// The forces on an attached bubble of one diameter [N], in the wall frame:
+/// The forces on an attached bubble of one diameter \[N\], in the wall frame:
 /// `x` along the wall (the flow direction, up the slope on an inclined wall),
 /// `y` normal to the wall into the liquid.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -436,7 +436,7 @@ struct Balance {
     s_y: f64,
     /// |F_sx| = d_w σ c_x
     c_x: f64,
-    /// |F_du| [N], size-independent with the √t growth law.
+    /// |F_du| \[N\], size-independent with the √t growth law.
     growth: f64,
     sin_tilt: f64,
     cos_tilt: f64,
@@ -485,7 +485,7 @@ impl Balance {
         }
     }
 
-    /// The forces on an attached bubble of diameter `d` [m].
+    /// The forces on an attached bubble of diameter `d` \[m\].
     #[inline(always)]
     fn forces(&self, d: f64) -> Forces {
         let r = 0.5 * d;
@@ -523,7 +523,7 @@ impl Balance {
     }
 }
 
-/// Smallest diameter in [D_MIN, D_MAX] at which `excess` turns positive [m]:
+/// Smallest diameter in [D_MIN, D_MAX] at which `excess` turns positive \[m\]:
 /// 0 when it is already positive at D_MIN (the balance tips as soon as the
 /// bubble exists), NaN when it never does (or is NaN). A geometric scan of
 /// twelve points per decade brackets the first sign change, bisection refines
@@ -594,9 +594,9 @@ fn force_balance_possible(x: &[f64; 17]) -> bool {
 /// Zeng (1993).
 ///
 /// Returns `[diameter, mode, driver, sliding_diameter, lift_off_diameter]`:
-/// * `sliding_diameter` [m]: smallest D at which the balance **along** the wall
+/// * `sliding_diameter` \[m\]: smallest D at which the balance **along** the wall
 ///   tips, `|F_qs + F_b sin φ| > |F_sx| + |F_du| sin θ_i`;
-/// * `lift_off_diameter` [m]: smallest D at which the balance **normal** to the
+/// * `lift_off_diameter` \[m\]: smallest D at which the balance **normal** to the
 ///   wall tips, `F_sy + F_du,y + F_sL + F_b cos φ + F_h + F_cp > 0`;
 /// * `diameter` = the smaller of the two; `mode` = [`MODE_SLIDING`] (1) or
 ///   [`MODE_LIFT_OFF`] (2) for the balance that tips first (sliding on a tie),
@@ -656,10 +656,10 @@ fn force_balance_possible(x: &[f64; 17]) -> bool {
 /// it scales as g^−½, is 0 at 0°, and grows with the angle up to 90°. Facing
 /// down without flow, buoyancy presses the bubble on the wall: no departure (NaN).
 ///
-/// * Inputs: `advancing_deg` α, `receding_deg` β [deg] (0 ≤ β ≤ α ≤ 180),
+/// * Inputs: `advancing_deg` α, `receding_deg` β \[deg\] (0 ≤ β ≤ α ≤ 180),
 ///   `sigma` [N/m], `rho_l`, `rho_v` [kg/m3], `h_lv` [J/kg], `cp_l` [J/(kg K)],
-///   `k_l` [W/(m K)], `mu_l` [Pa s], `wall_superheat` [K] ≥ 0, `velocity` [m/s],
-///   `orientation_deg` φ [deg] in [0, 180], `contact_ratio` k in (0, 1],
+///   `k_l` [W/(m K)], `mu_l` [Pa s], `wall_superheat` \[K\] ≥ 0, `velocity` [m/s],
+///   `orientation_deg` φ \[deg\] in [0, 180], `contact_ratio` k in (0, 1],
 ///   `inclination_deg` θ_i in [0, 90), `growth_constant` b ≥ 0,
 ///   `friction_ratio` ≥ 0, `g` [m/s2] ≥ 0. Otherwise NaN (all five outputs).
 /// * Validity: no published range. Klausner et al. compared the model with R113
@@ -852,12 +852,12 @@ fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
     all_positive!(diameter, g, rho_l - rho_v; rho_v)
 }
 
-/// Cole (1960) departure frequency [Hz].
+/// Cole (1960) departure frequency \[Hz\].
 ///
 /// `f = [4 g (ρ_l − ρ_v) / (3 C_D D ρ_l)]^(1/2)`, with `C_D = 1` in Cole's paper:
 /// the bubble's rise velocity from a drag balance divided by its diameter.
 ///
-/// * `diameter` D [m] > 0, `rho_l`, `rho_v` [kg/m3], `drag_coefficient` C_D > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] > 0, `rho_l`, `rho_v` [kg/m3], `drag_coefficient` C_D > 0, `g` [m/s2] > 0.
 /// * Validity: pool boiling near the critical heat flux, where Cole took his
 ///   photographs; no numeric range published that we know of. Nothing flagged.
 /// * Verification: form with `C_D = 1` \[V2\] (OpenFOAM's implementation); paper
@@ -903,14 +903,14 @@ impl Kernel<5, 1> for ColeFrequency {
     }
 }
 
-/// Zuber (1963) departure frequency [Hz].
+/// Zuber (1963) departure frequency \[Hz\].
 ///
 /// `f = (K / D) [σ g (ρ_l − ρ_v) / ρ_l²]^(1/4)` with `K = 0.59` (Zuber); the
 /// bracket is the terminal rise velocity of a large bubble (Harmathy's form).
 /// Kocamustafaogullari & Ishii (1995) use the same form with `K = 1.18` (= 2 × 0.59);
 /// pass it as `constant` rather than confusing the two.
 ///
-/// * `diameter` D [m] > 0, `sigma` [N/m] > 0, `rho_l`, `rho_v` [kg/m3],
+/// * `diameter` D \[m\] > 0, `sigma` [N/m] > 0, `rho_l`, `rho_v` [kg/m3],
 ///   `constant` K > 0, `g` [m/s2] > 0.
 /// * Validity: no published numeric range; isolated-bubble region of pool boiling.
 /// * Verification: constant 0.59 [M, high]; 1.18 \[V2\] (OpenFOAM's
@@ -959,12 +959,12 @@ impl Kernel<6, 1> for ZuberFrequency {
     }
 }
 
-/// Ivey (1967) departure frequency, hydrodynamic region [Hz].
+/// Ivey (1967) departure frequency, hydrodynamic region \[Hz\].
 ///
 /// `f D^(1/2) = 0.90 g^(1/2)`, i.e. `f = 0.90 (g/D)^(1/2)`; dimensionally
 /// consistent, the constant holds in any unit system.
 ///
-/// * `diameter` D [m] > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] > 0, `g` [m/s2] > 0.
 /// * Validity: Ivey's hydrodynamic region (larger bubbles, where buoyancy and
 ///   drag set the cycle); the region boundaries are not reproduced here, so
 ///   nothing is flagged.
@@ -980,14 +980,14 @@ pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
     nan_unless(ok, IVEY_HYDRODYNAMIC * (g / diameter).sqrt())
 }
 
-/// Ivey (1967) departure frequency, transition region [Hz].
+/// Ivey (1967) departure frequency, transition region \[Hz\].
 ///
 /// `f D^(3/4) = 0.44 g^(1/2)`, published with D in cm and g in cm/s2, so that
 /// the constant carries cm^(1/4). Converted: `f = 0.13914 g^(1/2) D^(−3/4)` with
 /// D in m and g in m/s2 (0.44 cm^(1/4) = 0.44 × (0.01 m)^(1/4) =
 /// [`IVEY_TRANSITION_SI`] m^(1/4)).
 ///
-/// * `diameter` D [m] > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] > 0, `g` [m/s2] > 0.
 /// * Validity: Ivey's transition region; boundaries not reproduced, nothing flagged.
 /// * Verification: 0.44 cm^(1/4) [M, med]; the conversion is \[D\] and checked in
 ///   the tests against the CGS evaluation.
@@ -1058,7 +1058,7 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
 // ---------------------------------------------------------------------------
 // Waiting time
 
-/// Waiting time before a cavity re-activates after a departure [s]: Hsu's
+/// Waiting time before a cavity re-activates after a departure \[s\]: Hsu's
 /// (1962) activation criterion with transient conduction into the liquid, in
 /// the closed form of Han & Griffith (1965).
 ///
@@ -1073,8 +1073,8 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
 /// [`crate::nucleation::embryo_superheat`]). Solving `T(3/2 r_c, t_w) = T_sat + ΔT_e`
 /// gives the formula \[D\].
 ///
-/// * `cavity_radius` r_c [m] > 0, `wall_superheat` ΔT_w [K] ≥ 0, `subcooling`
-///   ΔT_sub [K] ≥ 0, fluid `sigma`, `t_sat` [K], `rho_l`, `rho_v`, `h_lv`, `k_l`, `cp_l`.
+/// * `cavity_radius` r_c \[m\] > 0, `wall_superheat` ΔT_w \[K\] ≥ 0, `subcooling`
+///   ΔT_sub \[K\] ≥ 0, fluid `sigma`, `t_sat` \[K\], `rho_l`, `rho_v`, `h_lv`, `k_l`, `cp_l`.
 /// * No answer (NaN, not counted as invalid): `ΔT_w ≤ ΔT_e`, the cavity never
 ///   becomes active at this superheat.
 /// * Validity: no published range; the nucleus height 3/2 r_c and the linear

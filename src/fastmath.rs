@@ -245,7 +245,7 @@ fn half_angle_sqrt(z: f64) -> (f64, f64, f64) {
     (s, df, c)
 }
 
-/// Arc cosine [rad]; NaN outside [-1, 1].
+/// Arc cosine \[rad\]; NaN outside [-1, 1].
 #[inline(always)]
 pub fn acos(x: f64) -> f64 {
     let a = x.abs();
@@ -273,7 +273,7 @@ pub fn acos(x: f64) -> f64 {
     }
 }
 
-/// Arc sine [rad]; NaN outside [-1, 1]. fdlibm's `e_asin.c` with its
+/// Arc sine \[rad\]; NaN outside [-1, 1]. fdlibm's `e_asin.c` with its
 /// |x| >= 0.975 shortcut dropped (the split form below is as accurate there).
 #[inline(always)]
 pub fn asin(x: f64) -> f64 {

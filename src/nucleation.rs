@@ -42,7 +42,7 @@ fn fluid_possible(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> 
     all_positive!(sigma, t_sat, rho_v, h_lv, rho_l - rho_v)
 }
 
-/// Equilibrium superheat of a vapour embryo of radius `r` [K], linearised form.
+/// Equilibrium superheat of a vapour embryo of radius `r` \[K\], linearised form.
 ///
 /// Young-Laplace `p_v − p_l = 2σ/r` with the Clausius-Clapeyron slope
 /// `dp/dT = h_lv / (T v_lv)` taken as constant over the superheat:
@@ -67,7 +67,7 @@ pub fn embryo_superheat(radius: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: 
     nan_unless(ok, 2.0 * sigma * t_sat * (rho_l - rho_v) / (rho_l * rho_v * h_lv * radius))
 }
 
-/// Radius of the vapour embryo in equilibrium at a liquid superheat [m]; the
+/// Radius of the vapour embryo in equilibrium at a liquid superheat \[m\]; the
 /// inverse of [`embryo_superheat`]. Zero superheat gives an infinite radius.
 #[inline(always)]
 pub fn embryo_radius(superheat: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f64 {
@@ -161,7 +161,7 @@ impl Kernel<6, 1> for EmbryoRadius {
 // ============================================================================
 // Embryo superheat, integrated Clausius-Clapeyron with a Poynting correction
 
-/// Equilibrium superheat of a vapour embryo of radius `r` [K]: integrated
+/// Equilibrium superheat of a vapour embryo of radius `r` \[K\]: integrated
 /// Clausius-Clapeyron relation with an ideal-gas vapour, plus the Poynting
 /// (Kelvin) correction for the liquid being at a lower pressure than the vapour.
 ///
@@ -395,8 +395,8 @@ fn cnt_water(t: f64, p: f64, f: f64, exponent: f64) -> (f64, f64) {
     (ln_j0, gibbs)
 }
 
-/// Liquid superheat `T_l − T_sat(p)` [K] at which classical nucleation theory
-/// gives the nucleation rate `rate` for water at liquid pressure `p` [Pa].
+/// Liquid superheat `T_l − T_sat(p)` \[K\] at which classical nucleation theory
+/// gives the nucleation rate `rate` for water at liquid pressure `p` \[Pa\].
 ///
 /// `J = J0 exp(−f W*/(k_B T_l))`, `W* = 16πσ³ / [3 (η p_sat(T_l) − p)²]`,
 /// `η = exp[(p − p_sat(T_l)) / (ρ_l R T_l)]` (Blander & Katz 1975), with
@@ -556,7 +556,7 @@ impl Kernel<2, 1> for Bankoff {
 // ============================================================================
 // Hsu (1962) range of active cavities
 
-/// Hsu's (1962) range of active cavity mouth radii `(r_min, r_max)` [m] with the
+/// Hsu's (1962) range of active cavity mouth radii `(r_min, r_max)` \[m\] with the
 /// general contact-angle constants.
 ///
 /// A nucleus on a cavity of mouth radius r_c is a spherical cap of radius
@@ -661,14 +661,14 @@ fn onset_possible(q: f64, sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: 
     all_positive!(sigma, t_sat, rho_v, h_lv, k_l, rho_l - rho_v; q)
 }
 
-/// Onset-of-nucleate-boiling wall superheat [K] and critical cavity mouth
-/// radius [m] from the tangency of the linear liquid temperature profile
+/// Onset-of-nucleate-boiling wall superheat \[K\] and critical cavity mouth
+/// radius \[m\] from the tangency of the linear liquid temperature profile
 /// (slope q''/k_l) with the embryo superheat `ζ C₃ / y` of a spherical-cap nucleus
 /// of contact angle θ (Hsu's constants, C₃ = 1 + cos θ, nucleus height y = C₁ r_c):
 ///
 /// `ΔT_ONB = √(4 C₃ ζ q''/k_l) = 2 cos(θ/2) √(2ζ q''/k_l)`,
 /// `r_c = k_l ΔT_ONB/(2 q'' C₁) = sin(θ/2) √(2 ζ k_l/q'')`, ζ = 2σT_sat/(ρ_v h_lv)
-/// (Hsu's 1/ρ_v form; see [`vapour_group`]).
+/// (Hsu's 1/ρ_v form; see `vapour_group`).
 ///
 /// θ = 90° (C₃ = 1) is the hemispherical nucleus of Sato & Matsumura (1/ρ_v)
 /// and of Davis & Anderson (v_lv, [`davis_anderson`]); Hsu's C₃ = 1.6
@@ -793,7 +793,7 @@ impl Factored<8, 2> for HsuOnset {
     }
 }
 
-/// Davis & Anderson (1966) onset superheat [K] and critical cavity radius [m]
+/// Davis & Anderson (1966) onset superheat \[K\] and critical cavity radius \[m\]
 /// (hemispherical nucleus, v_lv form):
 ///
 /// `q'' = k_l h_lv ΔT² / (8 σ T_sat v_lv)`, i.e. `ΔT_ONB = √(8 σ T_sat v_lv q''/(h_lv k_l))`,
@@ -842,8 +842,8 @@ impl Kernel<7, 2> for DavisAnderson {
     }
 }
 
-/// Kandlikar, Mizo, Cartwright & Ikenze (1997) onset superheat [K] and critical
-/// cavity radius [m] with the receding contact angle θ_r: the liquid temperature
+/// Kandlikar, Mizo, Cartwright & Ikenze (1997) onset superheat \[K\] and critical
+/// cavity radius \[m\] with the receding contact angle θ_r: the liquid temperature
 /// is taken at the stagnation point `y_s = 1.1 r_b`, `r_b = r_c / sin θ_r`:
 ///
 /// `ΔT_ONB = √(8.8 σ T_sat q''/(ρ_v h_lv k_l))`,
@@ -938,14 +938,14 @@ impl Factored<8, 2> for KandlikarOnset {
     }
 }
 
-/// Pounds per square inch [Pa] (exact: 0.45359237 kg x 9.80665 m/s2 / 0.0254² m²).
+/// Pounds per square inch \[Pa\] (exact: 0.45359237 kg x 9.80665 m/s2 / 0.0254² m²).
 pub const PSI: f64 = 6_894.757_293_168_361;
-/// Lower end of the Bergles-Rohsenow pressure range, 15 psia [Pa].
+/// Lower end of the Bergles-Rohsenow pressure range, 15 psia \[Pa\].
 pub const BERGLES_ROHSENOW_P_MIN: f64 = 15.0 * PSI;
-/// Upper end of the Bergles-Rohsenow pressure range, 2000 psia [Pa].
+/// Upper end of the Bergles-Rohsenow pressure range, 2000 psia \[Pa\].
 pub const BERGLES_ROHSENOW_P_MAX: f64 = 2000.0 * PSI;
 
-/// Bergles & Rohsenow (1964) onset-of-boiling wall superheat of water [K]:
+/// Bergles & Rohsenow (1964) onset-of-boiling wall superheat of water \[K\]:
 /// the SI form `q'' = 1082 p^1.156 (1.8 ΔT)^(2.16/p^0.0234)` (q'' in W/m², **p in
 /// bar**, ΔT in K) solved for ΔT:
 ///
@@ -1025,7 +1025,7 @@ impl Iteration<2, 1, 1> for BerglesRohsenow {
 pub const GAS_CONSTANT: f64 = 8.314_462_618;
 
 /// Pressure band we accept as "atmospheric" for correlations fitted to water
-/// near 1 atm [Pa] (our own tolerance around the data, not published).
+/// near 1 atm \[Pa\] (our own tolerance around the data, not published).
 pub const NEAR_ATMOSPHERIC: (f64, f64) = (0.09e6, 0.12e6);
 
 #[inline(always)]
@@ -1217,7 +1217,7 @@ pub fn hibiki_ishii(
     nan_unless(ok, v)
 }
 
-/// Published data range of Hibiki & Ishii (2003): pressure [Pa].
+/// Published data range of Hibiki & Ishii (2003): pressure \[Pa\].
 pub const HIBIKI_ISHII_P: (f64, f64) = (0.101e6, 19.8e6);
 /// Published data range of Hibiki & Ishii (2003): site density [1/m2].
 pub const HIBIKI_ISHII_N: (f64, f64) = (1.0e4, 1.51e10);

@@ -28,7 +28,7 @@
 //!   M.J. Assael, I.N. Metaxa, K. Miyagawa, R. Hellmann, E. Vogel, J. Phys. Chem. Ref. Data 41 (2012)
 //!   033102, doi:10.1063/1.4738955. Implemented in full, including the critical enhancement lambda2
 //!   (cp, cv, zeta from IAPWS-95 at T and at the reference temperature 1.5 T_c).
-//! * **[IF97]** IAPWS R7-97(2012), *Revised Release on the IAPWS Industrial Formulation 1997 for the
+//! * **\[IF97\]** IAPWS R7-97(2012), *Revised Release on the IAPWS Industrial Formulation 1997 for the
 //!   Thermodynamic Properties of Water and Steam*, Eq. 31 (region-4 backward equation T_s(p)). Used ONLY as
 //!   the starting guess of the Newton inversion in `t_sat`; the result is the root of the SR1-86 p_sat(T).
 //!   Basis paper: W. Wagner et al., J. Eng. Gas Turbines Power 122 (2000) 150-182, doi:10.1115/1.483186.
@@ -45,7 +45,7 @@
 //! IAPWS-95 phase equilibrium differ by <= 7e-5 relative, everything agrees with the IAPWS-95 saturated
 //! states to about that level (measured numbers: `near_critical` and the tests).
 //!
-//! That direct evaluation ([`direct_state`]) costs about 0.6 us per state. `saturation_t` instead reads
+//! That direct evaluation (`direct_state`) costs about 0.6 us per state. `saturation_t` instead reads
 //! the nine density, enthalpy, heat-capacity and transport fields from piecewise Chebyshev interpolants of
 //! it in T (module `table`, built from it once per process on first use, in the spirit of IAPWS G13-15 on
 //! table look-up methods), which reproduce it to 1e-12 relative or better up to 633 K and to its own
@@ -76,13 +76,13 @@ mod table;
 pub const SAT_FIELDS: [&str; 12] = [
     "T", "p", "rho_l", "rho_v", "h_lv", "sigma", "cp_l", "k_l", "mu_l", "mu_v", "cp_v", "k_v",
 ];
-/// Triple-point temperature [K] (IAPWS-95 / SR1-86 validity lower bound).
+/// Triple-point temperature \[K\] (IAPWS-95 / SR1-86 validity lower bound).
 pub const T_TRIPLE: f64 = 273.16;
-/// Critical temperature [K] (IAPWS-95).
+/// Critical temperature \[K\] (IAPWS-95).
 pub const T_CRIT: f64 = 647.096;
-/// Critical pressure [Pa] (IAPWS-95).
+/// Critical pressure \[Pa\] (IAPWS-95).
 pub const P_CRIT: f64 = 22.064e6;
-/// Triple-point pressure [Pa] as IAPWS publishes it (R14-08(2011), with T_TRIPLE), the lower end of the
+/// Triple-point pressure \[Pa\] as IAPWS publishes it (R14-08(2011), with T_TRIPLE), the lower end of the
 /// pressure route. The saturation line SR1-86 gives 611.65707 Pa at T_TRIPLE; pressures between the two
 /// (7e-5 Pa) are given the triple-point state, so that the published value itself is accepted.
 pub const P_TRIPLE: f64 = 611.657;
@@ -286,7 +286,7 @@ fn ln_psat_dd<const FMA: bool>(t: f64) -> Dd {
     dd_mul::<FMA>(s, inv_theta)
 }
 
-/// Saturation pressure [Pa] at temperature `t` [K], IAPWS SR1-86(1992) Eq. 1
+/// Saturation pressure \[Pa\] at temperature `t` \[K\], IAPWS SR1-86(1992) Eq. 1
 /// (Wagner & Pruss, J. Phys. Chem. Ref. Data 22 (1993) 783), evaluated to ~1 ulp (double-double up to the
 /// final exp) so that it is strictly increasing on the doubles of [T_TRIPLE, T_CRIT].
 /// NaN outside [T_TRIPLE, T_CRIT] or for NaN. Differs from the IAPWS-95 phase equilibrium by <= 7e-5
@@ -354,7 +354,7 @@ fn rho_v_tau(tau: f64, c: f64) -> f64 {
     RHO_CRIT * fexp(e)
 }
 
-/// Saturation temperature [K] at pressure `p` [Pa]: the inverse of [`p_sat`] (SR1-86 Eq. 1), by Newton on
+/// Saturation temperature \[K\] at pressure `p` \[Pa\]: the inverse of [`p_sat`] (SR1-86 Eq. 1), by Newton on
 /// ln p started from the IAPWS-IF97 Eq. 31 backward equation, then polished to the double T whose p_sat(T)
 /// is nearest to `p` (so `t_sat(p_sat(T)) == T` exactly). NaN outside [P_TRIPLE, P_CRIT] or for NaN; T_TRIPLE
 /// from P_TRIPLE up to p_sat(T_TRIPLE).
@@ -419,7 +419,7 @@ fn t_sat_case<const FMA: bool>(p: f64) -> SatCase {
     SatCase::Solve
 }
 
-/// The starting temperature [K] of the inversion: IF97 Eq. 31 (pressure in MPa), or mid-range where it
+/// The starting temperature \[K\] of the inversion: IF97 Eq. 31 (pressure in MPa), or mid-range where it
 /// fails.
 #[inline(always)]
 fn if97_t_sat(p: f64) -> f64 {
@@ -1519,7 +1519,7 @@ struct Thermo {
     zeta: f64,
     /// same at T_R = 1.5 T_c and the same density
     zeta_ref: f64,
-    /// IAPWS-95 pressure [Pa] and (dp/drho)_T [Pa m3/kg] at this state
+    /// IAPWS-95 pressure \[Pa\] and (dp/drho)_T [Pa m3/kg] at this state
     p: f64,
     dpdrho: f64,
     /// residual enthalpy h_r = R T (tau phi_t + delta phi_d) [J/kg] (h minus its ideal-gas part, which is
@@ -1794,7 +1794,7 @@ fn transport_inputs_ok(rho: f64, t: f64) -> bool {
     rho >= 0.0 && rho <= 1500.0 && t > 0.0 && t.is_finite()
 }
 
-/// Dynamic viscosity [Pa s] at density `rho` [kg/m3] and temperature `t` [K], IAPWS R12-08(2008)
+/// Dynamic viscosity [Pa s] at density `rho` [kg/m3] and temperature `t` \[K\], IAPWS R12-08(2008)
 /// (Huber et al., J. Phys. Chem. Ref. Data 38 (2009) 101), scientific form *including* the critical
 /// enhancement mu2, whose (d rho/d p)_T comes from IAPWS-95 at (rho, T) and at (rho, 1.5 T_c).
 /// Range of the release: 253.15 K <= T <= 1173.15 K for stable fluid states (not enforced);
@@ -1809,7 +1809,7 @@ pub fn viscosity(rho: f64, t: f64) -> f64 {
     transport(V2::splat(rho), t, &th)[0].0
 }
 
-/// Thermal conductivity [W/(m K)] at density `rho` [kg/m3] and temperature `t` [K], IAPWS R15-11(2011)
+/// Thermal conductivity [W/(m K)] at density `rho` [kg/m3] and temperature `t` \[K\], IAPWS R15-11(2011)
 /// (Huber et al., J. Phys. Chem. Ref. Data 41 (2012) 033102), scientific form including the critical
 /// enhancement lambda2 (cp, cv and (d rho/d p)_T from IAPWS-95 at (rho, T); reference (d rho/d p)_T from
 /// IAPWS-95 at (rho, 1.5 T_c); viscosity from R12-08 with its enhancement).
@@ -1840,7 +1840,7 @@ fn newton_step(dp: f64, dpdrho: f64, rho: f64) -> f64 {
 }
 
 fma_dispatch! {
-/// Saturated state at temperature `t` [K]: `[T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v]`
+/// Saturated state at temperature `t` \[K\]: `[T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v]`
 /// (order in [`SAT_FIELDS`]), SI units (K, Pa, kg/m3, J/kg, N/m, J/(kg K), W/(m K), Pa s).
 ///
 /// * p: IAPWS SR1-86(1992) Eq. 1 (`p_sat`).
@@ -1907,7 +1907,7 @@ fn direct_state<const FMA: bool>(t: f64, p: f64) -> [f64; 12] {
     [t, p, rho[0], rho[1], h[1] - h[0], sigma, th[0].cp, k_l, mu_l, mu_v, th[1].cp, k_v]
 }
 
-/// The two coexisting phases at `t` [K] and `p` = p_sat(t) [Pa], liquid first: IAPWS-95 densities at
+/// The two coexisting phases at `t` \[K\] and `p` = p_sat(t) \[Pa\], liquid first: IAPWS-95 densities at
 /// (T, p), the IAPWS-95 derivatives at (nearly) those densities, and the residual enthalpies (h'' - h' is
 /// their difference: the ideal-gas parts cancel at one T). None where the phases are not resolved in
 /// double precision (within ~1e-9 K of T_c).
@@ -1956,7 +1956,7 @@ fn enhancement_switches(t: f64) -> [f64; 4] {
 }
 
 fma_dispatch! {
-/// Saturated state at pressure `p` [Pa]: `saturation_t(t_sat(p))`. The saturation temperature is the
+/// Saturated state at pressure `p` \[Pa\]: `saturation_t(t_sat(p))`. The saturation temperature is the
 /// double T whose `p_sat(T)` (the same function `saturation_t` uses) is nearest to `p`, so
 /// `saturation_t(saturation_p(p)[0])[1]` reproduces `p` to within half the step of p_sat between two
 /// neighbouring doubles T: <= 2.1e-15 relative at the triple point, ~7e-16 near T_c (8 to 22 ulp of p per
@@ -2070,7 +2070,7 @@ fn state_or_nan<const FMA: bool>((t, ps, sigma): (f64, f64, f64)) -> [f64; 12] {
     state_at::<FMA>((t, ps, sigma))
 }
 
-/// Density [kg/m3] of (possibly metastable) liquid water at temperature `t` [K] and pressure `p` [Pa],
+/// Density [kg/m3] of (possibly metastable) liquid water at temperature `t` \[K\] and pressure `p` \[Pa\],
 /// from IAPWS-95 (R6-95(2018)): root of p(rho, T) = p on the liquid branch, by Newton iteration started
 /// at the SR1-86 saturated-liquid density. Works for compressed liquid (p > p_sat), superheated liquid
 /// (p < p_sat) and liquid under tension (p < 0) down to the liquid spinodal of IAPWS-95.
@@ -2157,7 +2157,7 @@ impl crate::model::Kernel<1, 12> for SaturationT {
     fn eval(x: &[f64; 1]) -> [f64; 12] {
         saturation_t(x[0])
     }
-    /// p_sat and sigma of the block in passes that vectorise ([`t_psat_block`], [`saturation_each`]), then the states.
+    /// p_sat and sigma of the block in passes that vectorise (`t_psat_block`, `saturation_each`), then the states.
     #[inline(always)]
     fn eval_block<const B: usize>(
         at: impl Fn(usize) -> [f64; 1],
@@ -2214,7 +2214,7 @@ impl crate::model::Kernel<1, 12> for SaturationP {
     }
 }
 
-/// p_sat(0.997 T_crit) [Pa]: above it [`near_critical`] holds for T_sat(p) (checked in the tests).
+/// p_sat(0.997 T_crit) \[Pa\]: above it [`near_critical`] holds for T_sat(p) (checked in the tests).
 pub const P_NEAR_CRITICAL: f64 = 2.155_486_311_476_951_8e7;
 
 #[cfg(test)]
@@ -2386,7 +2386,7 @@ mod tests {
         ((a - b) / b).abs()
     }
 
-    /// IAPWS-95 single-phase state via the internal Helmholtz evaluation: (p [Pa], cv, cp [J/(kg K)],
+    /// IAPWS-95 single-phase state via the internal Helmholtz evaluation: (p \[Pa\], cv, cp [J/(kg K)],
     /// w [m/s]).
     fn state95(rho: f64, t: f64) -> (f64, f64, f64, f64) {
         let tp = TauPart::new(T_CRIT / t);
@@ -2518,7 +2518,7 @@ mod tests {
         }
     }
 
-    /// IAPWS-95 release (R6-95(2018)) Table 7: single-phase states (T [K], rho [kg/m3]) -> p [MPa],
+    /// IAPWS-95 release (R6-95(2018)) Table 7: single-phase states (T \[K\], rho [kg/m3]) -> p [MPa],
     /// cv [kJ/(kg K)], w [m/s]. Recalled from memory of the table and checked against the iapws 1.5
     /// package (one recalled value differed and is marked).
     /// This verifies the Helmholtz derivatives behind cp, (d rho/d p)_T and the transport enhancements,

@@ -10,9 +10,9 @@
 //! (180 deg); each kernel says whether it then reports the element as outside
 //! the model's validity.
 //!
-//! Verification key used in the doc comments: **[V]** seen in the original
-//! (or a faithful copy of it); **[V2]** seen in a secondary source only;
-//! **[M]** from memory, not seen in any source during this work.
+//! Verification key used in the doc comments: **\[V\]** seen in the original
+//! (or a faithful copy of it); **\[V2\]** seen in a secondary source only;
+//! **\[M\]** from memory, not seen in any source during this work.
 
 use crate::fastmath;
 use crate::model::{
@@ -24,7 +24,7 @@ use crate::trig::cos_deg;
 // ---------------------------------------------------------------------------
 // helpers
 
-/// Angle [deg] whose cosine is `c`, saturating at 0 deg for `c >= 1` and at
+/// Angle \[deg\] whose cosine is `c`, saturating at 0 deg for `c >= 1` and at
 /// 180 deg for `c <= -1`. NaN stays NaN.
 #[inline(always)]
 fn angle_from_cos(c: f64) -> f64 {
@@ -43,7 +43,7 @@ fn young_tensions(sigma_sv: f64, sigma_sl: f64, sigma_lv: f64) -> bool {
 // ---------------------------------------------------------------------------
 // A1 Young's equation
 
-/// Young's equilibrium contact angle [deg].
+/// Young's equilibrium contact angle \[deg\].
 ///
 /// `cos θ = (σ_sv − σ_sl) / σ_lv` (Young 1805, in the form written by Fox and
 /// Zisman 1950, eq. 3).
@@ -146,11 +146,11 @@ impl Kernel<3, 1> for SpreadingCoefficient {
 /// Zisman's general form `W_a = π_e + σ_lv (1 + cos θ)` reduces to it when the
 /// spreading pressure π_e of the adsorbed vapour is negligible.
 ///
-/// * `sigma_lv` [N/m] > 0; `contact_angle_deg` θ [deg] in [0, 180]; otherwise NaN.
+/// * `sigma_lv` [N/m] > 0; `contact_angle_deg` θ \[deg\] in [0, 180]; otherwise NaN.
 /// * Validity: none published beyond that of Young's equation (π_e ≈ 0).
 ///
 /// References: A. Dupré, Théorie mécanique de la chaleur (Gauthier-Villars,
-/// Paris, 1869) [M, bibliographic]; Fox & Zisman (1950) eqs. 4-8 [V].
+/// Paris, 1869) [M, bibliographic]; Fox & Zisman (1950) eqs. 4-8 \[V\].
 #[inline(always)]
 pub fn adhesion_work(sigma_lv: f64, contact_angle_deg: f64) -> f64 {
     let ok = positive(sigma_lv) & angle_deg(contact_angle_deg);
@@ -195,10 +195,10 @@ impl Kernel<2, 1> for AdhesionWork {
 /// * The result may be negative for Φ > 1 (the model then predicts
 ///   spontaneous mixing); it is returned as computed.
 /// * Validity: Φ between 0.5 and 1.1, the spread of the values Girifalco and
-///   Good derived for real pairs [M]; outside it the result is flagged.
+///   Good derived for real pairs \[M\]; outside it the result is flagged.
 ///
 /// References: L.A. Girifalco, R.J. Good, J. Phys. Chem. 61 (1957) 904-909,
-/// doi:10.1021/j150553a013 [M, bibliographic]; equation form [V2] (abstract of
+/// doi:10.1021/j150553a013 [M, bibliographic]; equation form \[V2\] (abstract of
 /// J. Colloid Interface Sci. 529 (2018) 243-246: Φ = (1 − γ_12/γ_1)^(1/2)
 /// reduces it to Antonov's rule, which holds for this form only).
 #[inline(always)]
@@ -239,7 +239,7 @@ impl Kernel<3, 1> for GirifalcoGood {
 // ---------------------------------------------------------------------------
 // A4 Owens-Wendt-Rabel-Kaelble
 
-/// Contact angle [deg] of a liquid on a solid from dispersive and polar
+/// Contact angle \[deg\] of a liquid on a solid from dispersive and polar
 /// surface-energy components (Owens-Wendt-Rabel-Kaelble geometric mean).
 ///
 /// `σ_l (1 + cos θ) / 2 = (σ_s^d σ_l^d)^(1/2) + (σ_s^p σ_l^p)^(1/2)`,
@@ -258,8 +258,8 @@ impl Kernel<3, 1> for GirifalcoGood {
 /// References: D.K. Owens, R.C. Wendt, J. Appl. Polym. Sci. 13 (1969)
 /// 1741-1747, doi:10.1002/app.1969.070130815 [V: bibliographic data and
 /// abstract: water and methylene iodide, "dispersion" and "dipole-hydrogen
-/// bonding" components]; D.H. Kaelble, J. Adhesion 2 (1970) 66-81 [M];
-/// W. Rabel, Farbe und Lack 77 (1971) 997-1005 [M].
+/// bonding" components]; D.H. Kaelble, J. Adhesion 2 (1970) 66-81 \[M\];
+/// W. Rabel, Farbe und Lack 77 (1971) 997-1005 \[M\].
 #[inline(always)]
 pub fn owrk_angle(solid_dispersive: f64, solid_polar: f64, liquid_dispersive: f64, liquid_polar: f64) -> f64 {
     let ok = owrk_possible(solid_dispersive, solid_polar, liquid_dispersive, liquid_polar);
@@ -306,11 +306,11 @@ impl Kernel<4, 1> for OwrkAngle {
 // ---------------------------------------------------------------------------
 // A6 Wenzel and Cassie-Baxter
 
-/// Wenzel apparent contact angle [deg] on a rough surface wetted everywhere.
+/// Wenzel apparent contact angle \[deg\] on a rough surface wetted everywhere.
 ///
 /// `cos θ* = r cos θ`, `r` = true area / projected area ≥ 1.
 ///
-/// * `contact_angle_deg` θ [deg] in [0, 180] (Young angle on the smooth
+/// * `contact_angle_deg` θ \[deg\] in [0, 180] (Young angle on the smooth
 ///   material), `roughness_ratio` r [-] ≥ 1, finite; otherwise NaN.
 /// * Saturation: where `|r cos θ| > 1` the result is **0 deg** (the texture
 ///   wicks: hemi-wicking) or **180 deg**, and the element is reported as
@@ -322,7 +322,7 @@ impl Kernel<4, 1> for OwrkAngle {
 ///
 /// Reference: R.N. Wenzel, Resistance of solid surfaces to wetting by water,
 /// Ind. Eng. Chem. 28 (1936) 988-994, doi:10.1021/ie50320a024 [M, high; the
-/// paper was not seen; equation form [V2] in several restatements].
+/// paper was not seen; equation form \[V2\] in several restatements].
 #[inline(always)]
 pub fn wenzel(contact_angle_deg: f64, roughness_ratio: f64) -> f64 {
     let ok = wenzel_possible(contact_angle_deg, roughness_ratio);
@@ -363,7 +363,7 @@ impl Kernel<2, 1> for Wenzel {
     }
 }
 
-/// Cassie-Baxter apparent contact angle [deg] of a drop resting on a
+/// Cassie-Baxter apparent contact angle \[deg\] of a drop resting on a
 /// composite solid/gas surface (gas trapped under the drop).
 ///
 /// `cos θ* = r_f f cos θ + f − 1`: the drop touches the solid on the area
@@ -371,7 +371,7 @@ impl Kernel<2, 1> for Wenzel {
 /// trapped gas (θ = 180 deg) on `1 − f`. With `r_f = 1` this is
 /// `cos θ* = f (1 + cos θ) − 1`.
 ///
-/// * `contact_angle_deg` θ [deg] in [0, 180]; `solid_fraction` f [-] in
+/// * `contact_angle_deg` θ \[deg\] in [0, 180]; `solid_fraction` f [-] in
 ///   [0, 1]; `roughness_ratio` r_f [-] ≥ 1; otherwise NaN.
 /// * Saturation at 0 / 180 deg where the cosine leaves [-1, 1], reported as
 ///   outside validity (RangeWarning), as for [`wenzel`].
@@ -382,12 +382,12 @@ impl Kernel<2, 1> for Wenzel {
 ///   is Wenzel's): on a hydrophilic texture the trapped-gas state is not the
 ///   stable one (the liquid fills the texture, Wenzel, or wicks into it), so
 ///   the formula's hydrophobic answer must not be trusted there (J. Bico,
-///   C. Thiele, D. Quere, Colloids Surf. A 206 (2002) 41-46 [M]).
+///   C. Thiele, D. Quere, Colloids Surf. A 206 (2002) 41-46 \[M\]).
 ///
 /// Reference: A.B.D. Cassie, S. Baxter, Wettability of porous surfaces,
 /// Trans. Faraday Soc. 40 (1944) 546-551, doi:10.1039/tf9444000546 [M, high;
 /// the paper was not seen]. The general form `cos θ* = f_1 cos θ_1 − f_2`
-/// (with `f_1 + f_2 ≥ 1` on rough tops) [V2]: A.J.B. Milne, A. Amirfazli,
+/// (with `f_1 + f_2 ≥ 1` on rough tops) \[V2\]: A.J.B. Milne, A. Amirfazli,
 /// Adv. Colloid Interface Sci. 170 (2012) 48-55 (abstract).
 #[inline(always)]
 pub fn cassie_baxter(contact_angle_deg: f64, solid_fraction: f64, roughness_ratio: f64) -> f64 {
@@ -437,7 +437,7 @@ impl Kernel<3, 1> for CassieBaxter {
     }
 }
 
-/// Hemi-wicking critical angle [deg] of a textured surface: a liquid whose
+/// Hemi-wicking critical angle \[deg\] of a textured surface: a liquid whose
 /// Young angle lies below it wicks into the texture ahead of a drop (a film
 /// spreads through the texture while the tops stay dry), one whose angle lies
 /// above it does not.
@@ -446,14 +446,14 @@ impl Kernel<3, 1> for CassieBaxter {
 /// wets `(r − φ_s) dx` of solid (the texture less its dry tops) and leaves
 /// `(1 − φ_s) dx` of liquid surface between the tops, and it advances when
 /// that lowers the energy, `(σ_sl − σ_sv)(r − φ_s) + σ_lv (1 − φ_s) < 0`,
-/// that is with Young's equation `cos θ > (1 − φ_s)/(r − φ_s)` [D].
+/// that is with Young's equation `cos θ > (1 − φ_s)/(r − φ_s)` \[D\].
 ///
 /// * `solid_fraction` φ_s [-] in [0, 1): the fraction of the projected area
 ///   taken by the dry tops; `roughness_ratio` r [-] ≥ 1, finite; otherwise
 ///   NaN (φ_s = 1 leaves no gap for a film).
 /// * Limits: r = 1 (flat) gives 0 deg, only a spreading liquid wicks;
 ///   φ_s = 0 gives `cos θ_c = 1/r`, where Wenzel's angle reaches 0 deg
-///   [identity]; r → ∞ gives 90 deg, so no texture makes a hydrophobic
+///   \[identity\]; r → ∞ gives 90 deg, so no texture makes a hydrophobic
 ///   solid wick. θ_c always lies in [0, 90] deg.
 /// * Validity: texture much smaller than the drop and the capillary
 ///   length, tops flat and left dry, the film filling the texture to its
@@ -463,7 +463,7 @@ impl Kernel<3, 1> for CassieBaxter {
 /// Reference: J. Bico, C. Thiele, D. Quere, Wetting of textured surfaces,
 /// Colloids Surf. A 206 (2002) 41-46, doi:10.1016/S0927-7757(02)00061-4
 /// [M, high: the criterion and bibliographic data; the paper was not seen
-/// in this work]; the energy balance above [D] gives the same form.
+/// in this work]; the energy balance above \[D\] gives the same form.
 #[inline(always)]
 pub fn hemiwicking_angle(solid_fraction: f64, roughness_ratio: f64) -> f64 {
     let ok = hemiwicking_possible(solid_fraction, roughness_ratio);
@@ -510,17 +510,17 @@ fn hysteresis_possible(sigma_lv: f64, advancing: f64, receding: f64, width: f64,
     positive(sigma_lv) & angle_deg(advancing) & angle_deg(receding) & (advancing >= receding) & non_negative(width) & positive(k)
 }
 
-/// Furmidge retention force [N] of a drop pinned by contact-angle hysteresis.
+/// Furmidge retention force \[N\] of a drop pinned by contact-angle hysteresis.
 ///
 /// `F = k w σ_lv (cos θ_r − cos θ_a)`.
 ///
-/// * `sigma_lv` [N/m] > 0; `advancing_deg` θ_a and `receding_deg` θ_r [deg]
+/// * `sigma_lv` [N/m] > 0; `advancing_deg` θ_a and `receding_deg` θ_r \[deg\]
 ///   in [0, 180] with θ_a ≥ θ_r (an advancing angle below the receding one is
-///   impossible); `width` w [m] ≥ 0, the drop's base width perpendicular to
+///   impossible); `width` w \[m\] ≥ 0, the drop's base width perpendicular to
 ///   the motion; `k` [-] > 0, the retention (shape) factor. Otherwise NaN.
 /// * Validity: no published numeric range. Furmidge used k = 1; later work
 ///   puts k between about 1 and π/2 depending on the contact-line shape
-///   (ElSherbini & Jacobi 2006) [V2].
+///   (ElSherbini & Jacobi 2006) \[V2\].
 ///
 /// References: C.G.L. Furmidge, Studies at phase interfaces. I. The sliding
 /// of liquid drops on solid surfaces and a theory for spray retention,
@@ -566,11 +566,11 @@ impl Kernel<5, 1> for RetentionForce {
     }
 }
 
-/// Critical sliding angle [deg] of a drop of mass `m` on a tilted plate
+/// Critical sliding angle \[deg\] of a drop of mass `m` on a tilted plate
 /// (tilt from horizontal) from Furmidge's balance
 /// `m g sin α = k w σ_lv (cos θ_r − cos θ_a)`.
 ///
-/// * `mass` [kg] > 0, `g` [m/s2] > 0, the other inputs as in
+/// * `mass` \[kg\] > 0, `g` [m/s2] > 0, the other inputs as in
 ///   [`retention_force`]; otherwise NaN (counted as impossible).
 /// * **Never slides**: when the retention force exceeds the drop's weight
 ///   (`sin α > 1`) the drop stays put even on a vertical plate; the result is
@@ -625,20 +625,20 @@ impl Kernel<7, 1> for SlidingAngle {
 // ---------------------------------------------------------------------------
 // A8 disjoining pressure, films, Hamaker constants
 
-/// Smallest film thickness [m] for which a continuum van der Waals film is
+/// Smallest film thickness \[m\] for which a continuum van der Waals film is
 /// meaningful (a few molecular diameters) [M, common practice].
 pub const VDW_FILM_MIN: f64 = 1e-9;
-/// Thickness [m] above which retardation weakens the non-retarded `1/δ³` law
+/// Thickness \[m\] above which retardation weakens the non-retarded `1/δ³` law
 /// noticeably (it sets in from about 5 nm and is strong by a few tens of
 /// nanometres, depending on the materials) [M, common practice].
 pub const VDW_FILM_MAX: f64 = 20e-9;
 
-/// Non-retarded van der Waals disjoining pressure of a flat film [Pa].
+/// Non-retarded van der Waals disjoining pressure of a flat film \[Pa\].
 ///
 /// `Π(δ) = −A / (6 π δ³)`, the derivative `−dW/dδ` of the interaction energy
 /// per area `W = −A/(12 π δ²)` of two half-spaces across the film.
 ///
-/// * `thickness` δ [m] > 0; `hamaker` A [J], finite, the *effective* Hamaker
+/// * `thickness` δ \[m\] > 0; `hamaker` A \[J\], finite, the *effective* Hamaker
 ///   constant of the solid / film / vapour system. Sign convention: A < 0
 ///   gives Π > 0, a repulsive film that thickens: the liquid wets (see
 ///   [`effective_hamaker`]). Otherwise NaN.
@@ -647,7 +647,7 @@ pub const VDW_FILM_MAX: f64 = 20e-9;
 ///
 /// References: H.C. Hamaker, Physica 4 (1937) 1058-1072,
 /// doi:10.1016/S0031-8914(37)80203-7 (W = −A/(12πD²), A = π² C ρ₁ ρ₂)
-/// [V2]; P.G. de Gennes, Rev. Mod. Phys. 57 (1985) 827-863 (Π form and
+/// \[V2\]; P.G. de Gennes, Rev. Mod. Phys. 57 (1985) 827-863 (Π form and
 /// sign) [M, high].
 #[inline(always)]
 pub fn disjoining_pressure(thickness: f64, hamaker: f64) -> f64 {
@@ -684,12 +684,12 @@ impl Kernel<2, 1> for VdwDisjoiningPressure {
     }
 }
 
-/// General power-law disjoining pressure `Π = B / δ^n` [Pa].
+/// General power-law disjoining pressure `Π = B / δ^n` \[Pa\].
 ///
 /// n = 3 is the non-retarded van der Waals film (`B = −A/(6π)`), n = 4 the
 /// fully retarded one.
 ///
-/// * `thickness` δ [m] > 0; `coefficient` B [Pa m^n] finite; `exponent` n
+/// * `thickness` δ \[m\] > 0; `coefficient` B [Pa m^n] finite; `exponent` n
 ///   [-] > 0 finite; otherwise NaN.
 /// * Validity: none of its own; B and n come with the film model the user
 ///   takes them from.
@@ -750,13 +750,13 @@ impl Kernel<3, 1> for PowerLawDisjoiningPressure {
     }
 }
 
-/// Equilibrium thickness [m] of a wetting film on a vertical wall at height
+/// Equilibrium thickness \[m\] of a wetting film on a vertical wall at height
 /// `z` above the pool (extended meniscus, non-retarded van der Waals film).
 ///
 /// Hydrostatic balance `Π(δ) = (ρ_l − ρ_v) g z` with `Π = −A/(6πδ³)`:
 /// `δ(z) = [−A / (6 π (ρ_l − ρ_v) g z)]^(1/3)`.
 ///
-/// * `height` z [m] > 0; `hamaker` A [J] **< 0** (a wetting film; with A ≥ 0
+/// * `height` z \[m\] > 0; `hamaker` A \[J\] **< 0** (a wetting film; with A ≥ 0
 ///   no thick film is stable and the model does not apply); `rho_l > rho_v ≥ 0`
 ///   [kg/m3]; `g` [m/s2] > 0. Otherwise NaN (counted as impossible).
 /// * Validity: the result between 1 nm and 20 nm, as for
@@ -818,7 +818,7 @@ impl Kernel<5, 1> for VdwFilmThickness {
     }
 }
 
-/// Effective Hamaker constant [J] of a liquid film on a solid, exposed to its
+/// Effective Hamaker constant \[J\] of a liquid film on a solid, exposed to its
 /// vapour (or vacuum), from the two materials' own constants by the
 /// combining relation
 /// `A_SLV ≈ (√A_SS − √A_LL)(√A_VV − √A_LL)` with `A_VV ≈ 0`:
@@ -827,19 +827,19 @@ impl Kernel<5, 1> for VdwFilmThickness {
 /// Negative when the solid's constant exceeds the liquid's: the film is
 /// repulsive (wetting), the usual case for liquids on metals and glass.
 ///
-/// * `hamaker_solid` A_SS and `hamaker_liquid` A_LL [J] ≥ 0, finite
+/// * `hamaker_solid` A_SS and `hamaker_liquid` A_LL \[J\] ≥ 0, finite
 ///   (constants across vacuum, e.g. the table in `wetboil.wetting`);
 ///   otherwise NaN.
 /// * Validity: none published as a range; the combining relation is an
 ///   approximation (typically good to tens of percent, worse when the
 ///   materials' refractive indices or dielectric constants differ strongly)
-///   [M].
+///   \[M\].
 ///
 /// References: H.C. Hamaker, Physica 4 (1937) 1058-1072 (three-media sum
 /// A_SLV = A_SV + A_LL - A_SL - A_LV, solid and vapour across the liquid)
-/// [M]; the geometric-mean rule A_ij = sqrt(A_ii A_jj) for unlike
+/// \[M\]; the geometric-mean rule A_ij = sqrt(A_ii A_jj) for unlike
 /// attraction constants, D. Berthelot, C. R. Acad. Sci. Paris 126 (1898)
-/// 1703-1706 [M].
+/// 1703-1706 \[M\].
 #[inline(always)]
 pub fn effective_hamaker(hamaker_solid: f64, hamaker_liquid: f64) -> f64 {
     let ok = non_negative(hamaker_solid) & non_negative(hamaker_liquid);

@@ -7,5 +7,7 @@ cd "$(dirname "$0")/.."
 bash tools/setup.sh
 echo "== cargo test (pure Rust core)"
 cargo test --quiet
+echo "== cargo doc (every intra-doc link resolves; units are written \\[K\\])"
+RUSTDOCFLAGS="-D warnings" cargo doc --no-deps --quiet
 echo "== pytest"
 .venv/bin/python -m pytest -p no:cacheprovider

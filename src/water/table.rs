@@ -47,11 +47,11 @@ pub(super) const SLOTS: [usize; FIELDS] = [2, 3, 4, 6, 7, 8, 9, 10, 11];
 pub(super) const TAU_MIN: f64 = 1e-6;
 /// Degree of each piece.
 const DEG: usize = 12;
-/// Widest piece [K].
+/// Widest piece \[K\].
 const MAX_WIDTH_K: f64 = 8.0;
 /// Growth of the pieces' width in tau from TAU_MIN upwards (until they reach MAX_WIDTH_K).
 const RATIO: f64 = 1.1;
-/// Narrowest piece of the grading towards an enhancement switch-on point [K].
+/// Narrowest piece of the grading towards an enhancement switch-on point \[K\].
 const GRADE_MIN_K: f64 = 1e-7;
 /// Bins per octave of tau in the piece index: the top 5 mantissa bits.
 const BIN_SHIFT: u32 = 52 - 5;
