@@ -67,6 +67,33 @@ def test_flags_mark_rows_outside_validity_ranges():
     assert "departure_diameter" in coated["flags"].iloc[0]
 
 
+def test_nucleate_superheat_is_flagged_past_the_critical_heat_flux():
+    # Rohsenow (1952) and Cooper (1984) correlate nucleate boiling below the critical heat flux (Rohsenow's
+    # validity in wetboil.models()); boiling.curve gives no design superheat at or above the CHF. A sweep
+    # flags its nucleate superheat there. The CHF is Kandlikar's (J. Heat Transfer 123 (2001) 1071, his
+    # eq. for q''_CHF, as in chf.kandlikar) worked by hand with R134a's saturated properties from CoolProp
+    # (the reference library), at 0.5 MPa, receding angle 10 deg, facing up: about 0.55 MW/m2.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    p, beta = 5e5, math.radians(10.0)
+    rho_l, rho_v = CP.PropsSI("D", "P", p, "Q", 0, "R134a"), CP.PropsSI("D", "P", p, "Q", 1, "R134a")
+    h_lv = CP.PropsSI("H", "P", p, "Q", 1, "R134a") - CP.PropsSI("H", "P", p, "Q", 0, "R134a")
+    sigma = CP.PropsSI("I", "P", p, "Q", 0, "R134a")
+    q_chf = (h_lv * math.sqrt(rho_v) * (1 + math.cos(beta)) / 16
+             * math.sqrt(2 / math.pi + math.pi / 4 * (1 + math.cos(beta)))
+             * (sigma * 9.80665 * (rho_l - rho_v)) ** 0.25)
+    below, above = 0.9 * q_chf, 1.1 * q_chf
+    surfaces = [Surface("Cooper (invented)", 20, 30, 10), Surface("Rohsenow (invented)", 20, 30, 10, C_sf=0.005)]
+    ds = wetboil.sweep(surfaces, "R134a", p=p, heat_flux=[below, above])
+    assert float(ds["chf"].max()) == pytest.approx(q_chf, rel=1e-6)
+    bit = 1 << ds["range_flags"].attrs["bits"].split(",").index("nucleate_superheat")
+    flagged = (ds["range_flags"] & bit) != 0
+    assert not flagged.sel(heat_flux=below).any()
+    assert flagged.sel(heat_flux=above).all()
+    assert np.isfinite(ds["nucleate_superheat"]).all()  # computed and flagged, as every out-of-range element
+    df = wetboil.screen(surfaces, "R134a", heat_flux=above, p=p)
+    assert all("nucleate_superheat" in f for f in df["flags"])
+
+
 def test_screen_ranks_by_margin_with_units_in_columns():
     df = wetboil.screen(SURFACES, "water", heat_flux=4e5, p=[101325.0, 5e5])
     assert list(df["chf_margin [-]"]) == sorted(df["chf_margin [-]"], reverse=True)

@@ -64,7 +64,9 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
                         "before boiling starts and then falling to nucleate_superheat)"),
     "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset (NaN with the onset method "
                             "'bergles_rohsenow', which gives no radius)"),
-    "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux"),
+    "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux (flagged in range_flags "
+                           "where the design heat flux is at or above the design method's CHF: past the boiling "
+                           "crisis the nucleate correlations do not hold)"),
     "cavity_radius_min": ("m", "smallest active cavity mouth radius at the nucleate superheat (Hsu; NaN where no "
                           "cavity is active, as where nucleate_superheat is below onset_superheat)"),
     "cavity_radius_max": ("m", "largest active cavity mouth radius at the nucleate superheat (Hsu; NaN where no "
@@ -329,6 +331,13 @@ class _Results:
                 np.bitwise_or(acc, bit, out=acc, where=np.broadcast_to(mask, self.shape))
         return value
 
+    def flag(self, name: str, out_of_range: Any) -> None:
+        """Set the out-of-range bit of the quantity `name` (added before) where `out_of_range`."""
+        bit = np.int32(1 << list(self.values).index(name))
+        if np.any(out_of_range):
+            np.bitwise_or(self.out_of_range, bit, out=self.out_of_range,
+                          where=np.broadcast_to(out_of_range, self.shape))
+
     def add_state(self, invalid: Any, out_of_range: Any) -> None:
         """The last bit, `STATE_FLAG`: the fluid state of the point itself."""
         bit = np.int32(1 << len(self.values))
@@ -421,6 +430,11 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     primary = res.values[first]
     res.add("chf", primary, inv, oor)
     res.add("chf_margin", primary / q, inv, oor)
+    # Rohsenow's and Cooper's correlations are for nucleate boiling below the critical heat flux (Rohsenow's
+    # validity in wetboil.models()): at a design flux at or above the design method's CHF the nucleate
+    # superheat is an extrapolation past the boiling crisis (boiling.curve gives no design superheat there)
+    with np.errstate(invalid="ignore"):
+        res.flag("nucleate_superheat", q >= primary)
     res.add_state(state_invalid, inputs["fluid_out_of_range"] > 0)
     return res
 
