@@ -3,6 +3,7 @@ against IAPWS-95 as implemented by reference libraries (CoolProp, iapws);
 the CoolProp bridge against CoolProp directly. Each check names its source."""
 
 import math
+import re
 import warnings
 
 import numpy as np
@@ -287,6 +288,22 @@ def test_from_coolprop_errors_and_range():
     with pytest.warns(wetboil.InvalidValueWarning):
         s = from_coolprop("Water", T=np.array([300.0, 700.0]))
     assert np.isnan(s.T[1]) and np.isfinite(s.T[0])
+
+
+def test_from_coolprop_out_of_range_says_where_the_saturated_states_are():
+    # a temperature typed in degC (25 for 298.15 K) or a pressure in bar has no saturated state: the warning
+    # names the fluid's span, triple point to critical point as CoolProp (the reference library) gives them
+    t_trip, t_crit = CP.PropsSI("Ttriple", "R134a"), CP.PropsSI("Tcrit", "R134a")
+    p_crit = CP.PropsSI("pcrit", "R134a")
+    with pytest.warns(wetboil.InvalidValueWarning) as rec:
+        assert math.isnan(from_coolprop("R134a", T=25.0).T)
+    msg = str(rec[0].message)
+    assert f"{t_trip:.6g} K" in msg and f"{t_crit:.6g} K" in msg and "'R134a'" in msg, msg
+    with pytest.warns(wetboil.InvalidValueWarning, match=re.escape(f"{p_crit:.6g} Pa")):
+        assert math.isnan(from_coolprop("R134a", p=5.0e7).T)
+    with pytest.raises(wetboil.InvalidValueError, match=re.escape(f"{t_crit:.6g} K")):
+        with wetboil.errstate(invalid="raise"):
+            from_coolprop("R134a", T=400.0)
 
 
 def test_from_coolprop_takes_coolprop_fluid_strings():

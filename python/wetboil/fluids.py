@@ -671,7 +671,11 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         out["k_v"][idx] = read(state.conductivity)
         out["mu_v"][idx] = read(state.viscosity)
     if invalid:
-        report("fluids.from_coolprop", values.size, invalid, 0)
+        # say where the saturated states are: a temperature in degC or a pressure in bar is the usual cause
+        span = (f"T from {t_trip:.6g} K to {t_crit:.6g} K" if p is None
+                else f"p from {p_trip:.6g} Pa to {p_crit:.6g} Pa")
+        report(f"fluids.from_coolprop ({name!r} has saturated states at {span} only, triple point to critical "
+               "point)", values.size, invalid, 0)
     # properties CoolProp has no model for (often surface tension or transport properties of less
     # common fluids): say so once here, or every kernel that needs them gives a silent NaN
     have_state = ~np.isnan(out["T"])
