@@ -758,6 +758,9 @@ def test_dispersive_fraction_knows_every_coolprop_alias_of_its_fluids():
             assert dispersive_fraction(alias) == fraction, alias
     assert dispersive_fraction("R290") == dispersive_fraction("R600a") == 1.0
     assert dispersive_fraction("R718") == pytest.approx(21.8 / 72.8, rel=1e-15)  # Fowkes 1964
+    # CoolProp's own fluid strings with the backend prefix, as from_coolprop takes them [new-user trial]
+    assert dispersive_fraction("HEOS::n-Pentane") == dispersive_fraction("n-Pentane") == 1.0
+    assert dispersive_fraction(" heos::Water") == dispersive_fraction("Water")
     with pytest.raises(ValueError, match="R134a"):
         dispersive_fraction("R134a")
 

@@ -1067,7 +1067,9 @@ def dispersive_fraction(fluid: Any) -> float:
         raise WetboilTypeError(
             f"wetting.dispersive_fraction: fluid must be a Saturation or a fluid name, got {type(fluid).__name__}"
         )
-    key = "Water" if _is_water(name) else _FRACTION_KEYS.get(re.sub(r"[\s_\-]+", "", name.strip().lower()))
+    # CoolProp's fluid strings carry the backend, "HEOS::n-Pentane", as from_coolprop and sweep accept them
+    bare = name.rpartition("::")[2] if name.strip().upper().startswith("HEOS::") else name
+    key = "Water" if _is_water(bare) else _FRACTION_KEYS.get(re.sub(r"[\s_\-]+", "", bare.strip().lower()))
     if key is None:
         raise WetboilValueError(
             f"wetting.dispersive_fraction: no published dispersive/polar split of the surface tension of {name!r} "
