@@ -390,7 +390,56 @@ def test_a_fluid_without_some_properties_runs_and_the_report_says_which(tmp_path
             '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\nadvancing_deg = 70.0\nreceding_deg = 40.0\n')
     text, _ = _run_keeping_figures(tmp_path, monkeypatch, spec)
     assert "fluid properties missing at every state (no model in CoolProp): sigma" in text
-    assert "No curve: a (invented)" in text and "from_coolprop(...).replace(...)" in text
+    assert "No curve: a (invented)" in text and "Give them in the spec's [fluid_properties] table" in text
+
+
+def test_a_spec_gives_the_properties_coolprop_lacks(tmp_path, monkeypatch):
+    """Behavioural contract: a [fluid_properties] table fills the fields CoolProp has no model for
+    (Novec649 here: surface tension, liquid conductivity and viscosity), so the study predicts a
+    CHF and draws the curve; the report lists what the spec gave. The CHF is Zuber's (pi/24) worked
+    by hand with CoolProp's densities and latent heat (the reference library) and the given surface
+    tension, a placeholder near the maker's published 10.8 mN/m at 25 degC (from memory)."""
+    import math
+
+    import xarray as xr
+
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    try:
+        CP.PropsSI("I", "P", 1e5, "Q", 0, "Novec649")
+        pytest.skip("this CoolProp has a surface-tension model for Novec649")
+    except ValueError:
+        pass
+    spec = ('[study]\nfluid = "Novec649"\npressures_Pa = [1e5, 2e5]\nheat_fluxes_W_m2 = [1e5]\n'
+            '[methods]\nchf = "zuber"\n'
+            '[fluid_properties]\nsigma = [0.0108, 0.0095]\nk_l = 0.059\nmu_l = 6.4e-4\nmu_v = 1.1e-5\nk_v = 0.012\n'
+            '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\nadvancing_deg = 70.0\nreceding_deg = 40.0\n')
+    text, figures = _run_keeping_figures(tmp_path, monkeypatch, spec)
+    assert "fluid properties missing" not in text and "No curve" not in text
+    assert "- fluid properties given in the spec (SI; they replace CoolProp's or fill its gaps): " \
+           "sigma = [0.0108, 0.0095] N/m; k_l = 0.059 W/(m K)" in text
+    rl, rv = CP.PropsSI("D", "P", 1e5, "Q", 0, "Novec649"), CP.PropsSI("D", "P", 1e5, "Q", 1, "Novec649")
+    hlv = CP.PropsSI("H", "P", 1e5, "Q", 1, "Novec649") - CP.PropsSI("H", "P", 1e5, "Q", 0, "Novec649")
+    q = math.pi / 24 * hlv * math.sqrt(rv) * (0.0108 * 9.80665 * (rl - rv)) ** 0.25
+    with xr.open_dataset(tmp_path / "out" / "sweep.nc") as ds:
+        assert float(ds["chf"].sel(p=1e5).squeeze()) == pytest.approx(q, rel=1e-9)
+    curve_axes = figures[0].axes[0]  # the boiling curves at the first pressure: the surface is drawn
+    assert any(line.get_label() == "a (invented)" for line in curve_axes.get_lines())
+
+
+@pytest.mark.parametrize("table, message", [
+    ("T = 300.0", r"s.toml:5: unknown key 'T' in \[fluid_properties\]; known keys \(SI units\): rho_l \[kg/m3\]"),
+    ("sigma = [0.01, 0.02, 0.03]", r"s.toml:5: \[fluid_properties\] sigma has 3 values for 2 pressures"),
+    ("sigma = 10.8e-3\nk_l = -1", r"s.toml:6: \[fluid_properties\] k_l must be a positive number \[W/\(m K\)\]"),
+    ('sigma = "0.01"', r"s.toml:5: \[fluid_properties\] sigma must be a positive number \[N/m\]"),
+])
+def test_fluid_properties_spec_errors_name_the_line(tmp_path, table, message):
+    from wetboil.report import SpecError, load_spec
+
+    path = tmp_path / "s.toml"
+    path.write_text('[study]\npressures_Pa = [1e5, 2e5]\nheat_fluxes_W_m2 = [1e5]\n[fluid_properties]\n' + table +
+                    '\n[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\n')
+    with pytest.raises(SpecError, match=message):
+        load_spec(path)
 
 
 def test_probe_surfaces_in_a_fluid_without_a_tabulated_split_need_the_fraction(tmp_path, monkeypatch):

@@ -17,6 +17,12 @@ Spec format (every key optional unless marked)::
                                               # for probe-liquid surfaces in a fluid other than water or a
                                               # saturated hydrocarbon (see wetboil.wetting.dispersive_fraction)
 
+    [fluid_properties]                        # optional: saturated-state fields in SI units (any of
+    sigma = 0.0108                            # wetboil.fluids.UNITS but T and p), one number for every
+    k_l = [0.059, 0.057]                      # state or one per pressure/temperature; for what CoolProp
+                                              # has no model for (e.g. a dielectric fluid's surface
+                                              # tension and transport properties) or to override it
+
     [methods]                                 # optional, see wetboil.sweep.METHOD_CHOICES
     onset = "hsu"
     departure = "fritz"
@@ -65,7 +71,7 @@ _STUDY_KEYS: Dict[str, type] = {
     "orientations_deg": list, "subcoolings_K": list, "surfaces_file": str, "chunks": int,
     "lab": str, "product": str, "dispersive_fraction": float,
 }
-_TOP_KEYS = ("study", "methods", "surface")
+_TOP_KEYS = ("study", "methods", "surface", "fluid_properties")
 
 
 class SpecError(WetboilValueError):
@@ -78,8 +84,9 @@ class Study:
     def __init__(self, title: str, fluid: str, axis: str, states: List[float], heat_fluxes: List[float],
                  orientations: List[float], subcoolings: List[float], methods: Dict[str, Any],
                  surfaces: List[Surface], chunks: Optional[int] = None, meta: Optional[Dict[str, str]] = None,
-                 dispersive_fraction: Optional[float] = None):
+                 dispersive_fraction: Optional[float] = None, fluid_properties: Optional[Dict[str, Any]] = None):
         self.title, self.fluid, self.axis, self.states = title, fluid, axis, states
+        self.fluid_properties = fluid_properties or {}
         self.dispersive_fraction = dispersive_fraction
         self.heat_fluxes, self.orientations, self.subcoolings = heat_fluxes, orientations, subcoolings
         self.methods, self.surfaces, self.chunks, self.meta = methods, surfaces, chunks, meta or {}
@@ -175,6 +182,26 @@ def load_spec(path: Any) -> Study:
         except ValueError:
             raise fail("fluid", f"[study] unknown fluid {fluid!r} (not 'water' and not a CoolProp name)",
                        "study") from None
+    given = data.get("fluid_properties", {})
+    if not isinstance(given, dict):
+        raise fail("fluid_properties", "[fluid_properties] must be a table")
+    from .fluids import FIELDS, UNITS
+
+    for key, value in given.items():
+        if key not in FIELDS or key in ("T", "p"):
+            raise fail(key, f"unknown key {key!r} in [fluid_properties]; known keys (SI units): "
+                            f"{', '.join(f'{f} [{UNITS[f]}]' for f in FIELDS if f not in ('T', 'p'))}",
+                       "fluid_properties")
+        values = value if isinstance(value, list) else [value]
+        if not all(isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v) and v > 0
+                   for v in values):
+            raise fail(key, f"[fluid_properties] {key} must be a positive number [{UNITS[key]}] or a list of them",
+                       "fluid_properties")
+        if isinstance(value, list) and len(value) != len(states):
+            raise fail(key, f"[fluid_properties] {key} has {len(value)} values for {len(states)} "
+                            f"{'pressures' if axis == 'p' else 'temperatures'}: give one number or one per state",
+                       "fluid_properties")
+        given[key] = [float(v) for v in value] if isinstance(value, list) else float(value)
     methods = data.get("methods", {})
     if not isinstance(methods, dict):
         raise fail("methods", "[methods] must be a table")
@@ -236,6 +263,7 @@ def load_spec(path: Any) -> Study:
         subcoolings=subcoolings,
         methods=methods, surfaces=surfaces, chunks=chunks,
         meta={k: study[k] for k in ("lab", "product") if k in study}, dispersive_fraction=fraction,
+        fluid_properties=given,
     )
 
 
@@ -264,7 +292,8 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
             kw["progress"] = progress
         ds = sweep(study.surfaces, study.fluid, heat_flux=study.heat_fluxes, orientation_deg=study.orientations,
                    subcooling=study.subcoolings, methods=study.methods,
-                   dispersive_fraction=study.dispersive_fraction, **kw)
+                   dispersive_fraction=study.dispersive_fraction,
+                   fluid_properties=study.fluid_properties or None, **kw)
         ds.attrs["title"] = study.title
         ds.to_netcdf(scratch / "sweep.nc")
         summary = ranked_table(ds)
@@ -301,8 +330,11 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     def saturated(v: float) -> Any:
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")  # an impossible state is the sweep's to report, not the figures'
-            return (water(p=v) if axis == "p" else water(T=v)) if study.fluid.lower() == "water" else (
+            st = (water(p=v) if axis == "p" else water(T=v)) if study.fluid.lower() == "water" else (
                 from_coolprop(study.fluid, p=v) if axis == "p" else from_coolprop(study.fluid, T=v))
+        i = study.states.index(v)  # the spec's own properties of this state, as the sweep used them
+        given = {f: (x[i] if isinstance(x, list) else x) for f, x in study.fluid_properties.items()}
+        return st.replace(**given) if given and np.isfinite(st.T) else st
 
     # the figures use the first state that has a saturated state (a Study built in code may list others)
     first, state = next(((v, st) for v in study.states for st in [saturated(v)] if np.isfinite(st.T)),
@@ -607,9 +639,10 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
         lines.append(f"- {k}: {v}")
     lines += [
         f"- fluid: {study.fluid}",
+        *([f"- fluid properties given in the spec (SI; they replace CoolProp's or fill its gaps): "
+           f"{ds.attrs['fluid_properties_given']}"] if ds.attrs.get("fluid_properties_given") else []),
         *([f"- fluid properties missing at every state (no model in CoolProp): {ds.attrs['fluid_fields_missing']}; "
-           "every quantity that needs one is NaN. Give them in Python (wetboil.fluids.from_coolprop(...).replace(...)"
-           ", then wetboil.sweep of that Saturation)"] if ds.attrs.get("fluid_fields_missing") else []),
+           "every quantity that needs one is NaN. Give them in the spec's [fluid_properties] table"] if ds.attrs.get("fluid_fields_missing") else []),
         *([f"- dispersive fraction of its surface tension, for the angles predicted from probe liquids: "
            f"{ds.attrs['dispersive_fraction']:.4g} ({'given in the spec' if study.dispersive_fraction is not None else 'tabulated, wetboil.wetting.DISPERSIVE_FRACTIONS'})"]
           if "dispersive_fraction" in ds.attrs else []),

@@ -30,7 +30,7 @@ import numpy as np
 from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
 from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
-from .fluids import FIELDS, Saturation, from_coolprop, water
+from .fluids import FIELDS, UNITS, Saturation, from_coolprop, water
 from .surface import Surface
 
 __all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES",
@@ -185,14 +185,50 @@ def _axis(name: str, values: Any, xr: Any, label: str = "") -> Any:
     return xr.DataArray(arr, dims=name, coords={name: arr})
 
 
-def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str, Any, Any]:
+def _given_properties(given: Optional[Mapping[str, Any]], n: Optional[int]) -> Dict[str, Any]:
+    """The checked `fluid_properties` of a sweep over `n` states (None: a
+    single state): field -> float, or 1-D float array of length `n`."""
+    if given is None:
+        return {}
+    if not isinstance(given, Mapping):
+        raise WetboilTypeError(f"sweep: fluid_properties must be a mapping of field names to values, got "
+                               f"{type(given).__name__}")
+    allowed = [f for f in FIELDS if f not in ("T", "p")]
+    out: Dict[str, Any] = {}
+    for key, value in given.items():
+        if key not in allowed:
+            raise WetboilValueError(f"sweep: fluid_properties: unknown or fixed field {key!r}; give any of "
+                                    f"{', '.join(allowed)} (T and p are the sweep's axis)")
+        try:
+            if isinstance(value, (str, bytes)) or isinstance(value, bool):
+                raise TypeError
+            arr = np.asarray(value, dtype=float)
+        except (TypeError, ValueError):
+            raise WetboilTypeError(f"sweep: fluid_properties[{key!r}] must be a number or a sequence of numbers, "
+                                   f"got {value!r}") from None
+        if arr.ndim == 0:
+            out[key] = float(arr)
+        elif arr.ndim == 1 and n is not None and arr.size == n:
+            out[key] = arr
+        else:
+            raise WetboilValueError(f"sweep: fluid_properties[{key!r}] must be one number or one value per state "
+                                    f"({n if n is not None else 1}), got shape {arr.shape}")
+    return out
+
+
+def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any,
+                  fluid_properties: Optional[Mapping[str, Any]] = None) -> Tuple[Saturation, str, Any, Any]:
     """The saturated states of the sweep along one labelled axis, with two
     masks along it: states that are impossible and states outside the fluid
     layer's validity range (both all-False for ready-made `Saturation`
-    states, whose NaN fields are missing data)."""
+    states, whose NaN fields are missing data). `fluid_properties` (with a
+    fluid name only) sets fields of the states before anything is checked."""
     if isinstance(fluid, Saturation):
         if p is not None or T is not None:
             raise WetboilValueError("sweep: give p or T with a fluid name, not with a Saturation")
+        if fluid_properties is not None:
+            raise WetboilValueError("sweep: fluid_properties goes with a fluid name; set the fields of a "
+                                    "Saturation with its .replace()")
         not_given = fluid._not_given()
         if not_given:
             _warn(f"sweep: {', '.join(not_given)} not given to the Saturation: NaN in every quantity that needs "
@@ -217,10 +253,13 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
         raise WetboilValueError("sweep: give exactly one of p [Pa] or T [K] with a fluid name")
     dim = "p" if p is not None else "T"
     axis = _axis(dim, p if p is not None else T, xr)
+    given = _given_properties(fluid_properties, axis.size)
     # The fluid layer warns once (or raises, in strict mode) for impossible
     # states; the capture keeps which ones, for the flags of every point.
     try:
-        with capture_validity() as cap:
+        with capture_validity() as cap, warnings.catch_warnings():
+            if given:  # the fields CoolProp has no model for are named below, less those given here
+                warnings.filterwarnings("ignore", r"fluids\.from_coolprop: CoolProp has no ", WetboilWarning)
             if fluid.lower() == "water":
                 states = water(p=axis) if dim == "p" else water(T=axis)
             else:
@@ -231,6 +270,15 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any) -> Tuple[Saturation, str,
             raise InvalidValueError(f"sweep: {problem}; physically impossible (errstate invalid='raise'; by "
                                     "default they give NaN)") from exc
         raise
+    if given:  # on the axis; NaN where there is no saturated state, as every other field
+        no_state = np.isnan(np.broadcast_to(_field(states, "T"), axis.shape))
+        states = states.replace(**{f: xr.DataArray(np.where(no_state, np.nan, v), dims=dim, coords=axis.coords)
+                                   for f, v in given.items()})
+        still = [f for f in FIELDS if f in _no_model(states) and f not in given]
+        if still:
+            _warn(f"sweep: CoolProp has no {', '.join(still)} for {fluid!r} and fluid_properties does not give "
+                  f"{'them' if len(still) > 1 else 'it'}: NaN in every quantity that needs "
+                  f"{'them' if len(still) > 1 else 'it'}", WetboilWarning)
     given = ~np.isnan(axis.values)
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
     no_state = np.isnan(np.broadcast_to(_field(states, "rho_l"), given.shape))
@@ -483,6 +531,7 @@ def sweep(
     progress: bool = False,
     compute: bool = True,
     dispersive_fraction: Optional[float] = None,
+    fluid_properties: Optional[Mapping[str, Any]] = None,
 ) -> Any:
     """Evaluate the boiling chain over a labelled grid.
 
@@ -568,6 +617,16 @@ def sweep(
         (`wetboil.wetting.dispersive_fraction`: water, saturated
         hydrocarbons); for another fluid such surfaces raise
         `WetboilValueError` until it is given.
+    fluid_properties : mapping, optional
+        Saturated-state fields to set, SI units as in `wetboil.fluids.UNITS`
+        (any field but ``T`` and ``p``), with a fluid name only: a number
+        for every state, or one value per state of `p` or `T`. For the
+        properties CoolProp has no model for (surface tension and transport
+        properties of several dielectric fluids, e.g. ``{"sigma": ...,
+        "k_l": ..., "mu_l": ...}`` from the maker's data sheet) or to
+        override its values; the names and values given are kept in
+        ``attrs["fluid_properties_given"]``. With a `Saturation`, use its
+        ``.replace()`` instead.
 
     Returns
     -------
@@ -592,8 +651,8 @@ def sweep(
         ``fluid``, the ``methods``, the ``caution``, and, when some fluid
         field is NaN at every state because CoolProp has no model for it (or
         the given Saturation lacks it), ``fluid_fields_missing``: every
-        quantity that needs one is NaN, unflagged (give them with
-        ``from_coolprop(...).replace(...)`` and sweep that Saturation).
+        quantity that needs one is NaN, unflagged (give them in
+        `fluid_properties`).
 
     Examples
     --------
@@ -624,7 +683,7 @@ def sweep(
             isinstance(dispersive_fraction, bool) or not isinstance(dispersive_fraction, (int, float, np.integer, np.floating))
             or not 0.0 <= float(dispersive_fraction) <= 1.0):
         raise WetboilValueError(f"sweep: dispersive_fraction must be a number in 0-1, got {dispersive_fraction!r}")
-    states, state_dim, state_invalid, state_out_of_range = _fluid_states(fluid, p, T, xr)
+    states, state_dim, state_invalid, state_out_of_range = _fluid_states(fluid, p, T, xr, fluid_properties)
     problem = _method_fluid_problem(meth, states.name)
     if problem:
         raise WetboilValueError(f"sweep: {problem}")
@@ -688,6 +747,10 @@ def sweep(
     missing = _missing_fields(states, named=isinstance(fluid, str))
     if missing:
         result.attrs["fluid_fields_missing"] = ", ".join(missing)
+    if fluid_properties:
+        result.attrs["fluid_properties_given"] = "; ".join(
+            f"{f} = {v!r} {UNITS[f]}" if np.ndim(v) == 0 else f"{f} = {list(map(float, v))} {UNITS[f]}"
+            for f, v in _given_properties(fluid_properties, None if not state_dim else states.shape[0]).items())
     if chunks is None or compute:
         _strict(result, _STATE.get(), result["range_flags"].attrs["bits"].split(","))
     return result
