@@ -1084,3 +1084,43 @@ def test_fluid_properties_refuses_what_it_cannot_place(bad, error, message):
     with pytest.raises(wetboil.WetboilValueError, match=r"\.replace\(\)"):
         wetboil.sweep([Surface("a (invented)", 60, 70, 40)], water(p=1e5), heat_flux=1e5,
                       fluid_properties={"sigma": 0.05})
+def test_probe_angles_out_of_order_are_refused(tmp_path):
+    # [definition] for each liquid, advancing >= static >= receding (as the working fluid's direct
+    # angles are checked); the working fluid's angles are predicted from each probe set, so a
+    # disordered pair gave a receding angle above the advancing one to Kandlikar's CHF, unflagged
+    # (angles invented)
+    static = {"water": 72.0, "diiodomethane": 45.0}
+    for kw, message in (
+        ({"probe_advancing_deg": {"water": 60.0, "diiodomethane": 50.0}},
+         r"water: probe advancing angle 60 deg is below the probe static angle 72 deg"),
+        ({"probe_receding_deg": {"Water": 50.0, "methylene iodide": 48.0}},
+         r"diiodomethane: probe static angle 45 deg is below the probe receding angle 48 deg"),
+        ({"probe_advancing_deg": {"water": 80.0, "diiodomethane": 50.0},
+          "probe_receding_deg": {"water": 90.0, "diiodomethane": 40.0}},
+         r"water: probe advancing angle 80 deg is below the probe receding angle 90 deg"),
+    ):
+        with pytest.raises(wetboil.WetboilValueError, match=message):
+            Surface("p (invented)", probe_static_deg=static, **kw)
+    ordered = Surface("p (invented)", probe_static_deg=static, probe_advancing_deg={"water": 80.0, "diiodomethane": 50.0},
+                      probe_receding_deg={"water": 50.0, "diiodomethane": 30.0})
+    a = ordered.angles(water(p=101325.0))
+    assert a.advancing_deg >= a.static_deg >= a.receding_deg
+    path = tmp_path / "p.toml"
+    path.write_text('[[surface]]\nname = "a"\nprobe_static_deg = { water = 72.0, diiodomethane = 45.0 }\n\n'
+                    '[surface.probe_receding_deg]\nwater = 50.0\n"Methylene iodide" = 48.0\n', encoding="utf-8")
+    with pytest.raises(SurfaceFileError, match=r"p.toml:7: surface 'a': diiodomethane: probe static angle 45"):
+        load_surfaces(path)
+
+
+def test_roughness_with_apparent_angles_is_not_applied_and_says_so():
+    # [definition] apparent angles already include the roughness; Wenzel (1936) converts intrinsic
+    # ones. A roughness ratio given with apparent angles (the default) was dropped silently
+    # (angles invented)
+    with pytest.warns(wetboil.WetboilWarning, match=r"roughness_ratio = 1.5 is not applied"):
+        s = Surface("r (invented)", 120.0, roughness_ratio=1.5)
+    assert s.angles().static_deg == 120.0
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert Surface("r (invented)", 120.0, angles_are="intrinsic", roughness_ratio=1.5).angles().static_deg \
+            == pytest.approx(wetting.wenzel(120.0, 1.5))
+        Surface("r (invented)", 120.0)

@@ -90,7 +90,9 @@ class Surface:
         chemistry; the apparent angles then follow from Wenzel (or
         Cassie-Baxter when `solid_fraction` is given).
     roughness_ratio : float
-        Wenzel roughness ratio r >= 1 (true / projected area). With
+        Wenzel roughness ratio r >= 1 (true / projected area), applied to
+        intrinsic angles only (given with apparent angles, it is not applied
+        and a `WetboilWarning` says so). With
         `solid_fraction` it is instead the roughness ratio r_f of the wetted
         texture tops in Cassie-Baxter (1 for flat-topped pillars, the
         default), not the whole texture's Wenzel ratio.
@@ -167,6 +169,11 @@ class Surface:
             raise _error(WetboilTypeError, self.name, "notes must be a string", "notes")
         self.notes = notes
         self._validate()
+        if self.angles_are == "apparent" and self.roughness_ratio != 1.0:
+            warnings.warn(f"surface {self.name!r}: roughness_ratio = {self.roughness_ratio:g} is not applied: the "
+                          "angles are 'apparent' (measured on this surface, roughness included); for angles measured "
+                          "on a smooth coupon set angles_are = 'intrinsic' (Wenzel)", WetboilWarning,
+                          stacklevel=_stacklevel())
         if self.n is not None and self.C_sf is None:
             warnings.warn(f"surface {self.name!r}: n = {self.n:g} is given without C_sf; Rohsenow's constants are a "
                           "fitted pair, so n is used only with the surface's own C_sf (without one, the fluid's "
@@ -230,6 +237,26 @@ class Surface:
         if s is not None and r is not None and r > s:
             raise _error(WetboilValueError, self.name,
                          f"receding angle {r:g} deg is above the static angle {s:g} deg", "receding_deg")
+        # the same order for each probe liquid measured in two sets (names as `wetting.probe_liquid` reads
+        # them): the working fluid's angles are predicted from each set, so a disordered pair would give a
+        # receding angle above the advancing one for the CHF and onset models
+        from .wetting import _normalise
+
+        def by_liquid(probes: Optional[Dict[str, float]]) -> Dict[str, Tuple[str, float]]:
+            return {_normalise(k): (k, v) for k, v in (probes or {}).items()}
+
+        pa, ps, pr = (by_liquid(x) for x in (self.probe_advancing_deg, self.probe_static_deg, self.probe_receding_deg))
+        for (hi_kind, hi), (lo_kind, lo), key, side in (
+            (("advancing", pa), ("receding", pr), "probe_advancing_deg", 0),
+            (("advancing", pa), ("static", ps), "probe_advancing_deg", 0),
+            (("static", ps), ("receding", pr), "probe_receding_deg", 1),
+        ):
+            for liquid in hi.keys() & lo.keys():
+                (hi_name, hi_v), (lo_name, lo_v) = hi[liquid], lo[liquid]
+                if hi_v < lo_v:
+                    raise _error(WetboilValueError, self.name,
+                                 f"{hi_name}: probe {hi_kind} angle {hi_v:g} deg is below the probe {lo_kind} angle "
+                                 f"{lo_v:g} deg", key, (hi_name, lo_name)[side])
         if self.solid_fraction is not None and self.angles_are != "intrinsic":
             raise _error(WetboilValueError, self.name,
                          "solid_fraction converts intrinsic angles; set angles_are = 'intrinsic'", "solid_fraction")
