@@ -789,3 +789,31 @@ def test_solid_components_typed_in_mn_per_m_are_flagged():
         warnings.simplefilter("error")
         ptfe = surface_energy([108.0, 88.0], ["water", "diiodomethane"], table="owens_wendt_1969")
         assert predict_angle(ptfe, water_d, water_p) == pytest.approx(108.0, abs=1e-9)
+
+
+def test_probe_liquid_objects_in_mn_per_m_are_refused():
+    # Owens & Wendt's (1969) liquids [memory] (water 21.8/51.0, methylene iodide
+    # 49.5/1.3 mN/m) built by hand as ProbeLiquid objects give their PTFE row
+    # (108/88 deg -> 12.5 + 1.5 = 14.0 mN/m, table above [memory]) in N/m...
+    ow = [ProbeLiquid("water", 21.8 * MN, 51.0 * MN, "Owens & Wendt 1969 [memory]"),
+          ProbeLiquid("methylene iodide", 49.5 * MN, 1.3 * MN, "Owens & Wendt 1969 [memory]")]
+    s = surface_energy([108.0, 88.0], ow)
+    assert s.total == pytest.approx(14.0 * MN, abs=0.2 * MN)
+    # ...and typed in mN/m, as the paper prints them, are refused like a (dispersive, polar) pair in
+    # mN/m: they made PTFE 39.6 J/m2 (more than a clean metal's 1-2 J/m2 [common practice]), silently
+    ow_mn = [ProbeLiquid(liq.name, liq.dispersive / MN, liq.polar / MN, liq.source) for liq in ow]
+    for liquids in (ow_mn, {liq.name: liq for liq in ow_mn}, [ow[0], ow_mn[1]]):
+        with pytest.raises(wetboil.WetboilValueError, match="mN/m"):
+            surface_energy([108.0, 88.0], liquids)
+
+
+def test_zisman_angles_in_radians_are_questioned():
+    # Fox & Zisman's (1950) alkanes on PTFE [memory, table above] with the angles typed in radians
+    # would give a "critical surface tension" from angles below 1 deg: one hint, as surface_energy gives
+    sigma = [v[0] * MN for v in FOX_ZISMAN_ALKANES.values()]
+    theta = [v[1] for v in FOX_ZISMAN_ALKANES.values()]
+    with pytest.warns(wetboil.WetboilWarning, match="radians"):
+        critical_surface_tension(sigma, np.radians(theta))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert critical_surface_tension(sigma, theta).value == pytest.approx(18.5 * MN, abs=0.7 * MN)

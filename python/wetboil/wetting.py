@@ -522,6 +522,9 @@ def probe_liquid(name: str, table: str = "default") -> ProbeLiquid:
 
 def _custom_liquid(name: Any, spec: Any) -> ProbeLiquid:
     if isinstance(spec, ProbeLiquid):
+        # a ProbeLiquid built by hand is held to the same checks as a (dispersive, polar) pair: in
+        # mN/m, as tables print them, it would otherwise give surface energies a thousand times too high
+        _custom_liquid(spec.name, (spec.dispersive, spec.polar))
         return spec
     try:
         d, p = spec
@@ -556,7 +559,8 @@ def _resolve_liquids(liquids: Any, table: str) -> Tuple[List[ProbeLiquid], List[
                 f"surface_energy: liquids must be a sequence of names or a mapping name -> (dispersive, polar), "
                 f"got {type(liquids).__name__}"
             ) from None
-        out = [item if isinstance(item, ProbeLiquid) else probe_liquid(item, table) for item in items]
+        out = [_custom_liquid(item.name, item) if isinstance(item, ProbeLiquid) else probe_liquid(item, table)
+               for item in items]
         given = [item.name if isinstance(item, ProbeLiquid) else item for item in items]
     if len(out) < 2:
         known = sorted(PROBE_LIQUIDS.get(table, PROBE_LIQUIDS["default"]))
@@ -1140,7 +1144,9 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
     line reaches 1 only at a tension <= 0, which no liquid has (``slope``,
     ``intercept`` and ``r_squared`` are still given). Impossible elements
     (angle outside 0-180, tension <= 0) make the result NaN with one
-    `InvalidValueWarning`. The critical surface tension depends on the
+    `InvalidValueWarning`. Angles all at most :math:`\pi` (and not all 0)
+    are questioned with one `WetboilWarning` (given in radians?), as in
+    `surface_energy`. The critical surface tension depends on the
     liquid series; polar liquids give curved plots (Dann 1970, from an
     abstract).
 
@@ -1168,6 +1174,11 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
             f"{function}: sigma_lv and contact_angle_deg must be 1-D of equal length, got shapes {s.shape} and {t.shape}"
         )
     nan_result = CriticalSurfaceTension(math.nan, math.nan, math.nan, math.nan, math.nan, 0)
+    given = t[~np.isnan(t)]
+    if given.size and (given > 0.0).any() and (given <= math.pi).all():
+        # every angle within [0, pi] and not all zero: the usual sign of radians (as in surface_energy)
+        _warn(f"{function}: every contact angle is at most {math.pi:.4f} deg; were they given in radians? "
+              "Angles are in degrees (the fit goes on with them as degrees)", WetboilWarning)
     bad = (~((t >= 0.0) & (t <= 180.0)) & ~np.isnan(t)) | (~(s > 0.0) & ~np.isnan(s)) | np.isinf(s)
     if bad.any():
         report(function, int(s.size), int(bad.sum()), 0)
