@@ -692,6 +692,24 @@ fn every_tension_input_is_a_liquids_or_a_solids() {
 }
 
 #[test]
+fn every_input_bound_names_inputs_that_exist() {
+    // The bounds of model::INPUT_BOUNDS find their inputs by name: a renamed
+    // input would silently lose its unit-slip check, so every name must be an
+    // input of some kernel, in the unit the bound is written for.
+    use crate::model::{named, INPUT_BOUNDS};
+    let units = ["N/m", "N/m", "J", "m", "kg"];
+    assert_eq!(units.len(), INPUT_BOUNDS.len());
+    for (b, unit) in INPUT_BOUNDS.iter().zip(units) {
+        for name in b.names {
+            let used: Vec<_> = FUZZED_MODELS.iter().flat_map(|m| m.inputs.iter()).filter(|a| a.name == *name).collect();
+            assert!(!used.is_empty(), "model::INPUT_BOUNDS: no kernel has an input {name}");
+            assert!(used.iter().all(|a| a.unit == unit), "{name}: unit is not {unit}");
+        }
+        assert!(FUZZED_MODELS.iter().any(|m| m.inputs.iter().any(|a| named(a.name, b.names))));
+    }
+}
+
+#[test]
 fn fuzz_every_kernel() {
     let seconds: f64 = std::env::var("WETBOIL_FUZZ_SECONDS").ok().and_then(|s| s.trim().parse().ok()).unwrap_or(10.0);
     let seed: u64 = std::env::var("WETBOIL_FUZZ_SEED")

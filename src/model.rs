@@ -64,12 +64,12 @@ pub struct Model {
 pub trait Kernel<const N: usize, const M: usize> {
     /// The model's facts.
     const MODEL: Model;
-    /// The upper bound [N/m] of each input that [`within`] adds to every
-    /// kernel's own range: [`TENSION_MAX`] for a liquid's surface tension
-    /// ([`LIQUID_TENSIONS`]), [`SOLID_ENERGY_MAX`] for a solid's surface
-    /// energy or an interfacial tension ([`OTHER_TENSIONS`]), infinite for
-    /// every other input.
-    const TENSIONS: [f64; N] = tension_bounds::<N>(Self::MODEL.inputs);
+    /// The bound on the magnitude of each input that [`within`] adds to
+    /// every kernel's own range, from [`INPUT_BOUNDS`] by input name
+    /// ([`TENSION_MAX`] for a liquid's surface tension, [`SOLID_ENERGY_MAX`]
+    /// for a solid's surface energy, [`HAMAKER_MAX`], [`DROP_WIDTH_MAX`],
+    /// [`DROP_MASS_MAX`]); infinite for every other input.
+    const BOUNDS: [f64; N] = input_bounds::<N>(Self::MODEL.inputs);
     /// The outputs for one element.
     fn eval(x: &[f64; N]) -> [f64; M];
     /// The outputs for one element evaluated on its own (the scalar entry
@@ -193,105 +193,154 @@ pub const SOLID_ENERGY_CLAUSE: &str =
     "solid surface energy and interfacial tension <= 10 N/m (a clean metal is 1-2 J/m2; a larger value was usually \
      given in mN/m)";
 
-/// The bound of each of `N` inputs (compile time, from a model's table): see [`Kernel::TENSIONS`].
-pub const fn tension_bounds<const N: usize>(inputs: &[Arg]) -> [f64; N] {
+/// Upper bound [J] of the magnitude of a plausible Hamaker constant. Real
+/// ones lie between about 1e-21 J (across water) and 5e-19 J (metals)
+/// [from memory, common practice: Israelachvili's and Hough & White's
+/// tables]; a value typed in units of 1e-20 J, as tables print them, reads
+/// 0.1-50 and gave disjoining pressures 1e20 times too high without a word.
+pub const HAMAKER_MAX: f64 = 1e-17;
+
+/// Upper bound [m] of a drop's contact width in the Furmidge retention
+/// force. Water's capillary length is 2.7 mm and a sessile drop wider than a
+/// few centimetres is a puddle [common practice]; a width typed in mm reads
+/// 1-10 and gave forces a thousand times too high.
+pub const DROP_WIDTH_MAX: f64 = 0.1;
+
+/// Upper bound [kg] of a drop's mass in the sliding angle: 10 g is 10 mL of
+/// water, a puddle [common practice]; a mass typed in mg (a 20 uL drop is
+/// 20 mg) or in g reads above it.
+pub const DROP_MASS_MAX: f64 = 0.01;
+
+/// One plausibility bound: the input names it applies to, the bound on
+/// their magnitude, and the clause it adds to the validity text.
+pub struct InputBound {
+    pub names: &'static [&'static str],
+    pub max: f64,
+    pub clause: &'static str,
+}
+
+/// The bounds every kernel adds to its own range, by input name: each
+/// catches a unit slip that the models would otherwise take silently. Such
+/// elements are still computed but counted as outside the range, so the
+/// call warns (a strict mode raises).
+pub const INPUT_BOUNDS: [InputBound; 5] = [
+    InputBound { names: &LIQUID_TENSIONS, max: TENSION_MAX, clause: TENSION_CLAUSE },
+    InputBound { names: &OTHER_TENSIONS, max: SOLID_ENERGY_MAX, clause: SOLID_ENERGY_CLAUSE },
+    InputBound {
+        names: &["hamaker", "hamaker_solid", "hamaker_liquid"],
+        max: HAMAKER_MAX,
+        clause: "|Hamaker constant| <= 1e-17 J (real ones are 1e-21 to 5e-19 J; a larger value was usually given in \
+                 units of 1e-20 J)",
+    },
+    InputBound {
+        names: &["width"],
+        max: DROP_WIDTH_MAX,
+        clause: "drop width <= 0.1 m (a larger value was usually given in mm)",
+    },
+    InputBound {
+        names: &["mass"],
+        max: DROP_MASS_MAX,
+        clause: "drop mass <= 0.01 kg (a larger value was usually given in mg or g)",
+    },
+];
+
+/// The bound of each of `N` inputs (compile time, from a model's table): see [`Kernel::BOUNDS`].
+pub const fn input_bounds<const N: usize>(inputs: &[Arg]) -> [f64; N] {
     let mut out = [f64::INFINITY; N];
     let mut i = 0;
     while i < N && i < inputs.len() {
-        if named(inputs[i].name, &LIQUID_TENSIONS) {
-            out[i] = TENSION_MAX;
-        } else if named(inputs[i].name, &OTHER_TENSIONS) {
-            out[i] = SOLID_ENERGY_MAX;
+        let mut b = 0;
+        while b < INPUT_BOUNDS.len() {
+            if named(inputs[i].name, INPUT_BOUNDS[b].names) {
+                out[i] = INPUT_BOUNDS[b].max;
+            }
+            b += 1;
         }
         i += 1;
     }
     out
 }
 
-/// Whether some bound of [`tension_bounds`] is finite.
+/// Whether some bound of [`input_bounds`] is finite.
 pub fn any_bound(bounds: &[f64]) -> bool {
     bounds.iter().any(|b| b.is_finite())
 }
 
 impl Model {
-    /// The validity range as shown to users: [`Model::validity`], plus
-    /// [`TENSION_CLAUSE`] where some input is a liquid's surface tension and
-    /// [`SOLID_ENERGY_CLAUSE`] where some is a solid's or an interface's.
+    /// The validity range as shown to users: [`Model::validity`], plus the
+    /// clause of each [`INPUT_BOUNDS`] entry that applies to one of its inputs.
     pub fn validity_text(&self) -> std::borrow::Cow<'static, str> {
-        let liquid = self.inputs.iter().any(|a| named(a.name, &LIQUID_TENSIONS));
-        let solid = self.inputs.iter().any(|a| named(a.name, &OTHER_TENSIONS));
-        let clauses: Vec<&str> = [(!self.validity.is_empty(), self.validity), (liquid, TENSION_CLAUSE),
-                                  (solid, SOLID_ENERGY_CLAUSE)]
-            .iter()
-            .filter(|(on, _)| *on)
-            .map(|(_, t)| *t)
-            .collect();
-        if !liquid && !solid {
-            self.validity.into()
-        } else {
-            clauses.join("; ").into()
+        let applies = |b: &InputBound| self.inputs.iter().any(|a| named(a.name, b.names));
+        if !INPUT_BOUNDS.iter().any(applies) {
+            return self.validity.into();
         }
+        let own = (!self.validity.is_empty()).then_some(self.validity);
+        own.into_iter()
+            .chain(INPUT_BOUNDS.iter().filter(|b| applies(b)).map(|b| b.clause))
+            .collect::<Vec<_>>()
+            .join("; ")
+            .into()
     }
 }
 
-/// Whether the inputs are within their bounds (`bounds`, from
-/// [`tension_bounds`]; for a factored side, infinite off the side). A NaN is
+/// Whether the inputs' magnitudes are within their bounds (`bounds`, from
+/// [`input_bounds`]; for a factored side, infinite off the side). A NaN is
 /// not flagged here (the loops report it as missing).
 #[inline(always)]
-fn tensions_plausible<const N: usize>(bounds: &[f64; N], x: &[f64; N]) -> bool {
+fn inputs_plausible<const N: usize>(bounds: &[f64; N], x: &[f64; N]) -> bool {
     let mut ok = true;
     for k in 0..N {
-        ok &= !(x[k] > bounds[k]);
+        ok &= !(x[k].abs() > bounds[k]);
     }
     ok
 }
 
-/// Whether some live element of a block (the first `len` of `B`) has a
-/// liquid surface tension above [`TENSION_MAX`]. The binding's block loops
+/// Whether some live element of a block (the first `len` of `B`) has an
+/// input above its bound ([`INPUT_BOUNDS`]). The binding's block loops
 /// ask this beside [`Kernel::eval_block`] and settle such a block element by
 /// element through [`within`], as they do a block with a NaN output: the
-/// bound is then one compare per element of the tension columns, read from
+/// bound is then one compare per element of the bounded columns, read from
 /// the block just loaded, and no work at all for kernels without such an
 /// input (a compare inside every kernel's vectorised loop cost up to 45 %,
 /// the Furmidge sliding angle's).
 #[inline(always)]
-pub fn tension_outlier<K: Kernel<N, M>, const N: usize, const M: usize, const B: usize>(
+pub fn bound_outlier<K: Kernel<N, M>, const N: usize, const M: usize, const B: usize>(
     at: impl Fn(usize) -> [f64; N],
     len: usize,
 ) -> bool {
-    if !any_bound(&K::TENSIONS) {
+    if !any_bound(&K::BOUNDS) {
         return false;
     }
     let mut any = false;
     for j in 0..B {
         let x = at(j);
-        any |= !tensions_plausible(&K::TENSIONS, &x) & (j < len);
+        any |= !inputs_plausible(&K::BOUNDS, &x) & (j < len);
     }
     any
 }
 
 /// Whether a possible element lies inside its kernel's range, given its
 /// outputs `y = eval(x)`: the kernel's own [`Kernel::in_range_with`] and the
-/// bound on liquid surface tensions common to all kernels ([`TENSION_MAX`]). Every
+/// bounds on some inputs common to all kernels ([`INPUT_BOUNDS`]). Every
 /// loop, the scalar entry point and [`classify`] decide "out of range"
 /// through this or [`within_x`], never through `in_range` alone.
 #[inline(always)]
 pub fn within<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N], y: &[f64; M]) -> bool {
-    K::in_range_with(x, y) & tensions_plausible(&K::TENSIONS, x)
+    K::in_range_with(x, y) & inputs_plausible(&K::BOUNDS, x)
 }
 
 /// [`within`] without the outputs at hand.
 #[inline(always)]
 pub fn within_x<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> bool {
-    K::in_range(x) & tensions_plausible(&K::TENSIONS, x)
+    K::in_range(x) & inputs_plausible(&K::BOUNDS, x)
 }
 
 /// What the binding's loops learn while evaluating a block: whether any
 /// output is NaN (the block then needs the full settling of each element)
 /// and how many live elements lie outside the kernel's own range
 /// ([`Kernel::in_range_with`]; all there is to count when no output is NaN
-/// and no liquid surface tension exceeds [`TENSION_MAX`], which the loops
-/// check apart, see [`tension_outlier`]).
+/// and no input exceeds its bound ([`INPUT_BOUNDS`]), which the loops
+/// check apart, see [`bound_outlier`]).
 #[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
 pub struct BlockSummary {
     pub any_nan: bool,
@@ -466,8 +515,8 @@ pub fn classify_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x
 /// [`Factored::side_in_range`] and the tension bound on the side's inputs.
 #[inline(always)]
 pub fn within_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x: &[f64; N]) -> bool {
-    let bounds: [f64; N] = std::array::from_fn(|k| if K::SIDES[k] == s { K::TENSIONS[k] } else { f64::INFINITY });
-    K::side_in_range(s, x) & tensions_plausible(&bounds, x)
+    let bounds: [f64; N] = std::array::from_fn(|k| if K::SIDES[k] == s { K::BOUNDS[k] } else { f64::INFINITY });
+    K::side_in_range(s, x) & inputs_plausible(&bounds, x)
 }
 
 /// Outcome of one element, as the generic loops count it.

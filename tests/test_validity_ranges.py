@@ -192,7 +192,7 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
 
 LIQUID_TENSIONS = {"sigma_lv", "sigma_l", "fluid.sigma", "liquid_dispersive", "liquid_polar"}
 SOLID_ENERGIES = {"sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_polar"}
-# The two bounds every model adds to its own range, by the inputs they apply to, a value in mN/m
+# The bounds every model adds to its own range, by the inputs they apply to, a value in mN/m
 # of such an input, and the words of the range clause. A liquid's surface tension above 1 N/m: no
 # liquid that boils in service comes near it (mercury, the highest of the common liquids, is about
 # 0.49 N/m at room temperature [common practice, from memory]), and the usual cause is a value in
@@ -200,9 +200,17 @@ SOLID_ENERGIES = {"sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_
 # surface energy or an interfacial tension above 10 N/m: a clean metal's is 1-2 J/m2, the highest
 # solids' about 3-6 [common practice, from memory], while a polymer's components in mN/m, as tables
 # print them, read 10-70 and made every liquid spread (0 deg) without a word.
+# A Hamaker constant above 1e-17 J in magnitude: real ones are 1e-21 to 5e-19 J [common practice,
+# from memory: Israelachvili's and Hough & White's tables], and one typed in units of 1e-20 J, as
+# tables print them, gave disjoining pressures 1e20 times too high. A drop's contact width above
+# 0.1 m (typed in mm) or its mass above 0.01 kg (typed in mg) [common practice: a drop wider than a
+# few capillary lengths, 2.7 mm for water, is a puddle].
 TENSION_BOUNDS = {
     "liquid": (LIQUID_TENSIONS, lambda v: v * 1e3, "liquid surface tension <= 1 N/m"),
     "solid": (SOLID_ENERGIES, lambda v: max(v * 1e3, 10.5), "solid surface energy and interfacial tension <= 10 N/m"),
+    "hamaker": ({"hamaker", "hamaker_solid", "hamaker_liquid"}, lambda v: v * 1e20, "|Hamaker constant| <= 1e-17 J"),
+    "width": ({"width"}, lambda v: v * 1e3, "drop width <= 0.1 m"),
+    "mass": ({"mass"}, lambda v: v * 1e6, "drop mass <= 0.01 kg"),
 }
 
 
@@ -210,7 +218,7 @@ TENSION_BOUNDS = {
                                                 for k, (f, spec) in kc.BY_KERNEL.items()
                                                 if {a.name for a in spec.model.inputs} & names))
 def test_a_tension_in_mn_per_m_is_flagged(bound, kernel):
-    # Every kernel that takes such an input flags it in mN/m (the other inputs stay in range).
+    # Every kernel that takes such an input flags it in the slipped unit (the other inputs stay in range).
     names, slip, clause = TENSION_BOUNDS[bound]
     f, spec, base = _in_range_base(kernel)
     inputs = [a.name for a in spec.model.inputs]

@@ -326,9 +326,9 @@ impl<const N: usize, const M: usize> Operands<N, M> {
             // only the range check remains); the tail of a short block
             // repeats its first element and is not counted.
             let sum = K::eval_block(at, len, &mut yb);
-            // (a liquid surface tension above the bound is rare: such a block
-            // is settled element by element with that bound, others without)
-            let outlier = crate::model::tension_outlier::<K, N, M, BLOCK>(at, len);
+            // (an input above its bound, a unit slip, is rare: such a block
+            // is settled element by element with the bounds, others without)
+            let outlier = crate::model::bound_outlier::<K, N, M, BLOCK>(at, len);
             if outlier {
                 counts = settle_block::<K, N, M, true>(at, &mut yb, len, counts);
             } else if !sum.any_nan {
@@ -453,11 +453,11 @@ const BLOCK: usize = 64;
 /// Per element, with `y_nan`/`x_nan` "some output/input is NaN":
 /// invalid = y_nan & !x_nan & !possible;
 /// out of range = !in_range & (!y_nan | (!x_nan & possible)),
-/// where `in_range` is [`crate::model::within`] if `TENSIONS` (the block has
-/// a liquid surface tension above the bound) and the kernel's own range
+/// where `in_range` is [`crate::model::within`] if `BOUNDED` (the block has
+/// an input above its bound) and the kernel's own range
 /// otherwise, the same answer there without the compare.
 #[inline(always)]
-fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize, const TENSIONS: bool>(
+fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize, const BOUNDED: bool>(
     at: impl Fn(usize) -> [f64; N],
     yb: &mut [[f64; BLOCK]; M],
     len: usize,
@@ -476,7 +476,7 @@ fn settle_block<K: Kernel<N, M>, const N: usize, const M: usize, const TENSIONS:
             x_nan |= v.is_nan();
         }
         let possible = K::possible(&x);
-        let in_range = if TENSIONS { crate::model::within::<K, N, M>(&x, &y) } else { K::in_range_with(&x, &y) };
+        let in_range = if BOUNDED { crate::model::within::<K, N, M>(&x, &y) } else { K::in_range_with(&x, &y) };
         let live = j < len;
         let blank = y_nan & !x_nan & !possible;
         for column in yb.iter_mut() {
