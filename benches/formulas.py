@@ -624,14 +624,14 @@ def _(D, g):
 @numpy_form("hsu_waiting_time")
 def _(r_c, dT_w, dT_sub, sigma, T_sat, rho_l, rho_v, h_lv, k_l, cp_l):
     alpha = k_l / (rho_l * cp_l)
-    margin = dT_w - 2 * sigma * T_sat * (1 / rho_v - 1 / rho_l) / (h_lv * r_c)
+    margin = dT_w - 2 * sigma * T_sat / (rho_v * h_lv * r_c)
     t_w = 9 * r_c ** 2 / (4 * np.pi * alpha) * ((dT_w + dT_sub) / margin) ** 2
     return np.where(margin > 0, t_w, np.nan)  # the cavity never fires when dT_w <= dT_e
 
 
 @python_form("hsu_waiting_time")
 def _(r_c, dT_w, dT_sub, sigma, T_sat, rho_l, rho_v, h_lv, k_l, cp_l):
-    margin = dT_w - 2 * sigma * T_sat * (1 / rho_v - 1 / rho_l) / (h_lv * r_c)
+    margin = dT_w - 2 * sigma * T_sat / (rho_v * h_lv * r_c)
     if margin <= 0:
         return math.nan  # the cavity never fires
     alpha = k_l / (rho_l * cp_l)

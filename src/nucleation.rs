@@ -33,7 +33,7 @@ fn embryo_group(sigma: f64, t_sat: f64, rho_l: f64, rho_v: f64, h_lv: f64) -> f6
 /// [`embryo_group`] by `1/(1 − ρ_v/ρ_l)` (0.06 % for water at 1 atm, 1.53x at
 /// 20 MPa, 2x near 21.4 MPa).
 #[inline(always)]
-fn vapour_group(sigma: f64, t_sat: f64, rho_v: f64, h_lv: f64) -> f64 {
+pub(crate) fn vapour_group(sigma: f64, t_sat: f64, rho_v: f64, h_lv: f64) -> f64 {
     2.0 * sigma * t_sat / (rho_v * h_lv)
 }
 

@@ -306,10 +306,11 @@ def test_waiting_time_solves_its_conduction_model():
     s = coolprop_state("Water", 101325.0, "water")
     rc, dtw, sub = 5e-6, 8.0, 3.0
     t = waiting_time(rc, dtw, s, subcooling=sub)
-    # [D] At t_w the linear-profile liquid temperature at 3/2 r_c equals the embryo superheat.
+    # [D] At t_w the linear-profile liquid temperature at 3/2 r_c equals the embryo superheat in
+    # Hsu's (1962) form 2 sigma T_sat / (rho_v h_lv r_c), the one of his active range.
     alpha = s.k_l / (s.rho_l * s.cp_l)
     excess = dtw - (dtw + sub) * 1.5 * rc / math.sqrt(math.pi * alpha * t)
-    embryo = wetboil.nucleation.embryo_superheat(rc, s)
+    embryo = 2 * s.sigma * s.T / (s.rho_v * s.h_lv * rc)
     assert excess == pytest.approx(embryo, rel=1e-10)
     assert waiting_time(rc, dtw, s) < t
     with warnings.catch_warnings():
@@ -460,3 +461,18 @@ def test_models_catalogue_and_pickling():
     } <= names
     for f in (force_balance, kocamustafaogullari_ishii, waiting_time, cole_rohsenow, frequency, diameter):
         assert pickle.loads(pickle.dumps(f)) is f
+
+
+def test_a_cavity_waits_only_where_hsu_lets_it_fire():
+    """The waiting time and Hsu's active range take one embryo superheat (Hsu's 1/rho_v form): at
+    15 MPa, where rho_v/rho_l is 0.16 for water (IAPWS-IF97 via CoolProp, the reference library), a
+    cavity whose embryo needs more than the wall superheat has no waiting time [new-user trial: with
+    the v_lv form it fired 13 us after departure]. The boundary superheat is worked by hand."""
+    s = coolprop_state("Water", 15e6, "water")
+    rc = 1e-7
+    fires_at = 2 * s.sigma * s.T / (s.rho_v * s.h_lv * rc)
+    assert 0.6 < fires_at < 0.7
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert math.isnan(waiting_time(rc, 0.999 * fires_at, s))
+        assert waiting_time(rc, 1.001 * fires_at, s) > 0.0
