@@ -193,20 +193,20 @@ pub const SOLID_ENERGY_CLAUSE: &str =
     "solid surface energy and interfacial tension <= 10 N/m (a clean metal is 1-2 J/m2; a larger value was usually \
      given in mN/m)";
 
-/// Upper bound [J] of the magnitude of a plausible Hamaker constant. Real
+/// Upper bound \[J\] of the magnitude of a plausible Hamaker constant. Real
 /// ones lie between about 1e-21 J (across water) and 5e-19 J (metals)
 /// [from memory, common practice: Israelachvili's and Hough & White's
 /// tables]; a value typed in units of 1e-20 J, as tables print them, reads
 /// 0.1-50 and gave disjoining pressures 1e20 times too high without a word.
 pub const HAMAKER_MAX: f64 = 1e-17;
 
-/// Upper bound [m] of a drop's contact width in the Furmidge retention
+/// Upper bound \[m\] of a drop's contact width in the Furmidge retention
 /// force. Water's capillary length is 2.7 mm and a sessile drop wider than a
 /// few centimetres is a puddle [common practice]; a width typed in mm reads
 /// 1-10 and gave forces a thousand times too high.
 pub const DROP_WIDTH_MAX: f64 = 0.1;
 
-/// Upper bound [kg] of a drop's mass in the sliding angle: 10 g is 10 mL of
+/// Upper bound \[kg\] of a drop's mass in the sliding angle: 10 g is 10 mL of
 /// water, a puddle [common practice]; a mass typed in mg (a 20 uL drop is
 /// 20 mg) or in g reads above it.
 pub const DROP_MASS_MAX: f64 = 0.01;
