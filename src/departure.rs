@@ -813,7 +813,9 @@ impl Kernel<17, 5> for ForceBalance {
         domain: "0 <= receding <= advancing <= 180 deg, positive fluid properties with rho_l > rho_v, wall_superheat >= 0, \
                  finite velocity, 0 <= orientation_deg <= 180, 0 < contact_ratio <= 1, 0 <= inclination_deg < 90, \
                  growth_constant >= 0, friction_ratio >= 0, g >= 0",
-        validity: "no published range; orientation_deg <= 90 (the model was built for an upward-facing heater; our flag)",
+        validity: "no published range; orientation_deg <= 90 (the model was built for an upward-facing heater; our flag); \
+                   advancing angle <= 90 deg (the data were R113 on a wetting wall; with the foot ratio fixed, the \
+                   diameter then falls with the angle, opposite to Fritz; our flag)",
         reference: "J.F. Klausner, R. Mei, D.M. Bernhard, L.Z. Zeng, Vapor bubble departure in forced convection boiling, \
                     Int. J. Heat Mass Transfer 36 (1993) 651-662; growth law: M.S. Plesset, S.A. Zwick, J. Appl. Phys. 25 \
                     (1954) 493-500",
@@ -831,7 +833,7 @@ impl Kernel<17, 5> for ForceBalance {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 17]) -> bool {
-        x[11] <= 90.0
+        (x[11] <= 90.0) & (x[0] <= 90.0)
     }
 }
 

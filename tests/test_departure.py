@@ -251,6 +251,22 @@ def test_force_balance_labels_and_codes(water):
     assert list(r.label) == ["lift-off: buoyancy", "invalid"]
 
 
+def test_force_balance_flags_a_non_wetting_wall_as_fritz_does(water):
+    """[identity] with equal advancing and receding angles and the foot ratio fixed, the surface-tension
+    force goes as sin(angle): 170 deg gives 10 deg's diameter, falling with the angle where Fritz's
+    (1935) grows. Klausner et al.'s (1993) data were R113 on a wetting wall [memory]: above 90 deg the
+    balance is flagged, as Fritz is (new-user trial: only the orientation was flagged)."""
+    r = force_balance(np.array([10.0, 80.0]), np.array([10.0, 80.0]), water, 2.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        force_balance(np.array([10.0, 80.0]), np.array([10.0, 80.0]), water, 2.0)
+    with pytest.warns(wetboil.RangeWarning, match=r"force_balance: 2 of 3 .*advancing angle <= 90 deg"):
+        flagged = force_balance(np.array([100.0, 170.0, 45.0]), np.array([100.0, 170.0, 36.0]), water, 2.0)
+    assert flagged.diameter[1] == pytest.approx(r.diameter[0], rel=1e-9)  # computed all the same
+    with pytest.warns(wetboil.RangeWarning, match="fritz: 2 of 3"):
+        fritz(np.array([100.0, 170.0, 45.0]), water)
+
+
 def test_force_balance_with_xarray_and_dask(water):
     xr = pytest.importorskip("xarray")
     adv = xr.DataArray([30.0, 60.0, 90.0], dims="advancing")

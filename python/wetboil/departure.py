@@ -474,7 +474,12 @@ def force_balance(  # type: ignore[empty-body]  # a template: the front door sup
 
     **Validity and verification.** No published range; Klausner et al.
     compared the model with R113 flow boiling on an upward-facing horizontal
-    heater. We flag ``orientation_deg > 90`` (`RangeWarning`). Every force
+    heater, R113 wetting the wall. We flag ``orientation_deg > 90`` and an
+    advancing angle above 90 deg (`RangeWarning`): with the contact
+    diameter a fixed fraction of the bubble's, the surface-tension force
+    goes as :math:`\sin` of the angles, so on a non-wetting wall the
+    diameter falls with the angle (170 deg gives 10 deg's), opposite to
+    Fritz, which flags the same angles. Every force
     expression and constant above is from memory (structure high, constants
     medium confidence): the paper could not be read, and **no published case**
     (inputs with measured and predicted diameters) could be found, so the
