@@ -1124,3 +1124,61 @@ def test_roughness_with_apparent_angles_is_not_applied_and_says_so():
         assert Surface("r (invented)", 120.0, angles_are="intrinsic", roughness_ratio=1.5).angles().static_deg \
             == pytest.approx(wetting.wenzel(120.0, 1.5))
         Surface("r (invented)", 120.0)
+
+
+def test_predicted_angles_out_of_order_are_flagged():
+    # [definition] advancing >= static >= receding for the working fluid's angles. Each probe set in
+    # order (angles invented) does not make the predicted ones so: with water and formamide (van Oss,
+    # Chaudhury & Good 1988 components, the default table) and a fully dispersive fluid (n-pentane,
+    # tabulated split 1.0), the two-liquid fit weights water negatively, and water's wide hysteresis
+    # predicted a receding angle above the advancing one, unflagged, for Kandlikar's CHF [review]; a sweep
+    # flags the angles, as it flags a Wenzel or Cassie-Baxter conversion out of range.
+    CP = pytest.importorskip("CoolProp.CoolProp")  # noqa: F841  (from_coolprop needs it)
+    s = Surface("p (invented)", probe_static_deg={"water": 95.0, "formamide": 82.0},
+                probe_advancing_deg={"water": 110.0, "formamide": 85.0},
+                probe_receding_deg={"water": 60.0, "formamide": 80.0})
+    pentane = wetboil.fluids.from_coolprop("n-Pentane", p=101325.0)
+    with pytest.warns(wetboil.RangeWarning, match=r"Surface.angles: surface 'p \(invented\)': 1 of 1"):
+        a = s.angles(pentane)
+    assert a.receding_deg > a.advancing_deg  # computed all the same
+    ds = wetboil.sweep([s], "n-Pentane", p=101325.0, heat_flux=1e4)
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    flags = int(ds["range_flags"].squeeze())
+    assert all(flags & (1 << bits.index(q)) for q in ("static_angle", "advancing_angle", "receding_angle"))
+    with pytest.raises(wetboil.OutOfRangeError, match="advancing >= static >= receding"):
+        with wetboil.errstate(out_of_range="raise"):
+            s.angles(pentane)
+    with warnings.catch_warnings():  # in order: silent
+        warnings.simplefilter("error")
+        Surface("q (invented)", probe_static_deg={"water": 95.0, "formamide": 82.0}).angles(pentane)
+
+
+def test_fluid_properties_are_checked_and_taken_by_label():
+    # As a study file's [fluid_properties] table: a missing (NaN), infinite or non-positive value is
+    # refused instead of a silent NaN; a DataArray is placed by its labels, as DataArrays are
+    # everywhere else, and one along another dimension is refused. The values are placeholders
+    # (water's own surface tension, IAPWS R1-76 via wetboil.fluids.water); the check is of the plumbing.
+    surf = [Surface("a (invented)", 60, 70, 40)]
+    p = [1e5, 2e5]
+    sigma = [float(water(p=v).sigma) for v in p]
+    for bad in ([sigma[0], np.nan], np.inf, -0.05, 0.0):
+        with pytest.raises(wetboil.WetboilValueError, match="positive and finite"):
+            wetboil.sweep(surf, "water", p=p, heat_flux=1e5, fluid_properties={"sigma": bad})
+    with pytest.raises(wetboil.WetboilValueError, match="labelled along"):
+        wetboil.sweep(surf, "water", p=p, heat_flux=1e5,
+                      fluid_properties={"sigma": xr.DataArray(sigma, dims="T")})
+    plain = wetboil.sweep(surf, "water", p=p, heat_flux=1e5)
+    reversed_labels = xr.DataArray(sigma[::-1], dims="p", coords={"p": p[::-1]})
+    ds = wetboil.sweep(surf, "water", p=p, heat_flux=1e5, fluid_properties={"sigma": reversed_labels})
+    xr.testing.assert_allclose(ds["chf"], plain["chf"], rtol=1e-12)
+
+
+def test_screen_takes_fluid_properties_as_sweep_does():
+    # screen takes sweep's arguments (its docstring): fluid_properties too, and its table keeps
+    # what was given. Water's own surface tension (IAPWS R1-76 via wetboil.fluids.water) given back.
+    surf = [Surface("a (invented)", 60, 70, 40)]
+    sigma = float(water(p=1e5).sigma)
+    df = wetboil.screen(surf, "water", p=1e5, heat_flux=1e5, fluid_properties={"sigma": sigma})
+    ref = wetboil.screen(surf, "water", p=1e5, heat_flux=1e5)
+    assert df["chf [W/m2]"].tolist() == pytest.approx(ref["chf [W/m2]"].tolist(), rel=1e-12)
+    assert df.attrs["fluid_properties_given"] == f"sigma = {sigma!r} N/m"

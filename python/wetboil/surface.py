@@ -316,6 +316,10 @@ class Surface:
             r = predict(self.probe_receding_deg)
             a = s if a is None else a
             r = s if r is None else r
+            # each probe set in order does not make the predicted angles so: a least-squares or
+            # two-liquid fit weights some liquid negatively for many working fluids, so a set's
+            # hysteresis can come out reversed (receding above advancing); computed, and flagged
+            _flag_disordered(self.name, s, a, r)
         if self.angles_are == "intrinsic":
             if self.solid_fraction is not None:
                 f = self.solid_fraction
@@ -353,6 +357,23 @@ class Surface:
                 continue
             parts.append(f"{k}={v:g}" if isinstance(v, float) else f"{k}={v!r}")
         return f"Surface({', '.join(parts)})"
+
+
+def _flag_disordered(name: str, s: Any, a: Any, r: Any) -> None:
+    """Report (out of range) the predicted working-fluid angles not in the order advancing >= static >=
+    receding, as every kernel's range is reported (and captured by a sweep for its flags)."""
+    from ._api import _CAPTURE
+    from ._errors import report
+
+    with np.errstate(invalid="ignore"):
+        bad = np.asarray((a < s) | (s < r) | (a < r))
+    if not bad.any():
+        return
+    cap = _CAPTURE.get()
+    if cap is not None:
+        cap.add(np.where(bad, 2, 0))
+    report(f"Surface.angles: surface {name!r}", int(bad.size), 0, int(bad.sum()),
+           "the angles predicted from the probe sets in the order advancing >= static >= receding")
 
 
 def _tabulated_split(fluid: Saturation) -> "tuple[float, float]":

@@ -185,11 +185,13 @@ def _axis(name: str, values: Any, xr: Any, label: str = "") -> Any:
     return xr.DataArray(arr, dims=name, coords={name: arr})
 
 
-def _given_properties(given: Optional[Mapping[str, Any]], n: Optional[int]) -> Dict[str, Any]:
-    """The checked `fluid_properties` of a sweep over `n` states (None: a
-    single state): field -> float, or 1-D float array of length `n`."""
+def _given_properties(given: Optional[Mapping[str, Any]], axis: Any) -> Dict[str, Any]:
+    """The checked `fluid_properties` of a sweep along `axis` (the labelled
+    1-D p or T axis): field -> float, or 1-D float array along the axis (a
+    DataArray labelled with the axis is taken by label, not by position)."""
     if given is None:
         return {}
+    dim, n = axis.dims[0], axis.size
     if not isinstance(given, Mapping):
         raise WetboilTypeError(f"sweep: fluid_properties must be a mapping of field names to values, got "
                                f"{type(given).__name__}")
@@ -199,20 +201,30 @@ def _given_properties(given: Optional[Mapping[str, Any]], n: Optional[int]) -> D
         if key not in allowed:
             raise WetboilValueError(f"sweep: fluid_properties: unknown or fixed field {key!r}; give any of "
                                     f"{', '.join(allowed)} (T and p are the sweep's axis)")
+        if hasattr(value, "dims") and np.ndim(value) > 0:
+            if tuple(value.dims) != (dim,):
+                raise WetboilValueError(f"sweep: fluid_properties[{key!r}] is labelled along {tuple(value.dims)}; "
+                                        f"give it along the sweep's {dim!r} axis")
+            if dim in value.coords:
+                try:  # by label, as DataArrays broadcast everywhere else
+                    value = value.sel({dim: axis.values})
+                except KeyError:
+                    raise WetboilValueError(f"sweep: fluid_properties[{key!r}] has no value at some {dim} of the "
+                                            "sweep; label it with the sweep's own states") from None
         try:
             if isinstance(value, (str, bytes)) or isinstance(value, bool):
                 raise TypeError
-            arr = np.asarray(value, dtype=float)
+            arr = np.asarray(getattr(value, "values", value), dtype=float)
         except (TypeError, ValueError):
             raise WetboilTypeError(f"sweep: fluid_properties[{key!r}] must be a number or a sequence of numbers, "
                                    f"got {value!r}") from None
-        if arr.ndim == 0:
-            out[key] = float(arr)
-        elif arr.ndim == 1 and n is not None and arr.size == n:
-            out[key] = arr
-        else:
+        if not (arr.ndim == 0 or (arr.ndim == 1 and arr.size == n)):
             raise WetboilValueError(f"sweep: fluid_properties[{key!r}] must be one number or one value per state "
-                                    f"({n if n is not None else 1}), got shape {arr.shape}")
+                                    f"({n}), got shape {arr.shape}")
+        if not (np.isfinite(arr) & (arr > 0)).all():  # as a study file's [fluid_properties] table
+            raise WetboilValueError(f"sweep: fluid_properties[{key!r}] must be positive and finite "
+                                    f"[{UNITS[key]}], got {arr.tolist()!r}")
+        out[key] = float(arr) if arr.ndim == 0 else arr
     return out
 
 
@@ -253,7 +265,7 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any,
         raise WetboilValueError("sweep: give exactly one of p [Pa] or T [K] with a fluid name")
     dim = "p" if p is not None else "T"
     axis = _axis(dim, p if p is not None else T, xr)
-    given = _given_properties(fluid_properties, axis.size)
+    given = _given_properties(fluid_properties, axis)
     # The fluid layer warns once (or raises, in strict mode) for impossible
     # states; the capture keeps which ones, for the flags of every point.
     try:
@@ -750,7 +762,7 @@ def sweep(
     if fluid_properties:
         result.attrs["fluid_properties_given"] = "; ".join(
             f"{f} = {v!r} {UNITS[f]}" if np.ndim(v) == 0 else f"{f} = {list(map(float, v))} {UNITS[f]}"
-            for f, v in _given_properties(fluid_properties, None if not state_dim else states.shape[0]).items())
+            for f, v in _given_properties(fluid_properties, result[state_dim]).items())
     if chunks is None or compute:
         _strict(result, _STATE.get(), result["range_flags"].attrs["bits"].split(","))
     return result
@@ -922,12 +934,14 @@ def screen(
     p: Any = None,
     T: Any = None,
     dispersive_fraction: Optional[float] = None,
+    fluid_properties: Optional[Mapping[str, Any]] = None,
 ) -> Any:
     """Rank surface treatments: one row per surface and operating point.
 
     Takes the arguments of `sweep` but its chunking ones (the operating
     points are the grid of the given pressures or states, heat fluxes,
-    orientations and subcoolings; `dispersive_fraction` as there) and
+    orientations and subcoolings; `dispersive_fraction` and
+    `fluid_properties` as there) and
     returns a `pandas.DataFrame` sorted by CHF margin, highest first (the
     best candidates first; ties by surface name). Column names carry units;
     ``flags`` names the quantities whose correlations left their published
@@ -947,7 +961,8 @@ def screen(
         raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
     try:
         ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
-                   subcooling=subcooling, methods=methods, dispersive_fraction=dispersive_fraction)
+                   subcooling=subcooling, methods=methods, dispersive_fraction=dispersive_fraction,
+                   fluid_properties=fluid_properties)
     except WetboilError as exc:
         # the same checks as sweep's, named after the function the user called
         if exc.args and isinstance(exc.args[0], str) and exc.args[0].startswith("sweep: "):
@@ -969,7 +984,8 @@ def ranked_table(ds: Any) -> Any:
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
     df.attrs["units"] = units
-    for key in ("fluid", "fluid_fields_missing", "dispersive_fraction", "methods", "caution", "wetboil_version"):
+    for key in ("fluid", "fluid_fields_missing", "fluid_properties_given", "dispersive_fraction", "methods", "caution",
+                "wetboil_version"):
         if key in ds.attrs:
             df.attrs[key] = ds.attrs[key]
     return df
