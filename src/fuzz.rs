@@ -673,8 +673,9 @@ fn fuzz_list_matches_the_registry() {
 #[test]
 fn every_tension_input_is_a_liquids_or_a_solids() {
     // The bounds on liquid surface tensions (model::TENSION_MAX) and on solid
-    // surface energies (model::SOLID_ENERGY_MAX) find their inputs by name: a
-    // new "N/m" input must be put in one list or the other.
+    // surface energies (model::SOLID_ENERGY_MAX), two of model::INPUT_BOUNDS,
+    // find their inputs by name: a new "N/m" input must be put in one list or
+    // the other.
     use crate::model::{named, LIQUID_TENSIONS, OTHER_TENSIONS};
     for m in FUZZED_MODELS {
         for a in m.inputs.iter().filter(|a| a.unit == "N/m") {

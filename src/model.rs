@@ -208,7 +208,7 @@ pub const DROP_WIDTH_MAX: f64 = 0.1;
 
 /// Upper bound \[kg\] of a drop's mass in the sliding angle: 10 g is 10 mL of
 /// water, a puddle [common practice]; a mass typed in mg (a 20 uL drop is
-/// 20 mg) or in g reads above it.
+/// 20 mg) reads above it, and one typed in g for drops above 10 uL.
 pub const DROP_MASS_MAX: f64 = 0.01;
 
 /// One plausibility bound: the input names it applies to, the bound on
@@ -512,7 +512,7 @@ pub fn classify_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x
 }
 
 /// [`within_x`] for side `s` of a factored kernel: its own
-/// [`Factored::side_in_range`] and the tension bound on the side's inputs.
+/// [`Factored::side_in_range`] and the [`INPUT_BOUNDS`] of the side's inputs.
 #[inline(always)]
 pub fn within_side<K: Factored<N, M>, const N: usize, const M: usize>(s: u8, x: &[f64; N]) -> bool {
     let bounds: [f64; N] = std::array::from_fn(|k| if K::SIDES[k] == s { K::BOUNDS[k] } else { f64::INFINITY });
