@@ -760,14 +760,70 @@ def test_curve_flags_facing_up_branches_on_a_tilted_plate(water):
         warnings.simplefilter("ignore", wetboil.RangeWarning)
         np.testing.assert_allclose(standing["natural_convection"].values,
                                    natural_convection(dts, water, 0.05, 7.5e-4, geometry="vertical_plate"), rtol=1e-14)
-    # the values stay those facing up; facing up, no such warning; a cylinder has no plate orientation
+    # the values stay those facing up; facing up, no such warning (a cylinder's orientation:
+    # test_curve_flags_a_cylinder_that_is_not_horizontal)
     with only_the_flat_minimum_warning():
         up = curve(water, dts, orientation_deg=0.0, natural_convection_coefficient=800.0, **kw)
         curve(water, dts, orientation_deg=0.0, expansion_coefficient=7.5e-4, size=0.05, **kw)
-        curve(water, dts, orientation_deg=90.0, natural_convection_coefficient=800.0, geometry="cylinder",
-              size=1e-3, **dict(kw, receding_angle_deg=None))
     assert float(vertical["minimum_heat_flux"]) == float(up["minimum_heat_flux"])
     np.testing.assert_array_equal(vertical["film"].values, up["film"].values)
+
+
+def test_curve_flags_a_cylinder_that_is_not_horizontal(water):
+    """Sun & Lienhard, "The peak pool boiling heat flux on horizontal cylinders", Int. J. Heat Mass
+    Transfer 13 (1970) 1425-1439, and Churchill & Chu, "Correlating equations for laminar and turbulent
+    free convection from a horizontal cylinder", Int. J. Heat Mass Transfer 18 (1975) 1049-1053: by
+    their titles, forms for a horizontal cylinder (Bromley's film boiling, Chem. Eng. Prog. 46 (1950)
+    221-227, was measured on horizontal tubes [from memory]). A vertical rod or tube
+    (orientation_deg=90) used to get the horizontal values without a word; like a tilted plate, it
+    must be flagged, keeping those values. A sphere has no orientation: no such warning."""
+    dts = np.geomspace(1.0, 1000.0, 20)
+    kw = curve_kw(receding_angle_deg=None, size=1e-3)
+    with only_the_flat_minimum_warning():
+        horizontal = curve(water, dts, **dict(kw, geometry="cylinder"))
+        ball = curve(water, dts, **dict(kw, geometry="sphere"))
+        ball_90 = curve(water, dts, **dict(kw, geometry="sphere", orientation_deg=90.0))
+    for angle in (45.0, 90.0):
+        with pytest.warns(wetboil.RangeWarning, match="geometry 'cylinder' \\(a horizontal cylinder"):
+            tilted = curve(water, dts, **dict(kw, geometry="cylinder", orientation_deg=angle))
+        for name in ("heat_flux", "critical_heat_flux", "minimum_superheat"):
+            np.testing.assert_array_equal(tilted[name].values, horizontal[name].values)
+    np.testing.assert_array_equal(ball_90["heat_flux"].values, ball["heat_flux"].values)
+
+
+def test_curve_passes_on_the_natural_convection_range(water):
+    """Lloyd & Moran (J. Heat Transfer 96 (1974) 443-447), Nu = 0.54 Ra^(1/4) from the upper face
+    of a heated horizontal plate, holds for Ra_L >= 1e4 as `natural_convection` states (the original's
+    lower end is 2.2e4 [from memory, medium]). On a 20 mm square evaporator plate (L = 5 mm) in water
+    at 10 kPa the curve's natural-convection points below about 2 K, and the onset it sets, lie
+    below 1e4 (worked here by hand from IAPWS properties and CoolProp's expansion coefficient,
+    4.28e-4 1/K for the saturated liquid); the curve used to run the branch under
+    errstate(out_of_range="ignore") and said nothing. On the 0.1 m plate at 1 atm every point it
+    uses is inside: no such warning."""
+    from wetboil.fluids import water as iapws_water
+
+    w = iapws_water(p=1e4)
+    beta, L = 4.28e-4, 0.005
+    dts = np.geomspace(0.2, 100.0, 40)
+    kw = dict(receding_angle_deg=40.0, C_sf=0.013, expansion_coefficient=beta, size=4 * L)
+    ra = G * beta * dts * L**3 * w.rho_l**2 * w.cp_l / (w.mu_l * w.k_l)  # Ra = g beta dT L^3 / (nu alpha)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.RangeWarning)
+        c = curve(w, dts, **kw)
+    used = c["regime"].values == "natural convection"
+    assert np.any(ra[used] < 1e4) and np.any(ra[used] > 1e4)
+    ra_onset = G * beta * float(c["onset_superheat"]) * L**3 * w.rho_l**2 * w.cp_l / (w.mu_l * w.k_l)
+    assert ra_onset < 1e4
+    expected = int(np.sum(ra[used] < 1e4)) + 1  # the onset too
+    with pytest.warns(wetboil.RangeWarning,
+                      match=f"boiling.natural_convection: {expected} of {int(used.sum()) + 1} element"):
+        again = curve(w, dts, **kw)
+    np.testing.assert_array_equal(again["heat_flux"].values, c["heat_flux"].values)
+    # 0.1 m plate at 1 atm (L = 25 mm): Ra >= 1e5 at every superheat the branch serves
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        curve(water, np.geomspace(1.0, 1000.0, 40), C_sf=0.013, expansion_coefficient=7.5e-4, size=0.1,
+              largest_cavity_radius=10e-6)
 
 
 def test_curve_flags_the_flat_plate_minimum_on_a_body(water):

@@ -1152,7 +1152,11 @@ def curve(
         ``expansion_coefficient``) are forms for a horizontal surface facing
         up, so any other orientation also gives a `RangeWarning` for them and
         their facing-up values; at exactly 90 deg natural convection is
-        Churchill & Chu's vertical plate instead.
+        Churchill & Chu's vertical plate instead. The ``"cylinder"`` forms
+        (Sun & Lienhard's CHF, Churchill & Chu's natural convection, Bromley's
+        film branch) are a horizontal cylinder's, taken as orientation 0: at
+        any other value (a vertical rod or tube) a `RangeWarning` and the
+        horizontal values. A sphere has no orientation.
     nucleate : str, optional
         One of `NUCLEATE_METHODS`.
     C_sf, n : float, optional
@@ -1174,6 +1178,8 @@ def curve(
     expansion_coefficient : float, optional
         Liquid thermal expansion coefficient [1/K] for Lloyd & Moran (plates),
         Churchill & Chu (cylinders) or Churchill (spheres).
+        Superheats where the curve uses that branch (and the onset it sets)
+        outside the correlation's Rayleigh range give its `RangeWarning`.
     onset : str, optional
         Method name for ``wetboil.nucleation.onset_superheat``.
     onset_superheat : float, optional
@@ -1365,6 +1371,14 @@ def curve(
             facing_up.append("natural convection (Lloyd & Moran)")
         report(f"{fn}: {' and '.join(facing_up)} (a horizontal surface facing up) at "
                f"orientation_deg={orientation_deg:g}", 1, 0, 1)
+    if geometry == "cylinder" and not orientation_deg == 0.0:
+        # Sun & Lienhard's CHF (1970), Churchill & Chu's natural convection (1975) and Bromley's film
+        # boiling (1950) are forms for a horizontal cylinder: a tilted or vertical one (a fuel rod, a
+        # standing heater tube) keeps the horizontal values
+        horizontal = ([f"chf='{chf}'"] if chf == "lienhard_dhir" else []) + (
+            ["natural convection"] if natural_convection_coefficient is None else []) + ["the film branch"]
+        report(f"{fn}: geometry 'cylinder' (a horizontal cylinder: {', '.join(horizontal)}) at "
+               f"orientation_deg={orientation_deg:g}", 1, 0, 1)
     if geometry in ("cylinder", "sphere"):
         # both minimum-heat-flux forms are a flat plate's; Lienhard & Wong (1964) found them inapplicable
         # to small wires (their cylinder form is not in this library): the Leidenfrost point moves with it
@@ -1380,6 +1394,7 @@ def curve(
         dt_onb = float(onset_superheat)
     else:
         dt_onb = _onset(fluid, lambda x: float(q_nc(x)), onset, contact_angle_deg)
+    dt_tangency = dt_onb  # where the natural-convection line meets the onset criterion (or as given)
     if largest_cavity_radius is not None:
         from . import nucleation
 
@@ -1438,6 +1453,14 @@ def curve(
     q[film_mask] = fil[film_mask]
     regime[film_mask] = "film"
     regime_labels = regime.astype(str)
+    if natural_convection_coefficient is None:
+        # q_nc ignores the correlation's Rayleigh range (the onset iteration runs through any superheat);
+        # where the curve uses the branch, and at the onset it sets, pass its RangeWarning on
+        used = dts[regime == "natural convection"]
+        if onset_superheat is None and math.isfinite(dt_tangency):
+            used = np.append(used, dt_tangency)
+        if used.size:
+            natural_convection(used, fluid, length, expansion_coefficient, g, nc_geometry)
 
     if design_heat_flux is not None:
         q_d = float(design_heat_flux)
