@@ -1112,6 +1112,14 @@ def test_probe_angles_out_of_order_are_refused(tmp_path):
         load_surfaces(path)
 
 
+def test_one_probe_liquid_under_two_names_is_refused():
+    # "water" and "H2O" are one liquid (wetting.probe_liquid's aliases): given both, the fit used it
+    # twice with two angles, silently [review] (angles invented)
+    with pytest.raises(wetboil.WetboilValueError, match=r"probe_static_deg: 'water' and 'H2O' name the same"):
+        Surface("p (invented)", probe_static_deg={"water": 72.0, "H2O": 60.0, "diiodomethane": 45.0})
+    Surface("p (invented)", probe_static_deg={"water": 72.0, "diiodomethane": 45.0})
+
+
 def test_roughness_with_apparent_angles_is_not_applied_and_says_so():
     # [definition] apparent angles already include the roughness; Wenzel (1936) converts intrinsic
     # ones. A roughness ratio given with apparent angles (the default) was dropped silently

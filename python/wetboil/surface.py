@@ -242,10 +242,18 @@ class Surface:
         # receding angle above the advancing one for the CHF and onset models
         from .wetting import _normalise
 
-        def by_liquid(probes: Optional[Dict[str, float]]) -> Dict[str, Tuple[str, float]]:
-            return {_normalise(k): (k, v) for k, v in (probes or {}).items()}
+        def by_liquid(probes: Optional[Dict[str, float]], key: str) -> Dict[str, Tuple[str, float]]:
+            out: Dict[str, Tuple[str, float]] = {}
+            for k, v in (probes or {}).items():
+                if _normalise(k) in out:  # one liquid under two names would be fitted twice
+                    raise _error(WetboilValueError, self.name, f"{key}: {out[_normalise(k)][0]!r} and {k!r} name the "
+                                 "same probe liquid; give it once", key, k)
+                out[_normalise(k)] = (k, v)
+            return out
 
-        pa, ps, pr = (by_liquid(x) for x in (self.probe_advancing_deg, self.probe_static_deg, self.probe_receding_deg))
+        pa, ps, pr = (by_liquid(x, k) for x, k in ((self.probe_advancing_deg, "probe_advancing_deg"),
+                                                    (self.probe_static_deg, "probe_static_deg"),
+                                                    (self.probe_receding_deg, "probe_receding_deg")))
         for (hi_kind, hi), (lo_kind, lo), key, side in (
             (("advancing", pa), ("receding", pr), "probe_advancing_deg", 0),
             (("advancing", pa), ("static", ps), "probe_advancing_deg", 0),
