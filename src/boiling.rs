@@ -564,7 +564,10 @@ impl Kernel<1, 1> for TolubinskyKostanchuk {
 ///   expansion coefficient of the liquid [1/K], `k_l`, `rho_l`, `cp_l`, `mu_l`, `g`.
 /// * Possible: ΔT ≥ 0 and positive others; ΔT = 0 gives 0.
 /// * Flagged: Ra_L outside 1e4-1e11.
-/// * Verification: constants and ranges \[M, high\]; original not read.
+/// * Verification: constants \[M, high\]; original not read. The ranges are
+///   the usual restatement \[M, medium\]: the original's may be 2.2e4-8e6 and
+///   8e6-1.6e9 (two independent recollections, unconfirmed), which would flag
+///   more of the low-Ra end and move the switch from 1e7 to 8e6.
 ///
 /// Reference: J.R. Lloyd, W.R. Moran, "Natural convection adjacent to
 /// horizontal surface of various planforms", J. Heat Transfer 96 (1974)
@@ -616,7 +619,8 @@ impl Kernel<8, 1> for NaturalConvection {
         reference: "J.R. Lloyd, W.R. Moran, Natural convection adjacent to horizontal surface of various planforms, \
                     J. Heat Transfer 96 (1974) 443-447",
         doi: "10.1115/1.3450224",
-        verification: "constants and ranges from memory (high confidence); original not read",
+        verification: "constants from memory (high confidence), ranges as usually restated (medium: the original's may \
+                       be 2.2e4-8e6 and 8e6-1.6e9, unconfirmed); original not read",
     };
     #[inline(always)]
     fn eval(x: &[f64; 8]) -> [f64; 1] {
