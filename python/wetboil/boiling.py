@@ -1166,7 +1166,11 @@ def curve(
     roughness_Rp : float, optional
         Cooper's R_p [m].
     chf : str, optional
-        One of `CHF_METHODS` (default as in 4. above).
+        One of `CHF_METHODS` (default as in 4. above). Kandlikar's (2001)
+        form has no heater-size term: it is a large flat heater's, however
+        small ``size`` is (a 20 mm evaporator in water at 10 kPa is only 7.5
+        capillary lengths wide); ``"lienhard_dhir"`` carries the size and
+        flags heaters too small for its forms.
     geometry : str, optional
         ``"flat_plate"``, ``"small_flat_plate"``, ``"cylinder"`` or
         ``"sphere"`` (Lienhard-Dhir CHF and film branch).
