@@ -1477,7 +1477,9 @@ def curve(
         q_d, dt_d, margin = math.nan, math.nan, math.nan
 
     points = {
-        "onset_superheat": (dt_onb, "K", "onset of nucleate boiling"),
+        "onset_superheat": (dt_onb, "K", "onset of nucleate boiling where the natural-convection line meets the "
+                            "onset criterion (the boiling curve's own onset; a sweep's onset_superheat is the "
+                            "criterion at the design heat flux instead)"),
         "critical_heat_flux": (q_max, "W/m2", f"critical heat flux ({chf})"),
         "critical_superheat": (dt_chf, "K", "superheat where the nucleate branch reaches the CHF"),
         "minimum_heat_flux": (q_min, "W/m2", f"minimum film-boiling heat flux ({minimum})"),

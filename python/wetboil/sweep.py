@@ -61,7 +61,8 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "receding_angle": ("deg", "working fluid's apparent receding contact angle"),
     "onset_superheat": ("K", "wall superheat at the onset of nucleate boiling at the design heat flux (above "
                         "nucleate_superheat: a temperature overshoot at incipience, the wall reaching this superheat "
-                        "before boiling starts and then falling to nucleate_superheat)"),
+                        "before boiling starts and then falling to nucleate_superheat; boiling.curve's "
+                        "onset_superheat is instead where natural convection first meets the criterion)"),
     "onset_cavity_radius": ("m", "cavity mouth radius that nucleates first at onset (NaN with the onset method "
                             "'bergles_rohsenow', which gives no radius)"),
     "nucleate_superheat": ("K", "wall superheat of nucleate boiling at the design heat flux (flagged in range_flags "
