@@ -1052,7 +1052,7 @@ def test_fluid_properties_fill_what_coolprop_has_no_model_for():
     p = [1e5, 2e5]
     sigma = [0.0108, 0.0095]
     surf = [Surface("a (invented)", 60, 70, 40)]
-    with pytest.warns(wetboil.WetboilWarning, match=r"sweep: CoolProp has no mu_v, k_v for 'Novec649'"):
+    with pytest.warns(wetboil.WetboilWarning, match=r"CoolProp has no mu_v, k_v for 'Novec649'"):
         ds = wetboil.sweep(surf, "Novec649", p=p, heat_flux=1e5, methods={"chf": "zuber"},
                            fluid_properties={"sigma": sigma, "k_l": 0.059, "mu_l": 6.4e-4})
     for pi, si in zip(p, sigma):

@@ -8,6 +8,7 @@ other and against the other arguments of the kernels.
 
 from __future__ import annotations
 
+import contextvars
 import math
 import warnings
 from typing import Any, Optional
@@ -541,6 +542,11 @@ def _coolprop_fluid(name: str) -> str:
     return fluid
 
 
+#: Fields the caller sets itself right after `from_coolprop` (sweep's `fluid_properties`): no warning
+#: that CoolProp lacks them. A context variable, so threads and tasks each keep their own.
+_SUPPLIED: "contextvars.ContextVar[frozenset]" = contextvars.ContextVar("wetboil_supplied_fields", default=frozenset())
+
+
 def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     """Saturated state of any fluid CoolProp knows, at `T` [K] or `p` [Pa].
 
@@ -681,15 +687,17 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     have_state = ~np.isnan(out["T"])
     absent: list = []
     if have_state.any():
+        supplied = _SUPPLIED.get()
         absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
         no_model = [f for f in absent if f in _coolprop_no_model(name)]
-        if no_model:
-            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(no_model)} for {name!r}: NaN in "
-                          f"those fields, and in every result that needs them (set them with .replace(), and pass that "
-                          f"Saturation where a fluid name was given, e.g. to sweep)",
+        if set(no_model) - supplied:
+            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(f for f in no_model if f not in supplied)} "
+                          f"for {name!r}: NaN in those fields, and in every result that needs them (set them with "
+                          f".replace(), or give them to sweep or screen as fluid_properties)",
                           WetboilWarning, stacklevel=_stacklevel())
         # a model that fails at some states only (surface tension close to the critical point, say)
-        gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12] if f not in no_model}
+        gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12]
+                if f not in no_model and f not in supplied}
         gaps = {f: k for f, k in gaps.items() if k}
         if gaps:
             n_state = int(have_state.sum())

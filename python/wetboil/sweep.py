@@ -30,7 +30,7 @@ import numpy as np
 from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
 from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
-from .fluids import FIELDS, UNITS, Saturation, from_coolprop, water
+from .fluids import _SUPPLIED, FIELDS, UNITS, Saturation, from_coolprop, water
 from .surface import Surface
 
 __all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES",
@@ -270,13 +270,15 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any,
     # The fluid layer warns once (or raises, in strict mode) for impossible
     # states; the capture keeps which ones, for the flags of every point.
     try:
-        with capture_validity() as cap, warnings.catch_warnings():
-            if given:  # the fields CoolProp has no model for are named below, less those given here
-                warnings.filterwarnings("ignore", r"fluids\.from_coolprop: CoolProp has no ", WetboilWarning)
+        with capture_validity() as cap:
             if fluid.lower() == "water":
                 states = water(p=axis) if dim == "p" else water(T=axis)
-            else:
-                states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
+            else:  # the fields given here are not CoolProp's to miss
+                token = _SUPPLIED.set(frozenset(given))
+                try:
+                    states = from_coolprop(fluid, p=axis) if dim == "p" else from_coolprop(fluid, T=axis)
+                finally:
+                    _SUPPLIED.reset(token)
     except InvalidValueError as exc:  # strict mode: the error says what the warning below would
         problem = _states_outside_range(fluid, dim, axis.values)
         if problem:
@@ -287,11 +289,6 @@ def _fluid_states(fluid: Any, p: Any, T: Any, xr: Any,
         no_state = np.isnan(np.broadcast_to(_field(states, "T"), axis.shape))
         states = states.replace(**{f: xr.DataArray(np.where(no_state, np.nan, v), dims=dim, coords=axis.coords)
                                    for f, v in given.items()})
-        still = [f for f in FIELDS if f in _no_model(states) and f not in given]
-        if still:
-            _warn(f"sweep: CoolProp has no {', '.join(still)} for {fluid!r} and fluid_properties does not give "
-                  f"{'them' if len(still) > 1 else 'it'}: NaN in every quantity that needs "
-                  f"{'them' if len(still) > 1 else 'it'}", WetboilWarning)
     given = ~np.isnan(axis.values)
     # a given pressure or temperature without a state is impossible (from_coolprop counts, not masks)
     no_state = np.isnan(np.broadcast_to(_field(states, "rho_l"), given.shape))
