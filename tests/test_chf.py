@@ -274,3 +274,10 @@ def test_kandlikar_receding_angle_trend(water):
     q = kandlikar(betas, water)
     assert np.all(np.diff(q) < 0) and q[-1] == 0.0
     assert kandlikar(45.0, water) / scale(water) == pytest.approx(0.149, rel=0.01)
+
+
+def test_impossible_angle_warning_names_the_possible_angles(water):
+    # A contact angle lies between 0 and 180 deg (its definition); a receding angle of 200 deg is
+    # impossible, and the warning says which inputs are possible rather than only "impossible".
+    with pytest.warns(wetboil.InvalidValueWarning, match=r"possible: 0 <= receding_angle_deg <= 180"):
+        assert math.isnan(kandlikar(200.0, water))

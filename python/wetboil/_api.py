@@ -499,7 +499,7 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         invalid, out_of_range = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
-        report(function, size, invalid, out_of_range, MODELS[name].validity)
+        report(function, size, invalid, out_of_range, MODELS[name].validity, MODELS[name].domain)
     return outs if output is None else outs[output]
 
 

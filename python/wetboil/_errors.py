@@ -136,14 +136,18 @@ def _stacklevel() -> int:
     return outermost + 1
 
 
-def report(function: str, size: int, invalid: int, out_of_range: int, validity: str = "") -> None:
+def report(function: str, size: int, invalid: int, out_of_range: int, validity: str = "", domain: str = "") -> None:
     """Apply the current policy to the counts of one call; `validity`, the
-    model's range as its facts state it, is quoted in the range message."""
+    model's range as its facts state it, is quoted in the range message, and
+    `domain`, where its inputs are possible, in the impossible-element message
+    (a temperature in degC or a pressure in bar then says what was expected)."""
     if not (invalid or out_of_range):
         return
     state = _STATE.get()
     if invalid and state.invalid != "ignore":
         msg = f"{function}: {invalid} of {size} element(s) physically impossible"
+        if domain:
+            msg += f" (possible: {domain})"
         if state.invalid == "raise":
             raise InvalidValueError(msg + " (errstate invalid='raise'; by default they give NaN)")
         msg += ", set to NaN"
