@@ -84,6 +84,49 @@ def test_near_critical_band_holds_its_documented_accuracy():
         assert np.max(np.abs(water(p=ref["p"]).T - ref["T"])) < 2.4e-3
 
 
+def test_pressure_route_and_last_kelvin_hold_their_documented_accuracy():
+    # fluids.water docstring against IAPWS-95 as CoolProp computes it (reference values CoolProp's;
+    # the bounds our measured worst cases rounded up): the pressure route from 0.97 to 0.997 T_crit
+    # (unflagged), then the flagged band to 646.1 K and the last kelvin below T_crit
+    p = coolprop_sat(T=np.linspace(0.97 * 647.096, 645.15, 120))["p"]
+    ref = coolprop_sat(p=p)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        ours = water(p=p)
+    bound = {"rho_l": 3.1e-4, "rho_v": 4.7e-4, "h_lv": 5.8e-4, "cp_l": 4.4e-3, "k_l": 6.2e-4, "mu_l": 3.1e-4,
+             "cp_v": 6.1e-3, "k_v": 2.2e-3, "mu_v": 3.1e-4}
+    for f, tol in bound.items():
+        err = np.max(np.abs(getattr(ours, f) / ref[f] - 1.0))
+        assert err < tol, f"pressure route {f}: worst relative error {err:.2e}"
+    for lo, hi, bound in ((645.16, 646.096, {"cp_v": 1.9e-2, "cp_l": 1.5e-2, "k_v": 6.5e-3, "k_l": 2.6e-3,
+                                             "h_lv": 1.6e-3}),
+                          (646.096, 647.09, {"cp_v": 0.22, "cp_l": 0.18, "k_v": 0.1, "k_l": 0.075, "mu_v": 0.011,
+                                             "rho_l": 3.2e-3, "rho_v": 3.2e-3, "h_lv": 3.2e-3})):
+        T = np.linspace(lo, hi, 60)
+        ref = coolprop_sat(T)
+        with pytest.warns(wetboil.RangeWarning, match="60 of 60"):
+            by_T = water(T=T)
+        with pytest.warns(wetboil.RangeWarning):
+            by_p = water(p=ref["p"])
+        ref_p = coolprop_sat(p=ref["p"])
+        for f, tol in bound.items():
+            for ours, r, route in ((by_T, ref, "T"), (by_p, ref_p, "p")):
+                err = np.max(np.abs(getattr(ours, f) / r[f] - 1.0))
+                assert err < tol, f"{lo}-{hi} K from {route}, {f}: worst relative error {err:.2e}"
+
+
+def test_out_of_range_warning_says_where_the_saturated_states_are():
+    # A temperature typed in degC or a pressure in bar is the usual cause; the warning names the
+    # range: triple point 273.16 K, 611.657 Pa (IAPWS R14-08(2011)) to critical point 647.096 K,
+    # 22.064 MPa (IAPWS R6-95(2018)).
+    with pytest.warns(wetboil.InvalidValueWarning, match=r"possible: 273\.16 K <= T <= 647\.096 K"):
+        assert math.isnan(water(T=100.0).rho_l)
+    with pytest.warns(wetboil.InvalidValueWarning, match=r"possible: 611\.657 Pa <= p <= 22\.064 MPa"):
+        assert math.isnan(water(p=1.01325).T)
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError, match=r"273\.16 K <= T"):
+        water(T=np.array([300.0, 25.0]))
+
+
 def test_against_the_iapws_package():
     # iapws (J.J. Gomez Romera) IAPWS95 class: an independent implementation
     # of the same formulation, including its transport properties.

@@ -451,11 +451,15 @@ def water(T: Any = None, p: Any = None) -> Saturation:
     difference between the SR1-86 saturation line and the IAPWS-95 phase
     equilibrium is amplified by the diverging compressibility. From 0.97 to
     0.997 T_crit (627.7 to 645.15 K) the worst errors against CoolProp 8 grow
-    to cp_v 6e-3, cp_l 3.5e-3, k_v 2.2e-3, h_lv 5.8e-4, k_l 5.1e-4, rho_v
-    4.7e-4 and below 3.1e-4 for the others, and T_sat from `p` to 2.4 mK
-    (worst near 640 K, 20.4 MPa), unflagged; above 0.997 T_crit
-    (21.55 MPa) cp, h_lv and the densities degrade past 0.1-1 %, and those
-    elements are flagged with `RangeWarning`. At exactly T_crit, rho_l = rho_v, h_lv = sigma = 0 and cp,
+    to cp_v 6e-3, cp_l 3.5e-3 (4.3e-3 from `p`), k_v 2.2e-3, h_lv 5.8e-4, k_l
+    5.1e-4 (6.1e-4 from `p`), rho_v 4.7e-4 and below 3.1e-4 for the others,
+    and T_sat from `p` to 2.4 mK (worst near 640 K, 20.4 MPa), unflagged;
+    above 0.997 T_crit (21.55 MPa) cp, k, h_lv and the densities degrade
+    past 0.1-1 %, and those elements are flagged with `RangeWarning`: from
+    645.15 to 646.1 K cp_v 1.8e-2, cp_l 1.4e-2, k_v 6.4e-3, k_l 2.5e-3, h_lv
+    1.5e-3; in the last kelvin below T_crit, cp_v up to 21 %, cp_l 17 %, k_v
+    9.5 %, k_l 7 %, mu_v 1 %, rho_l, rho_v and h_lv 0.3 % (from `T` and from
+    `p`; CoolProp 8 and iapws 1.5 agree with each other there [D]). At exactly T_crit, rho_l = rho_v, h_lv = sigma = 0 and cp,
     k, mu are infinite. Outside the triple-to-critical range: NaN and
     `InvalidValueWarning`.
 
