@@ -247,7 +247,9 @@ fn geometry_code(x: f64) -> Option<u8> {
 /// pool-boiling heat fluxes from finite bodies", J. Heat Transfer 95 (1973)
 /// 152-158, doi:10.1115/1.3450013; K.H. Sun, J.H. Lienhard, "The peak pool
 /// boiling heat flux on horizontal cylinders", Int. J. Heat Mass Transfer 13
-/// (1970) 1425-1439.
+/// (1970) 1425-1439; the sphere's original: J.S. Ded, J.H. Lienhard, "The
+/// peak pool boiling heat flux from a sphere", AIChE J. 18 (1972) 337-342
+/// (bibliographic data from memory, two recollections agree; not read).
 #[inline(always)]
 #[allow(clippy::too_many_arguments)]
 pub fn lienhard_dhir(
