@@ -195,6 +195,16 @@ def _(f, r):
     return math.degrees(math.acos(max(-1.0, min(1.0, (1 - f) / (r - f)))))
 
 
+@numpy_form("impregnated_angle")
+def _(theta, f, r):
+    return np.degrees(np.arccos(1 - f + f * np.cos(np.radians(theta))))
+
+
+@python_form("impregnated_angle")
+def _(theta, f, r):
+    return math.degrees(math.acos(1 - f + f * math.cos(math.radians(theta))))
+
+
 # =============================================================================
 # contact-angle hysteresis (Furmidge)
 

@@ -574,6 +574,7 @@ kernels! {
     wetting::Wenzel, 2, 1;
     wetting::CassieBaxter, 3, 1;
     wetting::HemiwickingAngle, 2, 1;
+    wetting::ImpregnatedAngle, 3, 1;
     wetting::RetentionForce, 5, 1;
     wetting::SlidingAngle, 7, 1;
     wetting::VdwDisjoiningPressure, 2, 1;

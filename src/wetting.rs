@@ -502,6 +502,68 @@ impl Kernel<2, 1> for HemiwickingAngle {
     }
 }
 
+/// Apparent contact angle \[deg\] of a drop on a texture that has wicked
+/// (hemi-wicking): the drop rests on the dry tops and on the liquid film that
+/// fills the texture between them.
+///
+/// `cos θ* = 1 − φ_s + φ_s cos θ`: Cassie's composite average with the
+/// liquid-filled fraction `1 − φ_s` at 0 deg (liquid on liquid) and the tops
+/// `φ_s` at the intrinsic angle θ.
+///
+/// * `contact_angle_deg` θ \[deg\] in [0, 180]; `solid_fraction` φ_s [-] in
+///   [0, 1]; `roughness_ratio` r [-] ≥ 1, finite (the whole texture's true /
+///   projected area, used only for the validity check); otherwise NaN.
+/// * Validity: the texture wicks, θ ≤ θ_c with `cos θ_c = (1 − φ_s)/(r − φ_s)`
+///   ([`hemiwicking_angle`]); above θ_c no film fills it and [`wenzel`] (or
+///   [`cassie_baxter`]) holds, so such elements are flagged. At θ = θ_c the
+///   two meet: `1 − φ_s + φ_s cos θ_c = r cos θ_c` \[identity\]. φ_s = 1
+///   (no gaps) is the flat material, θ* = θ.
+/// * Limits: φ_s = 0 gives 0 deg (all liquid); θ* ≤ θ always, and θ* < 90 deg.
+///
+/// Reference: J. Bico, C. Thiele, D. Quere, Wetting of textured surfaces,
+/// Colloids Surf. A 206 (2002) 41-46, doi:10.1016/S0927-7757(02)00061-4
+/// [M, high: the form and the regime; the paper was not seen in this work];
+/// the form is Cassie & Baxter's composite average (see [`cassie_baxter`])
+/// with liquid in place of the trapped gas \[D\].
+#[inline(always)]
+pub fn impregnated_angle(contact_angle_deg: f64, solid_fraction: f64, roughness_ratio: f64) -> f64 {
+    let ok = cassie_possible(contact_angle_deg, solid_fraction, roughness_ratio);
+    nan_unless(ok, angle_from_cos(1.0 - solid_fraction + solid_fraction * cos_deg(contact_angle_deg)))
+}
+
+/// Kernel of [`impregnated_angle`].
+pub struct ImpregnatedAngle;
+impl Kernel<3, 1> for ImpregnatedAngle {
+    const MODEL: Model = Model {
+        name: "impregnated_angle",
+        summary: "Apparent contact angle on a wicked (liquid-impregnated) texture: drop on dry tops and liquid",
+        equation: "cos(theta*) = 1 - phi_s + phi_s * cos(theta)",
+        inputs: &[arg("contact_angle_deg", "deg"), arg("solid_fraction", "-"), arg("roughness_ratio", "-")],
+        outputs: &[arg("apparent_angle_deg", "deg")],
+        domain: "0 <= contact_angle_deg <= 180, 0 <= solid_fraction <= 1, roughness_ratio >= 1",
+        validity: "the texture wicks: contact_angle_deg <= the hemi-wicking critical angle, cos(theta_c) = \
+                   (1 - phi_s)/(r - phi_s) (above it use Wenzel or Cassie-Baxter); texture much smaller than the \
+                   drop, flat dry tops",
+        reference: "J. Bico, C. Thiele, D. Quere, Wetting of textured surfaces, Colloids Surf. A 206 (2002) 41-46",
+        doi: "10.1016/S0927-7757(02)00061-4",
+        verification: "form [M, high] and derived as Cassie's composite average with liquid in the texture [D]; \
+                       meets Wenzel at the critical angle and the intrinsic angle at phi_s = 1 [identity]",
+    };
+    #[inline(always)]
+    fn eval(x: &[f64; 3]) -> [f64; 1] {
+        [impregnated_angle(x[0], x[1], x[2])]
+    }
+    #[inline(always)]
+    fn possible(x: &[f64; 3]) -> bool {
+        cassie_possible(x[0], x[1], x[2])
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 3]) -> bool {
+        // theta <= theta_c, written without the division (r - phi_s > 0 where phi_s < 1)
+        (x[1] >= 1.0) | (cos_deg(x[0]) * (x[2] - x[1]) >= 1.0 - x[1])
+    }
+}
+
 // ---------------------------------------------------------------------------
 // A7 Furmidge retention force and sliding angle
 
@@ -1033,6 +1095,32 @@ mod tests {
         assert!(hemiwicking_angle(-0.1, 2.0).is_nan());
         assert!(hemiwicking_angle(0.3, 0.9).is_nan());
         assert!(hemiwicking_angle(0.3, f64::INFINITY).is_nan());
+    }
+
+    #[test]
+    fn impregnated_meets_wenzel_at_the_wicking_threshold() {
+        // [identity] at theta_c the wicked state and Wenzel's give one angle; below it the
+        // wicked angle is in range and below the intrinsic one, above it flagged.
+        for (f, r) in [(0.1, 1.5), (0.25, 2.0), (0.6, 3.0)] {
+            let tc = hemiwicking_angle(f, r);
+            assert_relative_eq!(impregnated_angle(tc, f, r), wenzel(tc, r), max_relative = 1e-9);
+            assert_eq!(evaluate::<ImpregnatedAngle, 3, 1>(&[tc - 1e-6, f, r]).1, Status::Ok);
+            assert_eq!(evaluate::<ImpregnatedAngle, 3, 1>(&[tc + 1e-3, f, r]).1, Status::OutOfRange);
+            for t in [0.0, 0.5 * tc, tc] {
+                assert!(impregnated_angle(t, f, r) <= t + 1e-12);
+            }
+        }
+        // Bico et al.'s pillars worked by hand: phi_s = 0.25, r = 2 (theta_c = 64.6 deg), theta = 50 deg:
+        // cos = 1 - 0.25 (1 - cos 50 deg) = 0.91070, 24.4 deg.
+        assert_relative_eq!(impregnated_angle(50.0, 0.25, 2.0), (0.75 + 0.25 * cos_deg(50.0)).acos().to_degrees(), max_relative = 1e-12);
+        assert!((impregnated_angle(50.0, 0.25, 2.0) - 24.4).abs() < 0.05);
+        // No tops: all liquid, 0 deg; all tops: the flat material.
+        assert_eq!(impregnated_angle(40.0, 0.0, 1.5), 0.0);
+        assert_relative_eq!(impregnated_angle(40.0, 1.0, 1.5), 40.0, max_relative = 1e-12);
+        assert_eq!(evaluate::<ImpregnatedAngle, 3, 1>(&[120.0, 1.0, 1.5]).1, Status::Ok);
+        assert!(impregnated_angle(40.0, 1.1, 1.5).is_nan());
+        assert!(impregnated_angle(40.0, 0.5, 0.9).is_nan());
+        assert!(impregnated_angle(190.0, 0.5, 1.5).is_nan());
     }
 
     #[test]

@@ -59,6 +59,8 @@ OUT_OF_RANGE = {
     "wenzel_angle": ({"contact_angle_deg": 20.0, "roughness_ratio": 2.5}, "|r cos(theta)| <= 1"),
     "cassie_baxter_angle": ({"contact_angle_deg": 10.0, "solid_fraction": 1.0, "roughness_ratio": 2.0},
                             "|cos(theta*)| <= 1"),
+    "impregnated_angle": ({"contact_angle_deg": 80.0, "solid_fraction": 0.25, "roughness_ratio": 2.0},
+                          "the texture wicks"),
     "vdw_disjoining_pressure": ({"thickness": 3e-10}, "1 nm <= thickness <= 20 nm"),
     "vdw_film_thickness": ({"height": 1e-9, "hamaker": -1e-19}, "result between 1 nm and 20 nm"),
     "water_screening_chain": ({"contact_angle_deg": 120.0}, "contact_angle_deg <= 90 (Fritz)"),
@@ -95,6 +97,7 @@ def _in_range_base(kernel):
         "cooper_superheat": {"fluid": wetboil.fluids.water(p=101325.0)},
         "klausner_force_balance": {"orientation_deg": 0.0},
         "kandlikar_chf": {"orientation_deg": 0.0},
+        "impregnated_angle": {"contact_angle_deg": 30.0, "solid_fraction": 0.25, "roughness_ratio": 2.0},
     }.get(kernel, {})
     for _ in range(500):
         args = dict(kc.draw_args(spec, rng), **fixed)

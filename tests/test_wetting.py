@@ -817,3 +817,28 @@ def test_zisman_angles_in_radians_are_questioned():
     with warnings.catch_warnings():
         warnings.simplefilter("error")
         assert critical_surface_tension(sigma, theta).value == pytest.approx(18.5 * MN, abs=0.7 * MN)
+
+
+def test_impregnated_angle_on_a_wicking_texture():
+    """Bico, Thiele & Quere (2002) [memory, high]: on a texture that wicks (intrinsic angle below the
+    hemi-wicking critical angle) a drop rests on the dry tops and the liquid film, cos = 1 - phi_s +
+    phi_s cos(theta). Worked by hand for pillars phi_s = 0.25, r = 2 (theta_c = 64.6 deg) at 50 deg:
+    24.4 deg [new-user trial], where Wenzel has no answer (r cos 50 deg = 1.29 > 1: 0 deg, flagged)."""
+    from wetboil.wetting import hemiwicking_angle, impregnated_angle
+
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        theta = impregnated_angle(50.0, 0.25, 2.0)
+    assert theta == pytest.approx(math.degrees(math.acos(0.75 + 0.25 * math.cos(math.radians(50.0)))), rel=1e-12)
+    assert theta == pytest.approx(24.4, abs=0.05)
+    with pytest.warns(wetboil.RangeWarning, match="wenzel"):
+        assert wenzel(50.0, 2.0) == 0.0
+    # [identity] it meets Wenzel at theta_c; above theta_c it is flagged (no film fills the texture)
+    tc = hemiwicking_angle(0.25, 2.0)
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.RangeWarning)
+        assert impregnated_angle(tc, 0.25, 2.0) == pytest.approx(wenzel(tc, 2.0), rel=1e-9)
+    with pytest.warns(wetboil.RangeWarning, match=r"impregnated_angle: 1 of 2 .*the texture wicks"):
+        impregnated_angle(np.array([40.0, 80.0]), 0.25, 2.0)
+    with pytest.warns(wetboil.InvalidValueWarning):
+        assert math.isnan(impregnated_angle(40.0, 1.2, 2.0))

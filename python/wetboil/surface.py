@@ -99,7 +99,10 @@ class Surface:
     solid_fraction : float, optional
         Cassie-Baxter wetted solid fraction, 0 < f <= 1 (gas trapped under
         the drop: meant for intrinsic angles above 90 deg; below, see
-        `wetboil.wetting.cassie_baxter`, which flags them).
+        `wetboil.wetting.cassie_baxter`, which flags them). For a texture
+        that wicks (intrinsic angle below `wetboil.wetting.hemiwicking_angle`),
+        compute the angles with `wetboil.wetting.impregnated_angle` and give
+        them as apparent angles.
     Rp : float
         Cooper's surface roughness parameter [m] (default 1 um, Cooper's
         value when unknown).

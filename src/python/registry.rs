@@ -58,6 +58,7 @@ pub fn entries() -> Vec<Entry> {
         entry::<wetting::Wenzel, 2, 1>(),
         entry::<wetting::CassieBaxter, 3, 1>(),
         entry::<wetting::HemiwickingAngle, 2, 1>(),
+        entry::<wetting::ImpregnatedAngle, 3, 1>(),
         entry::<wetting::RetentionForce, 5, 1>(),
         entry::<wetting::SlidingAngle, 7, 1>(),
         entry::<wetting::VdwDisjoiningPressure, 2, 1>(),
