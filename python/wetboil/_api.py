@@ -250,6 +250,9 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got a Saturation "
                                f"(a fluid state: pass the field meant, e.g. fluid.p or fluid.T)")
     if _is_xarray(value) or _is_dask(value):
+        xr = sys.modules.get("xarray")
+        if xr is not None and isinstance(value, xr.Variable):  # labelled by dimension names, as a DataArray is
+            value = xr.DataArray(value)
         kind = value.dtype.kind
         if kind not in _NUMERIC_KINDS:
             raise WetboilTypeError(f"{function}: {label} must hold numbers, got dtype {value.dtype}")

@@ -830,6 +830,7 @@ def _frequency(method: Any, diameter: Any, fluid: Saturation, g: Any) -> Any:
     return departure.frequency(diameter, fluid, method=method, g=g)
 
 
+@one_warning_per_category("boiling.partition")
 def partition(
     wall_superheat: Any,
     fluid: Saturation,

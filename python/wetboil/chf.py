@@ -318,7 +318,8 @@ def lienhard_dhir(
     coefficient = SMALL_PLATE_FORMS[check_choice("chf.lienhard_dhir", "small_plate form", small_plate, SMALL_PLATE_FORMS)]
     if area is None:
         size = _real("chf.lienhard_dhir", "size", size)
-        area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
+        with np.errstate(over="ignore"):  # an absurd size overflows to inf: the kernel flags that element
+            area = size * size if code == GEOMETRIES["small_flat_plate"] else 1.0
     elif code != GEOMETRIES["small_flat_plate"]:
         raise WetboilValueError(f"chf.lienhard_dhir: area is used by the small_flat_plate geometry only, "
                                 f"not by {geometry!r} (its size alone sets the heat flux)")

@@ -82,11 +82,18 @@ def _is_plain(x: Any) -> bool:
 
 def _check_field(name: str, value: Any) -> Any:
     if _is_plain(value):
-        return float(value)
+        try:
+            return float(value)
+        except OverflowError:
+            raise WetboilValueError(f"Saturation: {name} is an integer beyond the range of float64 "
+                                    "(about 1.8e308)") from None
     if value is None or isinstance(value, (str, bytes, bool, np.bool_, complex)):
         raise WetboilTypeError(f"Saturation: {name} must be a number or an array of numbers, got {type(value).__name__}")
     if hasattr(value, "dims") or type(value).__module__.startswith("dask"):
         return value  # xarray / dask objects keep their labels and laziness
+    if isinstance(value, np.ma.MaskedArray) and value.dtype.kind in "fiu":
+        # masked elements are missing data (NaN), as in a kernel argument: not the numbers under the mask
+        value = np.ma.filled(value.astype(np.float64), np.nan)
     arr = np.asarray(value)
     if arr.dtype.kind not in "fiu":
         if arr.dtype.kind == "O" and not any(v is None for v in arr.flat):

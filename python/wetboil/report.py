@@ -125,6 +125,8 @@ def load_spec(path: Any) -> Study:
         data = _toml.loads(text)
     except _toml.TOMLDecodeError as exc:
         raise SpecError(f"{path}: not valid TOML: {exc}") from None
+    except RecursionError:  # the standard parser recurses once per level of nested arrays or inline tables
+        raise SpecError(f"{path}: not valid here: arrays or tables nested too deeply") from None
 
     def fail(key: str, msg: str, section: Optional[str] = None) -> SpecError:
         line = _line(text, key, section)

@@ -507,6 +507,8 @@ def _from_toml(path: pathlib.Path) -> List[Surface]:
         data = _toml.loads(text)
     except _toml.TOMLDecodeError as exc:
         raise SurfaceFileError(f"{path}: not valid TOML: {exc}") from None
+    except RecursionError:  # the standard parser recurses once per level of nested arrays or inline tables
+        raise SurfaceFileError(f"{path}: not valid here: arrays or tables nested too deeply") from None
     records = data.get("surface")
     if not isinstance(records, list) or not records:
         raise SurfaceFileError(f"{path}: no [[surface]] tables found")
@@ -596,10 +598,18 @@ def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
         raise SurfaceFileError(f"{path}:{line}: {key} = {value!r} is not a number") from None
 
 
+#: Largest study or surface file read [bytes] (a real one is a few kB).
+_MAX_TEXT_BYTES = 64 << 20
+
+
 def _check_utf8(path: pathlib.Path, error: type) -> None:
     """Raise `error` naming the file and line when `path` is not UTF-8 text (a
-    spreadsheet's plain "CSV" is often Windows-1252, not UTF-8)."""
-    data = path.read_bytes()
+    spreadsheet's plain "CSV" is often Windows-1252, not UTF-8), or holds more
+    than `_MAX_TEXT_BYTES` (a device such as /dev/zero would fill the memory)."""
+    with path.open("rb") as fh:
+        data = fh.read(_MAX_TEXT_BYTES + 1)
+    if len(data) > _MAX_TEXT_BYTES:
+        raise error(f"{path}: more than {_MAX_TEXT_BYTES >> 20} MiB; not a study or surface file")
     try:
         data.decode("utf-8")
     except UnicodeDecodeError as exc:
