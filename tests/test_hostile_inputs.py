@@ -124,3 +124,25 @@ def test_endless_input_file_is_refused_not_read_into_memory():
     run = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, timeout=120,
                          env={**os.environ, "PYTHONPATH": os.pathsep.join(sys.path)})
     assert run.returncode == 0, run.stderr[-2000:]
+
+
+def test_a_nan_the_caller_passes_is_missing_data_not_a_field_left_out():
+    # [contract] an optional Saturation field left out makes a kernel that needs it warn that it was
+    # not given; a NaN the caller passes (math.nan as much as np.nan) is missing data and propagates
+    # silently, as NaN inputs do everywhere (outside trial: math.nan was the "not given" marker itself).
+    import math
+    import warnings
+
+    from wetboil.fluids import Saturation
+    from wetboil.nucleation import onset_superheat
+
+    base = dict(T=373.124, p=101325.0, rho_l=958.35, rho_v=0.5982, h_lv=2.2564e6, sigma=0.05891)
+    with pytest.warns(wetboil.WetboilWarning, match="k_l"):
+        assert math.isnan(onset_superheat(1e5, Saturation(**base)))
+    for nan in (math.nan, float("nan"), np.nan):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            assert math.isnan(onset_superheat(1e5, Saturation(**base, k_l=nan)))
+    left_out = Saturation(**base)
+    assert left_out._not_given() == left_out.replace(sigma=0.05)._not_given()
+    assert "k_l" in left_out._not_given() and "k_l" not in Saturation(**base, k_l=math.nan)._not_given()

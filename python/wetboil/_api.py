@@ -525,6 +525,12 @@ class _Spec(NamedTuple):
     fill: Optional[Callable[[Tuple[Any, ...]], Tuple[Any, ...]]] = None  # see `kernel`
 
 
+def _not_given() -> float:
+    from .fluids import NOT_GIVEN
+
+    return NOT_GIVEN
+
+
 def _saturation_type() -> type:
     """`wetboil.fluids.Saturation` (fluids imports this module, so it is looked up, not imported at the
     top; a dictionary lookup instead of an import statement in every call, and right after a reload)."""
@@ -548,7 +554,7 @@ def _gather(spec: _Spec, args: Sequence[Any]) -> list:
                     f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
                 )
             a = getattr(a, field)
-            if a is math.nan:  # the constructor's "not given" (Saturation._not_given), per field here
+            if a is _not_given():  # the constructor's default (Saturation._not_given), per field here
                 missing.append(label)
         inputs.append(_coerce(spec.function, label, a))
     if missing:

@@ -105,6 +105,11 @@ def _check_field(name: str, value: Any) -> Any:
     return arr.astype(np.float64, copy=False) if arr.ndim else float(arr)
 
 
+#: The default of the optional `Saturation` fields: a NaN object of its own, so that "not given"
+#: (a kernel needing the field warns) is told apart by identity from a NaN the caller passes.
+NOT_GIVEN: float = float("nan")
+
+
 class Saturation:
     """A saturated liquid-vapour state in SI units.
 
@@ -179,15 +184,15 @@ class Saturation:
         rho_v: Any,
         h_lv: Any,
         sigma: Any,
-        cp_l: Any = math.nan,
-        k_l: Any = math.nan,
-        mu_l: Any = math.nan,
-        mu_v: Any = math.nan,
-        cp_v: Any = math.nan,
-        k_v: Any = math.nan,
-        molar_mass: Any = math.nan,
-        T_crit: Any = math.nan,
-        p_crit: Any = math.nan,
+        cp_l: Any = NOT_GIVEN,
+        k_l: Any = NOT_GIVEN,
+        mu_l: Any = NOT_GIVEN,
+        mu_v: Any = NOT_GIVEN,
+        cp_v: Any = NOT_GIVEN,
+        k_v: Any = NOT_GIVEN,
+        molar_mass: Any = NOT_GIVEN,
+        T_crit: Any = NOT_GIVEN,
+        p_crit: Any = NOT_GIVEN,
         name: Optional[str] = None,
     ) -> None:
         values = locals()
@@ -215,9 +220,10 @@ class Saturation:
         return (_rebuild, (tuple(getattr(self, f) for f in FIELDS), self.name, self._not_given()))
 
     def _not_given(self) -> tuple:
-        """The fields the constructor was not given: they hold its default, this very `math.nan`
-        object (kept by `replace`, indexing and pickling), which kernels check by identity."""
-        return tuple(f for f in FIELDS if getattr(self, f) is math.nan)
+        """The fields the constructor was not given: they hold its default, the `NOT_GIVEN` NaN
+        object (kept by `replace`, indexing and pickling), which kernels check by identity; a NaN
+        the caller passes (math.nan included) is missing data, not "not given"."""
+        return tuple(f for f in FIELDS if getattr(self, f) is NOT_GIVEN)
 
     # -- construction helpers -------------------------------------------------
     def replace(self, **changes: Any) -> "Saturation":
@@ -333,7 +339,7 @@ class Saturation:
 
 def _rebuild(values: tuple, name: Optional[str], not_given: tuple = ()) -> Saturation:
     kw: dict = dict(zip(FIELDS, values))
-    kw.update(dict.fromkeys(not_given, math.nan))  # "not given" is this very NaN; unpickling made new ones
+    kw.update(dict.fromkeys(not_given, NOT_GIVEN))  # "not given" is this very NaN; unpickling made new ones
     kw["name"] = name
     return Saturation(**kw)
 
@@ -724,6 +730,6 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
             v = template.copy(data=v).rename(f)
             v.attrs = {"units": UNITS[f]}
         elif v.ndim == 0:
-            v = math.nan if f in absent else float(v)  # a kernel needing it then says so (see Saturation)
+            v = NOT_GIVEN if f in absent else float(v)  # a kernel needing it then says so (see Saturation)
         fields[f] = v
     return Saturation(**fields, molar_mass=state.molar_mass(), T_crit=t_crit, p_crit=p_crit, name=name)
