@@ -146,3 +146,16 @@ def test_a_nan_the_caller_passes_is_missing_data_not_a_field_left_out():
     left_out = Saturation(**base)
     assert left_out._not_given() == left_out.replace(sigma=0.05)._not_given()
     assert "k_l" in left_out._not_given() and "k_l" not in Saturation(**base, k_l=math.nan)._not_given()
+
+
+@pytest.mark.parametrize("value", [
+    np.array([45.0, "45"], dtype=object),   # text NumPy would parse as a number
+    [True, 45.0],                           # True would be 1 deg
+    [[45.0, 50.0], [60.0, "x"]],
+    bytearray(b"ab"),                       # would be read as the angles 97 and 98 deg
+])
+def test_text_and_booleans_among_numbers_are_refused(value):
+    # [contract] wrong types raise WetboilTypeError (a TypeError), as a bare "45" or True already did
+    # (outside robustness trial: these were accepted silently)
+    with pytest.raises(wetboil.WetboilTypeError, match="contact_angle_deg"):
+        wetboil.wetting.wenzel(value, 1.2)

@@ -244,8 +244,10 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         except OverflowError:
             raise WetboilValueError(f"{function}: {label} is an integer beyond the range of float64 "
                                     "(about 1.8e308)") from None
-    if value is None or isinstance(value, (str, bytes, bool, np.bool_)):
+    if value is None or isinstance(value, (str, bytes, bytearray, bool, np.bool_)):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got {type(value).__name__}")
+    if isinstance(value, (list, tuple)) and _holds_text_or_bool(value):
+        raise WetboilTypeError(f"{function}: {label} must hold numbers, got text or a boolean among them")
     if isinstance(value, _saturation_type()):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got a Saturation "
                                f"(a fluid state: pass the field meant, e.g. fluid.p or fluid.T)")
@@ -275,11 +277,22 @@ def _coerce(function: str, label: str, value: Any) -> Any:
     if kind == "O":
         if any(v is None for v in arr.flat):
             raise WetboilTypeError(f"{function}: {label} contains None; use nan for a missing value")
+        if any(isinstance(v, (str, bytes, bool, np.bool_)) for v in arr.flat):  # "45" is text, True no angle
+            raise WetboilTypeError(f"{function}: {label} must hold numbers, got text or a boolean among them")
         try:
             return arr.astype(np.float64)
         except (TypeError, ValueError, OverflowError):
             pass
     raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype {arr.dtype}")
+
+
+def _holds_text_or_bool(seq: Any) -> bool:
+    """Whether a (nested) list or tuple holds a string, bytes or a boolean, which NumPy would
+    otherwise turn into numbers (True into 1 deg) or text."""
+    for v in seq:
+        if isinstance(v, (str, bytes, bool, np.bool_)) or (isinstance(v, (list, tuple)) and _holds_text_or_bool(v)):
+            return True
+    return False
 
 
 def need_saturation(function: str, fluid: Any) -> Any:
