@@ -247,7 +247,7 @@ def _coerce(function: str, label: str, value: Any) -> Any:
     if value is None or isinstance(value, (str, bytes, bytearray, bool, np.bool_)):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got {type(value).__name__}")
     if isinstance(value, (list, tuple)) and _holds_text_or_bool(value):
-        raise WetboilTypeError(f"{function}: {label} must hold numbers, got text or a boolean among them")
+        raise WetboilTypeError(f"{function}: {label} must hold real numbers, got text or a boolean among them")
     if isinstance(value, _saturation_type()):
         raise WetboilTypeError(f"{function}: {label} must be a number or an array of numbers, got a Saturation "
                                f"(a fluid state: pass the field meant, e.g. fluid.p or fluid.T)")
@@ -278,7 +278,8 @@ def _coerce(function: str, label: str, value: Any) -> Any:
         if any(v is None for v in arr.flat):
             raise WetboilTypeError(f"{function}: {label} contains None; use nan for a missing value")
         if any(isinstance(v, (str, bytes, bool, np.bool_)) for v in arr.flat):  # "45" is text, True no angle
-            raise WetboilTypeError(f"{function}: {label} must hold numbers, got text or a boolean among them")
+            raise WetboilTypeError(f"{function}: {label} must hold real numbers, got dtype object with text or a "
+                                   "boolean among them")
         try:
             return arr.astype(np.float64)
         except (TypeError, ValueError, OverflowError):
