@@ -51,12 +51,7 @@ from typing import Any, Dict, List, Optional, Tuple
 import numpy as np
 
 from ._errors import RangeWarning, WetboilError, WetboilValueError
-from .surface import Surface, _check_utf8, _from_toml, load_surfaces
-
-try:  # Python >= 3.11
-    import tomllib as _toml
-except ModuleNotFoundError:  # pragma: no cover
-    import tomli as _toml  # type: ignore[no-redef,import-not-found]
+from .surface import Surface, _check_utf8, _from_toml, _loads_toml, load_surfaces
 
 __all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION", "RANKING_RULE"]
 
@@ -121,12 +116,7 @@ def load_spec(path: Any) -> Study:
         raise SpecError(f"{path}: no such file")
     _check_utf8(path, SpecError)  # TOML is UTF-8, whatever the locale's encoding
     text = path.read_text(encoding="utf-8")
-    try:
-        data = _toml.loads(text)
-    except _toml.TOMLDecodeError as exc:
-        raise SpecError(f"{path}: not valid TOML: {exc}") from None
-    except RecursionError:  # the standard parser recurses once per level of nested arrays or inline tables
-        raise SpecError(f"{path}: not valid here: arrays or tables nested too deeply") from None
+    data = _loads_toml(text, path, SpecError)
 
     def fail(key: str, msg: str, section: Optional[str] = None) -> SpecError:
         line = _line(text, key, section)

@@ -501,14 +501,19 @@ def _key_line(lines: List[str], span: Tuple[int, int], key: str, liquid: Optiona
     return first + 1
 
 
+def _loads_toml(text: str, path: pathlib.Path, error: type) -> Dict[str, Any]:
+    """The TOML document `text` of file `path`; `error` naming the file where it is not valid."""
+    try:
+        return _toml.loads(text)
+    except _toml.TOMLDecodeError as exc:
+        raise error(f"{path}: not valid TOML: {exc}") from None
+    except RecursionError:  # the standard parser recurses once per level of nested arrays or inline tables
+        raise error(f"{path}: not valid here: arrays or tables nested too deeply") from None
+
+
 def _from_toml(path: pathlib.Path) -> List[Surface]:
     text = path.read_text(encoding="utf-8")
-    try:
-        data = _toml.loads(text)
-    except _toml.TOMLDecodeError as exc:
-        raise SurfaceFileError(f"{path}: not valid TOML: {exc}") from None
-    except RecursionError:  # the standard parser recurses once per level of nested arrays or inline tables
-        raise SurfaceFileError(f"{path}: not valid here: arrays or tables nested too deeply") from None
+    data = _loads_toml(text, path, SurfaceFileError)
     records = data.get("surface")
     if not isinstance(records, list) or not records:
         raise SurfaceFileError(f"{path}: no [[surface]] tables found")
