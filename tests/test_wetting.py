@@ -302,6 +302,25 @@ def test_predict_angle_of_the_working_fluid():
     assert predict_angle((many.dispersive[0], many.polar[0]), d, p) == predict_angle(many, d, p)[0]
 
 
+
+def test_split_surface_tension_flags_impossible_and_mn_per_m_values():
+    # Water near 100 C: 58.9 mN/m (IAPWS R1-76(2014) gives 58.91 mN/m at
+    # 100 C). Typed in mN/m it is 1000 times too large: computed, but flagged
+    # like the kernels' bound on liquid surface tensions (common practice: no
+    # liquid that boils in service comes near 1 N/m). A negative or infinite
+    # tension is impossible: NaN, one warning.
+    with pytest.warns(wetboil.RangeWarning, match="mN/m"):
+        d, p = split_surface_tension(58.9)
+    assert d + p == pytest.approx(58.9)
+    with pytest.warns(wetboil.InvalidValueWarning, match="2 of 4"):
+        d, p = split_surface_tension([-0.01, 0.0589, math.inf, math.nan])
+    assert np.isnan(d[[0, 2, 3]]).all() and d[1] + p[1] == pytest.approx(0.0589)
+    with wetboil.errstate(invalid="raise"), pytest.raises(wetboil.InvalidValueError):
+        split_surface_tension(-0.01)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert sum(split_surface_tension(0.0589)) == pytest.approx(0.0589)
+
 # =============================================================================
 # Young, Dupre, spreading, Girifalco-Good
 

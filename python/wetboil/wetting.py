@@ -39,7 +39,7 @@ from typing import Any, Dict, List, Mapping, NamedTuple, Tuple
 
 import numpy as np
 
-from ._api import kernel
+from ._api import _is_dask, kernel
 from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, report
 from .fluids import Saturation, _is_water
 
@@ -83,6 +83,9 @@ _MN = 1e-3  # mN/m -> N/m
 #: mN/m. The same bound as the kernels' range check (TENSION_MAX in src/model.rs), which warns;
 #: the fits below raise, since one such value spoils the whole fit.
 _TENSION_MAX = 1.0
+#: The kernels' range clause for it (TENSION_CLAUSE in src/model.rs), quoted where it flags.
+_TENSION_CLAUSE = ("liquid surface tension <= 1 N/m (mercury is 0.49 N/m; a larger value was usually given in "
+                   "mN/m)")
 
 
 # =============================================================================
@@ -956,7 +959,10 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
     Parameters
     ----------
     sigma_lv : array_like
-        Total surface tension [N/m] (for example ``Saturation.sigma``).
+        Total surface tension [N/m] (for example ``Saturation.sigma``). A
+        value <= 0 or infinite is impossible (NaN, one warning); one above
+        1 N/m, most likely given in mN/m, is split but flagged
+        (`RangeWarning`), as the kernels flag it.
     like : str, optional
         Probe liquid whose 20 C proportions are used (default water).
     table : str, optional
@@ -990,7 +996,26 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
     elif isinstance(s, (np.ndarray, np.generic)) or not hasattr(s, "dtype"):  # xarray and dask keep their type
         s = _float_array("split_surface_tension", "sigma_lv", s)  # float64: float32, int and object arrays too
     fd, fp = liquid.dispersive / liquid.total, liquid.polar / liquid.total
+    if not _is_dask(s):  # a lazy array is checked by the kernels it reaches
+        s = _check_tension("split_surface_tension", s)
     return s * fd, s * fp
+
+
+def _check_tension(function: str, s: Any) -> Any:
+    """`s` with impossible surface tensions (negative, zero or infinite) set to NaN, as the kernels
+    do, reported by the one policy with the values above 1 N/m (most likely given in mN/m), which
+    are kept but warned about like the kernels' range flag."""
+    v = np.asarray(getattr(s, "values", s), dtype=np.float64)
+    with np.errstate(invalid="ignore"):
+        bad = ~(v > 0.0) & ~np.isnan(v) | np.isinf(v)
+        high = (v > _TENSION_MAX) & ~np.isinf(v)
+    if bad.any() or high.any():
+        report(function, int(v.size), int(bad.sum()), int(high.sum()), _TENSION_CLAUSE, "surface tension > 0 N/m")
+    if bad.any():
+        s = s.where(~bad) if hasattr(s, "where") and not isinstance(s, np.ndarray) else np.where(bad, np.nan, v)
+        if isinstance(s, np.ndarray) and s.ndim == 0:
+            s = float(s)
+    return s
 
 
 _FOWKES_HYDROCARBONS = (
