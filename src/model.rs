@@ -281,6 +281,17 @@ impl Model {
             .join("; ")
             .into()
     }
+
+    /// The [`INPUT_BOUNDS`] of this model's inputs, as (input index, bound
+    /// entry): what a range message needs to name the bound an element
+    /// exceeded rather than the whole validity text.
+    pub fn input_bounds(&self) -> impl Iterator<Item = (usize, &'static InputBound)> + '_ {
+        let all: &'static [InputBound] = &INPUT_BOUNDS;
+        self.inputs
+            .iter()
+            .enumerate()
+            .flat_map(move |(i, a)| all.iter().filter(move |b| named(a.name, b.names)).map(move |b| (i, b)))
+    }
 }
 
 /// Whether the inputs' magnitudes are within their bounds (`bounds`, from

@@ -162,8 +162,9 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
     assert len(ranges) == 1, (kernel, [str(w.message) for w in rec])
     msg = str(ranges[0].message)
     assert msg.startswith(spec.function + ":") and "3 of 7" in msg, msg
-    # and quotes the range it left, as the model's facts state it
-    assert msg.endswith(f"outside the published validity range ({spec.model.validity})"), msg
+    # and quotes the range it left, as the model's facts state it, without the unit-slip bounds its
+    # inputs are within (they have their own test, test_a_tension_in_mn_per_m_is_flagged)
+    assert msg.endswith(f"outside the published validity range ({spec.model.own_validity})"), msg
     assert not [w for w in rec if w.category is wetboil.InvalidValueWarning], kernel
     # the elements are computed, not blanked
     for k, o in enumerate(kc.outputs(out)):
@@ -181,7 +182,7 @@ def test_leaving_the_range_warns_once_per_call_with_a_count(kernel):
         warnings.simplefilter("always")
         kc.call(f, spec, scalar_args)
     msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
-    assert len(msgs) == 1 and "1 of 1" in msgs[0] and spec.model.validity in msgs[0], (kernel, msgs)
+    assert len(msgs) == 1 and "1 of 1" in msgs[0] and spec.model.own_validity in msgs[0], (kernel, msgs)
 
     # errstate: ignore silences, raise raises OutOfRangeError (a ValueError and a WetboilError)
     with warnings.catch_warnings(record=True) as rec, wetboil.errstate(out_of_range="ignore"):
@@ -234,6 +235,9 @@ def test_a_tension_in_mn_per_m_is_flagged(bound, kernel):
         kc.call(f, spec, kc.args_from_inputs(spec, x_out, base))
     msgs = [str(w.message) for w in rec if w.category is wetboil.RangeWarning]
     assert len(msgs) == 1 and clause in msgs[0], (kernel, [str(w.message) for w in rec])
+    # The message names the bound the element exceeded, not the model's own range it did not leave.
+    own = spec.model.own_validity
+    assert own and own in spec.model.validity and own not in msgs[0], (kernel, msgs[0])
 
 
 def test_tension_outliers_are_counted_in_large_arrays():
@@ -252,9 +256,17 @@ def test_tension_outliers_are_counted_in_large_arrays():
     codes = wetboil.validity(wetboil.chf.zuber, f, K)
     want = int(((sigma > 1) | (K > 0.2))[~np.isnan(sigma)].sum())
     assert int((codes == 2).sum()) == want
-    with pytest.warns(wetboil.RangeWarning, match=f"{want} of {n}"):
+    with pytest.warns(wetboil.RangeWarning, match=f"{want} of {n}") as rec:
         q = wetboil.chf.zuber(f, K)
     assert np.isnan(q[7::101]).all() and np.isfinite(q[::997][~np.isnan(sigma[::997])]).all()
+    # Both kinds are named: Zuber's own constant range and the tension bound.
+    (msg,) = [str(w.message) for w in rec]
+    assert "0.10 <= K <= 0.20" in msg and "liquid surface tension <= 1 N/m" in msg
+    # Only K outside its range: the tension bound, not exceeded, is not quoted.
+    with pytest.warns(wetboil.RangeWarning) as rec:
+        wetboil.chf.zuber(w, K)
+    (msg,) = [str(w.message) for w in rec]
+    assert "0.10 <= K <= 0.20" in msg and "surface tension" not in msg
 
 
 def test_a_solid_surface_energy_above_1_j_per_m2_is_not_flagged():

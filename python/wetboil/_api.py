@@ -47,7 +47,13 @@ class Arg(NamedTuple):
 
 
 class Model(NamedTuple):
-    """The facts of one published model, as declared next to its Rust kernel."""
+    """The facts of one published model, as declared next to its Rust kernel.
+
+    `validity` is the range as shown to users: the model's own range
+    (`own_validity`) and the clause of each unit-slip bound on its inputs.
+    `input_bounds` lists those bounds as ``(input index, largest magnitude,
+    clause)``: an element above one is computed but counted as outside the
+    range (a surface tension above 1 N/m was most likely given in mN/m)."""
 
     name: str
     summary: str
@@ -59,6 +65,8 @@ class Model(NamedTuple):
     reference: str
     doi: str
     verification: str
+    own_validity: str = ""
+    input_bounds: Tuple[Tuple[int, float, str], ...] = ()
 
 
 def _load_models() -> Dict[str, Model]:
@@ -66,6 +74,7 @@ def _load_models() -> Dict[str, Model]:
     for m in json.loads(_core.models_json()):
         m["inputs"] = tuple(Arg(**a) for a in m["inputs"])
         m["outputs"] = tuple(Arg(**a) for a in m["outputs"])
+        m["input_bounds"] = tuple((int(i), float(mx), str(c)) for i, mx, c in m.pop("bounds"))
         out[m["name"]] = Model(**m)
     return out
 
@@ -516,8 +525,30 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         invalid, out_of_range = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
-        report(function, size, invalid, out_of_range, MODELS[name].validity, MODELS[name].domain)
+        validity = _range_text(MODELS[name], arrays, size, out_of_range) if out_of_range else ""
+        report(function, size, invalid, out_of_range, validity, MODELS[name].domain)
     return outs if output is None else outs[output]
+
+
+def _range_text(model: Model, arrays: Sequence[Any], size: int, out_of_range: int) -> str:
+    """The part of `model`'s validity text that a call's `out_of_range` elements (of `size`) failed:
+    the clause of each unit-slip bound some element exceeds (a surface tension above 1 N/m), and the
+    model's own range unless those elements account for every count. Without it, a tension typed
+    in mN/m was reported with a whole paragraph of ranges it had not left, and a pressure outside
+    a correlation's data with the tension bound it had not exceeded."""
+    if not model.input_bounds:
+        return model.validity
+    clauses: list = []
+    over: Any = False  # elements above some bound, broadcast over the inputs as far as they go
+    with np.errstate(invalid="ignore"):
+        for i, largest, clause in model.input_bounds:
+            high = np.abs(np.asarray(arrays[i], dtype=np.float64)) > largest
+            if high.any():
+                clauses.append(clause)
+                over = over | high
+    n_over = int(np.sum(over)) * (size // max(int(np.size(over)), 1)) if clauses else 0
+    own = [] if n_over >= out_of_range or not model.own_validity else [model.own_validity]
+    return "; ".join(dict.fromkeys(own + clauses))
 
 
 def _scalarise(x: Any) -> Any:

@@ -51,6 +51,13 @@ fn models_json() -> String {
         .map(|e| {
             let mut m = serde_json::to_value(e.model).unwrap_or_default();
             m["validity"] = e.model.validity_text().into();
+            m["own_validity"] = e.model.validity.into();
+            m["bounds"] = e
+                .model
+                .input_bounds()
+                .map(|(i, b)| serde_json::json!([i, b.max, b.clause]))
+                .collect::<Vec<_>>()
+                .into();
             m
         })
         .collect();
