@@ -538,3 +538,94 @@ def test_report_tables_keep_their_columns_with_pipes_and_line_breaks_in_names_an
     for row, cells in zip(rows, header.values()):
         assert len(re.findall(r"(?<!\\)\|", row)) == cells + 1, row
     assert "coat A \\| B (invented)" in rows[0] and "two lines \\| and a pipe" in rows[0]
+
+
+# OWASP, "CSV Injection" (owasp.org/www-community/attacks/CSV_Injection): a cell that starts with
+# '=', '+', '-' or '@' (or a tab or carriage return) is read by spreadsheets as a formula; the
+# mitigation it gives is a leading single quote, which shows the cell as text.
+FORMULA_NAMES = ['=HYPERLINK("http://example.invalid","x") (invented)', "+cmd (invented)", "-5 K aged (invented)",
+                 "@SUM(A1) (invented)"]
+
+
+def test_summary_csv_names_cannot_run_as_spreadsheet_formulas(tmp_path):
+    """Surface names that a spreadsheet would run as formulas (OWASP, "CSV Injection") reach
+    summary.csv as text with a leading apostrophe; the Dataset, report and printed ranking keep the
+    names as given."""
+    import csv
+
+    import xarray as xr
+
+    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
+    spec = tmp_path / "study.toml"
+    extra = "".join(f"\n[[surface]]\nname = '{n}'\nstatic_deg = 50.0\n" for n in FORMULA_NAMES)  # TOML literal
+    spec.write_text(SPEC + extra)
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 0, r.stderr
+    with open(out / "summary.csv", newline="", encoding="utf-8") as fh:
+        cells = [row["surface"] for row in csv.DictReader(fh)]
+    assert not any(c.startswith(("=", "+", "-", "@", "\t", "\r")) for c in cells), sorted(set(cells))
+    for name in FORMULA_NAMES:
+        assert "'" + name in cells  # readable: the name itself follows the apostrophe
+        assert name in r.stdout and name in (out / "report.md").read_text()
+        assert "'" + name not in r.stdout
+    assert "from csv (invented)" in cells and "inline (invented)" in cells  # other names unchanged
+    with xr.open_dataset(out / "sweep.nc") as ds:
+        assert set(FORMULA_NAMES) <= set(ds["surface"].values)
+
+
+def test_saved_surfaces_csv_cannot_run_as_formulas_and_reads_back(tmp_path):
+    """save_surfaces' CSV escapes names and notes as OWASP's "CSV Injection" advises; load_surfaces
+    reads the same surfaces back."""
+    import csv
+
+    surfaces = [wetboil.Surface(n, 40.0, notes="=1+1 note (invented)") for n in FORMULA_NAMES]
+    path = wetboil.save_surfaces(surfaces, tmp_path / "s.csv")
+    with open(path, newline="", encoding="utf-8") as fh:
+        rows = list(csv.DictReader(fh))
+    assert [row["name"] for row in rows] == ["'" + n for n in FORMULA_NAMES]
+    assert all(row["notes"] == "'=1+1 note (invented)" for row in rows)
+    assert wetboil.load_surfaces(path) == surfaces
+
+
+def test_printed_ranking_keeps_a_surface_named_like_a_missing_value(tmp_path):
+    """A surface named "NA" (one of the strings pandas' read_csv takes as missing by default, see
+    its na_values documentation) is still ranked on the console."""
+    spec = tmp_path / "study.toml"
+    spec.write_text('[study]\npressures_Pa = [101325.0]\nheat_fluxes_W_m2 = [3e5]\n'
+                    '[[surface]]\nname = "NA"\nstatic_deg = 70.0\n[[surface]]\nname = "b (invented)"\nstatic_deg = 60.0\n')
+    r = run("run", str(spec), "--out", str(tmp_path / "out"))
+    assert r.returncode == 0, r.stderr
+    assert any(line.split()[:1] == ["NA"] for line in r.stdout.splitlines()), r.stdout
+
+
+def test_spec_surface_tension_in_mN_per_m_is_an_error(tmp_path):
+    """Water's surface tension at 100 C, 58.91 mN/m (IAPWS R1-76(2014)), typed into
+    [fluid_properties] as 58.91 would make Zuber's CHF (sigma**0.25) 5.6 times too high: the spec
+    is refused with its line, as the models flag any tension above 1 N/m."""
+    from wetboil.report import SpecError, load_spec
+
+    path = tmp_path / "s.toml"
+    path.write_text('[study]\npressures_Pa = [101325.0]\nheat_fluxes_W_m2 = [1e5]\n[fluid_properties]\nsigma = 58.91\n'
+                    '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\n')
+    with pytest.raises(SpecError, match=r"s.toml:5: \[fluid_properties\] sigma = 58.91 N/m .*mN/m"):
+        load_spec(path)
+    path.write_text(path.read_text().replace("58.91", "58.91e-3"))
+    assert load_spec(path).fluid_properties == {"sigma": 58.91e-3}
+
+
+def test_an_output_folder_that_cannot_be_written_is_a_one_line_error(tmp_path, capsys, monkeypatch):
+    """A read-only output folder is an error naming the folder, not the scratch folder inside it."""
+    import tempfile
+
+    from wetboil import cli
+
+    def denied(*a, **k):
+        raise PermissionError(13, "Permission denied")
+
+    monkeypatch.setattr(tempfile, "mkdtemp", denied)
+    out = tmp_path / "ro"
+    out.mkdir()
+    assert cli.main(["demo", "--out", str(out)]) == 1
+    err = capsys.readouterr().err
+    assert f"{out}: cannot write into the output folder (Permission denied)" in err and ".partial" not in err

@@ -15,6 +15,7 @@ import pathlib
 from importlib import resources
 
 from .report import CAUTION, load_spec, margin_ranking, margin_text, run_study
+from .surface import _csv_untext
 
 __all__ = ["study_path", "run"]
 
@@ -37,7 +38,10 @@ def print_ranking(out: pathlib.Path, title: str) -> None:
     """Print the lowest CHF margin of each surface and the files written."""
     import pandas as pd
 
-    ranking = margin_ranking(pd.read_csv(out / "summary.csv"))
+    table = pd.read_csv(out / "summary.csv")
+    # names as written: pandas would read a surface named "NA" or "null" as missing and drop it
+    names = pd.read_csv(out / "summary.csv", usecols=["surface"], dtype=str, keep_default_na=False)["surface"]
+    ranking = margin_ranking(table.assign(surface=names.map(_csv_untext)))
     print(title)
     print(f"{'surface':<42} {'rows flagged':>13}  lowest CHF margin")
     for name, r in ranking.iterrows():

@@ -1,6 +1,9 @@
 """Study specifications (TOML), their sweep, and the files a study writes:
 the Dataset (netCDF), a ranked CSV summary, PNG plots and a Markdown report
-with inputs, methods and references, validity flags and the cautions.
+with inputs, methods and references, validity flags and the cautions. In the
+CSV summary a surface name that starts with ``=``, ``+``, ``-`` or ``@`` gets
+a leading apostrophe (``'=...``), so that a spreadsheet shows it as text
+instead of running it as a formula; the Dataset keeps the names as given.
 
 Spec format (every key optional unless marked)::
 
@@ -51,7 +54,7 @@ from typing import Any, Dict, List, Optional, Tuple
 import numpy as np
 
 from ._errors import RangeWarning, WetboilError, WetboilValueError
-from .surface import Surface, _check_utf8, _from_toml, _loads_toml, load_surfaces
+from .surface import Surface, _check_utf8, _csv_text, _from_toml, _loads_toml, load_surfaces
 
 __all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION", "RANKING_RULE"]
 
@@ -178,6 +181,7 @@ def load_spec(path: Any) -> Study:
     if not isinstance(given, dict):
         raise fail("fluid_properties", "[fluid_properties] must be a table")
     from .fluids import FIELDS, UNITS
+    from .wetting import _TENSION_MAX
 
     for key, value in given.items():
         if key not in FIELDS or key in ("T", "p"):
@@ -188,6 +192,10 @@ def load_spec(path: Any) -> Study:
         if not all(isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v) and v > 0
                    for v in values):
             raise fail(key, f"[fluid_properties] {key} must be a positive number [{UNITS[key]}] or a list of them",
+                       "fluid_properties")
+        if key == "sigma" and max(values) > _TENSION_MAX:
+            raise fail(key, f"[fluid_properties] sigma = {max(values):g} N/m is above {_TENSION_MAX:g} N/m, the bound "
+                            "every model flags as a value typed in mN/m: give it in N/m (x 1e-3)",
                        "fluid_properties")
         if isinstance(value, list) and len(value) != len(states):
             raise fail(key, f"[fluid_properties] {key} has {len(value)} values for {len(states)} "
@@ -276,7 +284,10 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
     from .sweep import ranked_table, sweep
 
     out.mkdir(parents=True, exist_ok=True)
-    scratch = pathlib.Path(tempfile.mkdtemp(prefix=".partial-", dir=out))
+    try:
+        scratch = pathlib.Path(tempfile.mkdtemp(prefix=".partial-", dir=out))
+    except OSError as exc:  # a read-only folder: say so, not the scratch folder's random name
+        raise WetboilValueError(f"{out}: cannot write into the output folder ({exc.strerror or exc})") from None
     try:
         kw: Dict[str, Any] = {"p" if study.axis == "p" else "T": study.states}
         if study.chunks:
@@ -289,7 +300,9 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
         ds.attrs["title"] = study.title
         ds.to_netcdf(scratch / "sweep.nc")
         summary = ranked_table(ds)
-        summary.to_csv(scratch / "summary.csv", index=False)
+        # surface names as text a spreadsheet will not run as a formula (demo.print_ranking reads them back)
+        summary.assign(surface=summary["surface"].astype(str).map(_csv_text)).to_csv(scratch / "summary.csv",
+                                                                                   index=False)
         plots = _plots(ds, study, scratch)
         report = scratch / "report.md"
         report.write_text(_report_text(study, ds, summary, plots, spec_text))

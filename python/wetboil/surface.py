@@ -582,6 +582,8 @@ def _from_csv(path: pathlib.Path) -> List[Surface]:
                     continue
                 if value == "":
                     continue
+                if key in ("name", "notes"):
+                    value = _csv_untext(value)  # as save_surfaces escaped it for spreadsheets
                 rec[key] = value if key in ("name", "angles_are", "notes") else _csv_number(path, line_no, key, value)
             try:
                 out.append(Surface.from_dict(rec))
@@ -594,6 +596,25 @@ def _from_csv(path: pathlib.Path) -> List[Surface]:
     if not out:
         raise SurfaceFileError(f"{path}: no surfaces")
     return out
+
+
+#: First characters that make a spreadsheet read a CSV cell as a formula (OWASP, "CSV Injection"):
+#: a surface named ``=HYPERLINK(...)`` or ``-5 K aged`` would run or break when the file is opened.
+_FORMULA_START = ("=", "+", "-", "@", "\t", "\r")
+
+
+def _csv_text(text: str) -> str:
+    """`text` as a CSV cell a spreadsheet shows as text: one that starts with
+    ``=``, ``+``, ``-``, ``@``, a tab or a carriage return gets a leading
+    apostrophe (``'=SUM(A1)``), so it stays readable and is never run as a
+    formula. `load_surfaces` and the command line's ranking read it back
+    without the apostrophe."""
+    return "'" + text if text.startswith(_FORMULA_START) else text
+
+
+def _csv_untext(text: str) -> str:
+    """The text `_csv_text` wrote: without the apostrophe it added."""
+    return text[1:] if text.startswith("'") and text[1:].startswith(_FORMULA_START) else text
 
 
 def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
@@ -631,7 +652,9 @@ def load_surfaces(path: Union[str, pathlib.Path]) -> List[Surface]:
 
     Both are read as UTF-8; a CSV file may start with a byte-order mark (as
     spreadsheets write "CSV UTF-8"), and rows whose every cell is empty are
-    skipped.
+    skipped. In a CSV file, a name or note written as ``'`` followed by
+    ``=``, ``+``, ``-`` or ``@`` is read without the apostrophe: `save_surfaces`
+    adds it so that a spreadsheet shows such a cell as text, not a formula.
     """
     path = pathlib.Path(path)
     if not path.exists():
@@ -659,7 +682,10 @@ def _toml_value(v: Any) -> str:
 
 def save_surfaces(surfaces: Iterable[Surface], path: Union[str, pathlib.Path]) -> pathlib.Path:
     """Write surfaces to a TOML or CSV file (by the extension), in UTF-8, that
-    `load_surfaces` reads back unchanged."""
+    `load_surfaces` reads back unchanged. In a CSV file a name or note that
+    starts with ``=``, ``+``, ``-`` or ``@`` is written with a leading
+    apostrophe, so that a spreadsheet shows it as text (OWASP, "CSV
+    Injection")."""
     path = pathlib.Path(path)
     surfaces = list(surfaces)
     if not all(isinstance(s, Surface) for s in surfaces):
@@ -701,6 +727,7 @@ def save_surfaces(surfaces: Iterable[Surface], path: Union[str, pathlib.Path]) -
             for s in surfaces:
                 d = s.to_dict()
                 row = {k: ("" if d[k] is None else d[k]) for k in cols if ":" not in k}
+                row["name"], row["notes"] = _csv_text(row["name"]), _csv_text(row["notes"])  # no formulas
                 for col in probe_cols:
                     group, liq = col.split(":", 1)
                     row[col] = (d[group] or {}).get(liq, "")
