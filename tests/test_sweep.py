@@ -1125,6 +1125,25 @@ def test_roughness_with_apparent_angles_is_not_applied_and_says_so():
         Surface("r (invented)", 120.0)
 
 
+
+def test_angles_that_look_like_radians_are_questioned():
+    # [common practice] 70, 80 and 40 deg typed in radians read 1.22, 1.40 and 0.70 deg, and ran as
+    # a superhydrophilic coating without a word (new-user CLI trial; angles invented). Every angle
+    # at most pi is questioned, as wetting.surface_energy questions probe angles; one angle above it,
+    # or all zero, is not.
+    import math
+
+    with pytest.warns(wetboil.WetboilWarning, match=r"'r \(invented\)': every contact angle .*radians"):
+        s = Surface("r (invented)", math.radians(70.0), math.radians(80.0), math.radians(40.0))
+    assert s.static_deg == pytest.approx(1.2217, abs=1e-4)  # used as given
+    with pytest.warns(wetboil.WetboilWarning, match="radians"):
+        Surface("p (invented)", probe_static_deg={"water": 1.0, "diiodomethane": 0.7})
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        Surface("a (invented)", 5.0, 8.0, 0.0)
+        Surface("b (invented)", 0.0, 0.0, 0.0)
+        Surface("p (invented)", probe_static_deg={"water": 3.0, "diiodomethane": 40.0})
+
 def test_predicted_angles_out_of_order_are_flagged():
     # [definition] advancing >= static >= receding for the working fluid's angles. Each probe set in
     # order (angles invented) does not make the predicted ones so: with water and formamide (van Oss,

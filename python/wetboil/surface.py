@@ -172,6 +172,13 @@ class Surface:
             raise _error(WetboilTypeError, self.name, "notes must be a string", "notes")
         self.notes = notes
         self._validate()
+        given = [v for v in angles if v is not None] + [v for probes in (self.probe_static_deg, self.probe_advancing_deg,
+                                                                          self.probe_receding_deg) for v in (probes or {}).values()]
+        if given and 0.0 < max(given) <= math.pi:
+            # every angle within (0, pi]: the usual sign of radians, as wetting.surface_energy asks
+            warnings.warn(f"surface {self.name!r}: every contact angle is at most {math.pi:.4f} deg; were they given in "
+                          "radians? Angles are in degrees (a superhydrophilic coating can measure this little: then "
+                          "the angles are used as given)", WetboilWarning, stacklevel=_stacklevel())
         if self.angles_are == "apparent" and self.roughness_ratio != 1.0:
             warnings.warn(f"surface {self.name!r}: roughness_ratio = {self.roughness_ratio:g} is not applied: the "
                           "angles are 'apparent' (measured on this surface, roughness included); for angles measured "
