@@ -844,3 +844,34 @@ def test_curve_flags_the_flat_plate_minimum_on_a_body(water):
         warnings.simplefilter("error")
         curve(water, dts, **kw)
         curve(water, dts, **dict(kw, geometry="small_flat_plate", size=0.035))
+
+
+@pytest.mark.parametrize("p, dT, documented", [
+    (101325.0, 300.0, -0.14),   # the branch runs low at 1 atm
+    (1.0e7, 300.0, +0.38),      # and high towards the critical point
+    (1.5e7, 100.0, +0.55),
+    (1.5e7, 300.0, +0.90),
+])
+def test_curve_film_branch_error_of_saturated_vapour_is_documented_both_ways(p, dT, documented):
+    # Reference library: CoolProp (IAPWS-95 and the IAPWS transport releases), vapour at the film
+    # temperature (T_w + T_sat)/2, the temperature `film_boiling` recommends. `curve` builds its film
+    # branch from the saturated vapour of the one state it is given; its docstring used to say only
+    # that the branch runs low (true at 1 atm), while towards the critical point the saturated vapour's
+    # cp_v makes it run high, the unsafe side for a wall temperature in film boiling.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    sat = wetboil.fluids.water(p=p)
+    Tf = sat.T + dT / 2.0
+    film_state = sat.replace(
+        rho_v=CP.PropsSI("D", "T", Tf, "P", p, "Water"), cp_v=CP.PropsSI("C", "T", Tf, "P", p, "Water"),
+        k_v=CP.PropsSI("L", "T", Tf, "P", p, "Water"), mu_v=CP.PropsSI("V", "T", Tf, "P", p, "Water"),
+    )
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.RangeWarning)
+        branch = float(curve(sat, np.array([dT]), natural_convection_coefficient=1000.0)["film"][0])
+    error = branch / float(film_boiling(dT, film_state, "flat_plate")) - 1.0
+    assert error == pytest.approx(documented, abs=0.006)
+    doc = " ".join(curve.__doc__.split())
+    if documented > 0:
+        assert "runs high" in doc and f"+{round(100 * documented)} %" in doc
+    else:
+        assert "runs low" in doc and f"{round(-100 * documented)} % at 300 K" in doc

@@ -1119,11 +1119,32 @@ def curve(
        a `RangeWarning` says so (Lienhard & Wong, J. Heat Transfer 86 (1964)
        220-226, found flat-plate predictions inapplicable to small wires). It uses
        the vapour properties of the one saturated state given, where
-       `film_boiling` recommends them at the film temperature; at large
-       superheat the branch runs low (water at 1 atm, flat plate: 5 % at
-       100 K, 14 % at 300 K, 24 % at 600 K against CoolProp steam at
-       :math:`(T_w + T_{sat})/2` [D]). For the film regime
-       itself call `film_boiling` with a state at the film temperature.
+       `film_boiling` recommends them at the film temperature. At low
+       reduced pressure the branch runs low (water at 1 atm, flat plate: 5 %
+       at 100 K, 14 % at 300 K, 24 % at 600 K against CoolProp steam at
+       :math:`(T_w + T_{sat})/2` [D]); towards the critical point it runs
+       high, because the saturated vapour's :math:`c_{pv}` grows far above
+       the film's: water at 10 MPa +23 % at 100 K and +38 % at 300 K, at
+       15 MPa +55 % and +90 %; nitrogen at 3 MPa (:math:`p/p_{crit}` = 0.89)
+       +110 % at 50 K [D, same comparison]. High is the unsafe side: at a
+       given film-boiling flux the wall superheat comes out too small, and so
+       does the Leidenfrost superheat (water at 15 MPa: 434 K here, 884 K
+       with the vapour at the film temperature; nitrogen at 3 MPa: 38 K
+       against 93 K [D]). For the film regime itself call `film_boiling`
+       with a state at the film temperature.
+
+    Wettability enters the curve through the CHF (Kandlikar's receding
+    angle) and an onset criterion that uses an angle (``onset="hsu"``)
+    only. The minimum heat flux, the Leidenfrost point, the transition line
+    and the film branch are the hydrodynamic forms, the same at every angle,
+    although measured Leidenfrost points and transition boiling move with
+    the wettability [from memory: Ramilison & Lienhard, J. Heat Transfer
+    109 (1987); Vakarelski et al., Nature 489 (2012), vapour layers kept on
+    superhydrophobic spheres]. Radiation across the film is off by default
+    (``emissivity=0``): it adds a growing share at large superheats (water at
+    1 atm on a plate facing up, emissivity 0.8: +13 % at 300 K and +59 %
+    at 800 K [D]), so give the wall's emissivity for a curve past a few
+    hundred kelvin.
 
     Parameters
     ----------
