@@ -90,6 +90,8 @@ class errstate:
         computed): ignore, emit one `RangeWarning` per call (default), or raise
         `OutOfRangeError`.
 
+    Notes
+    -----
     The setting is per thread and per asyncio task (a context variable). A
     lazy (dask-backed) result keeps the setting of the call that built it,
     whenever and wherever it is computed; its warnings come at compute time,

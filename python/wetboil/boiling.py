@@ -192,7 +192,7 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = None, n: Any = 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Heat flux [W/m2].
 
     Notes
@@ -247,7 +247,7 @@ def rohsenow_superheat(heat_flux: Any, fluid: Saturation, C_sf: Any = None, n: A
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Wall superheat [K].
 
     References
@@ -298,7 +298,7 @@ def cooper(wall_superheat: Any, fluid: Saturation, roughness_Rp: Any = 1e-6) -> 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Heat flux [W/m2].
 
     Notes
@@ -343,7 +343,7 @@ def cooper_superheat(heat_flux: Any, fluid: Saturation, roughness_Rp: Any = 1e-6
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Wall superheat [K].
 
     References
@@ -543,7 +543,7 @@ def natural_convection(
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Heat flux [W/m2]; a Rayleigh number outside the correlation's range
         (1e4-1e11 for the horizontal plate, 1e-1-1e12 for the vertical one,
         1e-5-1e12 for the cylinder, up to 1e11 with Pr >= 0.7 for the sphere)
@@ -668,7 +668,7 @@ def film_boiling(
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Heat flux [W/m2]. Valid only above the minimum heat flux
         (`wetboil.chf.minimum_heat_flux`), which is not checked here.
 

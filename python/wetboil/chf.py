@@ -86,7 +86,7 @@ def zuber(fluid: Saturation, K: Any = ZUBER_K, g: Any = G) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Critical heat flux [W/m2].
 
     Notes
@@ -148,7 +148,7 @@ def kandlikar(receding_angle_deg: Any, fluid: Saturation, orientation_deg: Any =
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Critical heat flux [W/m2].
 
     Notes
@@ -215,9 +215,36 @@ def dimensionless_size(size: Any, fluid: Saturation, g: Any = G) -> Any:
     r"""Dimensionless heater size :math:`L' = L\,[g(\rho_l-\rho_v)/\sigma]^{1/2}` [-],
     the heater size over the capillary length (Lienhard & Dhir's L', R').
 
-    A negative size, ``sigma <= 0``, ``g <= 0`` or ``rho_l <= rho_v`` is
-    impossible: NaN and one `InvalidValueWarning` per call, as everywhere.
+    Parameters
+    ----------
+    size : array_like
+        Heater size L [m], >= 0: the width of a plate, the radius of a
+        cylinder or sphere (as `lienhard_dhir` takes it).
+    fluid : Saturation
+        Saturated state; uses ``sigma``, ``rho_l``, ``rho_v``.
+    g : array_like, optional
+        Acceleration [m/s2]; standard gravity by default.
 
+    Returns
+    -------
+    float, ndarray, DataArray or Series
+        Dimensionless size L' [-].
+
+    Notes
+    -----
+    A definition, with no validity range of its own: each CHF form of
+    `lienhard_dhir` states the L' (or R') it holds for. A negative size,
+    ``sigma <= 0``, ``g <= 0`` or ``rho_l <= rho_v`` is impossible: NaN and
+    one `InvalidValueWarning` per call, as everywhere.
+
+    References
+    ----------
+    .. [1] J.H. Lienhard, V.K. Dhir, "Hydrodynamic prediction of peak
+       pool-boiling heat fluxes from finite bodies", J. Heat Transfer 95
+       (1973) 152-158, doi:10.1115/1.3450013.
+
+    Examples
+    --------
     >>> from wetboil.fluids import Saturation
     >>> from wetboil.chf import dimensionless_size
     >>> w = Saturation(T=373.15, p=101325.0, rho_l=957.9, rho_v=0.5955, h_lv=2257e3, sigma=58.9e-3)
@@ -269,7 +296,7 @@ def lienhard_dhir(
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Critical heat flux [W/m2]. Sizes outside the published range are
         computed and flagged (`RangeWarning`).
 
@@ -364,7 +391,7 @@ def minimum_heat_flux(fluid: Saturation, method: str = "berenson", g: Any = G) -
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Minimum heat flux [W/m2].
 
     Notes

@@ -91,7 +91,7 @@ def fritz(contact_angle_deg: Any, fluid: Saturation, g: Any = G) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Departure diameter [m].
 
     Notes
@@ -181,7 +181,7 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Departure diameter [m].
 
     Notes
@@ -252,7 +252,7 @@ def kocamustafaogullari_ishii(contact_angle_deg: Any, fluid: Saturation, g: Any 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Departure diameter [m].
 
     Notes
@@ -638,7 +638,7 @@ def frequency(diameter: Any, fluid: Saturation, method: Any = "zuber", g: Any = 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Frequency [Hz].
 
     Raises
@@ -732,7 +732,7 @@ def waiting_time(cavity_radius: Any, wall_superheat: Any, fluid: Saturation, sub
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Waiting time [s]. NaN (not counted as invalid) where
         :math:`\Delta T_w \le \Delta T_e`: the cavity never fires at that
         superheat.
@@ -863,7 +863,7 @@ def diameter(contact_angle_deg: Any, fluid: Saturation, method: Any = "fritz", *
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Departure diameter [m] (a DataArray named ``departure_diameter`` with
         ``units="m"`` for a list of methods).
 

@@ -441,8 +441,8 @@ def water(T: Any = None, p: Any = None) -> Saturation:
         Saturation pressure [Pa], 611.657 Pa (triple point, IAPWS R14-08)
         to 22.064 MPa (critical point).
 
-    Give exactly one of `T` and `p`; numbers, arrays, DataArrays and dask
-    arrays broadcast as everywhere else.
+        Give exactly one of `T` and `p`; numbers, arrays, DataArrays and
+        dask arrays broadcast as everywhere else.
 
     Returns
     -------

@@ -138,7 +138,7 @@ def embryo_superheat(radius: Any, fluid: Saturation, exact: bool = False) -> Any
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Superheat :math:`T_l - T_{sat}(p_l)` [K]. With ``exact=True``, NaN (a
         legitimate "no answer", not counted as invalid) where no liquid
         temperature of the model balances the embryo (nanometre embryos).
@@ -213,7 +213,7 @@ def embryo_radius(superheat: Any, fluid: Saturation) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Radius [m].
 
     References
@@ -256,7 +256,7 @@ def barrier_factor(contact_angle_deg: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         :math:`\Delta G^*_{het}/\Delta G^*_{hom}` [-], in [0, 1].
 
     Notes
@@ -420,7 +420,7 @@ def kinetic_superheat(contact_angle_deg: Any, p: Any, fluid: str = "water", rate
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Wall superheat :math:`T_l - T_{sat}(p)` [K]. NaN (not counted as
         invalid) where the rate is not reached before the metastable liquid
         ceases to exist (the IAPWS-95 spinodal).
@@ -505,7 +505,7 @@ def homogeneous_superheat(p: Any, fluid: str = "water", rate: Any = 1e12) -> Any
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         :math:`T_l - T_{sat}(p)` [K]; NaN where the rate is reached only
         beyond the spinodal.
 
@@ -564,7 +564,7 @@ def traps_vapour(cavity_half_angle_deg: Any, advancing_deg: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         **1.0** where the cavity traps vapour, **0.0** where it floods (floats,
         so that NaN can mark impossible elements and results stay ufunc
         outputs); use ``traps_vapour(...) == 1.0`` for a boolean array.
@@ -775,7 +775,7 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         :math:`T_w - T_{sat}` at onset [K].
 
     Raises
@@ -876,7 +876,7 @@ def onset_cavity_radius(heat_flux: Any, fluid: Saturation, contact_angle_deg: An
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Cavity mouth radius [m].
 
     Raises
@@ -984,7 +984,7 @@ def site_density(wall_superheat: Any, fluid: Saturation, contact_angle_deg: Any,
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Active sites per unit wall area [1/m2].
 
     Raises

@@ -1021,11 +1021,49 @@ def water_chain(p: Any, contact_angle_deg: Any, receding_angle_deg: Any, heat_fl
     too, and the call counts it once. Call the separate functions to keep
     the results that do not depend on the bad input.
 
+    Parameters
+    ----------
+    p : array_like
+        Saturation pressure [Pa], 611.657 Pa to 22.064 MPa.
+    contact_angle_deg : array_like
+        Static contact angle through the liquid [deg], 0 to 180 (Hsu onset,
+        Fritz departure).
+    receding_angle_deg : array_like
+        Receding contact angle [deg], 0 to the static angle (Kandlikar CHF).
+    heat_flux : array_like
+        Wall heat flux [W/m2], >= 0 (Hsu onset).
+    orientation_deg : array_like, optional
+        Heater orientation [deg]: 0 facing up (the default), 90 vertical,
+        180 facing down (Kandlikar CHF).
+    g : array_like, optional
+        Acceleration [m/s2]; standard gravity by default.
+
     Returns
     -------
     WaterChain
         ``T_sat`` [K], ``onset_superheat`` [K], ``departure_diameter`` [m],
         ``critical_heat_flux`` [W/m2].
+
+    Notes
+    -----
+    Each step holds inside its own validity range, and elements outside it
+    are computed and flagged (`RangeWarning`) as by the separate functions:
+    T_sat up to 0.997 T_crit (645.15 K), contact angles up to 90 deg
+    (Fritz), orientations up to 90 deg (Kandlikar; beyond, the CHF is NaN
+    where his form has no answer, as in `wetboil.chf.kandlikar`).
+
+    References
+    ----------
+    .. [1] Y.Y. Hsu, "On the size range of active nucleation cavities on a
+       heating surface", J. Heat Transfer 84 (1962) 207-213,
+       doi:10.1115/1.3684339.
+    .. [2] W. Fritz, "Berechnung des Maximalvolumens von Dampfblasen",
+       Physikalische Zeitschrift 36 (1935) 379-384.
+    .. [3] S.G. Kandlikar, "A theoretical model to predict pool boiling CHF
+       incorporating effects of contact angle and orientation", J. Heat
+       Transfer 123 (2001) 1071-1079, doi:10.1115/1.1409265.
+    .. [4] IAPWS SR1-86(1992), R6-95(2018), R1-76(2014) (see
+       `wetboil.fluids.water`).
 
     Examples
     --------

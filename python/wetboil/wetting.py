@@ -39,7 +39,7 @@ from typing import Any, Dict, List, Mapping, NamedTuple, Tuple
 
 import numpy as np
 
-from ._api import _is_dask, kernel
+from ._api import _is_dask, _is_pandas, _is_xarray, kernel
 from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, report
 from .fluids import Saturation, _is_water
 
@@ -110,7 +110,7 @@ def young_angle(sigma_sv: Any, sigma_sl: Any, sigma_lv: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Contact angle through the liquid [deg]: **0** when the spreading
         coefficient :math:`S = \sigma_{sv}-\sigma_{sl}-\sigma_{lv} \ge 0` (the
         liquid spreads), **180** when :math:`\sigma_{sl}-\sigma_{sv} \ge
@@ -166,7 +166,7 @@ def spreading_coefficient(sigma_sv: Any, sigma_sl: Any, sigma_lv: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Spreading coefficient [N/m].
 
     Notes
@@ -207,7 +207,7 @@ def adhesion_work(sigma_lv: Any, contact_angle_deg: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Work of adhesion per unit area [J/m2]; :math:`2\sigma_{lv}` (the
         work of cohesion) at 0 deg, 0 at 180 deg. At 0 deg this is a lower
         bound: a liquid that spreads has :math:`W_a \ge 2\sigma_{lv}` (the
@@ -256,7 +256,7 @@ def interfacial_tension(sigma_s: Any, sigma_l: Any, phi: Any = 1.0) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Interfacial tension [N/m]. With :math:`\Phi > 1` it may be negative
         (the model then predicts mixing); it is returned as computed.
 
@@ -309,7 +309,7 @@ def owrk_angle(solid_dispersive: Any, solid_polar: Any, liquid_dispersive: Any, 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Contact angle through the liquid [deg]; 0 where the equation gives
         :math:`\cos\theta \ge 1` (the liquid spreads).
 
@@ -357,7 +357,7 @@ def predict_angle(surface: Any, liquid_sigma_dispersive: Any, liquid_sigma_polar
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Contact angle through the liquid [deg] (0 where it spreads).
 
     Notes
@@ -970,8 +970,9 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
 
     Returns
     -------
-    (dispersive, polar) : tuple of float or ndarray
-        Components [N/m].
+    (dispersive, polar) : tuple of float, ndarray, DataArray or Series
+        Components [N/m]; DataArrays and Series named ``sigma_dispersive``
+        and ``sigma_polar``, with ``attrs["units"] = "N/m"``.
 
     Notes
     -----
@@ -998,7 +999,17 @@ def split_surface_tension(sigma_lv: Any, like: str = "water", table: str = "defa
     fd, fp = liquid.dispersive / liquid.total, liquid.polar / liquid.total
     if not _is_dask(s):  # a lazy array is checked by the kernels it reaches
         s = _check_tension("split_surface_tension", s)
-    return s * fd, s * fp
+    return _component(s * fd, "sigma_dispersive"), _component(s * fp, "sigma_polar")
+
+
+def _component(x: Any, name: str) -> Any:
+    """A labelled surface-tension component named after itself with its units, as every kernel's
+    result is (the arithmetic above would keep the total's name, and so label both parts alike)."""
+    if (_is_xarray(x) and hasattr(x, "name")) or (_is_pandas(x) and x.ndim == 1):
+        x = x.rename(name)
+    if _is_xarray(x) or _is_pandas(x):
+        x.attrs = {"units": "N/m"}
+    return x
 
 
 def _check_tension(function: str, s: Any) -> Any:
@@ -1267,7 +1278,7 @@ def wenzel(contact_angle_deg: Any, roughness_ratio: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Apparent angle [deg]. Where :math:`|r\cos\theta| > 1` it
         **saturates** at 0 deg (the texture wicks the liquid: hemi-wicking,
         see `hemiwicking_angle` for the texture's own threshold) or
@@ -1320,7 +1331,7 @@ def cassie_baxter(contact_angle_deg: Any, solid_fraction: Any, roughness_ratio: 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Apparent angle [deg]; saturates at 0 / 180 deg, flagged with
         `RangeWarning` as in `wenzel`. An intrinsic angle below 90 deg with
         ``f < 1`` is flagged too (see Notes).
@@ -1382,7 +1393,7 @@ def hemiwicking_angle(solid_fraction: Any, roughness_ratio: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Critical angle [deg], between 0 (flat, ``r = 1``: only a spreading
         liquid wicks) and 90 (reached only as ``r`` grows without bound: no
         texture makes a hydrophobic material wick).
@@ -1451,7 +1462,7 @@ def impregnated_angle(contact_angle_deg: Any, solid_fraction: Any, roughness_rat
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Apparent angle [deg]: at most the intrinsic angle, 0 where there are
         no tops (``solid_fraction = 0``).
 
@@ -1511,7 +1522,7 @@ def retention_force(sigma_lv: Any, advancing_deg: Any, receding_deg: Any, width:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Retention force [N].
 
     Notes
@@ -1567,7 +1578,7 @@ def sliding_angle(
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Tilt from the horizontal [deg] at which the drop slides; 0 without
         hysteresis. **NaN when the drop never slides** (the retention force
         exceeds its weight, :math:`\sin\alpha > 1`, so it clings even to a
@@ -1620,7 +1631,7 @@ def disjoining_pressure(thickness: Any, hamaker: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Disjoining pressure [Pa].
 
     Notes
@@ -1667,7 +1678,7 @@ def power_law_disjoining_pressure(thickness: Any, coefficient: Any, exponent: An
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Disjoining pressure [Pa].
 
     Notes
@@ -1714,7 +1725,7 @@ def film_thickness(height: Any, hamaker: Any, fluid: Saturation, g: Any = G) -> 
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Film thickness [m]. Results outside 1-20 nm are flagged
         (`RangeWarning`): thicker films, found a few centimetres or less
         above the pool, are weakened by retardation and this formula
@@ -1751,7 +1762,7 @@ def effective_hamaker(hamaker_solid: Any, hamaker_liquid: Any) -> Any:
 
     Returns
     -------
-    float or ndarray or DataArray
+    float, ndarray, DataArray or Series
         Effective constant [J]; negative (a wetting film) when the solid's
         constant exceeds the liquid's.
 
@@ -1824,7 +1835,22 @@ HAMAKER_CONSTANTS: Dict[str, HamakerConstant] = {
 def hamaker_constant(name: str) -> float:
     """A material's Hamaker constant across vacuum [J] from `HAMAKER_CONSTANTS`.
 
-    Raises `WetboilValueError` listing the known names for an unknown one.
+    Parameters
+    ----------
+    name : str
+        Material name (case and repeated spaces are ignored; "hexadecane",
+        "decane" and "pentane" are understood).
+
+    Returns
+    -------
+    float
+        Hamaker constant across vacuum [J] (``HAMAKER_CONSTANTS[name].source``
+        names where the value comes from).
+
+    Raises
+    ------
+    WetboilValueError
+        Unknown material; the message lists the known names.
 
     Examples
     --------
