@@ -304,6 +304,24 @@ def test_contact_angle_enters_through_the_closures(water):
     assert lc == pytest.approx((210 * 10.0) ** 1.805, rel=1e-3)  # Lemmert & Chawla, no angle
 
 
+
+def test_partition_says_when_no_closure_takes_the_angle(water):
+    # RPI's own closures (Lemmert-Chawla sites, Tolubinsky-Kostanchuk diameter, the defaults) have no
+    # angle [definition, Kurul & Podowski 1990]: an array of angles then gave one scalar result with
+    # no word, as if the wettability had been used (new-user typing trial). Angles invented.
+    with pytest.warns(wetboil.WetboilWarning, match=r"contact_angle_deg is not used .*'fritz'"):
+        r = partition(10.0, water, [30.0, 60.0], convection_coefficient=1000.0)
+    assert np.ndim(r.total) == 0
+    with pytest.warns(wetboil.WetboilWarning, match=r"receding_angle_deg is not used .*force_balance"):
+        partition(10.0, water, 30.0, convection_coefficient=1000.0, site_density=2e4, departure="fritz",
+                  receding_angle_deg=20.0)
+    with warnings.catch_warnings(), wetboil.errstate(out_of_range="ignore"):
+        warnings.simplefilter("error", wetboil.WetboilWarning)
+        partition(10.0, water, 30.0, convection_coefficient=1000.0, site_density=2e4, departure="fritz")
+        partition(10.0, water, 30.0, convection_coefficient=1000.0, site_density="wang_dhir")
+        partition(10.0, water, 30.0, convection_coefficient=1000.0, departure=lambda dt, f, a: 1e-3)
+        partition(10.0, water, convection_coefficient=1000.0)
+
 def test_partition_callables_and_errors(water):
     r = partition(5.0, water, 45.0, convection_coefficient=500.0,
                   site_density=lambda dt, fluid, angle: 1e3 * dt,
