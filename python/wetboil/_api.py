@@ -30,7 +30,7 @@ import json
 import math
 import os
 import sys
-from typing import Any, Callable, Dict, Iterator, Mapping, NamedTuple, Optional, Sequence, Tuple, TypeVar
+from typing import Any, Callable, Dict, Iterator, List, Mapping, NamedTuple, Optional, Sequence, Tuple, TypeVar
 
 import numpy as np
 
@@ -82,7 +82,7 @@ def _load_models() -> Dict[str, Model]:
 MODELS: Dict[str, Model] = _load_models()
 
 
-def models() -> list:
+def models() -> List[Model]:
     """Every registered kernel's facts (name, equation, units, domain, validity
     range, reference, DOI, verification status) as a list of `Model` tuples."""
     return list(MODELS.values())

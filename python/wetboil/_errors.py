@@ -7,7 +7,7 @@ import functools
 import sys
 import warnings
 from types import FrameType
-from typing import Any, Callable, Literal, NamedTuple, Optional, Sequence, TypeVar
+from typing import Any, Callable, Dict, Literal, NamedTuple, Optional, Sequence, TypeVar
 
 _F = TypeVar("_F", bound=Callable[..., Any])
 
@@ -71,7 +71,7 @@ class _State(NamedTuple):
 _STATE: contextvars.ContextVar[_State] = contextvars.ContextVar("wetboil_errstate", default=_State("warn", "warn"))
 
 
-def geterr() -> dict:
+def geterr() -> Dict[str, str]:
     """The current element-error policy as ``{"invalid": ..., "out_of_range": ...}``."""
     s = _STATE.get()
     return {"invalid": s.invalid, "out_of_range": s.out_of_range}

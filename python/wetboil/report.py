@@ -555,10 +555,12 @@ def _references(study: Study) -> List[str]:
                     m = by_name[f"{u}_superheat"]
                     refs.append(f"- **{key}: auto ({u})** -- {m.reference}" + (f", doi:{m.doi}" if m.doi else ""))
                 continue
-            m = by_name.get(_METHOD_KERNELS.get((key, v), ""))
-            if m is None:
-                m = next((mm for mm in by_name.values() if v.split("_")[0] in mm.name and key[:3] in mm.name), None)
-            ref = f"{m.reference}" + (f", doi:{m.doi}" if m and m.doi else "") if m else "see wetboil.models()"
+            found = by_name.get(_METHOD_KERNELS.get((key, v), ""))
+            if found is None:
+                found = next((mm for mm in by_name.values() if v.split("_")[0] in mm.name and key[:3] in mm.name),
+                             None)
+            ref = (f"{found.reference}" + (f", doi:{found.doi}" if found.doi else "") if found
+                   else "see wetboil.models()")
             refs.append(f"- **{key}: {v}** -- {ref}")
     refs.append("- **properties** -- " + (by_name["water_saturation_p"].reference if study.fluid.lower() == "water"
                                           else "CoolProp (Bell et al., Ind. Eng. Chem. Res. 53 (2014) 2498-2508)"))
