@@ -672,6 +672,18 @@ def film_boiling(
         Heat flux [W/m2]. Valid only above the minimum heat flux
         (`wetboil.chf.minimum_heat_flux`), which is not checked here.
 
+    Notes
+    -----
+    Bromley's :math:`D^{-1/4}` is not flagged at any diameter, but it holds
+    for tubes of moderate size only: on large tubes it sends the flux
+    towards zero where it tends to the flat plate's, and on thin wires the
+    measured flux rises above it [from memory, unconfirmed: Breen &
+    Westwater, Chem. Eng. Prog. 58 (1962), about 0.8 <= lambda_c/D <= 8
+    with :math:`\lambda_c = 2\pi[\sigma/(g\Delta\rho)]^{1/2}`]. Water at
+    1 atm, 300 K: 19.2 kW/m2 on a 0.5 m cylinder against 49.5 kW/m2 on a
+    plate [D]. Radiation is off unless ``emissivity`` is given; it adds a
+    growing share at large superheats.
+
     References
     ----------
     .. [1] L.A. Bromley, "Heat transfer in stable film boiling", Chem. Eng.
