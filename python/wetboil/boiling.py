@@ -390,7 +390,10 @@ SURFACE_CONSTANTS: Tuple[SurfaceConstant, ...] = (
     SurfaceConstant("water", "copper, scored", 0.0068, 1.0, _CENGEL, ""),
     SurfaceConstant("water", "stainless steel, mechanically polished", 0.0130, 1.0, _CENGEL, ""),
     SurfaceConstant("water", "stainless steel, mechanically polished", 0.0132, 1.0, _KREITH, "[V2]: transcription of the example"),
-    SurfaceConstant("water", "stainless steel, ground and polished", 0.0060, 1.0, _CENGEL, ""),
+    SurfaceConstant("water", "stainless steel, ground and polished", 0.0060, 1.0, _CENGEL,
+                    "other tables give 0.0080 for this pair, after Vachon, Nix & Tanger (1968) [from memory, "
+                    "original not read], a third higher, and so the superheat at a given heat flux; prefer a C_sf "
+                    "fitted to your own surface"),
     SurfaceConstant("water", "stainless steel, PTFE pitted", 0.0058, 1.0, _CENGEL, "tabulated under a trade name"),
     SurfaceConstant("water", "stainless steel, chemically etched", 0.0130, 1.0, _CENGEL, ""),
     SurfaceConstant("water", "brass", 0.0060, 1.0, _CENGEL, ""),
