@@ -1144,6 +1144,18 @@ def test_angles_that_look_like_radians_are_questioned():
         Surface("b (invented)", 0.0, 0.0, 0.0)
         Surface("p (invented)", probe_static_deg={"water": 3.0, "diiodomethane": 40.0})
 
+
+def test_roughness_and_cavity_radius_in_micrometres_are_refused():
+    # Cooper's Rp of real boiling surfaces is 0.01-20 um and active cavities are microns to tens of
+    # microns [common practice, from memory]: 1.5 typed for 1.5 um read as 1.5 m and ran with only
+    # Cooper's range flag (new-user CLI trial). Values invented.
+    with pytest.raises(wetboil.WetboilValueError, match=r"Rp = 1.5 m is above 1 mm; was it given in micrometres"):
+        Surface("r (invented)", 60.0, Rp=1.5)
+    with pytest.raises(wetboil.WetboilValueError, match=r"cavity_radius = 5 m is above 1 mm"):
+        Surface("r (invented)", 60.0, cavity_radius=5.0)
+    s = Surface("r (invented)", 60.0, Rp=1.5e-6, cavity_radius=5e-6)
+    assert (s.Rp, s.cavity_radius) == (1.5e-6, 5e-6)
+
 def test_predicted_angles_out_of_order_are_flagged():
     # [definition] advancing >= static >= receding for the working fluid's angles. Each probe set in
     # order (angles invented) does not make the predicted ones so: with water and formamide (van Oss,

@@ -65,6 +65,20 @@ def _number(owner: str, key: str, value: Any, lo: float = -math.inf, hi: float =
     return v
 
 
+#: Largest roughness or cavity radius [m] a surface takes: 1 mm. Cooper's Rp of real boiling surfaces
+#: is 0.01-20 um and active cavities are microns to tens of microns [common practice]; a value in
+#: micrometres typed as metres (1.5 for 1.5 um) reads as metres and would pass every model silently
+#: or with a range flag only.
+_LENGTH_MAX = 1e-3
+
+
+def _micrometres(owner: str, key: str, v: Optional[float]) -> Optional[float]:
+    if v is not None and v > _LENGTH_MAX:
+        raise _error(WetboilValueError, owner, f"{key} = {v:g} m is above 1 mm; was it given in micrometres? It is "
+                     f"in metres ({v:g} um is {v * 1e-6:g} m)", key)
+    return v
+
+
 class Surface:
     """A named surface treatment.
 
@@ -105,7 +119,8 @@ class Surface:
         them as apparent angles.
     Rp : float
         Cooper's surface roughness parameter [m] (default 1 um, Cooper's
-        value when unknown).
+        value when unknown); above 1 mm it is refused as a value given in
+        micrometres.
     C_sf, n : float, optional
         Rohsenow's surface-liquid constant and Prandtl exponent, where known:
         a fitted pair (give the n that C_sf was fitted with). Without n, the
@@ -114,7 +129,8 @@ class Surface:
         `WetboilWarning` says so): files written before n became optional
         carry n = 1.0 for every surface.
     cavity_radius : float, optional
-        Typical cavity mouth radius [m], where known.
+        Typical cavity mouth radius [m], where known; above 1 mm refused, as
+        ``Rp``.
     cavity_half_angle_deg : float, optional
         Typical conical cavity half-angle [deg], where known (vapour trapping).
     probe_static_deg, probe_advancing_deg, probe_receding_deg : mapping, optional
@@ -160,10 +176,11 @@ class Surface:
         self.angles_are = angles_are
         self.roughness_ratio = _number(self.name, "roughness_ratio", roughness_ratio, 1.0)
         self.solid_fraction = _number(self.name, "solid_fraction", solid_fraction, 0.0, 1.0, lo_open=True)
-        self.Rp = _number(self.name, "Rp", Rp, 0.0, lo_open=True)
+        self.Rp = _micrometres(self.name, "Rp", _number(self.name, "Rp", Rp, 0.0, lo_open=True))
         self.C_sf = _number(self.name, "C_sf", C_sf, 0.0, lo_open=True)
         self.n = _number(self.name, "n", n, 0.0, lo_open=True)
-        self.cavity_radius = _number(self.name, "cavity_radius", cavity_radius, 0.0, lo_open=True)
+        self.cavity_radius = _micrometres(self.name, "cavity_radius",
+                                          _number(self.name, "cavity_radius", cavity_radius, 0.0, lo_open=True))
         self.cavity_half_angle_deg = _number(self.name, "cavity_half_angle_deg", cavity_half_angle_deg, 0.0, 90.0, lo_open=True)
         self.probe_static_deg = self._probe("probe_static_deg", probe_static_deg)
         self.probe_advancing_deg = self._probe("probe_advancing_deg", probe_advancing_deg)
