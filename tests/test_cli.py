@@ -4,6 +4,7 @@ a user would (subprocesses), with their files checked."""
 import pathlib
 import subprocess
 import sys
+import warnings
 
 import pytest
 
@@ -629,3 +630,21 @@ def test_an_output_folder_that_cannot_be_written_is_a_one_line_error(tmp_path, c
     assert cli.main(["demo", "--out", str(out)]) == 1
     err = capsys.readouterr().err
     assert f"{out}: cannot write into the output folder (Permission denied)" in err and ".partial" not in err
+
+
+
+def test_design_heat_fluxes_in_kw_per_m2_are_questioned(tmp_path):
+    """Design heat fluxes of nucleate boiling are 1e4-1e6 W/m2 [common practice]: 300 typed for
+    300 kW/m2 ran with a CHF margin of 4428 and no flag (new-user CLI trial). Every flux below
+    1 kW/m2 is questioned, naming the line; the study goes on."""
+    from wetboil.report import load_spec
+
+    path = tmp_path / "s.toml"
+    path.write_text('[study]\npressures_Pa = [101325.0]\nheat_fluxes_W_m2 = [300.0, 500.0]\n'
+                    '[[surface]]\nname = "a (invented)"\nstatic_deg = 60.0\n')
+    with pytest.warns(wetboil.WetboilWarning, match=r"s.toml:3: .*below 1 kW/m2 .*kW/m2\?"):
+        assert load_spec(path).heat_fluxes == [300.0, 500.0]
+    path.write_text(path.read_text().replace("[300.0, 500.0]", "[300.0, 3e5]"))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        load_spec(path)

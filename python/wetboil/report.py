@@ -53,7 +53,7 @@ from typing import Any, Dict, List, Optional, Tuple
 
 import numpy as np
 
-from ._errors import RangeWarning, WetboilError, WetboilValueError
+from ._errors import RangeWarning, WetboilError, WetboilValueError, WetboilWarning
 from .surface import Surface, _check_utf8, _csv_text, _from_toml, _loads_toml, load_surfaces
 
 __all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION", "RANKING_RULE"]
@@ -157,6 +157,11 @@ def load_spec(path: Any) -> Study:
     fluxes = [float(v) for v in study["heat_fluxes_W_m2"]]
     if any(q <= 0 for q in fluxes):
         raise fail("heat_fluxes_W_m2", "[study] heat_fluxes_W_m2 must be positive", "study")
+    if max(fluxes) < 1e3:  # nucleate boiling design fluxes are 1e4-1e6 W/m2 [common practice]
+        warnings.warn(str(fail("heat_fluxes_W_m2", f"[study] every design heat flux is below 1 kW/m2 (largest "
+                                                   f"{max(fluxes):g} W/m2); were they given in kW/m2? They are in "
+                                                   "W/m2 (the study goes on with them as given)", "study")),
+                      WetboilWarning, stacklevel=2)
     # a heater's orientation is 0 (facing up) to 180 deg (facing down); a negative subcooling is a
     # superheated pool, which no correlation of the chain describes
     orientations = [float(v) for v in study.get("orientations_deg", [0.0])]
