@@ -976,23 +976,6 @@ def partition(
     [3.4, 56.7, 18.4, 78.6]
     """
     need_saturation("boiling.partition", fluid)
-    # an angle no chosen closure takes would drop the surface's wettability without a word (RPI's own
-    # closures, the defaults, have none); a callable closure is given the angle and may use it
-    named = lambda c, names: isinstance(c, str) and c in names  # noqa: E731  (a closure may be an array)
-    uses_angle = (callable(site_density) or named(site_density, ("wang_dhir", "basu", "hibiki_ishii"))
-                  or callable(departure) or named(departure, ("fritz", "fritz_jakob", "kocamustafaogullari_ishii",
-                                                              "force_balance")))
-    hints = {"contact_angle_deg": (uses_angle, "an angle-dependent site density ('wang_dhir', 'basu', 'hibiki_ishii') "
-                                               "or departure diameter ('fritz', 'kocamustafaogullari_ishii', "
-                                               "'force_balance') takes it"),
-             "receding_angle_deg": (callable(departure) or named(departure, ("force_balance",)),
-                                    "only departure='force_balance' takes it")}
-    for name, given in (("contact_angle_deg", contact_angle_deg), ("receding_angle_deg", receding_angle_deg)):
-        used, hint = hints[name]
-        if given is not None and not used:
-            warnings.warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
-                          f"{site_density!r}, departure={departure!r}): {hint}", WetboilWarning,
-                          stacklevel=_stacklevel())
     n_a = _site_density(site_density, wall_superheat, fluid, contact_angle_deg)
     d = _departure(departure, wall_superheat, fluid, contact_angle_deg, receding_angle_deg, subcooling, g)
     f = _frequency(frequency, d, fluid, g)
@@ -1005,6 +988,24 @@ def partition(
             k = 4.8 * np.exp(-ja / 80.0) if not isinstance(ja, float) else 4.8 * math.exp(-ja / 80.0)
     else:
         k = area_factor
+    # an angle no chosen closure takes would drop the surface's wettability without a word (RPI's own
+    # closures, the defaults, have none); a callable closure is given the angle and may use it
+    named = lambda c, names: isinstance(c, str) and c in names  # noqa: E731  (a closure may be an array)
+    uses_angle = (callable(site_density) or named(site_density, ("wang_dhir", "basu", "hibiki_ishii"))
+                  or callable(departure) or named(departure, ("fritz", "fritz_jakob", "kocamustafaogullari_ishii",
+                                                              "force_balance")))
+    hints = {"contact_angle_deg": (uses_angle, "an angle-dependent site density ('wang_dhir', 'basu', 'hibiki_ishii') "
+                                               "or departure diameter ('fritz', 'kocamustafaogullari_ishii', "
+                                               "'force_balance') takes it"),
+             "receding_angle_deg": (callable(departure) or named(departure, ("force_balance",)),
+                                    "only departure='force_balance' takes it")}
+    label = lambda c: repr(c) if isinstance(c, str) else "given values"  # noqa: E731
+    for name, given in (("contact_angle_deg", contact_angle_deg), ("receding_angle_deg", receding_angle_deg)):
+        used, hint = hints[name]
+        if given is not None and not used:
+            warnings.warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
+                          f"{label(site_density)}, departure={label(departure)}): {hint}", WetboilWarning,
+                          stacklevel=_stacklevel())
     out = _rpi_kernel(n_a, d, f, wall_superheat, subcooling, convection_coefficient, k, fluid)
     e, qq, c, total, area = out
     return Partition(e, qq, c, total, area, n_a, d, f)
