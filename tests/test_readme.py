@@ -37,3 +37,15 @@ def test_two_commands_and_ci():
     assert "bash tools/test.sh" in (ROOT / ".ci" / "run").read_text()
     flat = " ".join(README.split())
     assert "## Cautions" in README and "licensed engineering practice" in flat and "safety factor" in flat
+
+
+def test_setup_names_the_versions_the_build_needs():
+    # A fresh machine needs what pyproject.toml (requires-python) and Cargo.toml (rust-version) demand;
+    # a distribution's older python3 or cargo fails inside tools/setup.sh, so the README's set-up
+    # paragraph must name both minimum versions (the project's own files are the source here).
+    top = " ".join(README.split("## Cautions")[0].split())
+    py = re.search(r'requires-python\s*=\s*">=([\d.]+)"', (ROOT / "pyproject.toml").read_text()).group(1)
+    rust = re.search(r'rust-version\s*=\s*"([\d.]+)"', (ROOT / "Cargo.toml").read_text()).group(1)
+    assert f"Python {py} or newer" in top
+    assert f"Rust {rust} or newer" in top
+    assert "PYTHON=" in top and "PYTHON" in (ROOT / "tools" / "setup.sh").read_text()
