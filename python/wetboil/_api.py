@@ -404,6 +404,15 @@ def _grid_worthy(arrays: Sequence[Any]) -> Optional[Tuple[int, ...]]:
     """The broadcast shape when a call should take the grid path: large, and
     NumPy would otherwise buffer it (array-to-array broadcasting, casting,
     byte swapping, non-contiguous data), which rules out threads."""
+    bound = 1  # the product of the sizes bounds the broadcast size: most calls stop here, in well under 1 us
+    for a in arrays:
+        if type(a) is np.ndarray:
+            bound *= a.size
+        elif type(a) is not float and type(a) is not int:
+            bound = GRID_MIN
+            break
+    if bound < GRID_MIN:
+        return None
     shapes = [_shape(a) for a in arrays]
     shape = _broadcast_shape(shapes)
     if math.prod(shape) < GRID_MIN:
@@ -520,8 +529,11 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
     else:
         uf = getattr(_core, name)
         _core.take_counts()  # discard counts of direct ufunc calls made earlier
-        with np.errstate(all="ignore"):  # our own policy reports NaNs, not NumPy's FP flags
-            outs = uf(*arrays)
+        if all(type(a) is float or type(a) is np.ndarray and a.dtype == np.float64 for a in arrays):
+            outs = uf(*arrays)  # no cast, and the loops leave the FP flags as they found them (ufunc.rs)
+        else:
+            with np.errstate(all="ignore"):  # our own policy reports NaNs, not the flags of NumPy's casts
+                outs = uf(*arrays)
         invalid, out_of_range = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
@@ -570,38 +582,37 @@ class _Spec(NamedTuple):
     fill: Optional[Callable[[Tuple[Any, ...]], Tuple[Any, ...]]] = None  # see `kernel`
 
 
-def _not_given() -> float:
-    from .fluids import NOT_GIVEN
-
-    return NOT_GIVEN
+def _fluids() -> Any:
+    """The `wetboil.fluids` module (it imports this one, so it is looked up, not imported at the top:
+    a dictionary lookup instead of an import statement in every call, and right after a reload)."""
+    mod = sys.modules.get(__package__ + ".fluids")
+    if mod is None:
+        from . import fluids as mod
+    return mod
 
 
 def _saturation_type() -> type:
-    """`wetboil.fluids.Saturation` (fluids imports this module, so it is looked up, not imported at the
-    top; a dictionary lookup instead of an import statement in every call, and right after a reload)."""
-    mod = sys.modules.get(__package__ + ".fluids")
-    if mod is None:
-        from . import fluids
-
-        return fluids.Saturation
-    return mod.Saturation
+    """`wetboil.fluids.Saturation`, looked up as `_fluids` says."""
+    return _fluids().Saturation
 
 
 def _gather(spec: _Spec, args: Sequence[Any]) -> list:
     """The kernel inputs of a call, checked and coerced, in kernel order."""
     inputs, missing = [], []
+    fluids = _fluids()  # once per call: the array path's fixed cost is paid by every call
+    saturation, not_given = fluids.Saturation, fluids.NOT_GIVEN
     for (ai, field), label in zip(spec.plan, spec.labels):
         a = args[ai]
         if field:
-            if not isinstance(a, _saturation_type()):
+            if not isinstance(a, saturation):
                 raise WetboilTypeError(
                     f"{spec.function}: {spec.params[ai]} must be a wetboil.fluids.Saturation "
                     f"(for example wetboil.fluids.water(p=101325.0)), got {type(a).__name__}"
                 )
             a = getattr(a, field)
-            if a is _not_given():  # the constructor's default (Saturation._not_given), per field here
+            if a is not_given:  # the constructor's default (Saturation._not_given), per field here
                 missing.append(label)
-        inputs.append(_coerce(spec.function, label, a))
+        inputs.append(a if type(a) is float else _coerce(spec.function, label, a))
     if missing:
         from ._errors import WetboilWarning, _warn
 
