@@ -292,3 +292,44 @@ def test_fork_after_the_pool_has_run_neither_hangs_nor_miscomputes():
     r = subprocess.run([sys.executable, "-W", "ignore::DeprecationWarning", "-c", FORK_CHILD],
                        capture_output=True, text=True, timeout=400, env=env)
     assert r.returncode == 0 and "fork ok" in r.stdout, (r.returncode, r.stdout[-2000:], r.stderr[-3000:])
+
+
+def test_sweeps_in_threads_leave_the_process_warning_filters_alone():
+    """Sweeps run from several threads at once, each with a pressure beyond
+    the critical point (a state the sweep explains with a look at other
+    units), give every thread its own one warning per call, and leave the
+    process-wide warning filters as they were. The look used to silence its
+    own warnings with `warnings.catch_warnings`, which swaps the module's
+    global filter list and "is not thread-safe" (Python documentation,
+    `warnings` module, "Temporarily Suppressing Warnings" / catch_warnings);
+    interleaved, the threads left "ignore WetboilWarning" installed for the
+    whole process: later RangeWarnings and InvalidValueWarnings, on any
+    thread, never came."""
+    surfaces = [wetboil.Surface("a (invented)", 70.0, 80.0, 40.0), wetboil.Surface("b (invented)", 20.0, 30.0, 10.0)]
+    n_threads, calls = 4, 25
+    barrier = threading.Barrier(n_threads)
+
+    def work() -> None:
+        barrier.wait()
+        for _ in range(calls):
+            # 2.3e7 Pa: above water's critical pressure 22.064 MPa (IAPWS R6-95(2018)), no saturated state
+            wetboil.sweep(surfaces, "water", p=[1e5, 2.3e7], heat_flux=1e5)
+
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        work_once = wetboil.sweep(surfaces, "water", p=[1e5, 2.3e7], heat_flux=1e5)  # first imports add filters
+    assert int(work_once["invalid_flags"].sel(p=2.3e7).min()) != 0
+    with warnings.catch_warnings(record=True) as seen:
+        warnings.simplefilter("always")
+        before = list(warnings.filters)
+        threads = [threading.Thread(target=work) for _ in range(n_threads)]
+        for t in threads:
+            t.start()
+        for t in threads:
+            t.join()
+        after = list(warnings.filters)
+        with wetboil.errstate(invalid="warn"):
+            wetboil.departure.fritz(200.0, wetboil.fluids.water(p=101325.0))  # an impossible angle, afterwards
+    assert after == before
+    invalid = [w for w in seen if issubclass(w.category, wetboil.InvalidValueWarning)]
+    assert len(invalid) == n_threads * calls + 1, len(invalid)

@@ -998,6 +998,11 @@ def test_lazy_sweep_keeps_the_strict_policy_of_the_call_that_built_it():
     (dict(heat_flux=1e5, orientation_deg=[-10.0]), "orientation_deg must lie in 0-180"),
     (dict(heat_flux=1e5, orientation_deg=[0.0, 200.0]), "orientation_deg must lie in 0-180"),
     (dict(heat_flux=1e5, subcooling=[0.0, -5.0]), "subcooling must be zero or positive"),
+    # as the study spec's "[study] ... must hold finite numbers": a blank cell read as NaN gave rows of NaN
+    # with no flag, and an infinite flux a CHF margin of exactly 0
+    (dict(heat_flux=[1e5, np.nan]), r"heat_flux must be positive and finite \[W/m2\], got nan"),
+    (dict(heat_flux=[np.inf]), r"heat_flux must be positive and finite \[W/m2\], got inf"),
+    (dict(heat_flux=1e5, subcooling=[0.0, np.nan]), "subcooling must be zero or positive and finite"),
 ])
 def test_sweep_refuses_axis_values_the_study_spec_refuses(kw, message):
     """Behavioural contract (no outside value): a mistyped axis raises, as `wetboil run` refuses it in a
@@ -1212,3 +1217,29 @@ def test_screen_takes_fluid_properties_as_sweep_does():
     ref = wetboil.screen(surf, "water", p=1e5, heat_flux=1e5)
     assert df["chf [W/m2]"].tolist() == pytest.approx(ref["chf [W/m2]"].tolist(), rel=1e-12)
     assert df.attrs["fluid_properties_given"] == f"sigma = {sigma!r} N/m"
+
+
+def test_dataset_metadata_follows_cf_and_survives_netcdf(tmp_path):
+    """The Dataset's metadata as the CF conventions (version 1.12) have it,
+    kept through a netCDF file: the bit masks carry ``flag_masks`` and
+    ``flag_meanings`` (section 3.5, "Flags": bit i of the mask <-> the i-th
+    space-separated meaning), the dimensionless CHF margin has units "1"
+    (the unit of dimensionless quantities in UDUNITS and in the CF standard
+    name table; "-" is no unit UDUNITS parses; from memory), and every
+    coordinate has a long_name. The ranked table keeps "[-]" in its labels."""
+    ds = wetboil.sweep(SURFACES[:2], "water", p=[1e5, 2.3e7], heat_flux=[3e5, 5e6], orientation_deg=[0.0, 120.0])
+    nc = tmp_path / "sweep.nc"
+    ds.to_netcdf(nc)
+    back = xr.load_dataset(nc)
+    assert back["chf_margin"].attrs["units"] == "1"
+    for name in ("surface", "p", "heat_flux", "orientation", "subcooling"):
+        assert back[name].attrs["long_name"], name
+    for flags in ("range_flags", "invalid_flags"):
+        attrs = back[flags].attrs
+        masks, meanings = np.asarray(attrs["flag_masks"]), attrs["flag_meanings"].split(" ")
+        assert meanings == attrs["bits"].split(",") and len(masks) == len(meanings)
+        values = back[flags].values.ravel()
+        assert values.any()  # above the critical pressure, above CHF, facing down: some of each
+        decoded = [{m for mask, m in zip(masks, meanings) if v & mask} for v in values]
+        assert decoded == [{m for i, m in enumerate(meanings) if v >> i & 1} for v in values]
+    assert "chf_margin [-]" in wetboil.screen(SURFACES[:2], "water", heat_flux=3e5, p=1e5).columns

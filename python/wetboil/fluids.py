@@ -10,7 +10,6 @@ from __future__ import annotations
 
 import contextvars
 import math
-import warnings
 from typing import Any, Optional
 
 import numpy as np
@@ -604,7 +603,7 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     >>> round(r.p / 1e3, 1), r.name
     (292.8, 'R134a')
     """
-    from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, report
+    from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, report
 
     try:
         import CoolProp.CoolProp as CP
@@ -708,20 +707,18 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         absent = [f for f in FIELDS[:12] if np.isnan(out[f][have_state]).all()]
         no_model = [f for f in absent if f in _coolprop_no_model(name)]
         if set(no_model) - supplied:
-            warnings.warn(f"fluids.from_coolprop: CoolProp has no {', '.join(f for f in no_model if f not in supplied)} "
-                          f"for {name!r}: NaN in those fields, and in every result that needs them (set them with "
-                          f".replace(), or give them to sweep or screen as fluid_properties)",
-                          WetboilWarning, stacklevel=_stacklevel())
+            _warn(f"fluids.from_coolprop: CoolProp has no {', '.join(f for f in no_model if f not in supplied)} "
+                  f"for {name!r}: NaN in those fields, and in every result that needs them (set them with "
+                  f".replace(), or give them to sweep or screen as fluid_properties)", WetboilWarning)
         # a model that fails at some states only (surface tension close to the critical point, say)
         gaps = {f: int(np.isnan(out[f][have_state]).sum()) for f in FIELDS[:12]
                 if f not in no_model and f not in supplied}
         gaps = {f: k for f, k in gaps.items() if k}
         if gaps:
             n_state = int(have_state.sum())
-            warnings.warn(f"fluids.from_coolprop: CoolProp gave no "
-                          f"{', '.join(f'{f} at {k} of {n_state}' for f, k in gaps.items())} saturated state(s) of "
-                          f"{name!r}: NaN there, and in every result that needs them", WetboilWarning,
-                          stacklevel=_stacklevel())
+            _warn(f"fluids.from_coolprop: CoolProp gave no "
+                  f"{', '.join(f'{f} at {k} of {n_state}' for f, k in gaps.items())} saturated state(s) of "
+                  f"{name!r}: NaN there, and in every result that needs them", WetboilWarning)
     fields: dict = {}
     for f in FIELDS[:12]:
         v = out[f]

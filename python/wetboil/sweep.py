@@ -22,14 +22,13 @@ so that a result table can say which rows are extrapolations.
 from __future__ import annotations
 
 import math
-import warnings
 from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
 
 import numpy as np
 
 from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
-from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
+from ._errors import _GATHER, _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
 from .fluids import _SUPPLIED, FIELDS, UNITS, Saturation, from_coolprop, water
 from .surface import Surface
 
@@ -75,7 +74,7 @@ QUANTITIES: Dict[str, Tuple[str, str]] = {
     "departure_diameter": ("m", "bubble departure diameter"),
     "departure_frequency": ("Hz", "bubble departure frequency"),
     "chf": ("W/m2", "critical heat flux by the first (design) CHF method"),
-    "chf_margin": ("-", "critical heat flux of the design method / design heat flux"),
+    "chf_margin": ("1", "critical heat flux of the design method / design heat flux"),
 }
 
 #: Name of the last flag bit, after the quantities': the saturated state of the
@@ -147,12 +146,19 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
 
     def missing(v: Sequence[float]) -> Any:
         arr = np.asarray(v, dtype=float)
-        with errstate(invalid="ignore", out_of_range="ignore"), warnings.catch_warnings():
-            warnings.simplefilter("ignore", WetboilWarning)  # missing properties: the sweep's own call says so
-            if is_water:
-                s = water(p=arr) if axis == "p" else water(T=arr)
-            else:
-                s = from_coolprop(fluid, p=arr) if axis == "p" else from_coolprop(fluid, T=arr)
+        # missing properties: the sweep's own call says so. Silenced for this thread and task only
+        # (wetboil's warnings gathered and dropped): warnings.catch_warnings swaps the process-wide
+        # filters, so sweeps run from several threads at once left "ignore WetboilWarning" installed
+        # for the whole process (its docs: not thread-safe)
+        token = _GATHER.set([])
+        try:
+            with errstate(invalid="ignore", out_of_range="ignore"):
+                if is_water:
+                    s = water(p=arr) if axis == "p" else water(T=arr)
+                else:
+                    s = from_coolprop(fluid, p=arr) if axis == "p" else from_coolprop(fluid, T=arr)
+        finally:
+            _GATHER.reset(token)
         return np.isnan(np.asarray(s.rho_l)) & ~np.isnan(arr), s
 
     bad, state = missing(values)
@@ -562,9 +568,10 @@ def sweep(
         ``fluid_state`` bit in ``invalid_flags``, and one warning per call
         from the fluid layer (an error under ``errstate(invalid="raise")``).
     heat_flux : array_like
-        Design wall heat fluxes [W/m2] (the ``heat_flux`` axis), positive: a
-        zero or negative design flux is an error (`WetboilValueError`), not
-        a NaN point, since every margin would divide by it.
+        Design wall heat fluxes [W/m2] (the ``heat_flux`` axis), positive and
+        finite: a zero, negative, NaN or infinite design flux is an error
+        (`WetboilValueError`), not a NaN point, since every margin would
+        divide by it.
     orientation_deg : array_like
         Heater orientations [deg], 0 facing up, 90 vertical, 180 facing down
         (``orientation``); a value outside 0-180 (or NaN) raises
@@ -573,8 +580,8 @@ def sweep(
         CHF hold facing up only: at any other orientation they keep the
         facing-up value and are flagged in ``range_flags``.
     subcooling : array_like
-        Bulk liquid subcooling [K] (``subcooling``), >= 0 (a negative value
-        raises `WetboilValueError`). No quantity of the
+        Bulk liquid subcooling [K] (``subcooling``), >= 0 and finite (a
+        negative, NaN or infinite value raises `WetboilValueError`). No quantity of the
         present chain changes with it. For Hsu's active cavity range that is
         physics: it takes the subcooling with a thermal layer
         ``delta = k_l (dT_w + dT_sub) / q`` carrying the design flux, and then
@@ -707,21 +714,27 @@ def sweep(
         "orientation": _axis("orientation", orientation_deg, xr, "orientation_deg"),
         "subcooling": _axis("subcooling", subcooling, xr),
     }
-    if (axes["heat_flux"] <= 0).any():
-        raise WetboilValueError("sweep: heat_flux must be positive")
     # the axes' own values, refused as the study spec refuses them (a mistyped axis, not a point to flag):
-    # a heater faces 0 (up) to 180 deg (down); a negative subcooling is a superheated pool
+    # a heater faces 0 (up) to 180 deg (down); a negative subcooling is a superheated pool; a NaN or
+    # infinite design flux or subcooling (a blank cell read from a sheet) gave unflagged NaN rows, or a
+    # CHF margin of exactly 0
     def offending(values: Any) -> str:  # the bad values only, at most 10 (an axis may hold thousands)
         bad = [f"{v:g}" for v in values]
         return ", ".join(bad[:10]) + (f", ... ({len(bad)} values)" if len(bad) > 10 else "")
+
+    qv = axes["heat_flux"].values
+    if not ((qv > 0) & np.isfinite(qv)).all():
+        raise WetboilValueError(f"sweep: heat_flux must be positive and finite [W/m2], got "
+                                f"{offending(qv[~((qv > 0) & np.isfinite(qv))])}")
 
     o = axes["orientation"].values
     if not ((o >= 0) & (o <= 180)).all():
         raise WetboilValueError(f"sweep: orientation_deg must lie in 0-180 (0 facing up, 90 vertical, 180 facing "
                                 f"down), got {offending(o[~((o >= 0) & (o <= 180))])}")
-    if (axes["subcooling"] < 0).any():
-        s = axes["subcooling"].values
-        raise WetboilValueError(f"sweep: subcooling must be zero or positive [K], got {offending(s[s < 0])}")
+    s = axes["subcooling"].values
+    if not ((s >= 0) & np.isfinite(s)).all():
+        raise WetboilValueError(f"sweep: subcooling must be zero or positive and finite [K], got "
+                                f"{offending(s[~((s >= 0) & np.isfinite(s))])}")
     parts = dict(table)
     parts.update({f"in_{k}": v for k, v in axes.items()})
     for f in FIELDS:
@@ -894,14 +907,27 @@ def _decorate(ds: Any, meth: Dict[str, Any], state_dim: str) -> Any:
     bits.append(STATE_FLAG)  # the last bit: the fluid state of the point itself
     for n in ("invalid_flags", "range_flags"):
         ds[n].attrs["bits"] = ",".join(bits)  # bit i <-> i-th name
+        # the same as CF's bit-field flags (CF conventions section 3.5), which netCDF tools decode
+        # (np.int32: the type of the variable, as CF asks; a list, so that attrs compare with ==)
+        ds[n].attrs["flag_masks"] = [np.int32(1 << i) for i in range(len(bits))]
+        ds[n].attrs["flag_meanings"] = " ".join(bits)
         ds[n].attrs["long_name"] = (
             "quantities that are NaN because an input was impossible (fluid_state: no saturated state at "
             "this pressure or temperature)" if n == "invalid_flags"
             else "quantities computed outside a correlation's published validity range (fluid_state: the "
             "fluid properties themselves)")
-    for axis, unit in (("heat_flux", "W/m2"), ("orientation", "deg"), ("subcooling", "K"), ("p", "Pa"), ("T", "K")):
+    axis_attrs: Tuple[Tuple[str, str, str], ...] = (
+            ("surface", "", "surface treatment"),
+            ("p", "Pa", "saturation pressure"), ("T", "K", "saturation temperature"),
+            ("state", "", "index of the given saturated state"),
+            ("heat_flux", "W/m2", "design wall heat flux"),
+            ("orientation", "deg", "heater orientation (0 facing up, 90 vertical, 180 facing down)"),
+            ("subcooling", "K", "bulk liquid subcooling"))
+    for axis, unit, long_name in axis_attrs:
         if axis in ds.coords:
-            ds[axis].attrs["units"] = unit
+            if unit:
+                ds[axis].attrs["units"] = unit
+            ds[axis].attrs.setdefault("long_name", long_name)
     ds.attrs.update(
         methods=str({k: list(v) if isinstance(v, tuple) else v for k, v in meth.items()}),
         caution="CHF predictions carry correlation uncertainty of tens of percent and hold only inside their "
@@ -977,7 +1003,9 @@ def ranked_table(ds: Any) -> Any:
     df = ds.to_dataframe().reset_index()
     df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
     df["impossible"] = [_flag_text(int(m), bits) for m in df.pop("invalid_flags")]
-    units = {name: ds[name].attrs.get("units", "") for name in ds.data_vars}
+    # a dimensionless quantity is "1" in the Dataset (CF), "-" in the table (an engineer's column label)
+    units = {name: "-" if ds[name].attrs.get("units") == "1" else ds[name].attrs.get("units", "")
+             for name in ds.data_vars}
     units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K"})
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
