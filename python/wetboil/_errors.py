@@ -2,12 +2,13 @@
 
 from __future__ import annotations
 
+import contextlib
 import contextvars
 import functools
 import sys
 import warnings
 from types import FrameType
-from typing import Any, Callable, Dict, Literal, NamedTuple, Optional, Sequence, TypeVar
+from typing import Any, Callable, Dict, Iterator, Literal, NamedTuple, Optional, Sequence, TypeVar
 
 _F = TypeVar("_F", bound=Callable[..., Any])
 
@@ -173,6 +174,21 @@ def _warn(msg: str, category: type) -> None:
         gathered.append((category, msg))
     else:
         warnings.warn(msg, category, stacklevel=_stacklevel())
+
+
+@contextlib.contextmanager
+def dropped_warnings() -> Iterator[None]:
+    """wetboil's own warnings in the block dropped, for this thread and task only.
+
+    `warnings.catch_warnings` swaps the process-wide filter list and is not
+    thread-safe (Python's documentation says so): sweeps run from several
+    threads at once left "ignore WetboilWarning" installed for the whole
+    process. Every wetboil warning goes through `_warn`, which this stops."""
+    token = _GATHER.set([])
+    try:
+        yield
+    finally:
+        _GATHER.reset(token)
 
 
 def _gathered(parts: dict, label: Callable[[str], str], run: Callable[[], Any]) -> Any:

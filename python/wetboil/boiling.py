@@ -24,14 +24,13 @@ only in a secondary source; [M] from memory; [D] derived here.
 from __future__ import annotations
 
 import math
-import warnings
 from typing import Any, Callable, Dict, NamedTuple, Optional, Tuple
 
 import numpy as np
 
 from . import chf as _chf
 from ._api import check_choice, dispatch, kernel, need_saturation
-from ._errors import (WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, errstate,
+from ._errors import (WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate,
                       one_warning_per_category, report)
 from .fluids import Saturation, _is_water
 
@@ -124,11 +123,9 @@ def _default_exponent(fluid: Saturation, function: str) -> float:
     """`rohsenow_exponent` of a state, with a warning when the state has no
     name (the choice of exponent then rests on an assumption)."""
     if fluid.name is None:
-        warnings.warn(
+        _warn(
             f"{function}: the fluid state has no name, so Rohsenow's n = 1.7 (his value for liquids other than "
-            "water) was used; pass n=1.0 for water, or name the state (Saturation(..., name=...))",
-            WetboilWarning, stacklevel=_stacklevel(),
-        )
+            "water) was used; pass n=1.0 for water, or name the state (Saturation(..., name=...))", WetboilWarning)
     return rohsenow_exponent(fluid)
 
 
@@ -140,12 +137,10 @@ def _default_constant(fluid: Saturation, function: str) -> float:
     """`ROHSENOW_C_SF_DEFAULT`, with a warning when the fluid is not water
     (the constant belongs to a surface-liquid pair)."""
     if not _is_water(fluid.name):
-        warnings.warn(
+        _warn(
             f"{function}: no C_sf given, so 0.013 (water on polished copper) was used for "
             f"{repr(fluid.name) if fluid.name is not None else 'an unnamed fluid'}; Rohsenow's C_sf belongs to the surface-liquid pair and the "
-            "superheat is proportional to it: give the constant of your pair (see boiling.SURFACE_CONSTANTS)",
-            WetboilWarning, stacklevel=_stacklevel(),
-        )
+            "superheat is proportional to it: give the constant of your pair (see boiling.SURFACE_CONSTANTS)", WetboilWarning)
     return ROHSENOW_C_SF_DEFAULT
 
 
@@ -1003,9 +998,8 @@ def partition(
     for name, given in (("contact_angle_deg", contact_angle_deg), ("receding_angle_deg", receding_angle_deg)):
         used, hint = hints[name]
         if given is not None and not used:
-            warnings.warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
-                          f"{label(site_density)}, departure={label(departure)}): {hint}", WetboilWarning,
-                          stacklevel=_stacklevel())
+            _warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
+                          f"{label(site_density)}, departure={label(departure)}): {hint}", WetboilWarning)
     out = _rpi_kernel(n_a, d, f, wall_superheat, subcooling, convection_coefficient, k, fluid)
     e, qq, c, total, area = out
     return Partition(e, qq, c, total, area, n_a, d, f)
@@ -1409,8 +1403,7 @@ def curve(
     if receding_angle_deg is not None and chf != "kandlikar":
         # the surface's wettability would drop out of the CHF without a word
         why = " (Kandlikar's, which has one, models a flat heater)" if chf_chosen else ""
-        warnings.warn(f"{fn}: receding_angle_deg is not used: chf='{chf}' has no wettability term{why}",
-                      WetboilWarning, stacklevel=_stacklevel())
+        _warn(f"{fn}: receding_angle_deg is not used: chf='{chf}' has no wettability term{why}", WetboilWarning)
     if chf == "kandlikar":
         if receding_angle_deg is None:
             raise WetboilValueError(f"{fn}: chf='kandlikar' needs receding_angle_deg=...")

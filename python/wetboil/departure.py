@@ -16,13 +16,12 @@ here. The catalogue `wetboil.models()` carries the same facts per kernel.
 from __future__ import annotations
 
 import math
-import warnings
 from typing import Any, Dict, NamedTuple, Sequence, Tuple
 
 import numpy as np
 
 from ._api import check_choice, kernel
-from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, each_method
+from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, each_method
 from .fluids import Saturation, _is_water
 
 __all__ = [
@@ -221,9 +220,9 @@ def cole_rohsenow(fluid: Saturation, g: Any = G, C: Any = None) -> Any:
             )
         C = _cole_rohsenow_constant(fluid)
         if fluid.name is None:
-            warnings.warn("departure.cole_rohsenow: the fluid state has no name, so C = 4.65e-4 (the constant for "
+            _warn("departure.cole_rohsenow: the fluid state has no name, so C = 4.65e-4 (the constant for "
                           "liquids other than water) was used; pass C=1.5e-4 for water, or name the state "
-                          "(Saturation(..., name=...))", WetboilWarning, stacklevel=_stacklevel())
+                          "(Saturation(..., name=...))", WetboilWarning)
     return _cole_rohsenow_kernel(fluid, C, g)
 
 

@@ -48,12 +48,11 @@ import pathlib
 import re
 import shutil
 import tempfile
-import warnings
 from typing import Any, Dict, List, Optional, Tuple
 
 import numpy as np
 
-from ._errors import RangeWarning, WetboilError, WetboilValueError, WetboilWarning
+from ._errors import WetboilError, WetboilValueError, WetboilWarning, _warn, dropped_warnings
 from .surface import Surface, _check_utf8, _csv_text, _from_toml, _loads_toml, load_surfaces
 
 __all__ = ["SpecError", "Study", "load_spec", "run_study", "CAUTION", "RANKING_RULE"]
@@ -158,10 +157,9 @@ def load_spec(path: Any) -> Study:
     if any(q <= 0 for q in fluxes):
         raise fail("heat_fluxes_W_m2", "[study] heat_fluxes_W_m2 must be positive", "study")
     if max(fluxes) < 1e3:  # nucleate boiling design fluxes are 1e4-1e6 W/m2 [common practice]
-        warnings.warn(str(fail("heat_fluxes_W_m2", f"[study] every design heat flux is below 1 kW/m2 (largest "
-                                                   f"{max(fluxes):g} W/m2); were they given in kW/m2? They are in "
-                                                   "W/m2 (the study goes on with them as given)", "study")),
-                      WetboilWarning, stacklevel=2)
+        _warn(str(fail("heat_fluxes_W_m2", f"[study] every design heat flux is below 1 kW/m2 (largest "
+                                           f"{max(fluxes):g} W/m2); were they given in kW/m2? They are in W/m2 "
+                                           "(the study goes on with them as given)", "study")), WetboilWarning)
     # a heater's orientation is 0 (facing up) to 180 deg (facing down); a negative subcooling is a
     # superheated pool, which no correlation of the chain describes
     orientations = [float(v) for v in study.get("orientations_deg", [0.0])]
@@ -320,8 +318,7 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
 
 def _plots(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     # the sweep already recorded every validity flag; the plots repeat its calls
-    with warnings.catch_warnings():
-        warnings.simplefilter("ignore", RangeWarning)
+    with dropped_warnings():  # this thread's only (warnings.catch_warnings is process-wide)
         return _draw(ds, study, folder)
 
 
@@ -338,8 +335,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     axis = study.axis
 
     def saturated(v: float) -> Any:
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")  # an impossible state is the sweep's to report, not the figures'
+        with dropped_warnings():  # an impossible state is the sweep's to report, not the figures'
             st = (water(p=v) if axis == "p" else water(T=v)) if study.fluid.lower() == "water" else (
                 from_coolprop(study.fluid, p=v) if axis == "p" else from_coolprop(study.fluid, T=v))
         i = study.states.index(v)  # the spec's own properties of this state, as the sweep used them
@@ -361,8 +357,7 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     missing: List[str] = []
     reasons: List[str] = []
     for s in study.surfaces:
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")
+        with dropped_warnings():
             a = s.angles(state, dispersive_fraction=study.dispersive_fraction)
             rec, sta = float(np.asarray(a.receding_deg)), float(np.asarray(a.static_deg))
             try:
@@ -404,15 +399,13 @@ def _draw(ds: Any, study: Study, folder: pathlib.Path) -> List[Tuple[str, str]]:
     fig, ax = plt.subplots(figsize=(7.5, 5))
     beta = np.linspace(0.0, 150.0, 301)
     for phi in sorted(set(study.orientations) | {0.0, 90.0}):
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")  # the sweep has flagged and warned already
+        with dropped_warnings():  # the sweep has flagged and warned already
             q = chf.kandlikar(beta, state, phi) / 1e6
         # an orientation where the model has no answer at any angle gets no legend entry
         ax.plot(beta, q, label=f"Kandlikar (2001), {phi:g} deg" if np.isfinite(q).any() else "_nolegend_")
     no_point: List[str] = []
     for s in study.surfaces:
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")
+        with dropped_warnings():
             r = float(np.asarray(s.angles(state, dispersive_fraction=study.dispersive_fraction).receding_deg))
             q = float(chf.kandlikar(r, state, phi0)) / 1e6 if np.isfinite(r) else math.nan
         if not np.isfinite(q):

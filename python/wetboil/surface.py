@@ -7,12 +7,11 @@ import csv
 import math
 import pathlib
 import re
-import warnings
 from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Tuple, Union
 
 import numpy as np
 
-from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _stacklevel, one_warning_per_category
+from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, one_warning_per_category
 from .fluids import Saturation, _is_water
 
 try:  # Python >= 3.11
@@ -193,18 +192,17 @@ class Surface:
                                                                           self.probe_receding_deg) for v in (probes or {}).values()]
         if given and 0.0 < max(given) <= math.pi:
             # every angle within (0, pi]: the usual sign of radians, as wetting.surface_energy asks
-            warnings.warn(f"surface {self.name!r}: every contact angle is at most {math.pi:.4f} deg; were they given in "
+            _warn(f"surface {self.name!r}: every contact angle is at most {math.pi:.4f} deg; were they given in "
                           "radians? Angles are in degrees (a superhydrophilic coating can measure this little: then "
-                          "the angles are used as given)", WetboilWarning, stacklevel=_stacklevel())
+                          "the angles are used as given)", WetboilWarning)
         if self.angles_are == "apparent" and self.roughness_ratio != 1.0:
-            warnings.warn(f"surface {self.name!r}: roughness_ratio = {self.roughness_ratio:g} is not applied: the "
+            _warn(f"surface {self.name!r}: roughness_ratio = {self.roughness_ratio:g} is not applied: the "
                           "angles are 'apparent' (measured on this surface, roughness included); for angles measured "
-                          "on a smooth coupon set angles_are = 'intrinsic' (Wenzel)", WetboilWarning,
-                          stacklevel=_stacklevel())
+                          "on a smooth coupon set angles_are = 'intrinsic' (Wenzel)", WetboilWarning)
         if self.n is not None and self.C_sf is None:
-            warnings.warn(f"surface {self.name!r}: n = {self.n:g} is given without C_sf; Rohsenow's constants are a "
+            _warn(f"surface {self.name!r}: n = {self.n:g} is given without C_sf; Rohsenow's constants are a "
                           "fitted pair, so n is used only with the surface's own C_sf (without one, the fluid's "
-                          "exponent: 1.0 water, 1.7 other liquids)", WetboilWarning, stacklevel=_stacklevel())
+                          "exponent: 1.0 water, 1.7 other liquids)", WetboilWarning)
 
     def _probe(self, key: str, value: Optional[Mapping[str, float]]) -> Optional[Dict[str, float]]:
         if value is None:

@@ -28,7 +28,7 @@ import numpy as np
 
 from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
-from ._errors import _GATHER, _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, errstate
+from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, dropped_warnings, errstate
 from .fluids import _SUPPLIED, FIELDS, UNITS, Saturation, from_coolprop, water
 from .surface import Surface
 
@@ -146,19 +146,12 @@ def _states_outside_range(fluid: str, axis: str, values: Sequence[float]) -> Opt
 
     def missing(v: Sequence[float]) -> Any:
         arr = np.asarray(v, dtype=float)
-        # missing properties: the sweep's own call says so. Silenced for this thread and task only
-        # (wetboil's warnings gathered and dropped): warnings.catch_warnings swaps the process-wide
-        # filters, so sweeps run from several threads at once left "ignore WetboilWarning" installed
-        # for the whole process (its docs: not thread-safe)
-        token = _GATHER.set([])
-        try:
-            with errstate(invalid="ignore", out_of_range="ignore"):
-                if is_water:
-                    s = water(p=arr) if axis == "p" else water(T=arr)
-                else:
-                    s = from_coolprop(fluid, p=arr) if axis == "p" else from_coolprop(fluid, T=arr)
-        finally:
-            _GATHER.reset(token)
+        # missing properties: the sweep's own call says so (dropped for this thread only, see dropped_warnings)
+        with dropped_warnings(), errstate(invalid="ignore", out_of_range="ignore"):
+            if is_water:
+                s = water(p=arr) if axis == "p" else water(T=arr)
+            else:
+                s = from_coolprop(fluid, p=arr) if axis == "p" else from_coolprop(fluid, T=arr)
         return np.isnan(np.asarray(s.rho_l)) & ~np.isnan(arr), s
 
     bad, state = missing(values)
