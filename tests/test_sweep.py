@@ -1243,3 +1243,21 @@ def test_dataset_metadata_follows_cf_and_survives_netcdf(tmp_path):
         decoded = [{m for mask, m in zip(masks, meanings) if v & mask} for v in values]
         assert decoded == [{m for i, m in enumerate(meanings) if v >> i & 1} for v in values]
     assert "chf_margin [-]" in wetboil.screen(SURFACES[:2], "water", heat_flux=3e5, p=1e5).columns
+
+
+def test_dataset_carries_the_saturation_temperature_of_each_state(tmp_path):
+    """A wall temperature is T_sat + superheat: the Dataset (and the ranked table) carry the other
+    saturation variable of each state beside its axis, through a netCDF file. Reference library:
+    CoolProp (IAPWS-95 saturation line, Q = 0) at 1 and 10 bar; T_sat of water at 1 atm is
+    373.124 K (IAPWS-95)."""
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    ds = wetboil.sweep(SURFACES[:1], "water", p=[1e5, 1e6], heat_flux=3e5)
+    want = [CP.PropsSI("T", "P", p, "Q", 0, "Water") for p in (1e5, 1e6)]
+    np.testing.assert_allclose(ds["T_sat"].values, want, rtol=1e-6)
+    assert ds["T_sat"].dims == ("p",) and ds["T_sat"].attrs["units"] == "K"
+    ds.to_netcdf(tmp_path / "s.nc")
+    np.testing.assert_allclose(xr.load_dataset(tmp_path / "s.nc")["T_sat"].values, want, rtol=1e-6)
+    by_t = wetboil.sweep(SURFACES[:1], "water", T=[373.124], heat_flux=3e5)
+    assert float(by_t["p_sat"][0]) == pytest.approx(101325.0, rel=1e-4)
+    df = wetboil.screen(SURFACES[:1], "water", p=[101325.0], heat_flux=3e5)
+    assert list(df.columns[1:3]) == ["p [Pa]", "T_sat [K]"] and df["T_sat [K]"][0] == pytest.approx(373.124, abs=1e-3)

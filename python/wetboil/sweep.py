@@ -646,7 +646,11 @@ def sweep(
         masks: ``range_flags`` (bit i set: quantity i used a correlation
         outside its published validity range) and ``invalid_flags`` (bit i
         set: quantity i is NaN because an input was physically impossible);
-        the bit order is in their ``attrs["bits"]``. The last bit,
+        the bit order is in their ``attrs["bits"]`` (and as CF's
+        ``flag_masks`` / ``flag_meanings``). Beside the state's axis, the
+        other saturation variable of each state is a coordinate:
+        ``T_sat`` [K] on a pressure axis, ``p_sat`` [Pa] on a temperature
+        axis (a wall temperature is ``T_sat`` plus the superheat). The last bit,
         ``fluid_state`` (``wetboil.sweep.STATE_FLAG``), is the operating
         point's saturated state itself: impossible (``invalid_flags``), or
         computed outside the fluid layer's validity range (``range_flags``,
@@ -756,6 +760,14 @@ def sweep(
     else:
         result = _block(ds_in.compute(), meth, states.name)
     result = _decorate(result, meth, state_dim)
+    # the saturation temperature (or pressure) of each state beside its axis: a wall temperature is
+    # T_sat + superheat, and the netCDF file should not need the fluid library to rebuild it
+    for name, v, unit, long_name in (("T_sat", states.T, "K", "saturation temperature"),
+                                     ("p_sat", states.p, "Pa", "saturation pressure")):
+        if name[0] != state_dim:
+            dims = tuple(getattr(v, "dims", ()))
+            result = result.assign_coords({name: (dims, np.asarray(getattr(v, "values", v), dtype=float))})
+            result[name].attrs.update(units=unit, long_name=long_name)
     result.attrs["fluid"] = states.name if states.name is not None else "(unnamed Saturation)"
     if any(s.probe_static_deg is not None for s in surfaces):  # the split behind the predicted angles
         result.attrs["dispersive_fraction"] = float(
@@ -996,10 +1008,14 @@ def ranked_table(ds: Any) -> Any:
     df = ds.to_dataframe().reset_index()
     df["flags"] = [_flag_text(int(m), bits) for m in df.pop("range_flags")]
     df["impossible"] = [_flag_text(int(m), bits) for m in df.pop("invalid_flags")]
+    for other in ("T_sat", "p_sat"):  # the other saturation variable beside its state's column
+        if other in df.columns and ("p" if other == "T_sat" else "T") in df.columns:
+            df.insert(df.columns.get_loc("p" if other == "T_sat" else "T") + 1, other, df.pop(other))
     # a dimensionless quantity is "1" in the Dataset (CF), "-" in the table (an engineer's column label)
     units = {name: "-" if ds[name].attrs.get("units") == "1" else ds[name].attrs.get("units", "")
              for name in ds.data_vars}
-    units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K"})
+    units.update({"heat_flux": "W/m2", "orientation": "deg", "subcooling": "K", "p": "Pa", "T": "K", "T_sat": "K",
+                  "p_sat": "Pa"})
     df = df.sort_values(["chf_margin", "surface"], ascending=[False, True], kind="mergesort").reset_index(drop=True)
     df = df.rename(columns={c: f"{c} [{units[c]}]" for c in df.columns if units.get(c)})
     df.attrs["units"] = units
