@@ -1537,7 +1537,7 @@ def curve(
         "minimum_superheat": (dt_min, "K", "Leidenfrost superheat (film branch at the minimum heat flux)"),
         "design_heat_flux": (q_d, "W/m2", "design heat flux"),
         "design_superheat": (dt_d, "K", "nucleate-branch superheat at the design heat flux"),
-        "chf_margin": (margin, "-", "critical heat flux over design heat flux"),
+        "chf_margin": (margin, "1", "critical heat flux over design heat flux"),
     }
     try:
         import xarray as xr
