@@ -300,3 +300,27 @@ def test_one_warning_per_category_when_both_happen():
     assert len(rec) == 2
     assert "2 of 6" in by[wetboil.InvalidValueWarning] and "2 of 6" in by[wetboil.RangeWarning]
     assert np.isnan(d[[2, 4, 5]]).all() and np.isfinite(d[[0, 1, 3]]).all()
+
+
+def test_range_message_names_each_bound_exceeded_and_counts_their_union():
+    # Two bounded inputs of Young's equation, each above its bound in a different element (typed in
+    # mN/m [common practice: a clean metal's surface energy is 1-2 J/m2, from memory]): both clauses
+    # are named, and since the two elements are all that is out of range, not the model's own text.
+    with pytest.warns(wetboil.RangeWarning) as rec:
+        wetboil.wetting.young_angle([20.0, 0.02], [0.01, 20.0], [0.072, 0.072])
+    (msg,) = [str(w.message) for w in rec]
+    assert "2 of 2" in msg and msg.count("solid surface energy") == 1
+    own = wetboil.models()[[m.name for m in wetboil.models()].index("young_angle")].own_validity
+    assert own not in msg
+    # one slipped element among others outside nothing: the count of the bounded input alone
+    with pytest.warns(wetboil.RangeWarning, match=r"1 of 3 .*liquid surface tension <= 1 N/m"):
+        wetboil.wetting.young_angle(0.03, 0.01, [0.072, 72.0, 0.05])
+
+
+def test_count_beyond_counts_magnitudes_in_any_layout():
+    # |x| > bound, NaN not counted; contiguous (parallel above 65536 elements) or strided [identity]
+    x = np.array([-2.0, -0.5, 0.5, 2.0, np.nan, np.inf])
+    assert _core.count_beyond(x, 1.0) == 3
+    big = np.tile(x, 50_000)
+    assert _core.count_beyond(big, 1.0) == 150_000
+    assert _core.count_beyond(big[::2], 1.0) == int((np.abs(big[::2]) > 1.0).sum())

@@ -35,7 +35,7 @@ from typing import Any, Callable, Dict, Iterator, List, Mapping, NamedTuple, Opt
 import numpy as np
 
 from . import _core
-from ._errors import WetboilError, WetboilTypeError, WetboilValueError, report
+from ._errors import _STATE, WetboilError, WetboilTypeError, WetboilValueError, report
 
 __all__ = ["kernel", "models", "MODELS", "set_num_threads", "get_num_threads", "set_buffer_cache", "buffer_cache_info",
            "ufunc_of", "model_of", "validity", "VALIDITY_CODES"]
@@ -537,7 +537,9 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         invalid, out_of_range = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
-        validity = _range_text(MODELS[name], arrays, size, out_of_range) if out_of_range else ""
+        # the range text only where the policy shows it (it reads the bounded inputs once more)
+        validity = (_range_text(MODELS[name], arrays, size, out_of_range)
+                    if out_of_range and _STATE.get().out_of_range != "ignore" else "")
         report(function, size, invalid, out_of_range, validity, MODELS[name].domain)
     return outs if output is None else outs[output]
 
@@ -547,20 +549,31 @@ def _range_text(model: Model, arrays: Sequence[Any], size: int, out_of_range: in
     the clause of each unit-slip bound some element exceeds (a surface tension above 1 N/m), and the
     model's own range unless those elements account for every count. Without it, a tension typed
     in mN/m was reported with a whole paragraph of ranges it had not left, and a pressure outside
-    a correlation's data with the tension bound it had not exceeded."""
+    a correlation's data with the tension bound it had not exceeded. One pass over each bounded
+    array input (`_core.count_beyond`, no temporaries): a few ms at 10^7 elements."""
     if not model.input_bounds:
         return model.validity
-    clauses: list = []
-    over: Any = False  # elements above some bound, broadcast over the inputs as far as they go
-    with np.errstate(invalid="ignore"):
-        for i, largest, clause in model.input_bounds:
-            high = np.abs(np.asarray(arrays[i], dtype=np.float64)) > largest
-            if high.any():
-                clauses.append(clause)
-                over = over | high
-    n_over = int(np.sum(over)) * (size // max(int(np.size(over)), 1)) if clauses else 0
+    exceeded: list = []  # (elements above the bound, in the call's broadcast size; input; bound; clause)
+    for i, largest, clause in model.input_bounds:
+        a = arrays[i]
+        if type(a) is float or type(a) is int:
+            n = size if abs(a) > largest else 0
+        else:
+            a = np.asarray(a)
+            n = _core.count_beyond(a if a.dtype == np.float64 else a.astype(np.float64), largest)
+            n *= size // max(a.size, 1)
+        if n:
+            exceeded.append((n, a, largest, clause))
+    if not exceeded:
+        return model.own_validity or model.validity
+    n_over = max(n for n, _, _, _ in exceeded)
+    if len(exceeded) > 1 and n_over < out_of_range:  # several bounds: their union (a rare path)
+        with np.errstate(invalid="ignore"):
+            union = functools.reduce(np.logical_or, (np.abs(np.asarray(a, dtype=np.float64)) > b
+                                                     for _, a, b, _ in exceeded))
+        n_over = int(np.sum(union)) * (size // max(int(np.size(union)), 1))
     own = [] if n_over >= out_of_range or not model.own_validity else [model.own_validity]
-    return "; ".join(dict.fromkeys(own + clauses))
+    return "; ".join(dict.fromkeys(own + [c for _, _, _, c in exceeded]))
 
 
 def _scalarise(x: Any) -> Any:

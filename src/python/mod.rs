@@ -137,6 +137,23 @@ fn run_grid<'py>(
     }
 }
 
+/// Number of elements of `a` whose magnitude is above `bound` (NaN is not),
+/// in parallel with the GIL released: how a range message finds which
+/// unit-slip bound ([`crate::model::INPUT_BOUNDS`]) a call's elements
+/// exceeded, without the two temporaries of `np.abs(a) > bound`.
+#[pyfunction]
+fn count_beyond(py: Python<'_>, a: numpy::PyReadonlyArrayDyn<'_, f64>, bound: f64) -> u64 {
+    use rayon::prelude::*;
+    let count = |v: &[f64]| v.iter().map(|x| (x.abs() > bound) as u64).sum::<u64>();
+    match a.as_slice() {
+        Ok(v) => py.detach(|| match threads::pool() {
+            Some(pool) if v.len() >= 1 << 16 => pool.install(|| v.par_chunks(1 << 14).map(count).sum()),
+            _ => count(v),
+        }),
+        Err(_) => a.as_array().iter().map(|x| (x.abs() > bound) as u64).sum(),
+    }
+}
+
 /// Side (0: surface, 1: fluid) of each input of every kernel in product
 /// form, by kernel name.
 #[pyfunction]
@@ -248,6 +265,7 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(factored_sides, m)?)?;
     m.add_function(wrap_pyfunction!(factor_call, m)?)?;
     m.add_function(wrap_pyfunction!(models_json, m)?)?;
+    m.add_function(wrap_pyfunction!(count_beyond, m)?)?;
     m.add_function(wrap_pyfunction!(get_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(set_num_threads, m)?)?;
     m.add_function(wrap_pyfunction!(_after_fork_child, m)?)?;
