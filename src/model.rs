@@ -306,6 +306,14 @@ fn inputs_plausible<const N: usize>(bounds: &[f64; N], x: &[f64; N]) -> bool {
     ok
 }
 
+/// Whether some input of one element is above its bound ([`INPUT_BOUNDS`]):
+/// the count of such out-of-range elements lets a range message name the
+/// bound instead of the model's whole range.
+#[inline(always)]
+pub fn beyond_bounds<K: Kernel<N, M>, const N: usize, const M: usize>(x: &[f64; N]) -> bool {
+    !inputs_plausible(&K::BOUNDS, x)
+}
+
 /// Whether some live element of a block (the first `len` of `B`) has an
 /// input above its bound ([`INPUT_BOUNDS`]). The binding's block loops
 /// ask this beside [`Kernel::eval_block`] and settle such a block element by

@@ -242,7 +242,7 @@ def test_grid_path_rows_of_any_length_give_the_element_bits(shape):
         out = np.empty(shape)
         counts = _core.grid_call("cooper_superheat", ins, [out])
     np.testing.assert_array_equal(out, elements)
-    assert (int((codes == 1).sum()), int((codes == 2).sum())) == tuple(int(c) for c in counts)
+    assert (int((codes == 1).sum()), int((codes == 2).sum())) == tuple(int(c) for c in counts[:2])
     assert (codes == 1).any() and (codes == 2).any() and (codes == 0).any()
 
 
@@ -702,7 +702,7 @@ def test_factorised_grid_path_equals_the_element_path(name):
     for o, e in zip(outs, expect):
         assert o.shape == shape
         assert same_bits(o, e)
-    assert (invalid, out_of_range) == counts
+    assert (invalid, out_of_range) == counts[:2]
     assert invalid > 0
     assert out_of_range > 0 or name in ("hsu_onset", "kandlikar_onset")  # the onset models have no range limit
 

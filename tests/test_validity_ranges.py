@@ -259,6 +259,23 @@ def test_tension_outliers_are_counted_in_large_arrays():
     with pytest.warns(wetboil.RangeWarning, match=f"{want} of {n}") as rec:
         q = wetboil.chf.zuber(f, K)
     assert np.isnan(q[7::101]).all() and np.isfinite(q[::997][~np.isnan(sigma[::997])]).all()
+    # The loops count the elements above the bound apart ([identity]: the slips that are not NaN),
+    # on the ufunc path and on the grid path (a broadcast the ufunc would buffer)
+    slips = int((sigma > 1)[~np.isnan(sigma)].sum())
+    _core.take_counts()
+    with np.errstate(all="ignore"):
+        _core.zuber_chf(w.h_lv, w.rho_l, w.rho_v, sigma, K, 9.80665)
+    assert _core.take_counts() == (0, want, slips)
+    sig2, k2 = sigma[:400, None], K[None, :300]
+    shape = (400, 300)
+    ins = [np.broadcast_to(np.asarray(v, dtype=np.float64), shape)
+           for v in (w.h_lv, w.rho_l, w.rho_v, sig2, k2, 9.80665)]
+    out = np.empty(shape)
+    with np.errstate(all="ignore"):
+        counts = _core.grid_call("zuber_chf", ins, [out])
+    over = np.broadcast_to(~np.isnan(sig2) & (sig2 > 1), shape)
+    assert counts[2] == int(over.sum()) and counts[1] == int((over | (np.broadcast_to(k2, shape) > 0.2)
+                                                              & ~np.isnan(np.broadcast_to(sig2, shape))).sum())
     # Both kinds are named: Zuber's own constant range and the tension bound.
     (msg,) = [str(w.message) for w in rec]
     assert "0.10 <= K <= 0.20" in msg and "liquid surface tension <= 1 N/m" in msg

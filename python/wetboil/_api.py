@@ -517,6 +517,7 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         shape = None
     sides = SIDES.get(name)
     outs: Any
+    beyond: Optional[int] = None  # out-of-range elements above a unit-slip bound, where the path counts them
     if shape is not None and sides is not None and _factor_axes(arrays, sides, shape):
         outs, invalid, out_of_range = _factorised(name, arrays, sides, shape, output)
         output = None  # already selected
@@ -524,7 +525,7 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         n_out = len(MODELS[name].outputs)
         ins = [np.broadcast_to(np.asarray(a, dtype=np.float64), shape) for a in arrays]
         outs_list = [np.empty(shape) for _ in range(n_out)]
-        invalid, out_of_range = _core.grid_call(name, ins, outs_list)
+        invalid, out_of_range, beyond = _core.grid_call(name, ins, outs_list)
         outs = outs_list[0] if n_out == 1 else tuple(outs_list)
     else:
         uf = getattr(_core, name)
@@ -534,46 +535,59 @@ def _evaluate_arrays(name: str, function: str, arrays: Sequence[Any], output: Op
         else:
             with np.errstate(all="ignore"):  # our own policy reports NaNs, not the flags of NumPy's casts
                 outs = uf(*arrays)
-        invalid, out_of_range = _core.take_counts()
+        invalid, out_of_range, beyond = _core.take_counts()
     if invalid or out_of_range:
         size = int(np.size(outs[0] if isinstance(outs, tuple) else outs))
-        # the range text only where the policy shows it (it reads the bounded inputs once more)
-        validity = (_range_text(MODELS[name], arrays, size, out_of_range)
+        # the range text only where the policy shows it
+        validity = (_range_text(MODELS[name], arrays, size, out_of_range, beyond)
                     if out_of_range and _STATE.get().out_of_range != "ignore" else "")
         report(function, size, invalid, out_of_range, validity, MODELS[name].domain)
     return outs if output is None else outs[output]
 
 
-def _range_text(model: Model, arrays: Sequence[Any], size: int, out_of_range: int) -> str:
+def _range_text(model: Model, arrays: Sequence[Any], size: int, out_of_range: int,
+                beyond: Optional[int] = None) -> str:
     """The part of `model`'s validity text that a call's `out_of_range` elements (of `size`) failed:
     the clause of each unit-slip bound some element exceeds (a surface tension above 1 N/m), and the
     model's own range unless those elements account for every count. Without it, a tension typed
     in mN/m was reported with a whole paragraph of ranges it had not left, and a pressure outside
-    a correlation's data with the tension bound it had not exceeded. One pass over each bounded
-    array input (`_core.count_beyond`, no temporaries): a few ms at 10^7 elements."""
+    a correlation's data with the tension bound it had not exceeded.
+
+    `beyond`, the count of out-of-range elements above some bound, comes from the Rust loops where
+    they count it (the ufunc and grid paths): then the inputs are read again only to tell several
+    bounds apart, after a unit slip. Otherwise (the factorised path, whose inputs are its axes) one
+    pass over each bounded input (`_core.count_beyond`) finds them."""
     if not model.input_bounds:
         return model.validity
-    exceeded: list = []  # (elements above the bound, in the call's broadcast size; input; bound; clause)
-    for i, largest, clause in model.input_bounds:
-        a = arrays[i]
-        if type(a) is float or type(a) is int:
-            n = size if abs(a) > largest else 0
-        else:
-            a = np.asarray(a)
-            n = _core.count_beyond(a if a.dtype == np.float64 else a.astype(np.float64), largest)
-            n *= size // max(a.size, 1)
-        if n:
-            exceeded.append((n, a, largest, clause))
-    if not exceeded:
+    clauses = list(dict.fromkeys(c for _, _, c in model.input_bounds))
+    if beyond == 0:
         return model.own_validity or model.validity
-    n_over = max(n for n, _, _, _ in exceeded)
-    if len(exceeded) > 1 and n_over < out_of_range:  # several bounds: their union (a rare path)
-        with np.errstate(invalid="ignore"):
-            union = functools.reduce(np.logical_or, (np.abs(np.asarray(a, dtype=np.float64)) > b
-                                                     for _, a, b, _ in exceeded))
-        n_over = int(np.sum(union)) * (size // max(int(np.size(union)), 1))
+    if beyond is not None and len(clauses) == 1:
+        exceeded = clauses
+        n_over = beyond
+    else:
+        counted: list = []  # (elements above the bound, in the call's broadcast size; input; bound; clause)
+        for i, largest, clause in model.input_bounds:
+            a = arrays[i]
+            if type(a) is float or type(a) is int:
+                n = size if abs(a) > largest else 0
+            else:
+                a = np.asarray(a)
+                n = _core.count_beyond(a if a.dtype == np.float64 else a.astype(np.float64), largest)
+                n *= size // max(a.size, 1)
+            if n:
+                counted.append((n, a, largest, clause))
+        if not counted:
+            return model.own_validity or model.validity
+        exceeded = [c for _, _, _, c in counted]
+        n_over = max(n for n, _, _, _ in counted) if beyond is None else beyond
+        if beyond is None and len(counted) > 1 and n_over < out_of_range:  # several bounds: their union (rare)
+            with np.errstate(invalid="ignore"):
+                union = functools.reduce(np.logical_or, (np.abs(np.asarray(a, dtype=np.float64)) > b
+                                                         for _, a, b, _ in counted))
+            n_over = int(np.sum(union)) * (size // max(int(np.size(union)), 1))
     own = [] if n_over >= out_of_range or not model.own_validity else [model.own_validity]
-    return "; ".join(dict.fromkeys(own + [c for _, _, _, c in exceeded]))
+    return "; ".join(dict.fromkeys(own + exceeded))
 
 
 def _scalarise(x: Any) -> Any:

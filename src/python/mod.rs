@@ -35,12 +35,14 @@ fn _set_simd_cap(level: u8) -> u8 {
     crate::simd::set_cap(level)
 }
 
-/// Return and reset the element counts `(invalid, out_of_range)` of the ufunc
-/// calls made on this thread since the last call.
+/// Return and reset the element counts `(invalid, out_of_range,
+/// beyond_bounds)` of the ufunc calls made on this thread since the last call
+/// (`beyond_bounds`: the out-of-range elements with an input above its
+/// unit-slip bound).
 #[pyfunction]
-fn take_counts() -> (u64, u64) {
-    let [a, b] = ufunc::take_counts();
-    (a, b)
+fn take_counts() -> (u64, u64, u64) {
+    let [a, b, c] = ufunc::take_counts();
+    (a, b, c)
 }
 
 /// JSON list of every registered model's facts.
@@ -74,14 +76,15 @@ fn find(kernel: &str) -> PyResult<&'static Entry> {
 /// Evaluate kernel `kernel` over a broadcast grid: `inputs` are float64
 /// arrays already broadcast to one shape (zero strides allowed), `outputs`
 /// fresh float64 arrays of that shape. Runs in parallel with the GIL
-/// released; returns the element counts `(invalid, out_of_range)`.
+/// released; returns the element counts `(invalid, out_of_range,
+/// beyond_bounds)`, as [`take_counts`].
 #[pyfunction]
 fn grid_call<'py>(
     py: Python<'py>,
     kernel: &str,
     inputs: Vec<numpy::PyReadonlyArrayDyn<'py, f64>>,
     outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
-) -> PyResult<(u64, u64)> {
+) -> PyResult<(u64, u64, u64)> {
     let e = find(kernel)?;
     if inputs.len() != e.nin || outputs.len() != e.nout {
         return Err(pyo3::exceptions::PyValueError::new_err(format!(
@@ -108,10 +111,10 @@ fn product_call<'py>(
 /// Run a grid evaluator over operands that share one shape.
 fn run_grid<'py>(
     py: Python<'py>,
-    grid: fn(&ufunc::GridCall<'_>) -> [u64; 2],
+    grid: fn(&ufunc::GridCall<'_>) -> ufunc::Counts,
     inputs: Vec<numpy::PyReadonlyArrayDyn<'py, f64>>,
     mut outputs: Vec<numpy::PyReadwriteArrayDyn<'py, f64>>,
-) -> PyResult<(u64, u64)> {
+) -> PyResult<(u64, u64, u64)> {
     use numpy::PyUntypedArrayMethods;
     let shape: Vec<usize> = outputs[0].shape().to_vec();
     for a in inputs.iter().map(|a| a.shape()).chain(outputs.iter().map(|a| a.shape())) {
@@ -132,7 +135,7 @@ fn run_grid<'py>(
         catch_unwind(AssertUnwindSafe(|| grid(&ufunc::GridCall { shape: &shape, ins: &ins, outs: &outs })))
     });
     match counts {
-        Ok([a, b]) => Ok((a, b)),
+        Ok([a, b, c]) => Ok((a, b, c)),
         Err(_) => Err(pyo3::exceptions::PyRuntimeError::new_err("wetboil: internal error (panic) in grid_call")),
     }
 }
