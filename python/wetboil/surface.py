@@ -630,13 +630,16 @@ def _csv_text(text: str) -> str:
     ``=``, ``+``, ``-``, ``@``, a tab or a carriage return gets a leading
     apostrophe (``'=SUM(A1)``), so it stays readable and is never run as a
     formula. `load_surfaces` and the command line's ranking read it back
-    without the apostrophe."""
-    return "'" + text if text.startswith(_FORMULA_START) else text
+    without the apostrophe. Text that `_csv_untext` would change (an
+    apostrophe before such a character or before another apostrophe, as in
+    ``'=x``) gets one too, so that every text reads back as written."""
+    return "'" + text if text.startswith(_FORMULA_START) or _csv_untext(text) != text else text
 
 
 def _csv_untext(text: str) -> str:
-    """The text `_csv_text` wrote: without the apostrophe it added."""
-    return text[1:] if text.startswith("'") and text[1:].startswith(_FORMULA_START) else text
+    """The text `_csv_text` wrote: without the apostrophe it added (one before a formula character
+    or before another apostrophe)."""
+    return text[1:] if text.startswith("'") and text[1:].startswith(_FORMULA_START + ("'",)) else text
 
 
 def _csv_number(path: pathlib.Path, line: int, key: str, value: str) -> float:
