@@ -894,3 +894,17 @@ def test_curve_film_branch_error_of_saturated_vapour_is_documented_both_ways(p, 
         assert "runs high" in doc and f"+{round(100 * documented)} %" in doc
     else:
         assert "runs low" in doc and f"{round(-100 * documented)} % at 300 K" in doc
+
+
+def test_advice_warnings_inside_a_curve_come_one_by_one(water):
+    # Element warnings of the parts of a composite call are joined into one per category; advice
+    # ("receding_angle_deg is not used") is given on its own, as written, so that a user's
+    # filterwarnings(message=...) for it keeps working [contract: wetboil._errors]
+    unnamed = water.replace(name=None)  # Rohsenow then advises on C_sf and n as well
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        curve(unnamed, np.array([5.0, 50.0]), receding_angle_deg=30.0, chf="zuber",
+              natural_convection_coefficient=1e3, nucleate="rohsenow")
+    advice = [str(w.message) for w in rec if w.category is wetboil.WetboilWarning]
+    assert len(advice) == 3 and "boiling.curve: receding_angle_deg is not used: chf='zuber' has no " \
+        "wettability term" in advice and all(m.count("boiling.curve:") == 1 for m in advice), advice

@@ -201,13 +201,23 @@ def _gathered(parts: dict, label: Callable[[str], str], run: Callable[[], Any]) 
     finally:
         _GATHER.reset(token)
         for category, msg in gathered:
-            parts.setdefault(category, []).append(label(msg))
+            parts.setdefault(category, []).append(label(msg) if issubclass(category, _ELEMENT) else msg)
+
+
+#: The element warnings, which `_give` joins into one per call; any other (advice such as "no C_sf
+#: given") is given on its own, as written, once per distinct message.
+_ELEMENT = (InvalidValueWarning, RangeWarning)
 
 
 def _give(function: str, parts: dict) -> None:
-    """One warning per category of the gathered `parts`, naming `function`."""
+    """One warning per element category of the gathered `parts`, naming `function`; each distinct
+    advice warning on its own."""
     for category, messages in parts.items():
-        _warn(f"{function}: {'; '.join(dict.fromkeys(messages))}", category)  # each distinct part once
+        if issubclass(category, _ELEMENT):
+            _warn(f"{function}: {'; '.join(dict.fromkeys(messages))}", category)  # each distinct part once
+        else:
+            for msg in dict.fromkeys(messages):
+                _warn(msg, category)
 
 
 def each_method(function: str, methods: Sequence[str], one: Callable[[str], Any]) -> list:
@@ -237,8 +247,8 @@ def each_method(function: str, methods: Sequence[str], one: Callable[[str], Any]
 
 def one_warning_per_category(function: str) -> Callable[[_F], _F]:
     """Decorator for a public function built from several kernel calls: their element warnings are
-    gathered and given as at most one `InvalidValueWarning` and one `RangeWarning` per call, each
-    naming the parts (``"boiling.curve: chf.kandlikar: 1 of 1 element(s) outside ...; ..."``), also
+    gathered and given as at most one `InvalidValueWarning` and one `RangeWarning` per call (advice
+    warnings, each on its own, once), each naming the parts (``"boiling.curve: chf.kandlikar: 1 of 1 element(s) outside ...; ..."``), also
     when the call ends in an exception. The gathering is a context variable that `report` reads (per
     thread and task; the process-wide warning filters are not touched), so other warnings and other
     threads' calls are unaffected; under ``errstate(...="raise")`` the first part raises."""
