@@ -1154,10 +1154,12 @@ def test_roughness_and_cavity_radius_in_micrometres_are_refused():
     # Cooper's Rp of real boiling surfaces is 0.01-20 um and active cavities are microns to tens of
     # microns [common practice, from memory]: 1.5 typed for 1.5 um read as 1.5 m and ran with only
     # Cooper's range flag (new-user CLI trial). Values invented.
-    with pytest.raises(wetboil.WetboilValueError, match=r"Rp = 1.5 m is above 1 mm; was it given in micrometres"):
+    with pytest.raises(wetboil.WetboilValueError, match=r"Rp = 1.5 m is above 1 mm; was it given in micrometres.*1.5e-06 m"):
         Surface("r (invented)", 60.0, Rp=1.5)
     with pytest.raises(wetboil.WetboilValueError, match=r"cavity_radius = 5 m is above 1 mm"):
         Surface("r (invented)", 60.0, cavity_radius=5.0)
+    with pytest.raises(wetboil.WetboilValueError, match=r"Rp = 0.0015 m is above 1 mm; .*in metres$"):
+        Surface("r (invented)", 60.0, Rp=1.5e-3)  # no micrometre conversion for a value in mm
     s = Surface("r (invented)", 60.0, Rp=1.5e-6, cavity_radius=5e-6)
     assert (s.Rp, s.cavity_radius) == (1.5e-6, 5e-6)
 

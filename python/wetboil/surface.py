@@ -73,8 +73,10 @@ _LENGTH_MAX = 1e-3
 
 def _micrometres(owner: str, key: str, v: Optional[float]) -> Optional[float]:
     if v is not None and v > _LENGTH_MAX:
-        raise _error(WetboilValueError, owner, f"{key} = {v:g} m is above 1 mm; was it given in micrometres? It is "
-                     f"in metres ({v:g} um is {v * 1e-6:g} m)", key)
+        # the conversion only where micrometres are the likely slip (1.5 for 1.5 um), not for 1-10 mm
+        hint = f" ({v:g} um is {v * 1e-6:g} m)" if v >= 0.01 else ""
+        raise _error(WetboilValueError, owner, f"{key} = {v:g} m is above 1 mm; was it given in micrometres or "
+                     f"millimetres? It is in metres{hint}", key)
     return v
 
 
@@ -188,13 +190,12 @@ class Surface:
             raise _error(WetboilTypeError, self.name, "notes must be a string", "notes")
         self.notes = notes
         self._validate()
-        given = [v for v in angles if v is not None] + [v for probes in (self.probe_static_deg, self.probe_advancing_deg,
-                                                                          self.probe_receding_deg) for v in (probes or {}).values()]
-        if given and 0.0 < max(given) <= math.pi:
-            # every angle within (0, pi]: the usual sign of radians, as wetting.surface_energy asks
-            _warn(f"surface {self.name!r}: every contact angle is at most {math.pi:.4f} deg; were they given in "
-                          "radians? Angles are in degrees (a superhydrophilic coating can measure this little: then "
-                          "the angles are used as given)", WetboilWarning)
+        from .wetting import _question_radians
+
+        _question_radians(f"surface {self.name!r}", [v for v in angles if v is not None] + [
+            v for probes in (self.probe_static_deg, self.probe_advancing_deg, self.probe_receding_deg)
+            for v in (probes or {}).values()], "a superhydrophilic coating can measure this little: then the angles "
+            "are used as given")
         if self.angles_are == "apparent" and self.roughness_ratio != 1.0:
             _warn(f"surface {self.name!r}: roughness_ratio = {self.roughness_ratio:g} is not applied: the "
                           "angles are 'apparent' (measured on this surface, roughness included); for angles measured "

@@ -88,6 +88,18 @@ _TENSION_CLAUSE = ("liquid surface tension <= 1 N/m (mercury is 0.49 N/m; a larg
                    "mN/m)")
 
 
+def _question_radians(owner: str, angles: Any, goes_on: str) -> None:
+    """One `WetboilWarning` when every given angle lies within (0, pi] and not all are zero, the usual
+    sign of angles typed in radians. Degrees and radians cannot be told apart there: a
+    superhydrophilic coating measures 0-3 deg, so this asks and goes on (`goes_on` says how); silence
+    it with ``warnings.filterwarnings("ignore", message=".*given in radians")``."""
+    a = np.asarray(angles, dtype=float)
+    given = a[~np.isnan(a)]
+    if given.size and (given > 0.0).any() and (given <= math.pi).all():
+        _warn(f"{owner}: every contact angle is at most {math.pi:.4f} deg; were they given in radians? Angles "
+              f"are in degrees ({goes_on})", WetboilWarning)
+
+
 # =============================================================================
 # Young, spreading, adhesion, Girifalco-Good
 
@@ -884,11 +896,7 @@ def surface_energy(contact_angles_deg: Any, liquids: Any, *, table: str = "defau
             "separate the dispersive from the polar part; use at least one polar and one apolar liquid"
         )
 
-    given = theta[~np.isnan(theta)]
-    if given.size and (given > 0.0).any() and (given <= math.pi).all():
-        # every angle within [0, pi] and not all zero: the usual sign of radians
-        _warn(f"{function}: every contact angle is at most {math.pi:.4f} deg; were they given in radians? "
-              "Angles are in degrees (the fit goes on with them as degrees)", WetboilWarning)
+    _question_radians(function, theta, "the fit goes on with them as degrees")
     bad = ~((theta >= 0.0) & (theta <= 180.0)) & ~np.isnan(theta)
     if bad.any():
         report(function, int(theta.size), int(bad.sum()), 0)
@@ -1212,11 +1220,7 @@ def critical_surface_tension(sigma_lv: Any, contact_angle_deg: Any) -> CriticalS
             f"{function}: sigma_lv and contact_angle_deg must be 1-D of equal length, got shapes {s.shape} and {t.shape}"
         )
     nan_result = CriticalSurfaceTension(math.nan, math.nan, math.nan, math.nan, math.nan, 0)
-    given = t[~np.isnan(t)]
-    if given.size and (given > 0.0).any() and (given <= math.pi).all():
-        # every angle within [0, pi] and not all zero: the usual sign of radians (as in surface_energy)
-        _warn(f"{function}: every contact angle is at most {math.pi:.4f} deg; were they given in radians? "
-              "Angles are in degrees (the fit goes on with them as degrees)", WetboilWarning)
+    _question_radians(function, t, "the fit goes on with them as degrees")
     bad = (~((t >= 0.0) & (t <= 180.0)) & ~np.isnan(t)) | (~(s > 0.0) & ~np.isnan(s)) | np.isinf(s)
     if bad.any():
         report(function, int(s.size), int(bad.sum()), 0)
