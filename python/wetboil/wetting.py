@@ -39,7 +39,7 @@ from typing import Any, Dict, List, Mapping, NamedTuple, Tuple
 
 import numpy as np
 
-from ._api import _is_dask, _is_pandas, _is_xarray, kernel
+from ._api import MODELS, _is_dask, _is_pandas, _is_xarray, kernel
 from ._errors import WetboilTypeError, WetboilValueError, WetboilWarning, _warn, report
 from .fluids import Saturation, _is_water
 
@@ -83,9 +83,10 @@ _MN = 1e-3  # mN/m -> N/m
 #: mN/m. The same bound as the kernels' range check (TENSION_MAX in src/model.rs), which warns;
 #: the fits below raise, since one such value spoils the whole fit.
 _TENSION_MAX = 1.0
-#: The kernels' range clause for it (TENSION_CLAUSE in src/model.rs), quoted where it flags.
-_TENSION_CLAUSE = ("liquid surface tension <= 1 N/m (mercury is 0.49 N/m; a larger value was usually given in "
-                   "mN/m)")
+#: The kernels' range clause for it (TENSION_CLAUSE in src/model.rs, read from the models' facts), quoted
+#: where it flags.
+_TENSION_CLAUSE = next(c for m in MODELS.values() for _, _, c in m.input_bounds
+                       if c.startswith("liquid surface tension"))
 
 
 def _question_radians(owner: str, angles: Any, goes_on: str) -> None:
