@@ -423,3 +423,53 @@ def test_saturation_conveniences():
     with pytest.raises(AttributeError):
         w.T = 5.0
     assert w.replace(sigma=0.05).sigma == 0.05
+
+
+def _unit_slip_warnings(record):
+    return [str(w.message) for w in record if "was it given in" in str(w.message)]
+
+
+def test_a_hand_built_state_with_data_sheet_units_is_flagged():
+    """A Saturation built by hand from a dielectric coolant's data sheet, which prints the latent heat in
+    J/g (kJ/kg), c_p in J/(g K) and the viscosity in cP: each slip is 1000 times off, and Zuber's CHF with
+    h_lv in kJ/kg came out 1000 times low without a word. Reference state: CoolProp's n-perfluorohexane
+    (C6F14, the main component of FC-72) at 1 atm, surface tension 8.35 mN/m and viscosity 0.45 mPa s
+    (typical FC-72 values near its boiling point, from memory)."""
+    p = 101325.0
+    fluid = "n-Perfluorohexane"
+    T = CP.PropsSI("T", "P", p, "Q", 0, fluid)
+    rl, rv = CP.PropsSI("D", "P", p, "Q", 0, fluid), CP.PropsSI("D", "P", p, "Q", 1, fluid)
+    hlv = CP.PropsSI("H", "P", p, "Q", 1, fluid) - CP.PropsSI("H", "P", p, "Q", 0, fluid)
+    cpl = CP.PropsSI("C", "P", p, "Q", 0, fluid)
+    si = dict(T=T, p=p, rho_l=rl, rho_v=rv, h_lv=hlv, sigma=8.35e-3, cp_l=cpl, mu_l=4.5e-4, name="FC-72")
+    with warnings.catch_warnings(record=True) as record:
+        warnings.simplefilter("always")
+        good = wetboil.fluids.Saturation(**si)
+    assert _unit_slip_warnings(record) == []
+    # Zuber (1959), pi/24, worked by hand from the equation with CoolProp's properties
+    by_hand = math.pi / 24 * hlv * rv**0.5 * (8.35e-3 * 9.80665 * (rl - rv)) ** 0.25
+    assert wetboil.chf.zuber(good) == pytest.approx(by_hand, rel=1e-12)
+    for field, factor, unit in (("h_lv", 1e-3, "kJ/kg"), ("cp_l", 1e-3, r"kJ/\(kg K\)"), ("mu_l", 1e3, r"mPa s")):
+        with pytest.warns(wetboil.WetboilWarning, match=rf"'FC-72': {field} = .* was it given in {unit}"):
+            wetboil.fluids.Saturation(**{**si, field: si[field] * factor})
+    with pytest.warns(wetboil.WetboilWarning, match=r"h_lv = .* kJ/kg"):  # arrays too, and through replace
+        good.replace(h_lv=np.array([hlv, hlv * 1e-3]))
+
+
+@pytest.mark.parametrize("fluid, T_of", [
+    ("Helium", lambda tt, tc: 0.99 * tc),     # the smallest latent heat of CoolProp 8's pure fluids below 0.99 T_crit
+    ("Neon", lambda tt, tc: 0.99 * tc),       # the next smallest
+    ("Xenon", lambda tt, tc: tt + 0.01 * (tc - tt)),   # the smallest liquid and vapour c_p
+    ("Ethanol", lambda tt, tc: tt + 1e-3),    # the largest liquid viscosity (0.125 Pa s at its triple point)
+    ("Water", lambda tt, tc: 0.999 * tc),     # the latent heat tends to zero at the critical point: not flagged
+])
+def test_real_saturated_states_are_not_taken_for_unit_slips(fluid, T_of):
+    """The bounds of the unit-slip check hold for CoolProp 8's extreme pure fluids (a scan of every pure
+    fluid from 1 % above its triple point to 0.99 T_crit found these the extremes)."""
+    st = CP.AbstractState("HEOS", fluid)
+    T = T_of(st.Ttriple(), st.T_critical())
+    with warnings.catch_warnings(record=True) as record:
+        warnings.simplefilter("always")
+        from_coolprop(fluid, T=T)
+        from_coolprop(fluid, T=np.array([T, 0.5 * (st.Ttriple() + st.T_critical())]))
+    assert _unit_slip_warnings(record) == []

@@ -145,7 +145,13 @@ class Saturation:
     and warns (`WetboilWarning`) naming the fields to set with `replace`.
     Physically impossible values (``rho_l <= rho_v``, ``sigma <= 0``...) are
     not rejected here: the kernels turn those elements into NaN and warn
-    (see `wetboil.errstate`). Wrong types raise `TypeError` at once.
+    (see `wetboil.errstate`). Wrong types raise `TypeError` at once. Values
+    that look typed in a data sheet's units instead of SI get one
+    `WetboilWarning` (kept as given): ``h_lv`` below 5 kJ/kg (given in kJ/kg
+    or J/g; not checked within 1 % of ``T_crit`` when it is given),
+    ``cp_l`` or ``cp_v`` below 50 J/(kg K) (given in kJ/(kg K)), ``mu_l``
+    above 0.2 Pa s (given in mPa s, cP). A surface tension in mN/m is flagged
+    by the kernels that use it.
 
     Examples
     --------
@@ -211,6 +217,8 @@ class Saturation:
                 described = ", ".join(f"{f} {shape}" for f, shape in arrays)
                 raise WetboilValueError(f"Saturation: field shapes do not broadcast: {described}") from None
         object.__setattr__(self, "_scalars", tuple(getattr(self, f) for f in FIELDS) if plain else None)
+        if not _COMPUTED.get():  # states that water() and from_coolprop compute are not typed by hand
+            _check_unit_slips(self)
 
     def __setattr__(self, key: str, value: Any) -> None:
         raise AttributeError("Saturation is immutable; use .replace(field=value)")
@@ -336,6 +344,79 @@ class Saturation:
         return head + sep + ", ".join(parts) + ")"
 
 
+#: Set while water() and from_coolprop build their states: values computed from a property library are
+#: in SI by construction, and the unit-slip check would read each array field once more for nothing.
+_COMPUTED: "contextvars.ContextVar[bool]" = contextvars.ContextVar("wetboil_computed_state", default=False)
+
+
+def _computed_state(*args: Any, **kwargs: Any) -> "Saturation":
+    """`Saturation(*args, **kwargs)` for a state computed by a property library (no unit-slip check)."""
+    token = _COMPUTED.set(True)
+    try:
+        return Saturation(*args, **kwargs)
+    finally:
+        _COMPUTED.reset(token)
+
+
+#: Values of a hand-built state that the usual data-sheet units give and no fluid boiled in practice has
+#: (field, bound in SI, above the bound?, the unit slip, the SI unit). Bounds checked against CoolProp 8's
+#: pure fluids from 1 % above the triple point to 0.99 T_crit: the smallest h_lv is helium's 7.0 kJ/kg at
+#: 0.99 T_crit (the next, neon, 21 kJ/kg), the smallest c_p xenon's (339 J/(kg K) liquid, 174 vapour); the
+#: largest liquid viscosity is ethanol's 0.125 Pa s at its triple point (tests/test_water.py). A latent
+#: heat in kJ/kg (J/g, as data sheets of dielectric coolants print it) is 1000 times too small, and with it
+#: every CHF; a heat capacity in kJ/(kg K), or a viscosity in mPa s (cP), is 1000 times off.
+_UNIT_SLIPS = (
+    ("h_lv", 5e3, False, "kJ/kg (J/g)", "J/kg"),
+    ("cp_l", 50.0, False, "kJ/(kg K) (J/(g K))", "J/(kg K)"),
+    ("cp_v", 50.0, False, "kJ/(kg K) (J/(g K))", "J/(kg K)"),
+    ("mu_l", 0.2, True, "mPa s (cP)", "Pa s"),
+)
+
+
+def _check_unit_slips(s: "Saturation") -> None:
+    """Warn (`WetboilWarning`) about fields of `s` that look typed in a data sheet's unit instead of SI
+    (see `_UNIT_SLIPS`). Plain numbers and NumPy arrays are checked; labelled and lazy fields are not.
+    A latent heat within 1 % of the critical temperature (where it tends to zero) is not flagged when
+    ``T_crit`` is given."""
+    slips = []
+    if s._scalars is not None:  # plain numbers: a few comparisons (NaN compares False: not flagged)
+        near_critical = s.T >= 0.99 * s.T_crit
+        for field, bound, above, unit, si in _UNIT_SLIPS:
+            v = getattr(s, field)
+            if (bound < v < math.inf) if above else (0.0 < v < bound and not (field == "h_lv" and near_critical)):
+                slips.append(_slip_text(field, v, bound, above, unit, si))
+    else:
+        near: Any = False
+        if isinstance(s.T, (float, np.ndarray)) and isinstance(s.T_crit, (float, np.ndarray)):
+            with np.errstate(invalid="ignore"):
+                near = np.asarray(s.T) >= 0.99 * np.asarray(s.T_crit)
+        for field, bound, above, unit, si in _UNIT_SLIPS:
+            v = getattr(s, field)
+            if not isinstance(v, (float, np.ndarray)):
+                continue
+            a = np.asarray(v)
+            # one pass without temporaries first (NaN skipped); most arrays stop here
+            if (np.fmax.reduce(a, axis=None, initial=-math.inf) <= bound if above
+                    else np.fmin.reduce(a, axis=None, initial=math.inf) >= bound):
+                continue
+            with np.errstate(invalid="ignore"):
+                hit = (a > bound) & np.isfinite(a) if above else (a > 0.0) & (a < bound)
+                if field == "h_lv":
+                    hit = hit & ~near
+            if np.any(hit):
+                slips.append(_slip_text(field, float(np.broadcast_to(a, np.shape(hit))[hit][0]), bound, above, unit, si))
+    if slips:
+        from ._errors import WetboilWarning, _warn
+
+        _warn(f"fluids.Saturation{'' if s.name is None else f' {s.name!r}'}: {'; '.join(slips)} Fields are in "
+              "SI units (wetboil.fluids.UNITS); a value 1000 times off moves every result that uses it",
+              WetboilWarning)
+
+
+def _slip_text(field: str, value: float, bound: float, above: bool, unit: str, si: str) -> str:
+    return f"{field} = {value:g} {si} is {'above' if above else 'below'} {bound:g} {si}: was it given in {unit}?"
+
+
 def _rebuild(values: tuple, name: Optional[str], not_given: tuple = ()) -> Saturation:
     kw: dict = dict(zip(FIELDS, values))
     kw.update(dict.fromkeys(not_given, NOT_GIVEN))  # "not given" is this very NaN; unpickling made new ones
@@ -371,8 +452,8 @@ def _water_state(T: Any, p: Any, rho_l: Any, rho_v: Any, h_lv: Any, sigma: Any, 
     if type(T) is float:  # the scalar fast path hands over twelve Python floats
         return _scalar_state((T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v,
                               WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT), "water")
-    return Saturation(T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v,
-                      WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT, name="water")
+    return _computed_state(T, p, rho_l, rho_v, h_lv, sigma, cp_l, k_l, mu_l, mu_v, cp_v, k_v,
+                           WATER_MOLAR_MASS, WATER_T_CRIT, WATER_P_CRIT, name="water")
 
 
 #: The slots' own setters, in FIELDS order (a frozen class: its __setattr__ refuses).
@@ -729,4 +810,4 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         elif v.ndim == 0:
             v = NOT_GIVEN if f in absent else float(v)  # a kernel needing it then says so (see Saturation)
         fields[f] = v
-    return Saturation(**fields, molar_mass=state.molar_mass(), T_crit=t_crit, p_crit=p_crit, name=name)
+    return _computed_state(**fields, molar_mass=state.molar_mass(), T_crit=t_crit, p_crit=p_crit, name=name)

@@ -787,7 +787,18 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     Notes
     -----
     Validity: the tangency methods have no published numeric range (linear
-    liquid profile near the wall, cavities of all sizes present). They use
+    liquid profile near the wall, cavities of all sizes present and holding
+    vapour). Highly wetting liquids (fluorinated dielectric coolants,
+    refrigerants, cryogens; angles of a few degrees on metals) flood most
+    cavities (Bankoff's criterion, `traps_vapour`, needs the advancing angle
+    above twice the cavity half-angle), so they start to boil far above these
+    superheats and then fall back: an incipience overshoot of tens of kelvin
+    was reported for dielectric fluids (A. Bar-Cohen, T.W. Simon, "Wall
+    superheat excursions in the boiling incipience of dielectric fluids",
+    Heat Transfer Eng. 9(3) (1988) 19-31, from memory). Read these methods
+    as a lower bound there; at 0 deg "hsu" still gives a superheat (its
+    nucleus becomes a sphere on a point, radius 0) although
+    `hsu_active_radii` has no active cavity. They use
     the linearised embryo superheat, as published; where the onset superheat
     is a sizeable fraction of T_sat (low pressure) that over-predicts: for
     water at 1e5 W/m2, 30 % at 1 kPa (39 K against 30 K), 16 % at 3 kPa,
