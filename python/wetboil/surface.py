@@ -131,9 +131,15 @@ class Surface:
         carry n = 1.0 for every surface.
     cavity_radius : float, optional
         Typical cavity mouth radius [m], where known; above 1 mm refused, as
-        ``Rp``.
+        ``Rp``. Recorded with the surface (files, reports); `sweep` and
+        `screen` do not use it: give it to
+        ``wetboil.boiling.curve(largest_cavity_radius=...)`` or
+        `wetboil.nucleation.embryo_superheat` for its onset superheat.
     cavity_half_angle_deg : float, optional
-        Typical conical cavity half-angle [deg], where known (vapour trapping).
+        Typical conical cavity half-angle [deg], where known. Recorded, not
+        used by `sweep`: `wetboil.nucleation.traps_vapour` tells whether such
+        cavities trap vapour at the advancing angle (Bankoff); highly wetting
+        liquids flood most.
     probe_static_deg, probe_advancing_deg, probe_receding_deg : mapping, optional
         Probe-liquid name (see `wetboil.wetting.PROBE_LIQUIDS`) -> angle [deg].
     notes : str
