@@ -776,6 +776,10 @@ DEPARTURE_CLOSURES: Tuple[str, ...] = ("tolubinsky_kostanchuk",) + (
     "kocamustafaogullari_ishii",
     "force_balance",
 )
+
+#: The closures by name that take no contact angle (RPI's own, and Cole & Rohsenow's diameter): every
+#: other named closure needs ``contact_angle_deg``, and an angle given with only these is not used.
+_ANGLE_FREE: Tuple[str, ...] = ("lemmert_chawla", "tolubinsky_kostanchuk", "cole_rohsenow")
 #: Area (bubble influence) factors K of `partition`.
 AREA_FACTORS: Tuple[str, ...] = ("kurul_podowski", "del_valle_kenning")
 
@@ -795,7 +799,7 @@ def _site_density(method: Any, wall_superheat: Any, fluid: Saturation, contact_a
             "pass site_density= as a number [1/m2], an array or a callable"
         )
     if contact_angle_deg is None:
-        if method != "lemmert_chawla":
+        if method not in _ANGLE_FREE:
             raise WetboilValueError(f"boiling.partition: site_density closure {method!r} needs contact_angle_deg=...")
         contact_angle_deg = 90.0  # not used by Lemmert-Chawla
     return fn(wall_superheat, fluid, contact_angle_deg, method=method)
@@ -985,14 +989,13 @@ def partition(
         k = area_factor
     # an angle no chosen closure takes would drop the surface's wettability without a word (RPI's own
     # closures, the defaults, have none); a callable closure is given the angle and may use it
-    named = lambda c, names: isinstance(c, str) and c in names  # noqa: E731  (a closure may be an array)
-    uses_angle = (callable(site_density) or named(site_density, ("wang_dhir", "basu", "hibiki_ishii"))
-                  or callable(departure) or named(departure, ("fritz", "fritz_jakob", "kocamustafaogullari_ishii",
-                                                              "force_balance")))
-    hints = {"contact_angle_deg": (uses_angle, "an angle-dependent site density ('wang_dhir', 'basu', 'hibiki_ishii') "
-                                               "or departure diameter ('fritz', 'kocamustafaogullari_ishii', "
-                                               "'force_balance') takes it"),
-             "receding_angle_deg": (callable(departure) or named(departure, ("force_balance",)),
+    def takes_angle(c: Any) -> bool:  # a closure may also be a number or an array: no angle
+        return callable(c) or (isinstance(c, str) and c not in _ANGLE_FREE)
+
+    with_angle = [c for c in SITE_DENSITY_CLOSURES + DEPARTURE_CLOSURES if c not in _ANGLE_FREE]
+    hints = {"contact_angle_deg": (takes_angle(site_density) or takes_angle(departure),
+                                   f"an angle-dependent closure ({', '.join(map(repr, with_angle))}) takes it"),
+             "receding_angle_deg": (callable(departure) or (isinstance(departure, str) and departure == "force_balance"),
                                     "only departure='force_balance' takes it")}
     label = lambda c: repr(c) if isinstance(c, str) else "given values"  # noqa: E731
     for name, given in (("contact_angle_deg", contact_angle_deg), ("receding_angle_deg", receding_angle_deg)):
