@@ -47,6 +47,12 @@ fn screening_from(
     [t, onset, d, q]
 }
 
+/// Saturation pressure of water \[Pa\] at which ρ_v/ρ_l reaches
+/// [`chf::DENSITY_RATIO_MAX`], the near-critical bound of Kandlikar's CHF
+/// (IAPWS-95 \[D\]: 16.955 MPa by CoolProp; the test checks it against this
+/// crate's water). Below [`water::P_NEAR_CRITICAL`], so it also bounds the state.
+pub const P_CHF_MAX: f64 = 1.6955e7;
+
 /// Kernel of [`water_screening`].
 pub struct WaterScreening;
 impl Kernel<6, 4> for WaterScreening {
@@ -72,7 +78,7 @@ impl Kernel<6, 4> for WaterScreening {
         domain: "as the four models: 611.657 Pa <= p < 22.064 MPa, angles 0-180 deg with receding_angle_deg <= \
                  contact_angle_deg, heat_flux >= 0, g > 0",
         validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
-                   orientation_deg <= 90 (Kandlikar)",
+                   orientation_deg <= 90 and p <= 16.955 MPa (rho_v/rho_l <= 0.21, Kandlikar)",
         reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",
         doi: "",
         verification: "bitwise equal to the chain of the separate kernels (tests)",
@@ -109,13 +115,29 @@ impl Kernel<6, 4> for WaterScreening {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
-        x[0] <= water::P_NEAR_CRITICAL && x[1] <= 90.0 && x[3] <= 90.0
+        // P_CHF_MAX < P_NEAR_CRITICAL: the one bound keeps both the state and Kandlikar's ratio
+        x[0] <= P_CHF_MAX && x[1] <= 90.0 && x[3] <= 90.0
     }
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// P_CHF_MAX is the pressure of Kandlikar's density-ratio bound for this crate's water:
+    /// the separate kernel's flag changes within 0.05 % of it, and the state bound lies above.
+    #[test]
+    fn chf_pressure_bound_is_the_density_ratio_bound() {
+        const { assert!(P_CHF_MAX < water::P_NEAR_CRITICAL) };
+        let in_range = |p: f64| {
+            let w = water::saturation_p(p);
+            chf::Kandlikar::in_range(&[20.0, 0.0, w[4], w[2], w[3], w[5], 9.80665])
+        };
+        assert!(in_range(P_CHF_MAX * (1.0 - 5e-4)));
+        assert!(!in_range(P_CHF_MAX * (1.0 + 5e-4)));
+        assert!(WaterScreening::in_range(&[P_CHF_MAX, 45.0, 20.0, 0.0, 1e5, 9.80665]));
+        assert!(!WaterScreening::in_range(&[P_CHF_MAX * 1.001, 45.0, 20.0, 0.0, 1e5, 9.80665]));
+    }
 
     #[test]
     fn fused_equals_the_separate_models() {

@@ -11,6 +11,24 @@ pub const ZUBER_K: f64 = PI / 24.0;
 /// Lienhard and Dhir's constant for a large (infinite) flat heater [-].
 pub const LIENHARD_DHIR_K: f64 = 0.149;
 
+/// Largest vapour-to-liquid density ratio ρ_v/ρ_l inside the range of the
+/// hydrodynamic CHF forms ([`zuber`], [`kandlikar`], [`lienhard_dhir`]) [-].
+///
+/// The library's own bound, not a published one: these forms take ρ_v ≪ ρ_l,
+/// and the factor `[(ρ_l + ρ_v)/ρ_l]^(1/2)` of Zuber's original that they omit
+/// reaches 1.10 at 0.21. Beyond it, towards the critical point (where the CHF
+/// falls to zero), the value is computed and flagged as extrapolation. For
+/// water the bound is 16.96 MPa (T_sat 625.2 K, p/p_crit 0.77, IAPWS-95);
+/// for R134a, ammonia and methanol p/p_crit 0.73 to 0.75, nitrogen 0.69
+/// (CoolProp).
+pub const DENSITY_RATIO_MAX: f64 = 0.21;
+
+/// Whether ρ_v/ρ_l ≤ [`DENSITY_RATIO_MAX`].
+#[inline(always)]
+fn far_from_critical(rho_l: f64, rho_v: f64) -> bool {
+    rho_v <= DENSITY_RATIO_MAX * rho_l
+}
+
 /// Hydrodynamic critical heat flux [W/m2], Kutateladze-Zuber form.
 ///
 /// `q_max = K h_lv ρ_v^(1/2) [σ g (ρ_l − ρ_v)]^(1/4)`
@@ -21,6 +39,8 @@ pub const LIENHARD_DHIR_K: f64 = 0.149;
 /// * Zuber's original carries the extra factor `[(ρ_l + ρ_v)/ρ_l]^(1/2)`, below
 ///   0.04 % for water at 1 atm and omitted here as in the later literature.
 /// * Possible: all properties and `K`, `g` positive, ρ_l > ρ_v; otherwise NaN.
+///   Flagged out of range: `K` outside 0.10-0.20, or ρ_v/ρ_l above
+///   [`DENSITY_RATIO_MAX`] (near the critical point).
 ///
 /// References: N. Zuber, "Hydrodynamic aspects of boiling heat transfer",
 /// AEC Report AECU-4439 (1959); J.H. Lienhard and V.K. Dhir, "Hydrodynamic
@@ -49,7 +69,8 @@ impl Kernel<6, 1> for Zuber {
         ],
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "h_lv > 0, rho_l > rho_v > 0, sigma > 0, K > 0, g > 0",
-        validity: "saturated pool boiling on a large upward-facing heater; 0.10 <= K <= 0.20 (the constants in use span 0.13 to 0.18)",
+        validity: "saturated pool boiling on a large upward-facing heater; 0.10 <= K <= 0.20 (the constants in use span \
+                   0.13 to 0.18); rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
         reference: "N. Zuber, Hydrodynamic aspects of boiling heat transfer, AEC Report AECU-4439 (1959); \
                     J.H. Lienhard, V.K. Dhir, J. Heat Transfer 95 (1973) 152-158",
         doi: "10.1115/1.3450013",
@@ -65,7 +86,7 @@ impl Kernel<6, 1> for Zuber {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
-        (0.10..=0.20).contains(&x[4])
+        (0.10..=0.20).contains(&x[4]) && far_from_critical(x[1], x[2])
     }
 }
 
@@ -79,6 +100,7 @@ impl Kernel<6, 1> for Zuber {
 /// * Published validity: 0 ≤ φ ≤ 90°. Beyond 90° the result is still computed
 ///   (and flagged out of range) while the bracket stays positive; where
 ///   `2/π + (π/4)(1 + cos β) cos φ ≤ 0` the model has no answer and gives NaN.
+///   Also flagged: ρ_v/ρ_l above [`DENSITY_RATIO_MAX`] (near the critical point).
 /// * Possible: 0 ≤ β ≤ 180, 0 ≤ φ ≤ 180, positive properties, ρ_l > ρ_v.
 ///
 /// Reference: S.G. Kandlikar, "A theoretical model to predict pool boiling CHF
@@ -126,7 +148,7 @@ impl Kernel<7, 1> for Kandlikar {
         ],
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "0 <= receding_angle_deg <= 180, 0 <= orientation_deg <= 180, positive properties, rho_l > rho_v",
-        validity: "0 <= orientation_deg <= 90",
+        validity: "0 <= orientation_deg <= 90; rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
         reference: "S.G. Kandlikar, A theoretical model to predict pool boiling CHF incorporating effects of \
                     contact angle and orientation, J. Heat Transfer 123 (2001) 1071-1079",
         doi: "10.1115/1.1409265",
@@ -142,7 +164,7 @@ impl Kernel<7, 1> for Kandlikar {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 7]) -> bool {
-        Self::side_in_range(0, x)
+        Self::side_in_range(0, x) && Self::side_in_range(1, x)
     }
 }
 impl Factored<7, 1> for Kandlikar {
@@ -161,7 +183,11 @@ impl Factored<7, 1> for Kandlikar {
     }
     #[inline(always)]
     fn side_in_range(s: u8, x: &[f64; 7]) -> bool {
-        s != 0 || x[1] <= 90.0
+        if s == 0 {
+            x[1] <= 90.0
+        } else {
+            far_from_critical(x[3], x[4])
+        }
     }
 }
 
@@ -234,7 +260,8 @@ fn geometry_code(x: f64) -> Option<u8> {
 ///   form, 18.9 as tabulated; MODELS Q-8 unresolved), `h_lv` [J/kg],
 ///   `rho_l`, `rho_v` [kg/m3], `sigma` [N/m], `g` [m/s2].
 /// * Possible: a known geometry code, positive size, area, c and properties,
-///   ρ_l > ρ_v; otherwise NaN. Outside the published L' range: computed, flagged.
+///   ρ_l > ρ_v; otherwise NaN. Outside the published L' range, or with ρ_v/ρ_l
+///   above [`DENSITY_RATIO_MAX`] (near the critical point): computed, flagged.
 /// * The small-plate form with A = L² is F = 135/L'² \[D\]: above the large
 ///   plate's 1.14 only below L' = 10.9 (one Taylor cell), 0.34 at L' = 20; kept
 ///   as stated (the conservative side), not flagged.
@@ -348,7 +375,8 @@ impl Kernel<9, 1> for LienhardDhir {
         ],
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "geometry code 0-3, size > 0, area > 0, coefficient > 0, positive properties, rho_l > rho_v",
-        validity: "large flat plate L' >= 27; small flat plate 9 <= L' <= 20; cylinder and sphere R' >= 0.15",
+        validity: "large flat plate L' >= 27; small flat plate 9 <= L' <= 20; cylinder and sphere R' >= 0.15; \
+                   rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
         reference: "J.H. Lienhard, V.K. Dhir, J. Heat Transfer 95 (1973) 152-158; \
                     K.H. Sun, J.H. Lienhard, Int. J. Heat Mass Transfer 13 (1970) 1425-1439",
         doi: "10.1115/1.3450013",
@@ -370,11 +398,12 @@ impl Kernel<9, 1> for LienhardDhir {
     #[inline(always)]
     fn in_range(x: &[f64; 9]) -> bool {
         let lp = dimensionless_size(x[1], x[5], x[6], x[7], x[8]);
-        match geometry_code(x[0]) {
-            Some(0) => lp >= 27.0,
-            Some(1) => (9.0..=20.0).contains(&lp),
-            _ => lp >= 0.15,
-        }
+        far_from_critical(x[5], x[6])
+            && match geometry_code(x[0]) {
+                Some(0) => lp >= 27.0,
+                Some(1) => (9.0..=20.0).contains(&lp),
+                _ => lp >= 0.15,
+            }
     }
 }
 

@@ -126,6 +126,39 @@ def test_validity_ranges_warn():
             lienhard_dhir(w, geometry, size)
 
 
+def test_hydrodynamic_forms_flag_the_near_critical_density_ratio():
+    # The hydrodynamic forms take rho_v << rho_l; the library flags rho_v/rho_l
+    # above 0.21 (its own bound, where Zuber's omitted factor
+    # sqrt((rho_l + rho_v)/rho_l) reaches 1.10; wetboil.chf.DENSITY_RATIO_MAX).
+    # The ratios of saturated water come from CoolProp (IAPWS-95): 0.171 at
+    # 15.5 MPa (inside), 0.21 at 16.955 MPa, 0.255 at 18 MPa (outside).
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    from wetboil.chf import DENSITY_RATIO_MAX
+    from wetboil.fluids import water
+
+    ratio = [CP.PropsSI("D", "P", p, "Q", 1, "Water") / CP.PropsSI("D", "P", p, "Q", 0, "Water")
+             for p in (15.5e6, 16.9e6, 17.0e6, 18e6)]
+    assert ratio[0] < ratio[1] < DENSITY_RATIO_MAX < ratio[2] < ratio[3]
+    calls = [lambda w: zuber(w), lambda w: kandlikar(20.0, w), lambda w: lienhard_dhir(w, "flat_plate", 0.3)]
+    for p in (15.5e6, 16.9e6):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            w = water(p=p)
+            for call in calls:
+                call(w)
+    w = water(p=np.array([1e5, 17.0e6, 18e6]))
+    for call, name in zip(calls, ("zuber", "kandlikar", "lienhard_dhir")):
+        with pytest.warns(wetboil.RangeWarning, match=rf"chf\.{name}: 2 of 3 .*rho_v/rho_l <= 0\.21") as rec:
+            q = call(w)
+        assert len(rec) == 1 and np.all(np.isfinite(q))
+    codes = wetboil.validity(kandlikar, 20.0, w)
+    assert codes.tolist() == [0, 2, 2]
+    # the fused water chain flags the same pressures (its bound is that of Kandlikar's ratio)
+    from wetboil.sweep import water_chain
+    with pytest.warns(wetboil.RangeWarning, match="p <= 16.955 MPa"):
+        water_chain(np.array([15.5e6, 17.0e6]), 45.0, 20.0, 1e5)
+
+
 def test_lienhard_dhir_bad_input():
     with pytest.raises(ValueError, match="flat_plate, small_flat_plate, cylinder, sphere"):
         lienhard_dhir(INCROPERA, "cone", 0.01)
@@ -281,3 +314,31 @@ def test_impossible_angle_warning_names_the_possible_angles(water):
     # impossible, and the warning says which inputs are possible rather than only "impossible".
     with pytest.warns(wetboil.InvalidValueWarning, match=r"possible: 0 <= receding_angle_deg <= 180"):
         assert math.isnan(kandlikar(200.0, water))
+
+
+@pytest.mark.parametrize("p", [7e6, 15.5e6])
+def test_kandlikar_and_zuber_at_reactor_pressures_against_coolprop(p):
+    # Reference: CoolProp's IAPWS-95 saturated properties of water at 7 MPa
+    # (BWR-like) and 15.5 MPa (PWR-like, rho_v/rho_l 0.17: inside the
+    # near-critical bound, so no warning); forms: Zuber (1959) K = pi/24 and
+    # Kandlikar (2001) as transcribed in the chf.kandlikar docstring.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    from wetboil.fluids import water as iapws_water
+
+    def prop(k, q):
+        return CP.PropsSI(k, "P", p, "Q", q, "Water")
+
+    rl, rv = prop("D", 0), prop("D", 1)
+    hlv, sig = prop("H", 1) - prop("H", 0), prop("I", 0)
+    g = 9.80665
+    group = hlv * math.sqrt(rv) * (sig * g * (rl - rv)) ** 0.25
+    # CoolProp's water surface tension fit differs from IAPWS R1-76 by up to
+    # 1 % here (from_coolprop docstring): to the 0.25 power that is 0.3 %
+    w = iapws_water(p=p)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert zuber(w) == pytest.approx(math.pi / 24 * group, rel=3e-3)
+        for beta, phi in ((20.0, 0.0), (60.0, 90.0)):
+            c = 1 + math.cos(math.radians(beta))
+            K = c / 16 * math.sqrt(2 / math.pi + math.pi / 4 * c * math.cos(math.radians(phi)))
+            assert kandlikar(beta, w, phi) == pytest.approx(K * group, rel=3e-3)

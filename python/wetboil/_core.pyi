@@ -8,6 +8,7 @@ from typing_extensions import final
 MAX_INPUTS: int
 MAX_OUTPUTS: int
 MAX_ARGS: int
+CHF_DENSITY_RATIO_MAX: float
 
 @final
 class Front:

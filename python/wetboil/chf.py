@@ -18,6 +18,16 @@ equations could be read (only abstracts and first pages were reachable), and
 the forms in circulation could not be confirmed against the originals, so no
 guess is shipped. Kirichenko & Chernyakov's contact-angle form is left out
 for the same reason (two restatements disagree on the sign of an exponent).
+
+Scope: these are saturated pool-boiling forms. They do not predict the CHF
+of forced flow (departure from nucleate boiling of a fuel rod or a heated
+channel): a pool CHF margin is not a flow-boiling margin. Subcooling is not
+corrected for (it raises the pool CHF, so saturated values are on the
+conservative side). Towards the critical point, where the CHF falls to
+zero, the hydrodynamic forms (`zuber`, `kandlikar`, `lienhard_dhir`) are
+flagged out of range above rho_v/rho_l = `DENSITY_RATIO_MAX` (0.21; water
+above 16.96 MPa), the library's own bound: they take rho_v << rho_l, and the
+factor of Zuber's original they omit reaches 10 % there.
 """
 
 from __future__ import annotations
@@ -27,6 +37,7 @@ from typing import Any, Dict
 
 import numpy as np
 
+from . import _core
 from ._api import _coerce, _is_pandas, _pandas_like, _pandas_values, check_choice, kernel
 from ._errors import WetboilTypeError, WetboilValueError
 from .fluids import Saturation
@@ -56,6 +67,7 @@ __all__ = [
     "ZUBER_K",
     "LIENHARD_DHIR_K",
     "BERENSON_K",
+    "DENSITY_RATIO_MAX",
 ]
 
 G = 9.80665
@@ -65,6 +77,12 @@ ZUBER_K = math.pi / 24.0
 LIENHARD_DHIR_K = 0.149
 #: Berenson's constant of the minimum film-boiling heat flux (large horizontal plate).
 BERENSON_K = 0.09
+#: Largest rho_v/rho_l inside the range of the hydrodynamic CHF forms (zuber,
+#: kandlikar, lienhard_dhir): the library's own bound, where the factor
+#: sqrt((rho_l + rho_v)/rho_l) these forms omit from Zuber's original reaches
+#: 1.10. Above it (water above 16.96 MPa, p/p_crit 0.77; refrigerants from
+#: about p/p_crit 0.73) the CHF is computed and flagged as extrapolation.
+DENSITY_RATIO_MAX: float = _core.CHF_DENSITY_RATIO_MAX
 
 
 @kernel("zuber_chf")
@@ -156,7 +174,12 @@ def kandlikar(receding_angle_deg: Any, fluid: Saturation, orientation_deg: Any =
     Published validity: upward-facing heaters, 0 <= phi <= 90 deg. Beyond 90
     deg the value is computed while the bracket stays positive and flagged
     (`RangeWarning`); where :math:`2/\pi + (\pi/4)(1+\cos\beta)\cos\phi \le 0`
-    the model has no answer and returns NaN (also flagged). Identities: at
+    the model has no answer and returns NaN (also flagged). Also flagged:
+    rho_v/rho_l above `DENSITY_RATIO_MAX` (near the critical point; the
+    library's own bound, see the module notes). The receding angle has no
+    range check of its own: the factor (1 + cos beta) falls to exactly 0 W/m2
+    at 180 deg, and far above 90 deg the value lies below the minimum heat
+    flux of the same fluid; a hydrophobic wall is extrapolation. Identities: at
     beta = 0, phi = 0 the constant is :math:`(1/8)(2/\pi+\pi/2)^{1/2} = 0.186`;
     at phi = 90 the orientation term vanishes. At beta = 0 facing up that
     constant is 1.42 times Zuber's pi/24 (0.131), so on a fully wetting

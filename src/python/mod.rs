@@ -278,5 +278,6 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(buffer_cache_info, m)?)?;
     m.add("MAX_INPUTS", MAX_IN)?;
     m.add("MAX_OUTPUTS", MAX_OUT)?;
+    m.add("CHF_DENSITY_RATIO_MAX", crate::chf::DENSITY_RATIO_MAX)?;
     Ok(())
 }
