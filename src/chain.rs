@@ -77,8 +77,9 @@ impl Kernel<6, 4> for WaterScreening {
         ],
         domain: "as the four models: 611.657 Pa <= p < 22.064 MPa, angles 0-180 deg with receding_angle_deg <= \
                  contact_angle_deg, heat_flux >= 0, g > 0",
-        validity: "every step inside its own range: T_sat <= 0.997 T_crit, contact_angle_deg <= 90 (Fritz), \
-                   orientation_deg <= 90 and p <= 16.955 MPa (rho_v/rho_l <= 0.21, Kandlikar)",
+        validity: "every step inside its own range: T_sat <= 0.997 T_crit, Hsu's superheat at theta = 0 <= 0.1 T_sat, \
+                   contact_angle_deg <= 90 (Fritz), orientation_deg <= 90 and p <= 16.955 MPa (rho_v/rho_l <= 0.21, \
+                   Kandlikar)",
         reference: "see water_saturation_p, hsu_onset, fritz_departure, kandlikar_chf",
         doi: "",
         verification: "bitwise equal to the chain of the separate kernels (tests)",
@@ -115,8 +116,18 @@ impl Kernel<6, 4> for WaterScreening {
     }
     #[inline(always)]
     fn in_range(x: &[f64; 6]) -> bool {
-        // P_CHF_MAX < P_NEAR_CRITICAL: the one bound keeps both the state and Kandlikar's ratio
-        x[0] <= P_CHF_MAX && x[1] <= 90.0 && x[3] <= 90.0
+        Self::in_range_with(x, &Self::eval(x))
+    }
+    /// The steps' ranges. P_CHF_MAX < P_NEAR_CRITICAL: the one bound keeps both the state and
+    /// Kandlikar's ratio. Hsu's bound (its superheat at θ = 0 within 0.1 T_sat) from the outputs:
+    /// that superheat is the onset over cos(θ/2), for θ ≤ 90° (beyond, Fritz flags the element);
+    /// at the bound itself the two roundings may differ in the last bit.
+    #[inline(always)]
+    fn in_range_with(x: &[f64; 6], y: &[f64; 4]) -> bool {
+        x[0] <= P_CHF_MAX
+            && x[1] <= 90.0
+            && x[3] <= 90.0
+            && !(y[1] > 0.1 * y[0] * crate::trig::cos_deg(0.5 * x[1]))
     }
 }
 
@@ -137,6 +148,20 @@ mod tests {
         assert!(!in_range(P_CHF_MAX * (1.0 + 5e-4)));
         assert!(WaterScreening::in_range(&[P_CHF_MAX, 45.0, 20.0, 0.0, 1e5, 9.80665]));
         assert!(!WaterScreening::in_range(&[P_CHF_MAX * 1.001, 45.0, 20.0, 0.0, 1e5, 9.80665]));
+    }
+
+    /// The chain flags Hsu's linearisation bound as the separate kernel does: water at 2 kPa
+    /// (T_sat 290.6 K) with 1e5 W/m2 has a superheat at 0 deg of about 39 K, above 29 K.
+    #[test]
+    fn chain_flags_the_onset_bound_as_hsu_does() {
+        for &(p, q) in &[(2e3, 1e5), (2e3, 2e4), (1e4, 3e5), (101325.0, 1e6), (101325.0, 3e7)] {
+            let w = water::saturation_p(p);
+            for th in [0.0, 30.0, 60.0, 90.0] {
+                let hsu = nucleation::HsuOnset::in_range(&[q, w[5], w[0], w[2], w[3], w[4], w[7], th]);
+                assert_eq!(WaterScreening::in_range(&[p, th, 0.5 * th, 0.0, q, 9.80665]), hsu, "{p} {q} {th}");
+            }
+        }
+        assert!(!WaterScreening::in_range(&[2e3, 45.0, 20.0, 0.0, 1e5, 9.80665]));
     }
 
     #[test]

@@ -739,6 +739,25 @@ const ONSET_FLUID: [Arg; 6] = [
     arg("fluid.k_l", "W/(m K)"),
 ];
 
+/// Whether an onset superheat `ΔT` with `ΔT² = c σ T_sat q''/(ρ_v h_lv k_l)`
+/// stays within 0.1 T_sat, where the linearised Clausius-Clapeyron embryo
+/// superheat of the tangency models holds (the threshold of
+/// [`EmbryoSuperheat`], our own). Beyond it, at low pressure or on fluids with
+/// a small vapour density, the linear form overstates the superheat (water at
+/// 5 kPa: +11 % at 0.06 T_sat against the saturation line of IAPWS-95).
+/// Squared and multiplied through, without a root or a division.
+#[inline(always)]
+fn onset_linear(c: f64, x: &[f64; 7]) -> bool {
+    let [q, sigma, t, _rho_l, rho_v, h_lv, k_l] = *x;
+    c * 100.0 * sigma * q.abs() <= t * rho_v * h_lv * k_l
+}
+
+/// The onset fluid inputs of an eight-input onset kernel (heat flux and fluid, without the angle).
+#[inline(always)]
+fn onset_inputs(x: &[f64; 8]) -> [f64; 7] {
+    [x[0], x[1], x[2], x[3], x[4], x[5], x[6]]
+}
+
 /// Kernel of [`hsu_onset`].
 pub struct HsuOnset;
 impl Kernel<8, 2> for HsuOnset {
@@ -758,7 +777,9 @@ impl Kernel<8, 2> for HsuOnset {
         ],
         outputs: &[arg("superheat", "K"), arg("cavity_radius", "m")],
         domain: "heat_flux >= 0, 0 <= contact_angle_deg <= 180, sigma > 0, T > 0, rho_l > rho_v > 0, h_lv > 0, k_l > 0",
-        validity: "linear liquid temperature profile near the wall; no published numeric range",
+        validity: "linear liquid temperature profile near the wall, no published numeric range; flagged where the \
+                   superheat at theta = 0 (the largest of any angle), 2 sqrt(2 zeta q/k_l), exceeds 0.1 T_sat (the \
+                   linearised embryo superheat's threshold, our own)",
         reference: "Y.Y. Hsu, J. Heat Transfer 84 (1962) 207-213; at 90 deg Y. Sato, H. Matsumura, Bull. JSME 7 (1964) 392-398",
         doi: "10.1115/1.3684339",
         verification: "general-C3 tangency derived [D]; Hsu's 1/rho_v embryo [M, med-high]; at 90 deg Davis-Anderson with \
@@ -771,6 +792,10 @@ impl Kernel<8, 2> for HsuOnset {
     #[inline(always)]
     fn possible(x: &[f64; 8]) -> bool {
         Self::side_possible(0, x) && Self::side_possible(1, x)
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 8]) -> bool {
+        Self::side_in_range(1, x)
     }
 }
 impl Factored<8, 2> for HsuOnset {
@@ -790,6 +815,13 @@ impl Factored<8, 2> for HsuOnset {
         } else {
             onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
         }
+    }
+    /// On the fluid side, bounding the largest superheat of any angle (θ = 0:
+    /// `ΔT² = 16 σ T q''/(ρ_v h_lv k_l)`), so that the flag does not need the
+    /// angle and the factorised grid path flags what the element loop flags.
+    #[inline(always)]
+    fn side_in_range(s: u8, x: &[f64; 8]) -> bool {
+        s == 0 || onset_linear(16.0, &onset_inputs(x))
     }
 }
 
@@ -827,7 +859,8 @@ impl Kernel<7, 2> for DavisAnderson {
         ],
         outputs: &[arg("superheat", "K"), arg("cavity_radius", "m")],
         domain: "heat_flux >= 0, sigma > 0, T > 0, rho_l > rho_v > 0, h_lv > 0, k_l > 0",
-        validity: "linear liquid temperature profile near the wall; no published numeric range",
+        validity: "linear liquid temperature profile near the wall, no published numeric range; flagged where the \
+                   superheat exceeds 0.1 T_sat (the linearised embryo superheat's threshold, our own)",
         reference: "E.J. Davis, G.H. Anderson, AIChE J. 12 (1966) 774-780",
         doi: "10.1002/aic.690120426",
         verification: "coefficient 8 [M, high]; v_lv form [V2]; originals not available to us",
@@ -839,6 +872,11 @@ impl Kernel<7, 2> for DavisAnderson {
     #[inline(always)]
     fn possible(x: &[f64; 7]) -> bool {
         onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 7]) -> bool {
+        // ΔT² = 8 σ T v_lv q''/(h_lv k_l), v_lv = (ρ_l − ρ_v)/(ρ_l ρ_v): the 1/ρ_v form's bound times v_lv ρ_v
+        onset_linear(8.0 * (x[3] - x[4]) / x[3], x)
     }
 }
 
@@ -904,7 +942,8 @@ impl Kernel<8, 2> for KandlikarOnset {
         ],
         outputs: &[arg("superheat", "K"), arg("cavity_radius", "m")],
         domain: "heat_flux >= 0, 0 <= contact_angle_deg <= 180, sigma > 0, T > 0, rho_l > rho_v > 0, h_lv > 0, k_l > 0",
-        validity: "subcooled flow boiling of water (the paper's data); no numeric range recovered",
+        validity: "subcooled flow boiling of water (the paper's data), no numeric range recovered; flagged where the \
+                   superheat exceeds 0.1 T_sat (the linearised embryo superheat's threshold, our own)",
         reference: "S.G. Kandlikar, V.R. Mizo, M.D. Cartwright, E. Ikenze, ASME HTD-Vol. 342 (1997) 11-18",
         doi: "",
         verification: "1.1 stagnation factor and 8.8 coefficient [M, med]; original not available to us",
@@ -916,6 +955,10 @@ impl Kernel<8, 2> for KandlikarOnset {
     #[inline(always)]
     fn possible(x: &[f64; 8]) -> bool {
         Self::side_possible(0, x) && Self::side_possible(1, x)
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 8]) -> bool {
+        Self::side_in_range(1, x)
     }
 }
 impl Factored<8, 2> for KandlikarOnset {
@@ -935,6 +978,11 @@ impl Factored<8, 2> for KandlikarOnset {
         } else {
             onset_possible(x[0], x[1], x[2], x[3], x[4], x[5], x[6])
         }
+    }
+    /// The superheat does not depend on the angle: `ΔT² = 8.8 σ T q''/(ρ_v h_lv k_l)`.
+    #[inline(always)]
+    fn side_in_range(s: u8, x: &[f64; 8]) -> bool {
+        s == 0 || onset_linear(8.8, &onset_inputs(x))
     }
 }
 
@@ -1599,6 +1647,31 @@ mod tests {
             assert_relative_eq!(k[0], 1.1f64.sqrt() * h[0], max_relative = 1e-14);
             assert_relative_eq!(k[1], 40f64.to_radians().sin() * K_L * k[0] / (2.2 * q), max_relative = 1e-13);
         }
+    }
+
+    /// The onset kernels flag exactly where their superheat (Hsu's at θ = 0, the
+    /// largest of any angle) passes 0.1 T_sat, the embryo linearisation's threshold:
+    /// the flux where it does is found from the computed superheat, and the flag
+    /// changes within 1e-9 of it.
+    #[test]
+    fn onset_kernels_flag_superheats_beyond_the_linearisation() {
+        let t_sat = W.1;
+        let x7 = |q: f64| [q, W.0, W.1, W.2, W.3, W.4, K_L];
+        let x8 = |q: f64, th: f64| [q, W.0, W.1, W.2, W.3, W.4, K_L, th];
+        // superheat ∝ sqrt(q): the flux at 0.1 T_sat from the superheat at 1e5 W/m2
+        let at_bound = |dt: f64| 1e5 * (0.1 * t_sat / dt).powi(2);
+        let q_h = at_bound(hsu_onset(1e5, W.0, W.1, W.2, W.3, W.4, K_L, 0.0)[0]);
+        let q_d = at_bound(davis_anderson(1e5, W.0, W.1, W.2, W.3, W.4, K_L)[0]);
+        let q_k = at_bound(kandlikar_onset(1e5, W.0, W.1, W.2, W.3, W.4, K_L, 30.0)[0]);
+        for (lo, hi) in [(1.0 - 1e-9, true), (1.0 + 1e-9, false)] {
+            for th in [0.0, 45.0, 90.0, 180.0] {
+                assert_eq!(HsuOnset::in_range(&x8(q_h * lo, th)), hi, "hsu at {th}");
+                assert_eq!(KandlikarOnset::in_range(&x8(q_k * lo, th)), hi, "kandlikar at {th}");
+            }
+            assert_eq!(DavisAnderson::in_range(&x7(q_d * lo)), hi);
+        }
+        // water at 1 atm and a plain 1 MW/m2 is far inside (Hsu at 0 deg: about 20 K of 37 K)
+        assert!(HsuOnset::in_range(&x8(1e6, 0.0)) && hsu_onset(1e6, W.0, W.1, W.2, W.3, W.4, K_L, 0.0)[0] < 0.1 * t_sat);
     }
 
     #[test]

@@ -803,8 +803,13 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     is a sizeable fraction of T_sat (low pressure) that over-predicts: for
     water at 1e5 W/m2, 30 % at 1 kPa (39 K against 30 K), 16 % at 3 kPa,
     7 % at 10 kPa and 1.6 % at 1 atm against the same tangency with
-    ``embryo_superheat(..., exact=True)`` [D]. Not flagged (no published
-    limit); `embryo_superheat` flags its linear form above 0.1 T_sat. Bergles &
+    ``embryo_superheat(..., exact=True)`` [D]. There is no published limit;
+    the tangency methods are flagged (`RangeWarning`, a sweep's
+    ``range_flags``) where the superheat exceeds 0.1 T_sat, the threshold
+    `embryo_superheat` uses for its linear form (our own). For "hsu" the
+    test takes the superheat at 0 deg, the largest of any angle, so that
+    the flag does not depend on the angle: water at 1e5 W/m2 is flagged
+    below about 3.6 kPa, methanol at 223 K (0.7 kPa) at any angle. Bergles &
     Rohsenow fitted water from 15 to 2000 psia (1.03-138 bar); outside,
     `RangeWarning` (water at 1 atm, 14.7 psia, lies 2 % below the range and
     is flagged). Water at 1 atm and 1e5 W/m2 [D, this function with IAPWS
