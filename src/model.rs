@@ -46,7 +46,7 @@ pub struct Model {
     pub validity: &'static str,
     /// Original reference(s).
     pub reference: &'static str,
-    /// DOI of the original, or "" when it has none.
+    /// DOI of the first paper `reference` names that has one, or "" when none has.
     pub doi: &'static str,
     /// What was checked against which source, and what was not.
     pub verification: &'static str,

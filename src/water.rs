@@ -2130,9 +2130,9 @@ const SAT_OUTPUTS: [crate::model::Arg; 12] = [
     crate::model::arg("k_v", "W/(m K)"),
 ];
 
-const WATER_REFERENCE: &str = "IAPWS SR1-86(1992) saturation line; IAPWS R6-95(2018) (IAPWS-95) densities, \
-     enthalpies, heat capacities; IAPWS R1-76(2014) surface tension; IAPWS R12-08 viscosity; IAPWS R15-11 \
-     thermal conductivity";
+const WATER_REFERENCE: &str = "IAPWS SR1-86(1992) saturation line; IAPWS R6-95(2018) (IAPWS-95, W. Wagner, \
+     A. Pruss, J. Phys. Chem. Ref. Data 31 (2002) 387-535) densities, enthalpies, heat capacities; IAPWS R1-76(2014) \
+     surface tension; IAPWS R12-08 viscosity; IAPWS R15-11 thermal conductivity";
 
 const WATER_VERIFICATION: &str = "IAPWS release tables (SR1-86, IAPWS-95 Tables 7-8, IF97 Tables 35-36, R1-76, \
      R12-08, R15-11) in Rust tests; against IAPWS-95 (CoolProp, iapws) over 275-627.7 K: p 7e-5, rho_l 3e-6, \

@@ -108,3 +108,33 @@ def test_embryo_superheat_linear_overpredicts_small_embryos():
     exact = CP.PropsSI("T", "P", 101325.0 + 2 * w.sigma / r, "Q", 0, "Water") - w.T
     lin = embryo_superheat(r, w)
     assert 20 < exact < 25 and 32 < lin < 33.5
+
+
+# Works a model names that have no DOI (reports, books, releases, laws): a DOI
+# of such a model belongs to the first paper named after them.
+_NO_DOI = ("AEC Report", "Theorie mecanique", "Kinetik der Phasenbildung", "Young-Laplace and Clausius-Clapeyron",
+           "IAPWS SR1-86")
+# Whose each multi-paper model's DOI is [M: DOIs of these papers recalled from memory, as in the models' text].
+_DOI_OWNER = {"zuber_chf": "Lienhard", "minimum_heat_flux": "Berenson", "young_dupre_adhesion_work": "Fox",
+              "nucleation_barrier_factor": "Blander", "embryo_superheat_linear": "Hsu", "embryo_radius_linear": "Hsu",
+              "water_saturation_t": "Wagner", "water_saturation_p": "Wagner", "hsu_onset": "Hsu"}
+
+
+def test_a_doi_belongs_to_the_first_paper_named_that_has_one():
+    # A report reader took the DOI printed after "... Y. Sato, H. Matsumura, Bull. JSME 7 (1964)" for
+    # theirs (it is Hsu's 1962 paper). Model.doi is the first named paper's that has one, and the
+    # report's reference lines say so when several papers are named.
+    import wetboil
+    from wetboil.report import _cite
+
+    for m in wetboil.models():
+        if not m.doi or ";" not in m.reference:
+            continue
+        parts = [p.strip() for p in m.reference.split(";")]
+        first = next(i for i, p in enumerate(parts) if not any(w in p for w in _NO_DOI))
+        owner = _DOI_OWNER.get(m.name)
+        if owner is not None:
+            assert owner in parts[first], (m.name, parts[first])
+        assert _cite(m).endswith(f"doi:{m.doi} (of the first of these that has one)")
+    single = next(m for m in wetboil.models() if m.doi and ";" not in m.reference)
+    assert _cite(single) == f"{single.reference}; doi:{single.doi}"

@@ -51,6 +51,8 @@ class Model(NamedTuple):
 
     `validity` is the range as shown to users: the model's own range
     (`own_validity`) and the clause of each unit-slip bound on its inputs.
+    `doi` is that of the first paper `reference` names that has one ("" when
+    none has; Zuber's 1959 report and the IAPWS releases have none).
     `input_bounds` lists those bounds as ``(input index, largest magnitude,
     clause)``: an element above one is computed but counted as outside the
     range (a surface tension above 1 N/m was most likely given in mN/m)."""

@@ -555,6 +555,14 @@ def margin_text(row: Any) -> str:
     return text
 
 
+def _cite(m: Any) -> str:
+    """A model's references with its DOI, which belongs to the first paper named that has one: with
+    several papers the line says so, so that the DOI is not read as that of the last one named."""
+    if not m.doi:
+        return str(m.reference)
+    return f"{m.reference}; doi:{m.doi}" + (" (of the first of these that has one)" if ";" in m.reference else "")
+
+
 def _references(study: Study) -> List[str]:
     from . import models
 
@@ -566,14 +574,13 @@ def _references(study: Study) -> List[str]:
                 uses = {"cooper" if s.C_sf is None else "rohsenow" for s in study.surfaces}
                 for u in sorted(uses):
                     m = by_name[f"{u}_superheat"]
-                    refs.append(f"- **{key}: auto ({u})** -- {m.reference}" + (f", doi:{m.doi}" if m.doi else ""))
+                    refs.append(f"- **{key}: auto ({u})** -- {_cite(m)}")
                 continue
             found = by_name.get(_METHOD_KERNELS.get((key, v), ""))
             if found is None:
                 found = next((mm for mm in by_name.values() if v.split("_")[0] in mm.name and key[:3] in mm.name),
                              None)
-            ref = (f"{found.reference}" + (f", doi:{found.doi}" if found.doi else "") if found
-                   else "see wetboil.models()")
+            ref = _cite(found) if found else "see wetboil.models()"
             refs.append(f"- **{key}: {v}** -- {ref}")
     refs.append("- **properties** -- " + (by_name["water_saturation_p"].reference if study.fluid.lower() == "water"
                                           else "CoolProp (Bell et al., Ind. Eng. Chem. Res. 53 (2014) 2498-2508)"))
