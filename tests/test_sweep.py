@@ -1264,3 +1264,44 @@ def test_dataset_carries_the_saturation_temperature_of_each_state(tmp_path):
     assert float(by_t["p_sat"][0]) == pytest.approx(101325.0, rel=1e-4)
     df = wetboil.screen(SURFACES[:1], "water", p=[101325.0], heat_flux=3e5)
     assert list(df.columns[1:3]) == ["p [Pa]", "T_sat [K]"] and df["T_sat [K]"][0] == pytest.approx(373.124, abs=1e-3)
+
+
+def test_wenzel_flags_only_the_angle_it_saturates():
+    # Wenzel (1936), cos(theta*) = r cos(theta), evaluated by hand: with r = 1.1 the static 30 deg and
+    # advancing 38 deg stay inside |r cos| <= 1 (17.71 and 29.91 deg), the receding 20 deg does not
+    # (1.1 cos 20 deg = 1.034 > 1, saturated at 0 and flagged). Only the receding angle carries the flag:
+    # the static angle feeds onset and departure, which were marked as extrapolated before.
+    s = Surface("laser r=1.1 (invented)", 30.0, 38.0, 20.0, angles_are="intrinsic", roughness_ratio=1.1)
+    ds = wetboil.sweep([s], "water", p=101325.0, heat_flux=1e5)
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    flags = int(ds["range_flags"].values.ravel()[0])
+    flagged = {name for i, name in enumerate(bits) if flags & (1 << i)}
+    assert float(ds["static_angle"].values.ravel()[0]) == pytest.approx(
+        math.degrees(math.acos(1.1 * math.cos(math.radians(30.0)))), abs=1e-9)
+    assert float(ds["receding_angle"].values.ravel()[0]) == 0.0
+    assert {"static_angle", "advancing_angle", "receding_angle"} & flagged == {"receding_angle"}
+
+
+def test_quantities_from_a_flagged_angle_carry_its_flag():
+    # A hydrophilic texture taken as Cassie-Baxter (air under the drop) is outside that model's range
+    # (Cassie & Baxter 1944: cos(theta*) = f cos(theta) + f - 1 with a composite interface, which a
+    # wetting liquid does not keep; wetting.cassie_baxter flags it): 8 deg on copper with f = 0.3 gives
+    # 113.8 deg by the formula (hand value: acos(0.3 cos 8 deg - 0.7)). Every quantity computed from
+    # those angles, Kandlikar's CHF and margin among them, is flagged; Zuber's, which takes no angle,
+    # is not (new-user textured-tube trial: the CHF of such a coating was 4.7 times low, unflagged).
+    s = Surface("porous CB f=0.3 (invented)", 8.0, 12.0, 3.0, angles_are="intrinsic", solid_fraction=0.3)
+    ds = wetboil.sweep([s], "water", p=101325.0, heat_flux=3e5)
+    assert float(ds["static_angle"].values.ravel()[0]) == pytest.approx(
+        math.degrees(math.acos(0.3 * math.cos(math.radians(8.0)) - 0.7)), abs=1e-9)
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    flags = int(ds["range_flags"].values.ravel()[0])
+    flagged = {name for i, name in enumerate(bits) if flags & (1 << i)}
+    assert {"static_angle", "advancing_angle", "receding_angle", "onset_superheat", "onset_cavity_radius",
+            "departure_diameter", "departure_frequency", "chf_kandlikar", "chf", "chf_margin"} <= flagged
+    assert "chf_zuber" not in flagged and "nucleate_superheat" not in flagged
+    # the same angles given as apparent (measured on the coating itself) flag none of it
+    plain = Surface("measured (invented)", *(float(ds[k].values.ravel()[0])
+                                              for k in ("static_angle", "advancing_angle", "receding_angle")))
+    ds2 = wetboil.sweep([plain], "water", p=101325.0, heat_flux=3e5)
+    flags2 = int(ds2["range_flags"].values.ravel()[0])
+    assert {name for i, name in enumerate(bits) if flags2 & (1 << i)} & {"chf", "onset_superheat"} == set()

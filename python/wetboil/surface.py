@@ -326,6 +326,12 @@ class Surface:
             hydrocarbons); other fluids raise `WetboilValueError` until it is
             given. Held constant up to saturation (our assumption).
         """
+        given = self._given_angles(fluid, dispersive_fraction)
+        return WorkingAngles(*(self._apparent(x) for x in given))
+
+    def _given_angles(self, fluid: Optional[Saturation], dispersive_fraction: Optional[float]) -> WorkingAngles:
+        """The working fluid's angles as given or predicted from the probe liquids, before Wenzel or
+        Cassie-Baxter (see `angles`)."""
         from . import wetting
 
         if self.static_deg is not None:
@@ -360,13 +366,21 @@ class Surface:
             # two-liquid fit weights some liquid negatively for many working fluids, so a set's
             # hysteresis can come out reversed (receding above advancing); computed, and flagged
             _flag_disordered(self.name, s, a, r)
-        if self.angles_are == "intrinsic":
-            if self.solid_fraction is not None:
-                f = self.solid_fraction
-                s, a, r = (wetting.cassie_baxter(x, f, self.roughness_ratio) for x in (s, a, r))
-            elif self.roughness_ratio != 1.0:
-                s, a, r = (wetting.wenzel(x, self.roughness_ratio) for x in (s, a, r))
         return WorkingAngles(s, a, r)
+
+    def _apparent(self, angle: Any) -> Any:
+        """One working-fluid angle as the surface shows it: intrinsic angles through Cassie-Baxter (with
+        `solid_fraction`) or Wenzel; apparent angles as they are. Separate from `_given_angles` so that
+        `sweep` can flag each of the three angles by its own conversion."""
+        from . import wetting
+
+        if self.angles_are != "intrinsic":
+            return angle
+        if self.solid_fraction is not None:
+            return wetting.cassie_baxter(angle, self.solid_fraction, self.roughness_ratio)
+        if self.roughness_ratio != 1.0:
+            return wetting.wenzel(angle, self.roughness_ratio)
+        return angle
 
     # -- records -------------------------------------------------------------------
     def to_dict(self) -> Dict[str, Any]:

@@ -30,7 +30,7 @@ from . import boiling, chf, departure, nucleation, wetting
 from ._api import _coerce, capture_validity, kernel
 from ._errors import _STATE, InvalidValueError, WetboilError, WetboilTypeError, WetboilValueError, WetboilWarning, _warn, dropped_warnings, errstate
 from .fluids import _SUPPLIED, FIELDS, UNITS, Saturation, from_coolprop, water
-from .surface import Surface
+from .surface import Surface, WorkingAngles
 
 __all__ = ["sweep", "screen", "ranked_table", "water_chain", "WaterChain", "DEFAULT_METHODS", "QUANTITIES",
            "METHOD_CHOICES", "STATE_FLAG"]
@@ -320,19 +320,30 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
         raise WetboilValueError(f"sweep: surface names must be unique; {len(dup)} name(s) given more than once: "
                                 f"{', '.join(repr(n) for n in dup[:20])}{', ...' if len(dup) > 20 else ''}")
     coord = {"surface": names}
-    angles, invalid, out_of_range = [], [], []
+    angles: List[Any] = []
+    # flags per angle (static, advancing, receding): the prediction from probe liquids (OWRK, the order of the
+    # predicted angles) flags all three; Wenzel or Cassie-Baxter flags only the angle it left its range for
+    # (a receding angle that Wenzel saturates at 0 deg does not flag the static one the onset model uses)
+    invalid: List[List[bool]] = [[], [], []]
+    out_of_range: List[List[bool]] = [[], [], []]
     for s in surfaces:
         # the angle conversions (Wenzel, Cassie-Baxter, OWRK) are flagged like every other step
-        with errstate(invalid="ignore", out_of_range="ignore"), capture_validity() as cap:
-            try:
-                angles.append(s.angles(fluid, dispersive_fraction=dispersive_fraction))
-            except WetboilValueError as exc:
-                if "dispersive_fraction" not in str(exc):
-                    raise
-                raise WetboilValueError(f"sweep: surface {s.name!r} is described by probe-liquid angles, and "
-                                        f"{exc}: pass dispersive_fraction=... to this call") from None
-        invalid.append(bool(np.any(cap.invalid)))
-        out_of_range.append(bool(np.any(cap.out_of_range)))
+        with errstate(invalid="ignore", out_of_range="ignore"):
+            with capture_validity() as shared:
+                try:
+                    raw = s._given_angles(fluid, dispersive_fraction)
+                except WetboilValueError as exc:
+                    if "dispersive_fraction" not in str(exc):
+                        raise
+                    raise WetboilValueError(f"sweep: surface {s.name!r} is described by probe-liquid angles, and "
+                                            f"{exc}: pass dispersive_fraction=... to this call") from None
+            converted = []
+            for i, x in enumerate(raw):
+                with capture_validity() as own:
+                    converted.append(s._apparent(x))
+                invalid[i].append(bool(np.any(shared.invalid) or np.any(own.invalid)))
+                out_of_range[i].append(bool(np.any(shared.out_of_range) or np.any(own.out_of_range)))
+        angles.append(WorkingAngles(*converted))
 
     def stack(values: List[Any]) -> Any:
         if all(not hasattr(v, "dims") and np.ndim(v) == 0 for v in values):
@@ -347,8 +358,11 @@ def _surface_table(surfaces: Sequence[Surface], fluid: Saturation, nucleate: str
         "advancing_angle": stack([a.advancing_deg for a in angles]),
         "receding_angle": stack([a.receding_deg for a in angles]),
     }
-    table["angle_invalid"] = xr.DataArray(np.asarray(invalid, dtype=float), dims="surface", coords=coord)
-    table["angle_out_of_range"] = xr.DataArray(np.asarray(out_of_range, dtype=float), dims="surface", coords=coord)
+    for i, which in enumerate(("static", "advancing", "receding")):
+        table[f"{which}_angle_invalid"] = xr.DataArray(np.asarray(invalid[i], dtype=float), dims="surface",
+                                                       coords=coord)
+        table[f"{which}_angle_out_of_range"] = xr.DataArray(np.asarray(out_of_range[i], dtype=float),
+                                                            dims="surface", coords=coord)
     # Rohsenow's exponent of a surface that gives none: by fluid (warned once for an unnamed state,
     # where Rohsenow's nucleate superheat will use it)
     # (C_sf, n) are a fitted pair: a surface's n is used with its own C_sf only (see Surface)
@@ -412,18 +426,32 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     sub = inputs["in_subcooling"]
     static, adv, rec = inputs["static_angle"], inputs["advancing_angle"], inputs["receding_angle"]
 
-    def run(name: str, fn: Any) -> Any:
+    # a quantity computed from a flagged angle (Wenzel or Cassie-Baxter left their range, the probe-liquid
+    # prediction did) carries that angle's flags beside its own: its value is an extrapolation too
+    angle_flags = {name: (inputs[f"{name}_invalid"] > 0, inputs[f"{name}_out_of_range"] > 0)
+                   for name in ("static_angle", "advancing_angle", "receding_angle")}
+
+    def add(name: str, value: Any, invalid: Any, out_of_range: Any, angle: Optional[str] = None) -> Any:
+        if angle is not None:
+            invalid, out_of_range = (np.logical_or(a, b) for a, b in zip((invalid, out_of_range), angle_flags[angle]))
+        return res.add(name, value, invalid, out_of_range)
+
+    def run(name: str, fn: Any, angle: Optional[str] = None) -> Any:
         with capture_validity() as cap:
             value = fn()
-        return res.add(name, value, cap.invalid, cap.out_of_range)
+        return add(name, value, cap.invalid, cap.out_of_range, angle)
 
-    angle_flags = (inputs["angle_invalid"] > 0, inputs["angle_out_of_range"] > 0)
     for name, value in (("static_angle", static), ("advancing_angle", adv), ("receding_angle", rec)):
-        res.add(name, value, *angle_flags)
+        res.add(name, value, *angle_flags[name])
     onset_angle = rec if methods["onset"] == "kandlikar" else static
-    run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]))
+    # the angle the onset takes (Bergles-Rohsenow, a fit of water's onset superheat, takes none)
+    onset_by: Optional[str] = {"kandlikar": "receding_angle", "bergles_rohsenow": None}.get(methods["onset"],
+                                                                                           "static_angle")
+    run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]),
+        onset_by)
     if methods["onset"] in nucleation.ONSET_RADIUS_METHODS:
-        run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]))
+        run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]),
+            onset_by)
     else:  # Bergles-Rohsenow: a fit of the onset superheat, with no nucleus and so no radius
         res.add("onset_cavity_radius", math.nan, False, False, uses_state=False)
 
@@ -456,22 +484,24 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     with capture_validity() as cap:
         radii = nucleation.hsu_active_radii(dtw, fluid, static, delta, sub)
     del delta
-    res.add("cavity_radius_min", radii.r_min, cap.invalid, cap.out_of_range)
-    res.add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range)
+    add("cavity_radius_min", radii.r_min, cap.invalid, cap.out_of_range, "static_angle")
+    add("cavity_radius_max", radii.r_max, cap.invalid, cap.out_of_range, "static_angle")
     # Cole-Rohsenow's constant settled once per sweep (and its warning for an unnamed state given there,
     # not once per block)
     extra = {"C": departure._cole_rohsenow_constant(fluid)} if methods["departure"] == "cole_rohsenow" else {}
-    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra))
+    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra),
+            None if methods["departure"] == "cole_rohsenow" else "static_angle")
     # A zero diameter (Fritz at 0 deg: a perfectly wetting wall, a measurable surface) has no departure
     # cycle for the frequency correlations: no answer there (NaN, flagged out of range), not an impossible
     # input.
     no_bubble = np.asarray(d) == 0.0
     with capture_validity() as cap:
         f = departure.frequency(np.where(no_bubble, np.nan, d), fluid, method=methods["frequency"])
-    res.add("departure_frequency", f, cap.invalid, np.logical_or(cap.out_of_range, no_bubble))
+    add("departure_frequency", f, cap.invalid, np.logical_or(cap.out_of_range, no_bubble),
+        None if methods["departure"] == "cole_rohsenow" else "static_angle")
     for m in methods["chf"]:
         if m == "kandlikar":
-            run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi))
+            run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi), "receding_angle")
         else:  # zuber (K = pi/24), lienhard_dhir_flat (K = 0.149)
             K = chf.ZUBER_K if m == "zuber" else chf.LIENHARD_DHIR_K
             with capture_validity() as cap:
@@ -646,6 +676,13 @@ def sweep(
         masks: ``range_flags`` (bit i set: quantity i used a correlation
         outside its published validity range) and ``invalid_flags`` (bit i
         set: quantity i is NaN because an input was physically impossible);
+        a quantity computed from a flagged angle carries that angle's flags
+        too (the onset and the cavity range from the static angle, or the
+        receding one with Kandlikar's onset; the departure diameter and
+        frequency from the static angle; Kandlikar's CHF from the receding
+        angle; an angle is flagged each on its own where Wenzel or
+        Cassie-Baxter left their range, all three where the probe-liquid
+        prediction did);
         the bit order is in their ``attrs["bits"]`` (and as CF's
         ``flag_masks`` / ``flag_meanings``). Beside the state's axis, the
         other saturation variable of each state is a coordinate:
