@@ -1305,3 +1305,30 @@ def test_quantities_from_a_flagged_angle_carry_its_flag():
     ds2 = wetboil.sweep([plain], "water", p=101325.0, heat_flux=3e5)
     flags2 = int(ds2["range_flags"].values.ravel()[0])
     assert {name for i, name in enumerate(bits) if flags2 & (1 << i)} & {"chf", "onset_superheat"} == set()
+
+
+def test_design_heat_fluxes_in_w_per_cm2_are_questioned_by_sweep_and_screen():
+    """50 typed for 50 W/cm2 (heat-pipe evaporators are specified in W/cm2) on water at 5 kPa ran
+    with a CHF margin of about 8000 and no word from sweep or screen (new-user heat-pipe trial; only
+    the study runner asked). Zuber's CHF of water at 5 kPa is 0.306 MW/m2 (Zuber 1959, K = pi/24,
+    worked by hand with CoolProp's saturated properties at 5 kPa: h_lv 2.423 MJ/kg, rho_v 0.03548,
+    rho_l 994.7 kg/m3, sigma 0.0708 N/m), so 50 W/m2 gives margins in the thousands, while the
+    intended 5e5 W/m2 is above that CHF (margin below 1). A real design keeps a margin of a few
+    [common practice]; the question fires when every margin is above 1000, once per call."""
+    surfaces = [wetboil.Surface("sinter (invented)", 35.0, 45.0, 25.0)]
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        ds = wetboil.sweep(surfaces, "water", p=5e3, heat_flux=[50.0])
+        df = wetboil.screen(surfaces, "water", heat_flux=50.0, p=5e3)
+    asked = [str(w.message) for w in rec if "W/cm2 or kW/m2?" in str(w.message)]
+    assert len(asked) == 2, [str(w.message) for w in rec]
+    assert asked[0].startswith("sweep: every CHF margin is above 1000") and asked[1].startswith("screen: ")
+    assert float(ds["chf_margin"].min()) > 1000.0 and float(df["chf_margin [-]"].min()) > 1000.0
+    # Zuber at 5 kPa by hand (CoolProp properties above): pi/24 * h_lv * sqrt(rho_v) * (sigma g drho)**0.25
+    zuber_hand = math.pi / 24 * 2.423e6 * math.sqrt(0.03548) * (0.0708 * 9.80665 * (994.7 - 0.03548)) ** 0.25
+    assert float(ds["chf_zuber"].squeeze()) == pytest.approx(zuber_hand, rel=2e-3)
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        ds = wetboil.sweep(surfaces, "water", p=5e3, heat_flux=[5e4, 5e5])
+    assert not [w for w in rec if "W/cm2 or kW/m2?" in str(w.message)], [str(w.message) for w in rec]
+    assert float(ds["chf_margin"].sel(heat_flux=5e5).squeeze()) < 1.0   # the intended design is past the CHF

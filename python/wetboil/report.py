@@ -273,22 +273,16 @@ def _chunk_sizes(study: Study, target: int) -> Dict[str, int]:
     return {"surface": len(study.surfaces), study.axis: min(len(study.states), per_state)}
 
 
-#: A CHF margin above which every design point looks like a heat flux typed in kW/m2: 300 for
-#: 300 kW/m2 on water at 1 atm gives about 4000. Real designs keep margins of a few [common practice];
-#: a fixed flux bound would misfire for cryogens (helium's Zuber CHF at 1 atm is about 6 kW/m2).
-_MARGIN_SLIP = 1000.0
-
-
 def _question_heat_fluxes(ds: Any, study: Study, spec_text: str) -> None:
-    """One `WetboilWarning` when every predicted CHF margin is above `_MARGIN_SLIP`."""
-    margins = np.asarray(ds["chf_margin"].values, dtype=float)
-    margins = margins[np.isfinite(margins)]
-    if margins.size and margins.min() > _MARGIN_SLIP:
+    """One `WetboilWarning` when every predicted CHF margin is above `wetboil.sweep._MARGIN_SLIP`, naming the
+    spec line of the heat fluxes (the sweep's own question is silenced for the study)."""
+    from .sweep import _margin_slip
+
+    slip = _margin_slip(ds)
+    if slip:
         line = _line(spec_text, "heat_fluxes_W_m2", "study") if spec_text else 0
         where = f"line {line}: " if line else ""
-        _warn(f"{where}every CHF margin is above {_MARGIN_SLIP:g} (smallest {margins.min():.3g}, design heat fluxes "
-              f"{', '.join(f'{q:g}' for q in study.heat_fluxes)} W/m2); were the heat fluxes given in kW/m2? They "
-              "are in W/m2 (the study goes on with them as given)", WetboilWarning)
+        _warn(where + slip, WetboilWarning)
 
 
 def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_text: str = "") -> pathlib.Path:
@@ -298,7 +292,7 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
     only when everything succeeded, so a failed run leaves no partial output
     that looks complete.
     """
-    from .sweep import ranked_table, sweep
+    from .sweep import _QUIET_SLIP, ranked_table, sweep
 
     out.mkdir(parents=True, exist_ok=True)
     try:
@@ -310,10 +304,14 @@ def run_study(study: Study, out: pathlib.Path, *, progress: bool = False, spec_t
         if study.chunks:
             kw["chunks"] = _chunk_sizes(study, study.chunks)
             kw["progress"] = progress
-        ds = sweep(study.surfaces, study.fluid, heat_flux=study.heat_fluxes, orientation_deg=study.orientations,
-                   subcooling=study.subcoolings, methods=study.methods,
-                   dispersive_fraction=study.dispersive_fraction,
-                   fluid_properties=study.fluid_properties or None, **kw)
+        quiet = _QUIET_SLIP.set(True)  # asked below with the spec line instead
+        try:
+            ds = sweep(study.surfaces, study.fluid, heat_flux=study.heat_fluxes, orientation_deg=study.orientations,
+                       subcooling=study.subcoolings, methods=study.methods,
+                       dispersive_fraction=study.dispersive_fraction,
+                       fluid_properties=study.fluid_properties or None, **kw)
+        finally:
+            _QUIET_SLIP.reset(quiet)
         ds.attrs["title"] = study.title
         _question_heat_fluxes(ds, study, spec_text)
         ds.to_netcdf(scratch / "sweep.nc")

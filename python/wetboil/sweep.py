@@ -21,6 +21,7 @@ so that a result table can say which rows are extrapolations.
 
 from __future__ import annotations
 
+import contextvars
 import math
 from typing import Any, Dict, Iterable, List, Mapping, NamedTuple, Optional, Sequence, Tuple, Union
 
@@ -703,7 +704,9 @@ def sweep(
         field is NaN at every state because CoolProp has no model for it (or
         the given Saturation lacks it), ``fluid_fields_missing``: every
         quantity that needs one is NaN, unflagged (give them in
-        `fluid_properties`).
+        `fluid_properties`). A computed sweep whose every finite CHF
+        margin is above 1000 warns once (`WetboilWarning`), asking whether
+        the heat fluxes were given in W/cm2 or kW/m2 (they are in W/m2).
 
     Examples
     --------
@@ -818,7 +821,35 @@ def sweep(
             for f, v in _given_properties(fluid_properties, result[state_dim]).items())
     if chunks is None or compute:
         _strict(result, _STATE.get(), result["range_flags"].attrs["bits"].split(","))
+        if not _QUIET_SLIP.get():
+            slip = _margin_slip(result)
+            if slip:
+                _warn(f"sweep: {slip}", WetboilWarning)
     return result
+
+
+#: A CHF margin above which every design point looks like a heat flux typed in another unit: 50 typed for
+#: 50 W/cm2 on water at 5 kPa gives about 8000, 300 for 300 kW/m2 at 1 atm about 4000. Real designs keep
+#: margins of a few [common practice]; a fixed flux bound would misfire for cryogens (helium's Zuber CHF at
+#: 1 atm is about 6 kW/m2).
+_MARGIN_SLIP = 1000.0
+
+#: Set by callers that word the unit-slip question themselves (`wetboil.report` names the spec line).
+_QUIET_SLIP: "contextvars.ContextVar[bool]" = contextvars.ContextVar("wetboil_quiet_margin_slip", default=False)
+
+
+def _margin_slip(ds: Any) -> Optional[str]:
+    """The question a computed sweep raises when every finite CHF margin is above `_MARGIN_SLIP`
+    (design heat fluxes typed in W/cm2 or kW/m2), or None."""
+    # fmin skips NaN without a copy of the (possibly 10^8-point) array; an infinite margin is a zero flux
+    smallest = float(np.fmin.reduce(np.asarray(ds["chf_margin"].values, dtype=float), axis=None, initial=np.inf))
+    if not (math.isfinite(smallest) and smallest > _MARGIN_SLIP):
+        return None
+    fluxes = np.asarray(ds["heat_flux"].values, dtype=float)
+    shown = ", ".join(f"{q:g}" for q in fluxes[:10]) + (", ..." if fluxes.size > 10 else "")
+    return (f"every CHF margin is above {_MARGIN_SLIP:g} (smallest {smallest:.3g}, design heat fluxes {shown} "
+            "W/m2); were the heat fluxes given in W/cm2 or kW/m2? They are in W/m2 (1 W/cm2 = 1e4 W/m2, 1 kW/m2 = "
+            "1e3 W/m2; the results stand as given)")
 
 
 def _no_model(states: Saturation) -> frozenset:
@@ -1025,6 +1056,7 @@ def screen(
     """
     if heat_flux is None:
         raise WetboilValueError("screen: heat_flux (the design heat flux [W/m2]) is required")
+    quiet = _QUIET_SLIP.set(True)  # asked below, named after the function the user called
     try:
         ds = sweep(surfaces, fluid, p=p, T=T, heat_flux=heat_flux, orientation_deg=orientation_deg,
                    subcooling=subcooling, methods=methods, dispersive_fraction=dispersive_fraction,
@@ -1034,6 +1066,11 @@ def screen(
         if exc.args and isinstance(exc.args[0], str) and exc.args[0].startswith("sweep: "):
             exc.args = ("screen: " + exc.args[0][len("sweep: "):],) + exc.args[1:]
         raise
+    finally:
+        _QUIET_SLIP.reset(quiet)
+    slip = _margin_slip(ds)
+    if slip:
+        _warn(f"screen: {slip}", WetboilWarning)
     return ranked_table(ds)
 
 
