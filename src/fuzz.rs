@@ -699,7 +699,7 @@ fn every_input_bound_names_inputs_that_exist() {
     // input would silently lose its unit-slip check, so every name must be an
     // input of some kernel, in the unit the bound is written for.
     use crate::model::{named, INPUT_BOUNDS};
-    let units = ["N/m", "N/m", "J", "m", "kg"];
+    let units = ["N/m", "N/m", "J", "m", "kg", "m"];
     assert_eq!(units.len(), INPUT_BOUNDS.len());
     for (b, unit) in INPUT_BOUNDS.iter().zip(units) {
         for name in b.names {

@@ -68,7 +68,7 @@ pub trait Kernel<const N: usize, const M: usize> {
     /// every kernel's own range, from [`INPUT_BOUNDS`] by input name
     /// ([`TENSION_MAX`] for a liquid's surface tension, [`SOLID_ENERGY_MAX`]
     /// for a solid's surface energy, [`HAMAKER_MAX`], [`DROP_WIDTH_MAX`],
-    /// [`DROP_MASS_MAX`]); infinite for every other input.
+    /// [`DROP_MASS_MAX`], [`ROUGHNESS_MAX`]); infinite for every other input.
     const BOUNDS: [f64; N] = input_bounds::<N>(Self::MODEL.inputs);
     /// The outputs for one element.
     fn eval(x: &[f64; N]) -> [f64; M];
@@ -211,6 +211,13 @@ pub const DROP_WIDTH_MAX: f64 = 0.1;
 /// 20 mg) reads above it, and one typed in g for drops above 10 uL.
 pub const DROP_MASS_MAX: f64 = 0.01;
 
+/// Upper bound \[m\] of a surface roughness Rp: machined and coated heat
+/// transfer surfaces lie between 0.01 and tens of micrometres [common
+/// practice]; Cooper's correlation writes Rp in micrometres, and a value
+/// typed so (1 for his default 1 um) reads 1 m and gave a heat flux 2.6
+/// times high with only the whole validity text to explain it.
+pub const ROUGHNESS_MAX: f64 = 1e-3;
+
 /// One plausibility bound: the input names it applies to, the bound on
 /// their magnitude, and the clause it adds to the validity text.
 pub struct InputBound {
@@ -223,7 +230,7 @@ pub struct InputBound {
 /// catches a unit slip that the models would otherwise take silently. Such
 /// elements are still computed but counted as outside the range, so the
 /// call warns (a strict mode raises).
-pub const INPUT_BOUNDS: [InputBound; 5] = [
+pub const INPUT_BOUNDS: [InputBound; 6] = [
     InputBound { names: &LIQUID_TENSIONS, max: TENSION_MAX, clause: TENSION_CLAUSE },
     InputBound { names: &OTHER_TENSIONS, max: SOLID_ENERGY_MAX, clause: SOLID_ENERGY_CLAUSE },
     InputBound {
@@ -241,6 +248,11 @@ pub const INPUT_BOUNDS: [InputBound; 5] = [
         names: &["mass"],
         max: DROP_MASS_MAX,
         clause: "drop mass <= 0.01 kg (a larger value was usually given in mg or g)",
+    },
+    InputBound {
+        names: &["roughness_Rp"],
+        max: ROUGHNESS_MAX,
+        clause: "roughness Rp <= 1 mm (a larger value was usually given in micrometres, as Cooper writes it)",
     },
 ];
 

@@ -211,13 +211,16 @@ SOLID_ENERGIES = {"sigma_sv", "sigma_sl", "sigma_s", "solid_dispersive", "solid_
 # from memory: Israelachvili's and Hough & White's tables], and one typed in units of 1e-20 J, as
 # tables print them, gave disjoining pressures 1e20 times too high. A drop's contact width above
 # 0.1 m (typed in mm) or its mass above 0.01 kg (typed in mg) [common practice: a drop wider than a
-# few capillary lengths, 2.7 mm for water, is a puddle].
+# few capillary lengths, 2.7 mm for water, is a puddle]. A roughness Rp above 1 mm: Cooper (1984)
+# writes Rp in micrometres (his default is 1 um), and one typed so reads a micrometre as a metre
+# [common practice: machined and coated surfaces are 0.01 to tens of micrometres].
 TENSION_BOUNDS = {
     "liquid": (LIQUID_TENSIONS, lambda v: v * 1e3, "liquid surface tension <= 1 N/m"),
     "solid": (SOLID_ENERGIES, lambda v: max(v * 1e3, 10.5), "solid surface energy and interfacial tension <= 10 N/m"),
     "hamaker": ({"hamaker", "hamaker_solid", "hamaker_liquid"}, lambda v: v * 1e20, "|Hamaker constant| <= 1e-17 J"),
     "width": ({"width"}, lambda v: v * 1e3, "drop width <= 0.1 m"),
     "mass": ({"mass"}, lambda v: v * 1e6, "drop mass <= 0.01 kg"),
+    "roughness": ({"roughness_Rp"}, lambda v: v * 1e6, "roughness Rp <= 1 mm"),
 }
 
 

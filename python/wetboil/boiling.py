@@ -288,8 +288,11 @@ def cooper(wall_superheat: Any, fluid: Saturation, roughness_Rp: Any = 1e-6) -> 
     roughness_Rp : array_like, optional
         Surface roughness parameter R_p [m] (1 um = 1e-6, Cooper's value
         when unknown). R_p is the old DIN 4762 smoothing depth, not R_a
-        [M, med]. Values outside 0.01-20 um are flagged (`RangeWarning`):
-        not a published limit but ours, so that an R_p typed in um is caught.
+        [M, med]; where only R_a is measured, R_p of about 2.5 R_a is the
+        usual estimate (Gorenflo's R_a = 0.4 R_p, from memory, medium
+        confidence; it depends on the finish). Values outside 0.01-20 um
+        are flagged (`RangeWarning`): not a published limit but ours, and
+        one above 1 mm gets its own message (R_p typed in um).
 
     Returns
     -------
