@@ -849,17 +849,30 @@ pub const IVEY_TRANSITION_SI: f64 = 0.44 * 0.316_227_766_016_837_94;
 /// Zuber's constant 0.59 in `f D = 0.59 [σ g Δρ/ρ_l²]^(1/4)` [-].
 pub const ZUBER_FREQUENCY_CONSTANT: f64 = 0.59;
 
+/// A zero departure diameter (Fritz's at 0 deg: a perfectly wetting wall) is a
+/// possible input with no departure cycle: the frequencies give NaN there,
+/// flagged out of range rather than impossible, so that a chain of public
+/// functions treats it as a sweep does.
 #[inline(always)]
 fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
-    all_positive!(diameter, g, rho_l - rho_v; rho_v)
+    all_positive!(g, rho_l - rho_v; rho_v, diameter)
 }
+
+/// `value` where the inputs are possible and the diameter positive, else NaN.
+#[inline(always)]
+fn with_bubble(ok: bool, diameter: f64, value: f64) -> f64 {
+    nan_unless(ok & (diameter > 0.0), value)
+}
+
+
 
 /// Cole (1960) departure frequency \[Hz\].
 ///
 /// `f = [4 g (ρ_l − ρ_v) / (3 C_D D ρ_l)]^(1/2)`, with `C_D = 1` in Cole's paper:
 /// the bubble's rise velocity from a drag balance divided by its diameter.
 ///
-/// * `diameter` D \[m\] > 0, `rho_l`, `rho_v` [kg/m3], `drag_coefficient` C_D > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] ≥ 0 (0: NaN, flagged: no departure cycle), `rho_l`, `rho_v` [kg/m3],
+///   `drag_coefficient` C_D > 0, `g` [m/s2] > 0.
 /// * Validity: pool boiling near the critical heat flux, where Cole took his
 ///   photographs; no numeric range published that we know of. Nothing flagged.
 /// * Verification: form with `C_D = 1` \[V2\] (OpenFOAM's implementation); paper
@@ -871,7 +884,7 @@ fn freq_possible(diameter: f64, rho_l: f64, rho_v: f64, g: f64) -> bool {
 #[inline(always)]
 pub fn cole_frequency(diameter: f64, rho_l: f64, rho_v: f64, drag_coefficient: f64, g: f64) -> f64 {
     let ok = freq_possible(diameter, rho_l, rho_v, g) & positive(drag_coefficient);
-    nan_unless(ok, (4.0 * g * (rho_l - rho_v) / (3.0 * drag_coefficient * diameter * rho_l)).sqrt())
+    with_bubble(ok, diameter, (4.0 * g * (rho_l - rho_v) / (3.0 * drag_coefficient * diameter * rho_l)).sqrt())
 }
 
 /// Kernel of [`cole_frequency`].
@@ -889,8 +902,9 @@ impl Kernel<5, 1> for ColeFrequency {
             arg("g", "m/s2"),
         ],
         outputs: &[arg("frequency", "Hz")],
-        domain: "diameter > 0, rho_l > rho_v >= 0, drag_coefficient > 0, g > 0",
-        validity: "no published numeric range; pool boiling near the critical heat flux",
+        domain: "diameter >= 0, rho_l > rho_v >= 0, drag_coefficient > 0, g > 0",
+        validity: "no published numeric range (pool boiling near the critical heat flux); diameter > 0 (a zero \
+                   diameter has no departure cycle: NaN, flagged)",
         reference: "R. Cole, A photographic study of pool boiling in the region of the critical heat flux, AIChE J. 6 (1960) 533-538",
         doi: "10.1002/aic.690060405",
         verification: "form with C_D = 1: secondary source (OpenFOAM implementation); DOI from memory",
@@ -903,6 +917,10 @@ impl Kernel<5, 1> for ColeFrequency {
     fn possible(x: &[f64; 5]) -> bool {
         freq_possible(x[0], x[1], x[2], x[4]) && positive(x[3])
     }
+    #[inline(always)]
+    fn in_range(x: &[f64; 5]) -> bool {
+        x[0] > 0.0
+    }
 }
 
 /// Zuber (1963) departure frequency \[Hz\].
@@ -912,7 +930,7 @@ impl Kernel<5, 1> for ColeFrequency {
 /// Kocamustafaogullari & Ishii (1995) use the same form with `K = 1.18` (= 2 × 0.59);
 /// pass it as `constant` rather than confusing the two.
 ///
-/// * `diameter` D \[m\] > 0, `sigma` [N/m] > 0, `rho_l`, `rho_v` [kg/m3],
+/// * `diameter` D \[m\] ≥ 0 (0: NaN, flagged), `sigma` [N/m] > 0, `rho_l`, `rho_v` [kg/m3],
 ///   `constant` K > 0, `g` [m/s2] > 0.
 /// * Validity: no published numeric range; isolated-bubble region of pool boiling.
 /// * Verification: constant 0.59 [M, high]; 1.18 \[V2\] (OpenFOAM's
@@ -925,7 +943,7 @@ impl Kernel<5, 1> for ColeFrequency {
 #[inline(always)]
 pub fn zuber_frequency(diameter: f64, sigma: f64, rho_l: f64, rho_v: f64, constant: f64, g: f64) -> f64 {
     let ok = freq_possible(diameter, rho_l, rho_v, g) & positive(sigma) & positive(constant);
-    nan_unless(ok, constant / diameter * (sigma * g * (rho_l - rho_v) / (rho_l * rho_l)).sqrt().sqrt())
+    with_bubble(ok, diameter, constant / diameter * (sigma * g * (rho_l - rho_v) / (rho_l * rho_l)).sqrt().sqrt())
 }
 
 /// Kernel of [`zuber_frequency`].
@@ -944,8 +962,9 @@ impl Kernel<6, 1> for ZuberFrequency {
             arg("g", "m/s2"),
         ],
         outputs: &[arg("frequency", "Hz")],
-        domain: "diameter > 0, sigma > 0, rho_l > rho_v >= 0, constant > 0, g > 0",
-        validity: "no published numeric range; isolated-bubble region of pool boiling",
+        domain: "diameter >= 0, sigma > 0, rho_l > rho_v >= 0, constant > 0, g > 0",
+        validity: "no published numeric range (isolated-bubble region of pool boiling); diameter > 0 (a zero \
+                   diameter has no departure cycle: NaN, flagged)",
         reference: "N. Zuber, Nucleate boiling. The region of isolated bubbles and the similarity with natural convection, \
                     Int. J. Heat Mass Transfer 6 (1963) 53-78",
         doi: "",
@@ -959,6 +978,10 @@ impl Kernel<6, 1> for ZuberFrequency {
     fn possible(x: &[f64; 6]) -> bool {
         freq_possible(x[0], x[2], x[3], x[5]) && positive(x[1]) && positive(x[4])
     }
+    #[inline(always)]
+    fn in_range(x: &[f64; 6]) -> bool {
+        x[0] > 0.0
+    }
 }
 
 /// Ivey (1967) departure frequency, hydrodynamic region \[Hz\].
@@ -966,7 +989,7 @@ impl Kernel<6, 1> for ZuberFrequency {
 /// `f D^(1/2) = 0.90 g^(1/2)`, i.e. `f = 0.90 (g/D)^(1/2)`; dimensionally
 /// consistent, the constant holds in any unit system.
 ///
-/// * `diameter` D \[m\] > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] ≥ 0 (0: NaN, flagged), `g` [m/s2] > 0.
 /// * Validity: Ivey's hydrodynamic region (larger bubbles, where buoyancy and
 ///   drag set the cycle); the region boundaries are not reproduced here, so
 ///   nothing is flagged.
@@ -978,8 +1001,8 @@ impl Kernel<6, 1> for ZuberFrequency {
 /// 10 (1967) 1023-1040 (DOI not verified here, so not given).
 #[inline(always)]
 pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
-    let ok = positive(diameter) & positive(g);
-    nan_unless(ok, IVEY_HYDRODYNAMIC * (g / diameter).sqrt())
+    let ok = (diameter >= 0.0) & positive(g);
+    with_bubble(ok, diameter, IVEY_HYDRODYNAMIC * (g / diameter).sqrt())
 }
 
 /// Ivey (1967) departure frequency, transition region \[Hz\].
@@ -989,7 +1012,7 @@ pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
 /// D in m and g in m/s2 (0.44 cm^(1/4) = 0.44 × (0.01 m)^(1/4) =
 /// [`IVEY_TRANSITION_SI`] m^(1/4)).
 ///
-/// * `diameter` D \[m\] > 0, `g` [m/s2] > 0.
+/// * `diameter` D \[m\] ≥ 0 (0: NaN, flagged), `g` [m/s2] > 0.
 /// * Validity: Ivey's transition region; boundaries not reproduced, nothing flagged.
 /// * Verification: 0.44 cm^(1/4) [M, med]; the conversion is \[D\] and checked in
 ///   the tests against the CGS evaluation.
@@ -997,11 +1020,11 @@ pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
 /// Reference: as [`ivey_hydrodynamic_frequency`].
 #[inline(always)]
 pub fn ivey_transition_frequency(diameter: f64, g: f64) -> f64 {
-    let ok = positive(diameter) & positive(g);
+    let ok = (diameter >= 0.0) & positive(g);
     // D^(-3/4) as 1/(D^(1/2) D^(1/4)): square roots, faster and closer than
     // exp(-0.75 ln D)
     let root = diameter.sqrt();
-    nan_unless(ok, IVEY_TRANSITION_SI * g.sqrt() / (root * root.sqrt()))
+    with_bubble(ok, diameter, IVEY_TRANSITION_SI * g.sqrt() / (root * root.sqrt()))
 }
 
 const IVEY_REFERENCE: &str = "H.J. Ivey, Relationships between bubble frequency, departure diameter and rise velocity \
@@ -1016,8 +1039,9 @@ impl Kernel<2, 1> for IveyHydrodynamicFrequency {
         equation: "f = 0.90 * sqrt(g / D)",
         inputs: &[arg("diameter", "m"), arg("g", "m/s2")],
         outputs: &[arg("frequency", "Hz")],
-        domain: "diameter > 0, g > 0",
-        validity: "Ivey's hydrodynamic region (boundaries not reproduced; nothing flagged)",
+        domain: "diameter >= 0, g > 0",
+        validity: "Ivey's hydrodynamic region (boundaries not reproduced, not flagged); diameter > 0 (a zero diameter \
+                   has no departure cycle: NaN, flagged)",
         reference: IVEY_REFERENCE,
         doi: "",
         verification: "constant 0.90 from memory (medium confidence); paper not seen",
@@ -1028,7 +1052,11 @@ impl Kernel<2, 1> for IveyHydrodynamicFrequency {
     }
     #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
-        positive(x[0]) && positive(x[1])
+        x[0] >= 0.0 && positive(x[1])
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 2]) -> bool {
+        x[0] > 0.0
     }
 }
 
@@ -1041,8 +1069,9 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
         equation: "f = 0.44 cm^0.25 * sqrt(g) * D**-0.75 = 0.13914 m^0.25 * sqrt(g) * D**-0.75",
         inputs: &[arg("diameter", "m"), arg("g", "m/s2")],
         outputs: &[arg("frequency", "Hz")],
-        domain: "diameter > 0, g > 0",
-        validity: "Ivey's transition region (boundaries not reproduced; nothing flagged)",
+        domain: "diameter >= 0, g > 0",
+        validity: "Ivey's transition region (boundaries not reproduced, not flagged); diameter > 0 (a zero diameter \
+                   has no departure cycle: NaN, flagged)",
         reference: IVEY_REFERENCE,
         doi: "",
         verification: "constant 0.44 cm^(1/4) from memory (medium confidence); SI conversion derived and tested",
@@ -1053,7 +1082,11 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
     }
     #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
-        positive(x[0]) && positive(x[1])
+        x[0] >= 0.0 && positive(x[1])
+    }
+    #[inline(always)]
+    fn in_range(x: &[f64; 2]) -> bool {
+        x[0] > 0.0
     }
 }
 

@@ -307,6 +307,11 @@ fn allowances(kernel: &str) -> Allow {
         "kandlikar_chf" => no_answer,
         // The drop never slides: NaN (furmidge_sliding_angle validity).
         "furmidge_sliding_angle" => no_answer,
+        // A zero diameter has no departure cycle (departure.rs, freq_possible).
+        "cole_frequency" | "zuber_frequency" | "ivey_hydrodynamic_frequency" | "ivey_transition_frequency" => Allow {
+            no_answer_where: Some(|x| x[0] == 0.0),
+            ..Allow::default()
+        },
         // The fused chain has the answers of its steps: none from Kandlikar
         // facing down (the critical point is an impossible input).
         "water_screening_chain" => Allow {

@@ -336,6 +336,9 @@ NO_ANSWER: Dict[str, Callable[[Sequence[float]], bool]] = {
     "kandlikar_onset": lambda x: x[0] == 0.0 and x[7] in (0.0, 180.0),
     # f(rho+) <= 0 close to the critical point
     "hibiki_ishii_site_density": lambda x: x[4] < 2.06 * x[5],
+    # a zero departure diameter (Fritz at 0 deg) has no departure cycle
+    **{k: (lambda x: x[0] == 0.0) for k in ("cole_frequency", "zuber_frequency", "ivey_hydrodynamic_frequency",
+                                           "ivey_transition_frequency")},
     # at the critical point rho_l = rho_v: no departure, no CHF; Kandlikar facing down
     "water_screening_chain": lambda x: x[0] >= P_CRIT or x[3] > 90.0,
 }

@@ -397,7 +397,7 @@ BAD_ELEMENT_CASES = [
     (lambda s: fritz(np.array([45.0, 200.0]), s), 1),
     (lambda s: kocamustafaogullari_ishii(np.array([-1.0, 45.0]), s), 1),
     (lambda s: cole_rohsenow(s, C=np.array([1.5e-4, -1.0])), 1),
-    (lambda s: frequency(np.array([1e-3, -1e-3, 0.0]), s), 2),
+    (lambda s: frequency(np.array([1e-3, -1e-3]), s), 1),
     (lambda s: frequency(np.array([1e-3, -1e-3]), s, method="ivey"), 1),
     (lambda s: force_balance(np.array([45.0, 45.0]), 30.0, s, np.array([1.0, -1.0])), 1),
     (lambda s: waiting_time(np.array([5e-6, 0.0]), 8.0, s), 1),
@@ -492,3 +492,22 @@ def test_a_cavity_waits_only_where_hsu_lets_it_fire():
         warnings.simplefilter("error")
         assert math.isnan(waiting_time(rc, 0.999 * fires_at, s))
         assert waiting_time(rc, 1.001 * fires_at, s) > 0.0
+
+
+@pytest.mark.parametrize("method", ["cole", "zuber", "ivey"])
+def test_a_zero_diameter_has_no_departure_cycle_not_an_impossible_input(water, method):
+    # Fritz (1935) gives D = 0.0208 theta l_c, exactly 0 at 0 deg (a perfectly wetting wall, a real
+    # surface). The frequency of that chain has no answer: NaN with a RangeWarning, as a sweep
+    # records it, never an InvalidValueWarning (which strict mode turned into an error for a valid
+    # surface; new-user textured-tube trial). Identity of the formula, no outside value needed.
+    d = fritz(np.array([0.0, 45.0]), water)
+    assert d[0] == 0.0 and d[1] > 0
+    with warnings.catch_warnings(record=True) as rec:
+        warnings.simplefilter("always")
+        f = frequency(d, water, method=method)
+    assert np.isnan(f[0]) and np.isfinite(f[1])
+    assert [w.category for w in rec] == [wetboil.RangeWarning], [str(w.message) for w in rec]
+    assert "a zero diameter has no departure cycle" in str(rec[0].message)
+    with wetboil.errstate(invalid="raise", out_of_range="ignore"):
+        frequency(d, water, method=method)
+    assert wetboil.validity(frequency, d, water, method=method).tolist() == [2, 0]

@@ -624,7 +624,9 @@ def frequency(diameter: Any, fluid: Saturation, method: Any = "zuber", g: Any = 
     Parameters
     ----------
     diameter : array_like
-        Departure diameter [m], > 0.
+        Departure diameter [m], >= 0. A zero diameter (Fritz's at 0 deg, a
+        perfectly wetting wall) has no departure cycle: NaN, flagged
+        (`RangeWarning`), not an impossible input.
     fluid : Saturation
         Saturated state; ``cole`` uses ``rho_l``, ``rho_v``; ``zuber`` and
         ``kocamustafaogullari_ishii`` also ``sigma``; the Ivey forms use

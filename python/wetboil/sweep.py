@@ -490,16 +490,10 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     # Cole-Rohsenow's constant settled once per sweep (and its warning for an unnamed state given there,
     # not once per block)
     extra = {"C": departure._cole_rohsenow_constant(fluid)} if methods["departure"] == "cole_rohsenow" else {}
-    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra),
-            None if methods["departure"] == "cole_rohsenow" else "static_angle")
-    # A zero diameter (Fritz at 0 deg: a perfectly wetting wall, a measurable surface) has no departure
-    # cycle for the frequency correlations: no answer there (NaN, flagged out of range), not an impossible
-    # input.
-    no_bubble = np.asarray(d) == 0.0
-    with capture_validity() as cap:
-        f = departure.frequency(np.where(no_bubble, np.nan, d), fluid, method=methods["frequency"])
-    add("departure_frequency", f, cap.invalid, np.logical_or(cap.out_of_range, no_bubble),
-        None if methods["departure"] == "cole_rohsenow" else "static_angle")
+    d_by = None if methods["departure"] == "cole_rohsenow" else "static_angle"
+    d = run("departure_diameter", lambda: departure.diameter(static, fluid, method=methods["departure"], **extra), d_by)
+    # a zero diameter (Fritz at 0 deg) has no departure cycle: the frequency kernels give NaN there, flagged
+    run("departure_frequency", lambda: departure.frequency(d, fluid, method=methods["frequency"]), d_by)
     for m in methods["chf"]:
         if m == "kandlikar":
             run(f"chf_{m}", lambda: chf.kandlikar(rec, fluid, phi), "receding_angle")
