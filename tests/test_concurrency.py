@@ -333,3 +333,87 @@ def test_sweeps_in_threads_leave_the_process_warning_filters_alone():
     assert after == before
     invalid = [w for w in seen if issubclass(w.category, wetboil.InvalidValueWarning)]
     assert len(invalid) == n_threads * calls + 1, len(invalid)
+
+
+# --------------------------------------------------------------------------- one errstate object, shared
+# Behavioural checks of the policy itself (no physical number is involved): Python's contextvars
+# semantics (PEP 567) are the reference. The orientation 100 deg lies outside Kandlikar's (2001)
+# published 0-90 deg, so the call is flagged; see wetboil.chf.kandlikar.
+
+SHARED_RAISE = wetboil.errstate(out_of_range="raise")
+
+
+def _kandlikar_flagged():
+    w = wetboil.fluids.water(p=101325.0)
+    return wetboil.chf.kandlikar(30.0, w, orientation_deg=100.0)
+
+
+def test_one_errstate_object_shared_by_threads():
+    """A module-level errstate used by several threads at once: each thread gets the policy inside the
+    block and its own default back after it. It used to keep the tokens on the object, so a thread
+    left the block with another thread's token (ValueError: created in a different Context) and the
+    other kept the strict policy after its block."""
+    n = 4
+    barrier = threading.Barrier(n)
+    inside, after, errors = [], [], []
+
+    def worker():
+        try:
+            with SHARED_RAISE:
+                barrier.wait()  # every thread inside the block at once
+                try:
+                    _kandlikar_flagged()
+                    inside.append("no raise")
+                except wetboil.OutOfRangeError:
+                    inside.append("raised")
+                barrier.wait()  # every thread leaves in turn while the others are still inside
+            after.append(wetboil.geterr())
+        except Exception as exc:  # noqa: BLE001 - the failure being tested
+            errors.append(repr(exc))
+
+    threads = [threading.Thread(target=worker) for _ in range(n)]
+    for t in threads:
+        t.start()
+    for t in threads:
+        t.join()
+    assert errors == []
+    assert inside == ["raised"] * n
+    assert after == [{"invalid": "warn", "out_of_range": "warn"}] * n
+
+
+def test_one_errstate_object_entered_inside_itself_and_as_decorator():
+    quiet = wetboil.errstate(out_of_range="ignore")
+    with quiet:
+        with quiet:
+            assert wetboil.geterr()["out_of_range"] == "ignore"
+        assert wetboil.geterr()["out_of_range"] == "ignore"
+    assert wetboil.geterr()["out_of_range"] == "warn"
+
+    @wetboil.errstate(out_of_range="raise")
+    def strict():
+        return _kandlikar_flagged()
+
+    with pytest.raises(wetboil.OutOfRangeError):
+        strict()
+    assert wetboil.geterr() == {"invalid": "warn", "out_of_range": "warn"}  # restored after the exception
+    with warnings.catch_warnings():
+        warnings.simplefilter("error", wetboil.RangeWarning)
+        with pytest.raises(wetboil.RangeWarning):
+            _kandlikar_flagged()  # the default policy again outside the decorated function
+
+
+def test_one_errstate_object_shared_by_asyncio_tasks():
+    import asyncio
+
+    shared = wetboil.errstate(invalid="ignore")
+
+    async def task(delay):
+        with shared:
+            await asyncio.sleep(delay)
+            inside = wetboil.geterr()["invalid"]
+        return inside, wetboil.geterr()["invalid"]
+
+    async def main():
+        return await asyncio.gather(task(0.02), task(0.0), task(0.01))
+
+    assert asyncio.run(main()) == [("ignore", "warn")] * 3

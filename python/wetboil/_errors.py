@@ -78,8 +78,14 @@ def geterr() -> Dict[str, str]:
     return {"invalid": s.invalid, "out_of_range": s.out_of_range}
 
 
-class errstate:
-    """Context manager setting how element problems are reported.
+#: The policies replaced by the `errstate` blocks open in this thread or task, innermost last. Kept in a
+#: context variable, not on the errstate object, so that one object may be shared by threads and tasks
+#: (a module-level ``QUIET = wetboil.errstate(...)``), entered again inside itself, or used as a decorator.
+_SAVED: contextvars.ContextVar[tuple] = contextvars.ContextVar("wetboil_errstate_saved", default=())
+
+
+class errstate(contextlib.ContextDecorator):
+    """Context manager (or function decorator) setting how element problems are reported.
 
     Parameters
     ----------
@@ -96,7 +102,21 @@ class errstate:
     The setting is per thread and per asyncio task (a context variable). A
     lazy (dask-backed) result keeps the setting of the call that built it,
     whenever and wherever it is computed; its warnings come at compute time,
-    one per chunk.
+    one per chunk. Threads started inside the block (a thread pool) begin
+    with the default policy: open the block inside the function they run.
+    One errstate object may be shared: by several threads at once, entered
+    again inside itself, or used as a decorator (``@wetboil.errstate(...)``).
+
+    In a loop or a solver, each call that meets a problem emits its own
+    warning. Python's default filter shows a given message once per line of
+    code, but the message carries the counts ("3 of 50 element(s)"), so calls
+    on arrays whose counts vary each show one: a root finder or an ODE solver
+    probing outside a range can print hundreds. There, wrap the calls in
+    ``errstate(out_of_range="ignore")`` (and ``invalid="ignore"`` where NaN
+    is handled) and check the solution once afterwards with the function
+    itself or `wetboil.validity`. A scalar call that meets a problem (or a
+    NaN input) also leaves the fast scalar path, under "ignore" too: 10-20 us
+    instead of about 0.1 us per call on a 2-vCPU test machine.
 
     Examples
     --------
@@ -114,16 +134,18 @@ class errstate:
                 raise WetboilValueError(f"errstate: {label} must be one of {_ACTIONS}, got {value!r}")
         self._invalid = invalid
         self._out_of_range = out_of_range
-        self._tokens: list = []
 
     def __enter__(self) -> "errstate":
         old = _STATE.get()
-        new = _State(self._invalid or old.invalid, self._out_of_range or old.out_of_range)
-        self._tokens.append(_STATE.set(new))
+        _SAVED.set(_SAVED.get() + (old,))
+        _STATE.set(_State(self._invalid or old.invalid, self._out_of_range or old.out_of_range))
         return self
 
     def __exit__(self, *exc) -> None:
-        _STATE.reset(self._tokens.pop())
+        saved = _SAVED.get()
+        if saved:  # always, unless __exit__ is called without __enter__ in this thread or task
+            _STATE.set(saved[-1])
+            _SAVED.set(saved[:-1])
 
 
 def _stacklevel() -> int:
