@@ -152,6 +152,8 @@ def _rohsenow_fill(function: str) -> Callable[[Tuple[Any, ...]], Tuple[Any, ...]
         x, fluid, C_sf, n, g = args
         if C_sf is not None and n is not None:
             return args  # nothing to fill: the very tuple, so the caller evaluates it (not a copy: see `kernel`)
+        if type(fluid) is Saturation and fluid.name == "water":  # the common call, in a few lookups: nothing to warn
+            return (x, fluid, ROHSENOW_C_SF_DEFAULT if C_sf is None else C_sf, ROHSENOW_N_WATER if n is None else n, g)
         need_saturation(function, fluid)  # the defaults come from the fluid: name a wrong one first
         return (x, fluid, _default_constant(fluid, function) if C_sf is None else C_sf,
                 _default_exponent(fluid, function) if n is None else n, g)
