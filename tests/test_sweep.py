@@ -1332,3 +1332,25 @@ def test_design_heat_fluxes_in_w_per_cm2_are_questioned_by_sweep_and_screen():
         ds = wetboil.sweep(surfaces, "water", p=5e3, heat_flux=[5e4, 5e5])
     assert not [w for w in rec if "W/cm2 or kW/m2?" in str(w.message)], [str(w.message) for w in rec]
     assert float(ds["chf_margin"].sel(heat_flux=5e5).squeeze()) < 1.0   # the intended design is past the CHF
+
+
+def test_a_nonpositive_coolprop_surface_tension_is_a_missing_value():
+    # CoolProp (the reference library) fits methane's surface tension with a correlation that reaches
+    # zero just below the critical temperature of its equation of state (negative at 0.9995 T_crit in
+    # CoolProp 8). A saturated liquid below T_crit has sigma > 0 (the interface vanishes only at the
+    # critical point): the state lacks sigma there, as where CoolProp gives none; its points are
+    # flagged fluid_state, not "impossible input" of every kernel.
+    CP = pytest.importorskip("CoolProp.CoolProp")
+    T_hi = 0.9995 * CP.PropsSI("Tcrit", "Methane")
+    if CP.PropsSI("I", "T", T_hi, "Q", 0, "Methane") > 0:
+        pytest.skip("this CoolProp gives methane a positive surface tension at 0.9995 T_crit")
+    with pytest.warns(wetboil.WetboilWarning, match="CoolProp gave no sigma at 1 of 2 saturated state"):
+        s = wetboil.fluids.from_coolprop("Methane", T=[150.0, T_hi])
+    assert s.sigma[0] > 0 and math.isnan(s.sigma[1])
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", wetboil.WetboilWarning)
+        df = wetboil.screen(SURFACES[:1], "Methane", heat_flux=1e4, T=[150.0, T_hi])
+    near = df[df["T [K]"] == T_hi].iloc[0]
+    assert math.isnan(near["chf [W/m2]"]) and "fluid_state" in near["flags"]
+    assert near["impossible"] == ""  # before: onset, departure and every CHF reported impossible
+    assert "fluid_state" not in df[df["T [K]"] == 150.0].iloc[0]["flags"]

@@ -675,7 +675,11 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
     NaN and `InvalidValueWarning`. CoolProp's surface tension of water is its
     own fit, not IAPWS R1-76; against R1-76 it is 0.1 % high near 300 K,
     about 1 % low from 550 to 600 K (5.5-10 MPa), and 4 % high at 645 K,
-    7 % at 646.5 K [D, CoolProp 8.0 against the R1-76 equation].
+    7 % at 646.5 K [D, CoolProp 8.0 against the R1-76 equation]. Where
+    CoolProp's surface-tension fit gives zero or less below the critical
+    point (methane above 0.99904 T_crit in CoolProp 8), ``sigma`` is NaN,
+    as where CoolProp gives no value: one `WetboilWarning` names it, and a
+    sweep flags those points ``fluid_state``.
 
     Examples
     --------
@@ -766,7 +770,12 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         out["cp_l"][idx] = read(state.cpmass)
         out["k_l"][idx] = read(state.conductivity)
         out["mu_l"][idx] = read(state.viscosity)
-        out["sigma"][idx] = read(state.surface_tension)
+        # CoolProp's surface-tension fit can cross zero just below its critical temperature (methane
+        # above 0.99904 T_crit, CoolProp 8): a saturated liquid below T_crit has sigma > 0, so a
+        # value <= 0 is the fit's, not the fluid's; it is "no value" (warned and flagged as such
+        # below), not an impossible input for every kernel downstream
+        sig = read(state.surface_tension)
+        out["sigma"][idx] = sig if sig > 0.0 else math.nan
         state.update(CP.QT_INPUTS, 1.0, T_s)
         out["rho_v"][idx], h_v = state.rhomass(), state.hmass()
         out["h_lv"][idx] = h_v - h_l
@@ -777,8 +786,9 @@ def from_coolprop(name: str, T: Any = None, p: Any = None) -> Saturation:
         # say where the saturated states are: a temperature in degC or a pressure in bar is the usual cause
         span = (f"T from {t_trip:.6g} K to {t_crit:.6g} K" if p is None
                 else f"p from {p_trip:.6g} Pa to {p_crit:.6g} Pa")
-        report(f"fluids.from_coolprop ({name!r} has saturated states at {span} only, triple point to critical "
-               "point)", values.size, invalid, 0)
+        report(f"fluids.from_coolprop ({name!r} has saturated states at {span} only, from the lowest state "
+               "of CoolProp's equation (the triple point; helium's lambda point) to the critical point)",
+               values.size, invalid, 0)
     # properties CoolProp has no model for (often surface tension or transport properties of less
     # common fluids): say so once here, or every kernel that needs them gives a silent NaN
     have_state = ~np.isnan(out["T"])
