@@ -19,8 +19,8 @@ pub const LIENHARD_DHIR_K: f64 = 0.149;
 /// reaches 1.10 at 0.21. Beyond it, towards the critical point (where the CHF
 /// falls to zero), the value is computed and flagged as extrapolation. For
 /// water the bound is 16.96 MPa (T_sat 625.2 K, p/p_crit 0.77, IAPWS-95);
-/// for R134a, ammonia and methanol p/p_crit 0.73 to 0.75, nitrogen 0.69
-/// (CoolProp).
+/// for R134a, ammonia and methanol p/p_crit 0.73 to 0.75, nitrogen 0.69,
+/// helium 0.62 (CoolProp).
 pub const DENSITY_RATIO_MAX: f64 = 0.21;
 
 /// Whether ρ_v/ρ_l ≤ [`DENSITY_RATIO_MAX`].
@@ -70,7 +70,8 @@ impl Kernel<6, 1> for Zuber {
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "h_lv > 0, rho_l > rho_v > 0, sigma > 0, K > 0, g > 0",
         validity: "saturated pool boiling on a large upward-facing heater; 0.10 <= K <= 0.20 (the constants in use span \
-                   0.13 to 0.18); rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
+                   0.13 to 0.18); rho_v/rho_l <= 0.21 (the library's own near-critical bound, p/p_crit 0.6-0.77 by \
+                   fluid; water below 16.96 MPa)",
         reference: "N. Zuber, Hydrodynamic aspects of boiling heat transfer, AEC Report AECU-4439 (1959); \
                     J.H. Lienhard, V.K. Dhir, J. Heat Transfer 95 (1973) 152-158",
         doi: "10.1115/1.3450013",
@@ -148,7 +149,8 @@ impl Kernel<7, 1> for Kandlikar {
         ],
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "0 <= receding_angle_deg <= 180, 0 <= orientation_deg <= 180, positive properties, rho_l > rho_v",
-        validity: "0 <= orientation_deg <= 90; rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
+        validity: "0 <= orientation_deg <= 90; rho_v/rho_l <= 0.21 (the library's own near-critical bound, p/p_crit \
+                   0.6-0.77 by fluid; water below 16.96 MPa)",
         reference: "S.G. Kandlikar, A theoretical model to predict pool boiling CHF incorporating effects of \
                     contact angle and orientation, J. Heat Transfer 123 (2001) 1071-1079",
         doi: "10.1115/1.1409265",
@@ -376,7 +378,8 @@ impl Kernel<9, 1> for LienhardDhir {
         outputs: &[arg("critical_heat_flux", "W/m2")],
         domain: "geometry code 0-3, size > 0, area > 0, coefficient > 0, positive properties, rho_l > rho_v",
         validity: "large flat plate L' >= 27; small flat plate 9 <= L' <= 20; cylinder and sphere R' >= 0.15; \
-                   rho_v/rho_l <= 0.21 (the library's own bound: water below 16.96 MPa)",
+                   rho_v/rho_l <= 0.21 (the library's own near-critical bound, p/p_crit 0.6-0.77 by fluid; water \
+                   below 16.96 MPa)",
         reference: "J.H. Lienhard, V.K. Dhir, J. Heat Transfer 95 (1973) 152-158; \
                     K.H. Sun, J.H. Lienhard, Int. J. Heat Mass Transfer 13 (1970) 1425-1439",
         doi: "10.1115/1.3450013",

@@ -81,7 +81,8 @@ BERENSON_K = 0.09
 #: kandlikar, lienhard_dhir): the library's own bound, where the factor
 #: sqrt((rho_l + rho_v)/rho_l) these forms omit from Zuber's original reaches
 #: 1.10. Above it (water above 16.96 MPa, p/p_crit 0.77; refrigerants from
-#: about p/p_crit 0.73) the CHF is computed and flagged as extrapolation.
+#: about p/p_crit 0.73, cryogens from 0.62-0.69) the CHF is computed and
+#: flagged as extrapolation.
 DENSITY_RATIO_MAX: float = _core.CHF_DENSITY_RATIO_MAX
 
 
