@@ -195,10 +195,14 @@ def rohsenow(wall_superheat: Any, fluid: Saturation, C_sf: Any = None, n: Any = 
     Notes
     -----
     Clean surfaces in saturated nucleate pool boiling, below the critical
-    heat flux. Stated accuracy: +-100 % in flux at a given superheat, +-30 %
-    in superheat at a given flux [V2]. Constants outside 0.002 <= C_sf <=
-    0.02 or 0.8 <= n <= 2 (the span of the tabulated values) are flagged
-    (`RangeWarning`). The contact angle enters only through C_sf, which is
+    heat flux. The function does not know the CHF of your heater (a thin
+    wire's lies well above a flat plate's), so a superheat past it is not
+    flagged here: at 25 K water at 1 atm gives about twice Zuber's CHF.
+    Compare with the CHF you design to (`curve` and `sweep` do: they end
+    the branch there, or flag it). Stated accuracy: +-100 % in flux at a
+    given superheat, +-30 % in superheat at a given flux [V2]. Constants
+    outside 0.002 <= C_sf <= 0.02 or 0.8 <= n <= 2 (the span of the
+    tabulated values) are flagged (`RangeWarning`). The contact angle enters only through C_sf, which is
     fitted per surface-liquid pair. Verification: the form is [V2]
     (textbook restatements; the Incropera et al. 6th ed. Ex. 10.1 value is
     reproduced in the tests); the original was not read.
