@@ -1,6 +1,7 @@
 """The command line, the built-in demo study and study specifications, run as
 a user would (subprocesses), with their files checked."""
 
+import math
 import pathlib
 import subprocess
 import sys
@@ -673,3 +674,27 @@ def test_design_heat_fluxes_in_kw_per_m2_are_questioned(tmp_path):
         path.write_text(helium)
         run_study(load_spec(path), tmp_path / "out3", spec_text=helium)
     assert not [w for w in rec if "kW/m2?" in str(w.message)], [str(w.message) for w in rec]
+
+
+def test_report_points_to_zuber_for_well_wetting_surfaces_under_kandlikar(tmp_path):
+    # Kandlikar (2001) facing up: (1 + cos b)/16 [2/pi + (pi/4)(1 + cos b)]^(1/2) is 0.178 at b = 20 deg
+    # and 0.186 at 0 deg, 1.36-1.42 times Zuber's pi/24 (identities of the published forms); a study
+    # whose design CHF is Kandlikar's names the surfaces below 20 deg and points to the Zuber margin
+    # (new-user cryogenics trial: liquid nitrogen ranked on Kandlikar, 42 % above Zuber, without a word).
+    for b, ratio in ((20.0, 1.36), (0.0, 1.42)):
+        c = 1 + math.cos(math.radians(b))
+        assert c / 16 * math.sqrt(2 / math.pi + math.pi / 4 * c) / (math.pi / 24) == pytest.approx(ratio, abs=0.005)
+    (tmp_path / "surfaces.csv").write_text("name,static_deg,advancing_deg,receding_deg\n"
+                                           "wicking (invented),8,12,3\n")
+    spec = tmp_path / "study.toml"
+    spec.write_text(SPEC)
+    out = tmp_path / "out"
+    r = run("run", str(spec), "--out", str(out))
+    assert r.returncode == 0, r.stderr
+    text = (out / "report.md").read_text()
+    note = next(line for line in text.splitlines() if line.startswith("Well-wetting surfaces"))
+    assert "wicking (invented) 3 deg" in note and "inline (invented)" not in note and "chf_zuber" in note
+    spec.write_text(SPEC.replace('chf = ["kandlikar", "zuber"]', 'chf = ["zuber", "kandlikar"]'))
+    r = run("run", str(spec), "--out", str(tmp_path / "out2"))
+    assert r.returncode == 0, r.stderr
+    assert "Well-wetting surfaces" not in (tmp_path / "out2" / "report.md").read_text()

@@ -1172,8 +1172,13 @@ def curve(
        given film-boiling flux the wall superheat comes out too small, and so
        does the Leidenfrost superheat (water at 15 MPa: 434 K here, 884 K
        with the vapour at the film temperature; nitrogen at 3 MPa: 38 K
-       against 93 K [D]). For the film regime itself call `film_boiling`
-       with a state at the film temperature.
+       against 93 K [D]). At low reduced pressure it errs the other way
+       for cooling transients: the low film branch puts the Leidenfrost
+       superheat high, so a quench or a cryogenic chill-down is predicted
+       to rewet too early (liquid nitrogen at 1 atm: 66 K here, about 39 K
+       from Berenson's minimum-superheat form with the vapour at the film
+       temperature [D, that form from memory]). For the film regime itself
+       call `film_boiling` with a state at the film temperature.
 
     Wettability enters the curve through the CHF (Kandlikar's receding
     angle) and an onset criterion that uses an angle (``onset="hsu"``)

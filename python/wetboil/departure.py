@@ -103,6 +103,18 @@ def fritz(contact_angle_deg: Any, fluid: Saturation, g: Any = G) -> Any:
     above 90 deg, where boiling data to support the static fit are scarce
     (our own flag, not a published limit).
 
+    Two limits of the form matter in practice, unflagged: it has no
+    pressure or superheat term, so at low pressure (heat pipes, 5-20 kPa)
+    it stays at a few millimetres while bubbles grow much larger (the
+    Jakob-number forms, `cole_rohsenow` and `kocamustafaogullari_ishii`,
+    give tens of millimetres for water at 5 kPa); and it falls to zero with
+    the angle, so for the well-wetting fluids (refrigerants, fluorinated
+    coolants, cryogens at a few degrees) it gives diameters several times
+    below `cole_rohsenow`'s (liquid nitrogen at 1 atm and 3 deg: 0.07 mm
+    against 0.24 mm; measured values of about 0.2-0.5 mm, from memory, low
+    confidence). Compare the methods (``diameter(..., method=[...])``, or
+    a sweep's ``methods={"departure": ...}``) before relying on one.
+
     Three forms of the constant circulate: 0.0208 per degree with
     :math:`\sqrt{\sigma/g\Delta\rho}` (used here, the most cited), and
     0.0148 per degree (= 0.848 per radian) with :math:`\sqrt{2\sigma/g\Delta\rho}`;

@@ -636,6 +636,11 @@ def hsu_active_radii(  # type: ignore[empty-body]  # a template: the front door 
         Contact angle through the liquid [deg], 0 to 180.
     thermal_layer : array_like
         Thickness :math:`\delta` of the superheated liquid layer [m], > 0.
+        Without a measured value, the conduction layer that carries the
+        wall heat flux is the usual estimate, :math:`\delta = k_l
+        (\Delta T_w + \Delta T_{sub})/q''`, which `wetboil.sweep` uses (water
+        at 1 atm, 1e5 W/m2 and 10 K: 68 um). To test measured cavity mouths, compare them with the two radii
+        (``(r >= r_min) & (r <= r_max)``).
     subcooling : array_like, optional
         :math:`\Delta T_{sub} = T_{sat} - T_{bulk}` [K], >= 0; 0 by default.
 

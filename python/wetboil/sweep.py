@@ -631,7 +631,13 @@ def sweep(
         `WetboilValueError`. A static angle of 0 deg gives Fritz's zero
         departure diameter, for which the frequency correlations have no
         answer: ``departure_frequency`` is NaN there, flagged in
-        ``range_flags`` (a valid surface, not an impossible input).
+        ``range_flags`` (a valid surface, not an impossible input). The
+        default departure method, Fritz, has no pressure term and falls to
+        zero with the angle: at low pressure or for well-wetting fluids
+        compare "cole_rohsenow" (see `wetboil.departure.fritz`). The default
+        design CHF, Kandlikar's, is 1.42 times Zuber's at a receding angle
+        of 0 deg (see `wetboil.chf.kandlikar`): keep "zuber" beside it for
+        such fluids.
     chunks : int or mapping, optional
         Chunk sizes (per axis name, or one size for every axis): the result
         is computed lazily on dask, block by block (on a `dask.distributed`
