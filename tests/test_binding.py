@@ -438,6 +438,36 @@ def test_errstate_controls_both_categories():
         wetboil.errstate(invalid="loud")
 
 
+def test_ignored_scalar_elements_give_the_array_path_values_and_stay_captured():
+    """A scalar element whose category is ignored returns what the array path returns, bit for bit
+    and without a word (the fast path answers it: a solver probing outside a range under
+    errstate(out_of_range="ignore") paid 10 us per call on the fallback). Only the ignored category
+    is answered there: the other category still warns, strict mode still raises, and a validity
+    capture (wetboil.validity, the sweep's flags) still sees the element. Behavioural contract; the
+    values are the kernels' own (Kandlikar 2001 beyond 90 deg, Fritz at an impossible angle)."""
+    from wetboil._api import capture_validity
+
+    cases = [(kandlikar, (30.0, WATER, 120.0), "out_of_range"), (fritz, (200.0, WATER), "invalid"),
+             (kandlikar, (30.0, WATER, 170.0), "out_of_range")]  # facing down: no answer (NaN), flagged
+    for f, args, category in cases:
+        with wetboil.errstate(**{category: "ignore"}):
+            array = f(*(np.array([a]) if isinstance(a, float) else a for a in args))[0]
+            with warnings.catch_warnings():
+                warnings.simplefilter("error")
+                value = f(*args)
+            assert type(value) is float and kc.same_bits(value, array), (f, args, value, array)
+            with capture_validity() as cap:
+                f(*args)
+            flags = cap.invalid if category == "invalid" else cap.out_of_range
+            assert bool(np.all(flags)), (f, args)
+            other = "out_of_range" if category == "invalid" else "invalid"
+            with wetboil.errstate(**{category: "raise", other: "ignore"}), pytest.raises(wetboil.WetboilError):
+                f(*args)
+    with wetboil.errstate(invalid="ignore"), pytest.warns(wetboil.RangeWarning):
+        kandlikar(30.0, WATER, 120.0)  # out of range is not ignored here
+
+
+# --------------------------------------------------------------------------- structural errors
 # --------------------------------------------------------------------------- structural errors
 
 

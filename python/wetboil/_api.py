@@ -354,6 +354,8 @@ class ValidityCapture:
 
 
 _CAPTURE: contextvars.ContextVar[Optional[ValidityCapture]] = contextvars.ContextVar("wetboil_capture", default=None)
+# the scalar fast path returns flagged elements itself where their action is "ignore" and nothing captures them
+_core._bind_policy(_STATE, _CAPTURE)
 
 
 @contextlib.contextmanager

@@ -260,6 +260,7 @@ fn _core(m: &Bound<'_, PyModule>) -> PyResult<()> {
     }
     m.add("Front", front::Front::type_object(py))?;
     m.add_function(wrap_pyfunction!(front::make_function, m)?)?;
+    m.add_function(wrap_pyfunction!(front::_bind_policy, m)?)?;
     m.add("MAX_ARGS", front::MAX_ARGS)?;
     m.add_function(wrap_pyfunction!(take_counts, m)?)?;
     m.add_function(wrap_pyfunction!(_set_simd_cap, m)?)?;
