@@ -1001,7 +1001,7 @@ impl Kernel<6, 1> for ZuberFrequency {
 /// 10 (1967) 1023-1040 (DOI not verified here, so not given).
 #[inline(always)]
 pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
-    let ok = (diameter >= 0.0) & positive(g);
+    let ok = non_negative(diameter) & positive(g);
     with_bubble(ok, diameter, IVEY_HYDRODYNAMIC * (g / diameter).sqrt())
 }
 
@@ -1020,7 +1020,7 @@ pub fn ivey_hydrodynamic_frequency(diameter: f64, g: f64) -> f64 {
 /// Reference: as [`ivey_hydrodynamic_frequency`].
 #[inline(always)]
 pub fn ivey_transition_frequency(diameter: f64, g: f64) -> f64 {
-    let ok = (diameter >= 0.0) & positive(g);
+    let ok = non_negative(diameter) & positive(g);
     // D^(-3/4) as 1/(D^(1/2) D^(1/4)): square roots, faster and closer than
     // exp(-0.75 ln D)
     let root = diameter.sqrt();
@@ -1052,7 +1052,7 @@ impl Kernel<2, 1> for IveyHydrodynamicFrequency {
     }
     #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
-        x[0] >= 0.0 && positive(x[1])
+        non_negative(x[0]) && positive(x[1])
     }
     #[inline(always)]
     fn in_range(x: &[f64; 2]) -> bool {
@@ -1082,7 +1082,7 @@ impl Kernel<2, 1> for IveyTransitionFrequency {
     }
     #[inline(always)]
     fn possible(x: &[f64; 2]) -> bool {
-        x[0] >= 0.0 && positive(x[1])
+        non_negative(x[0]) && positive(x[1])
     }
     #[inline(always)]
     fn in_range(x: &[f64; 2]) -> bool {

@@ -511,3 +511,6 @@ def test_a_zero_diameter_has_no_departure_cycle_not_an_impossible_input(water, m
     with wetboil.errstate(invalid="raise", out_of_range="ignore"):
         frequency(d, water, method=method)
     assert wetboil.validity(frequency, d, water, method=method).tolist() == [2, 0]
+    # an infinite diameter stays impossible for every method (the review found Ivey's giving 0 Hz)
+    with pytest.warns(wetboil.InvalidValueWarning):
+        assert np.isnan(frequency(np.inf, water, method=method))
