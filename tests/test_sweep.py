@@ -1354,3 +1354,21 @@ def test_a_nonpositive_coolprop_surface_tension_is_a_missing_value():
     assert math.isnan(near["chf [W/m2]"]) and "fluid_state" in near["flags"]
     assert near["impossible"] == ""  # before: onset, departure and every CHF reported impossible
     assert "fluid_state" not in df[df["T [K]"] == 150.0].iloc[0]["flags"]
+
+
+@pytest.mark.parametrize("onset, superheat_flagged, radius_flagged", [
+    ("hsu", True, True), ("kandlikar", False, True), ("davis_anderson", False, False)])
+def test_onset_outputs_carry_only_the_flags_of_the_angle_they_use(onset, superheat_flagged, radius_flagged):
+    # Forms as the onset methods write them (wetboil.nucleation.onset_superheat): Hsu's superheat and
+    # radius take the static angle; Kandlikar et al. (1997) take the receding angle in the radius only
+    # (sin theta_r), the superheat sqrt(8.8 sigma T q/(rho_v h k)) none; Davis & Anderson (1966) none.
+    # A Wenzel surface whose angles all saturate at 0 deg (r = 3, angles 20-40 deg: r cos > 1, Wenzel
+    # 1936) flags its angles; an onset output carries that flag only if it uses one of them (review).
+    s = Surface("laser r=3 (invented)", 30.0, 40.0, 20.0, angles_are="intrinsic", roughness_ratio=3.0)
+    ds = wetboil.sweep([s], "water", p=101325.0, heat_flux=1e5, methods={"onset": onset})
+    bits = ds["range_flags"].attrs["bits"].split(",")
+    flags = int(ds["range_flags"].values.ravel()[0])
+    flagged = {name for i, name in enumerate(bits) if flags & (1 << i)}
+    assert {"static_angle", "receding_angle"} <= flagged
+    assert ("onset_superheat" in flagged) == superheat_flagged
+    assert ("onset_cavity_radius" in flagged) == radius_flagged

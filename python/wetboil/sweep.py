@@ -445,14 +445,15 @@ def _chain(inputs: Dict[str, Any], methods: Dict[str, Any], fluid: Saturation, s
     for name, value in (("static_angle", static), ("advancing_angle", adv), ("receding_angle", rec)):
         res.add(name, value, *angle_flags[name])
     onset_angle = rec if methods["onset"] == "kandlikar" else static
-    # the angle the onset takes (Bergles-Rohsenow, a fit of water's onset superheat, takes none)
-    onset_by: Optional[str] = {"kandlikar": "receding_angle", "bergles_rohsenow": None}.get(methods["onset"],
-                                                                                           "static_angle")
+    # the angle each onset output depends on: Hsu's superheat and radius on the static angle; Kandlikar's
+    # radius on the receding one (his superheat takes none); Davis-Anderson and Bergles-Rohsenow take none
+    superheat_by: Optional[str] = "static_angle" if methods["onset"] == "hsu" else None
+    radius_by = {"hsu": "static_angle", "kandlikar": "receding_angle"}.get(methods["onset"])
     run("onset_superheat", lambda: nucleation.onset_superheat(q, fluid, onset_angle, method=methods["onset"]),
-        onset_by)
+        superheat_by)
     if methods["onset"] in nucleation.ONSET_RADIUS_METHODS:
         run("onset_cavity_radius", lambda: nucleation.onset_cavity_radius(q, fluid, onset_angle, method=methods["onset"]),
-            onset_by)
+            radius_by)
     else:  # Bergles-Rohsenow: a fit of the onset superheat, with no nucleus and so no radius
         res.add("onset_cavity_radius", math.nan, False, False, uses_state=False)
 
@@ -678,10 +679,12 @@ def sweep(
         outside its published validity range) and ``invalid_flags`` (bit i
         set: quantity i is NaN because an input was physically impossible);
         a quantity computed from a flagged angle carries that angle's flags
-        too (the onset and the cavity range from the static angle, or the
-        receding one with Kandlikar's onset; the departure diameter and
-        frequency from the static angle; Kandlikar's CHF from the receding
-        angle; an angle is flagged each on its own where Wenzel or
+        too (Hsu's onset superheat and radius and the active cavity range
+        from the static angle; Kandlikar's onset radius from the receding
+        one, his onset superheat and Davis-Anderson's taking no angle; the
+        departure diameter and frequency from the static angle, except
+        Cole-Rohsenow's; Kandlikar's CHF from the receding angle; an angle
+        is flagged each on its own where Wenzel or
         Cassie-Baxter left their range, all three where the probe-liquid
         prediction did);
         the bit order is in their ``attrs["bits"]`` (and as CF's
@@ -1161,7 +1164,11 @@ def water_chain(p: Any, contact_angle_deg: Any, receding_angle_deg: Any, heat_fl
     are computed and flagged (`RangeWarning`) as by the separate functions:
     T_sat up to 0.997 T_crit (645.15 K), contact angles up to 90 deg
     (Fritz), orientations up to 90 deg (Kandlikar; beyond, the CHF is NaN
-    where his form has no answer, as in `wetboil.chf.kandlikar`).
+    where his form has no answer, as in `wetboil.chf.kandlikar`), pressures
+    up to 16.955 MPa (Kandlikar's near-critical bound rho_v/rho_l <= 0.21),
+    and Hsu's onset superheat at 0 deg up to 0.1 T_sat. The chain is one
+    kernel: an element outside any step's range is counted once, for all
+    four outputs.
 
     References
     ----------
