@@ -417,3 +417,38 @@ def test_one_errstate_object_shared_by_asyncio_tasks():
         return await asyncio.gather(task(0.02), task(0.0), task(0.01))
 
     assert asyncio.run(main()) == [("ignore", "warn")] * 3
+
+
+def test_errstate_refuses_what_it_cannot_keep():
+    """A coroutine or generator function decorated with errstate would run its body after the
+    decorator's block closed (the policy silently not applied): refused. An errstate left in another
+    context than it was entered in (PEP 567: contextvars.Context.run) raises instead of restoring
+    another block's saved policy, which left strict mode on (review). Python's semantics are the
+    reference; no physical number is involved."""
+    import contextvars
+
+    with pytest.raises(wetboil.WetboilTypeError, match="coroutine or generator"):
+        @wetboil.errstate(out_of_range="raise")
+        async def coro():
+            return None
+    with pytest.raises(wetboil.WetboilTypeError, match="coroutine or generator"):
+        @wetboil.errstate(out_of_range="raise")
+        def gen():
+            yield 1
+    cm = wetboil.errstate(out_of_range="raise")
+    cm.__enter__()
+    try:
+        with pytest.raises(wetboil.WetboilError, match="another thread or task"):
+            contextvars.Context().run(cm.__exit__, None, None, None)
+        assert wetboil.geterr()["out_of_range"] == "raise"  # this context's block is still open
+    finally:
+        cm.__exit__(None, None, None)
+    assert wetboil.geterr() == {"invalid": "warn", "out_of_range": "warn"}
+    a, b = wetboil.errstate(invalid="ignore"), wetboil.errstate(invalid="raise")
+    a.__enter__()
+    b.__enter__()
+    with pytest.raises(wetboil.WetboilError, match="out of order"):
+        a.__exit__(None, None, None)
+    b.__exit__(None, None, None)
+    a.__exit__(None, None, None)
+    assert wetboil.geterr() == {"invalid": "warn", "out_of_range": "warn"}

@@ -103,9 +103,12 @@ class errstate(contextlib.ContextDecorator):
     lazy (dask-backed) result keeps the setting of the call that built it,
     whenever and wherever it is computed; its warnings come at compute time,
     one per chunk. Threads started inside the block (a thread pool) begin
-    with the default policy: open the block inside the function they run.
-    One errstate object may be shared: by several threads at once, entered
-    again inside itself, or used as a decorator (``@wetboil.errstate(...)``).
+    with the default policy, unless started with a copy of the context
+    (``asyncio.to_thread``, ``contextvars.copy_context().run``): open the
+    block inside the function they run. One errstate object may be shared:
+    by several threads at once, entered again inside itself, or used as a
+    decorator of a plain function (``@wetboil.errstate(...)``; a coroutine
+    or generator function is refused, as its body runs after the call).
 
     In a loop or a solver, each call that meets a problem emits its own
     warning. Python's default filter shows a given message once per line of
@@ -136,17 +139,30 @@ class errstate(contextlib.ContextDecorator):
         self._invalid = invalid
         self._out_of_range = out_of_range
 
+    def __call__(self, func: Any) -> Any:
+        # a decorated coroutine or generator function would return its coroutine or generator before
+        # running a line of its body, outside the block: refuse it rather than apply nothing
+        import inspect
+
+        if inspect.iscoroutinefunction(func) or inspect.isgeneratorfunction(func) or inspect.isasyncgenfunction(func):
+            raise WetboilTypeError(f"errstate: cannot decorate {getattr(func, '__qualname__', func)!r}, a coroutine or "
+                                   "generator function (its body runs after the call returns); open the block inside it")
+        return super().__call__(func)
+
     def __enter__(self) -> "errstate":
         old = _STATE.get()
-        _SAVED.set(_SAVED.get() + (old,))
+        _SAVED.set(_SAVED.get() + ((self, old),))
         _STATE.set(_State(self._invalid or old.invalid, self._out_of_range or old.out_of_range))
         return self
 
     def __exit__(self, *exc) -> None:
         saved = _SAVED.get()
-        if saved:  # always, unless __exit__ is called without __enter__ in this thread or task
-            _STATE.set(saved[-1])
-            _SAVED.set(saved[:-1])
+        if not saved or saved[-1][0] is not self:
+            # left in another thread or task than it was entered in, or out of order: restoring another
+            # block's saved policy would leave it (strict mode, say) on for the rest of this context
+            raise WetboilError("errstate: exited in another thread or task than it was entered in, or out of order")
+        _STATE.set(saved[-1][1])
+        _SAVED.set(saved[:-1])
 
 
 def _stacklevel() -> int:
