@@ -908,3 +908,22 @@ def test_advice_warnings_inside_a_curve_come_one_by_one(water):
     advice = [str(w.message) for w in rec if w.category is wetboil.WetboilWarning]
     assert len(advice) == 3 and "boiling.curve: receding_angle_deg is not used: chf='zuber' has no " \
         "wettability term" in advice and all(m.count("boiling.curve:") == 1 for m in advice), advice
+
+
+def test_rohsenow_defaults_fill_the_same_on_the_quick_and_the_checked_path():
+    # Rohsenow's defaults for water: C_sf 0.013 (water on polished copper, SURFACE_CONSTANTS) and
+    # n = 1.0 (Vachon, Nix & Tanger's water exponent, common practice): a water() state takes a quick
+    # fill, other spellings of water the checked one; both give the explicit call's bits, silently.
+    # Another fluid still warns about the borrowed constant (review of the quick fill).
+    from wetboil.fluids import water
+
+    w = water(p=101325.0)
+    for state in (w, w.replace(name="Water"), w.replace(name="h2o")):
+        with warnings.catch_warnings():
+            warnings.simplefilter("error")
+            for x in (10.0, np.array([5.0, 15.0])):
+                assert np.array_equal(rohsenow(x, state), rohsenow(x, state, 0.013, 1.0))
+                assert np.array_equal(rohsenow_superheat(x * 1e4, state), rohsenow_superheat(x * 1e4, state, 0.013, 1.0))
+    with pytest.warns(wetboil.WetboilWarning, match="0.013"):
+        q = rohsenow(10.0, w.replace(name="R134a"))
+    assert q == rohsenow(10.0, w, 0.013, 1.7)

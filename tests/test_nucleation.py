@@ -476,7 +476,7 @@ def test_onset_flag_marks_where_the_linear_embryo_fails_against_the_saturation_l
     # radius y / (1 + cos theta)) with the embryo superheat read from CoolProp's
     # saturation line, T_sat(p + 2 sigma / r) - T_sat(p), instead of the
     # linearised Clausius-Clapeyron slope. Where the flag is off the two agree
-    # to a few percent; where it is on (methanol at 223 K, p = 0.7 kPa, from a
+    # to a few percent; where it is on (methanol at 223 K, p = 79 Pa by CoolProp, from a
     # new-user heat-pipe trial: 165 K against 63 K) the linear value is far off.
     CP = pytest.importorskip("CoolProp.CoolProp")
     from wetboil.fluids import from_coolprop

@@ -116,7 +116,9 @@ def zuber(fluid: Saturation, K: Any = ZUBER_K, g: Any = G) -> Any:
     at 7 MPa, 7.7 % at 15 MPa, 10 % for R134a at 3 MPa (CoolProp's saturated
     densities [D]); leaving it out errs low, the conservative side. Saturated pool boiling on a large, clean,
     upward-facing heater; the model knows nothing of wettability (see
-    `kandlikar`). Constants outside 0.10-0.20 are flagged (`RangeWarning`).
+    `kandlikar`). Constants outside 0.10-0.20 are flagged (`RangeWarning`),
+    and so is rho_v/rho_l above `DENSITY_RATIO_MAX` (near the critical
+    point; the library's own bound, see the module notes).
 
     Caution: CHF correlations scatter by tens of percent; apply margins and
     follow applicable codes.
@@ -328,8 +330,9 @@ def lienhard_dhir(
     Returns
     -------
     float, ndarray, DataArray or Series
-        Critical heat flux [W/m2]. Sizes outside the published range are
-        computed and flagged (`RangeWarning`).
+        Critical heat flux [W/m2]. Sizes outside the published range, and
+        states with rho_v/rho_l above `DENSITY_RATIO_MAX` (near the
+        critical point), are computed and flagged (`RangeWarning`).
 
     Notes
     -----

@@ -814,7 +814,7 @@ def onset_superheat(heat_flux: Any, fluid: Saturation, contact_angle_deg: Any = 
     `embryo_superheat` uses for its linear form (our own). For "hsu" the
     test takes the superheat at 0 deg, the largest of any angle, so that
     the flag does not depend on the angle: water at 1e5 W/m2 is flagged
-    below about 3.6 kPa, methanol at 223 K (0.7 kPa) at any angle. Bergles &
+    below about 3.6 kPa, methanol at 223 K (79 Pa) at any angle. Bergles &
     Rohsenow fitted water from 15 to 2000 psia (1.03-138 bar); outside,
     `RangeWarning` (water at 1 atm, 14.7 psia, lies 2 % below the range and
     is flagged). Water at 1 atm and 1e5 W/m2 [D, this function with IAPWS
