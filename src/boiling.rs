@@ -446,7 +446,9 @@ pub fn rpi_partition(
 
 #[inline(always)]
 fn rpi_possible(x: &[f64; 12]) -> bool {
-    all_positive!(x[1], x[2], x[6], x[8], x[9], x[10], x[11]; x[0], x[3], x[4], x[5]) & densities(x[7], x[8])
+    // the subcooling may be negative (a superheated near-wall liquid, T_l > T_sat, as in a CFD cell next to a
+    // boiling wall): the fluxes take T_w - T_l = superheat + subcooling only, which must not be negative
+    all_positive!(x[1], x[2], x[6], x[8], x[9], x[10], x[11]; x[0], x[3], x[3] + x[4], x[5]) & densities(x[7], x[8])
 }
 
 /// Kernel of [`rpi_partition`].
@@ -478,7 +480,8 @@ impl Kernel<12, 5> for RpiPartition {
             arg("total", "W/m2"),
             arg("quench_area_fraction", "-"),
         ],
-        domain: "site_density, superheat, subcooling, convection coefficient >= 0; diameter, frequency, area factor, \
+        domain: "site_density, superheat, convection coefficient >= 0; superheat + subcooling >= 0 (T_w >= T_l; a \
+                 superheated near-wall liquid, subcooling < 0, is possible); diameter, frequency, area factor, \
                  properties > 0; rho_l > rho_v",
         validity: "area_factor * site_density * pi * D^2 / 4 <= 1 (influence areas do not cover the wall)",
         reference: "N. Kurul, M.Z. Podowski, Multidimensional effects in forced convection subcooled boiling, \
@@ -1078,6 +1081,13 @@ mod tests {
         assert_eq!(y[2], 0.0);
         assert_eq!(s, Status::OutOfRange);
         assert!(rpi_partition(-1.0, d, f, 10.0, 0.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl)[0].is_nan());
+        // A superheated near-wall liquid (subcooling -4 K): T_w - T_l = 6 K drives quenching and convection;
+        // a liquid hotter than the wall has no answer.
+        let s = rpi_partition(n, d, f, 10.0, -4.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl);
+        assert_relative_eq!(s[2], 2000.0 * (1.0 - a) * 6.0, max_relative = 1e-14);
+        assert_eq!(s[0], r[0]);
+        assert!(rpi_partition(n, d, f, 10.0, -11.0, 2000.0, 4.0, RL, RV, HLV, kl, cpl)[3].is_nan());
+        assert!(rpi_partition(n, d, f, 10.0, f64::NEG_INFINITY, 2000.0, 4.0, RL, RV, HLV, kl, cpl)[3].is_nan());
     }
 
     #[test]

@@ -352,6 +352,41 @@ def test_partition_arrays(water):
     assert r.total.shape == (3,) and np.all(np.diff(r.total) > 0)
 
 
+def test_partition_superheated_near_wall_liquid(water):
+    # Kurul & Podowski (1990) drive quenching and convection by T_w - T_l only [structure from memory,
+    # high confidence]; the liquid next to a boiling wall may be superheated (T_l > T_sat, subcooling
+    # < 0), the case for which Tolubinsky & Kostanchuk's cap D <= 1.4 mm exists (reached below
+    # -45 ln(1.4/0.6) = -38.1 K) [form V2, as restated with the RPI model]. Such elements were NaN as
+    # "physically impossible" (new-user CFD trial). Hand calculation of the RPI terms below.
+    n_a, dtw, sub, h_c = 1e5, 45.0, -40.0, 2.0e4
+    with pytest.warns(wetboil.RangeWarning, match="subcooling"):  # outside Tolubinsky's data: flagged
+        r = partition(dtw, water, convection_coefficient=h_c, subcooling=sub, site_density=n_a)
+    d = 1.4e-3  # the cap: 0.6 mm exp(40/45) = 1.46 mm > 1.4 mm
+    assert r.departure_diameter == pytest.approx(d, rel=1e-14)
+    f = math.sqrt(4 * 9.80665 * (water.rho_l - water.rho_v) / (3 * d * water.rho_l))  # Cole, C_D = 1
+    area = 4 * n_a * math.pi * d**2 / 4
+    alpha = water.k_l / (water.rho_l * water.cp_l)
+    dt = dtw + sub  # T_w - T_l = 5 K
+    assert r.evaporation == pytest.approx(n_a * f * math.pi * d**3 / 6 * water.rho_v * water.h_lv, rel=1e-12)
+    assert r.quenching == pytest.approx(area * 2 * water.k_l * f * math.sqrt(0.8 / f / (math.pi * alpha)) * dt,
+                                        rel=1e-12)
+    assert r.convection == pytest.approx(h_c * (1 - area) * dt, rel=1e-12)
+    # liquid hotter than the wall (T_w < T_l): still no answer
+    with pytest.warns(wetboil.InvalidValueWarning), wetboil.errstate(out_of_range="ignore"):
+        assert math.isnan(partition(5.0, water, convection_coefficient=h_c, subcooling=-6.0, site_density=n_a).total)
+
+
+def test_water_only_closures_say_why_for_another_fluid(water):
+    # Wang & Dhir (1993), Basu et al. (2002), Lemmert & Chawla (1977) and Tolubinsky & Kostanchuk (1970)
+    # were fitted to water [their titles and abstracts]: a refrigerant's state is flagged, and the
+    # message says so (it said only "outside the published validity range", new-user trial).
+    r134a = water.replace(name="R134a")
+    with pytest.warns(wetboil.RangeWarning, match=r"'basu' was fitted to water data only; fluid 'R134a'"):
+        wetboil.nucleation.site_density(5.0, r134a, 45.0, method="basu")
+    with pytest.warns(wetboil.RangeWarning, match=r"tolubinsky_kostanchuk.*fitted to subcooled water"):
+        partition(5.0, r134a, convection_coefficient=3e3, subcooling=5.0, site_density=1e5)
+
+
 # --------------------------------------------------------------------------- film boiling and the curve
 
 

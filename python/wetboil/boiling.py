@@ -921,7 +921,11 @@ def partition(
         Single-phase coefficient :math:`h_c` [W/(m2 K)] (natural convection
         in a pool, forced convection in a channel); keyword, required.
     subcooling : array_like, optional
-        :math:`T_{sat} - T_l` [K]; 0 by default.
+        :math:`T_{sat} - T_l` [K]; 0 by default. Negative values (liquid
+        next to the wall superheated, :math:`T_l > T_{sat}`, as in a CFD
+        cell near a boiling wall) are accepted while :math:`T_w \ge T_l`:
+        the fluxes use :math:`T_w - T_l` only, and Tolubinsky & Kostanchuk's
+        1.4 mm cap is reached below -38 K (flagged, outside their data).
     site_density, departure, frequency, area_factor : str, number or callable
         The closures (above).
     receding_angle_deg : array_like, optional
@@ -1012,6 +1016,11 @@ def partition(
         if given is not None and not used:
             _warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
                           f"{label(site_density)}, departure={label(departure)}): {hint}", WetboilWarning)
+    if (isinstance(departure, str) and departure == "tolubinsky_kostanchuk" and fluid.name is not None
+            and not _is_water(fluid.name)):
+        size = int(np.size(d))
+        report("departure 'tolubinsky_kostanchuk'", size, 0, size,
+               validity=f"fitted to subcooled water boiling only; fluid {fluid.name!r}")
     out = _rpi_kernel(n_a, d, f, wall_superheat, subcooling, convection_coefficient, k, fluid)
     e, qq, c, total, area = out
     return Partition(e, qq, c, total, area, n_a, d, f)

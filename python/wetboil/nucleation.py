@@ -1100,6 +1100,7 @@ def site_density(wall_superheat: Any, fluid: Saturation, contact_angle_deg: Any,
         with errstate(out_of_range="ignore"):
             out = call()
         size = int(np.size(out))
-        report(function, size, 0, size)
+        # say why: without the reason the warning reads as a bare "outside the range"
+        report(function, size, 0, size, validity=f"method {method!r} was fitted to water data only; fluid {fluid.name!r}")
         return out
     return call()
