@@ -691,8 +691,9 @@ def _report_text(study: Study, ds: Any, summary: Any, plots: List[Tuple[str, str
     for s in study.surfaces:
         a, b, c = (_angle_cell(ds, name, s.name, study.axis)
                    for name in ("static_angle", "advancing_angle", "receding_angle"))
-        src = "from probe liquids" if s.probe_static_deg else "as measured"
-        if s.angles_are == "intrinsic":  # the conversion Surface.angles applies
+        intrinsic = s.angles_are == "intrinsic"
+        src = "from probe liquids" if s.probe_static_deg else ("measured" if intrinsic else "as measured")
+        if intrinsic:  # the conversion Surface.angles applies
             src += (f"; intrinsic, Cassie-Baxter (f = {s.solid_fraction:g}, r = {s.roughness_ratio:g})"
                     if s.solid_fraction is not None else f"; intrinsic, Wenzel (r = {s.roughness_ratio:g})")
         lines.append(f"| {_cell(s.name)} | {a} | {b} | {c} | {_nucleate_cell(study, s)} | "
