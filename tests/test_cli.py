@@ -117,14 +117,21 @@ receding_deg = 40.0
 """
 
 
-def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
-    (tmp_path / "surfaces.csv").write_text("name,static_deg,advancing_deg,receding_deg,C_sf\n"
-                                           "from csv (invented),30,40,20,0.013\n")
+def run_study(tmp_path, surfaces_csv, spec_text=SPEC, out="out"):
+    """Write surfaces.csv and study.toml into tmp_path, run the spec, and check it succeeded: the
+    report folder."""
+    (tmp_path / "surfaces.csv").write_text(surfaces_csv)
     spec = tmp_path / "study.toml"
-    spec.write_text(SPEC)
-    out = tmp_path / "out"
-    r = run("run", str(spec), "--out", str(out))
+    spec.write_text(spec_text)
+    folder = tmp_path / out
+    r = run("run", str(spec), "--out", str(folder))
     assert r.returncode == 0, r.stderr
+    return folder, r
+
+
+def test_run_a_spec_with_a_surfaces_file_and_chunks(tmp_path):
+    out, r = run_study(tmp_path, "name,static_deg,advancing_deg,receding_deg,C_sf\n"
+                                 "from csv (invented),30,40,20,0.013\n")
     _check_outputs(out, ["from csv (invented)", "inline (invented)"], r.stdout)
 
 
@@ -526,13 +533,9 @@ def test_report_tables_keep_their_columns_with_pipes_and_line_breaks_in_names_an
     the line's end; '\\|' is a literal pipe)."""
     import re
 
-    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
-    spec = tmp_path / "study.toml"
-    spec.write_text(SPEC.replace('name = "inline (invented)"',
-                                 'name = "coat A | B (invented)"\nnotes = """two\nlines | and a pipe"""'))
-    out = tmp_path / "out"
-    r = run("run", str(spec), "--out", str(out))
-    assert r.returncode == 0, r.stderr
+    out, _ = run_study(tmp_path, "name,static_deg\nfrom csv (invented),30\n",
+                       SPEC.replace('name = "inline (invented)"',
+                                    'name = "coat A | B (invented)"\nnotes = """two\nlines | and a pipe"""'))
     text = (out / "report.md").read_text()
     rows = [line for line in text.splitlines() if "coat A" in line and line.startswith("|")]
     assert len(rows) == 2, rows  # the surfaces table and the ranking, one line each
@@ -557,13 +560,8 @@ def test_summary_csv_names_cannot_run_as_spreadsheet_formulas(tmp_path):
 
     import xarray as xr
 
-    (tmp_path / "surfaces.csv").write_text("name,static_deg\nfrom csv (invented),30\n")
-    spec = tmp_path / "study.toml"
     extra = "".join(f"\n[[surface]]\nname = '{n}'\nstatic_deg = 50.0\n" for n in FORMULA_NAMES)  # TOML literal
-    spec.write_text(SPEC + extra)
-    out = tmp_path / "out"
-    r = run("run", str(spec), "--out", str(out))
-    assert r.returncode == 0, r.stderr
+    out, r = run_study(tmp_path, "name,static_deg\nfrom csv (invented),30\n", SPEC + extra)
     with open(out / "summary.csv", newline="", encoding="utf-8") as fh:
         cells = [row["surface"] for row in csv.DictReader(fh)]
     assert not any(c.startswith(("=", "+", "-", "@", "\t", "\r")) for c in cells), sorted(set(cells))
@@ -684,17 +682,11 @@ def test_report_points_to_zuber_for_well_wetting_surfaces_under_kandlikar(tmp_pa
     for b, ratio in ((20.0, 1.36), (0.0, 1.42)):
         c = 1 + math.cos(math.radians(b))
         assert c / 16 * math.sqrt(2 / math.pi + math.pi / 4 * c) / (math.pi / 24) == pytest.approx(ratio, abs=0.005)
-    (tmp_path / "surfaces.csv").write_text("name,static_deg,advancing_deg,receding_deg\n"
-                                           "wicking (invented),8,12,3\n")
-    spec = tmp_path / "study.toml"
-    spec.write_text(SPEC)
-    out = tmp_path / "out"
-    r = run("run", str(spec), "--out", str(out))
-    assert r.returncode == 0, r.stderr
+    wicking = "name,static_deg,advancing_deg,receding_deg\nwicking (invented),8,12,3\n"
+    out, _ = run_study(tmp_path, wicking)
     text = (out / "report.md").read_text()
     note = next(line for line in text.splitlines() if line.startswith("Well-wetting surfaces"))
     assert "wicking (invented) 3 deg" in note and "inline (invented)" not in note and "chf_zuber" in note
-    spec.write_text(SPEC.replace('chf = ["kandlikar", "zuber"]', 'chf = ["zuber", "kandlikar"]'))
-    r = run("run", str(spec), "--out", str(tmp_path / "out2"))
-    assert r.returncode == 0, r.stderr
-    assert "Well-wetting surfaces" not in (tmp_path / "out2" / "report.md").read_text()
+    out, _ = run_study(tmp_path, wicking, SPEC.replace('chf = ["kandlikar", "zuber"]', 'chf = ["zuber", "kandlikar"]'),
+                       "out2")
+    assert "Well-wetting surfaces" not in (out / "report.md").read_text()
