@@ -823,7 +823,12 @@ def _departure(
         return method
     check_choice("boiling.partition", "departure closure", method, DEPARTURE_CLOSURES)
     if method == "tolubinsky_kostanchuk":
-        return _tolubinsky(subcooling)
+        d = _tolubinsky(subcooling)
+        if fluid.name is not None and not _is_water(fluid.name):  # the closure's data are water's
+            size = int(np.size(d))
+            report("departure 'tolubinsky_kostanchuk'", size, 0, size,
+                   validity=f"fitted to subcooled water boiling only; fluid {fluid.name!r}")
+        return d
     from . import departure
 
     if method == "cole_rohsenow":
@@ -1016,11 +1021,6 @@ def partition(
         if given is not None and not used:
             _warn(f"boiling.partition: {name} is not used by the chosen closures (site_density="
                           f"{label(site_density)}, departure={label(departure)}): {hint}", WetboilWarning)
-    if (isinstance(departure, str) and departure == "tolubinsky_kostanchuk" and fluid.name is not None
-            and not _is_water(fluid.name)):
-        size = int(np.size(d))
-        report("departure 'tolubinsky_kostanchuk'", size, 0, size,
-               validity=f"fitted to subcooled water boiling only; fluid {fluid.name!r}")
     out = _rpi_kernel(n_a, d, f, wall_superheat, subcooling, convection_coefficient, k, fluid)
     e, qq, c, total, area = out
     return Partition(e, qq, c, total, area, n_a, d, f)
